@@ -1,0 +1,63 @@
+package dev.mixwright.catalog;
+
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+
+/** A validated catalog: everything a solve needs, in the order of the file. */
+public record Catalog(
+    int format,
+    String name,
+    String currency,
+    String period,
+    List<Resource> resources,
+    List<Group> groups,
+    List<Rule> rules,
+    List<Segment> segments,
+    Optional<PortfolioSpec> portfolio) {
+
+  public Catalog {
+    resources = List.copyOf(resources);
+    groups = List.copyOf(groups);
+    rules = List.copyOf(rules);
+    segments = List.copyOf(segments);
+  }
+
+  public int resourceIndex(String id) {
+    for (int i = 0; i < resources.size(); i++) {
+      if (resources.get(i).id().equals(id)) {
+        return i;
+      }
+    }
+    return -1;
+  }
+
+  public int groupIndex(String id) {
+    for (int i = 0; i < groups.size(); i++) {
+      if (groups.get(i).id().equals(id)) {
+        return i;
+      }
+    }
+    return -1;
+  }
+
+  public int segmentIndex(String id) {
+    for (int i = 0; i < segments.size(); i++) {
+      if (segments.get(i).id().equals(id)) {
+        return i;
+      }
+    }
+    return -1;
+  }
+
+  static Map<String, List<String>> orderedCopy(Map<String, List<String>> m) {
+    if (m == null || m.isEmpty()) {
+      return Map.of();
+    }
+    LinkedHashMap<String, List<String>> copy = new LinkedHashMap<>();
+    m.forEach((k, v) -> copy.put(k, List.copyOf(v)));
+    return Collections.unmodifiableMap(copy);
+  }
+}
