@@ -1,0 +1,127 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Group;
+import dev.mixwright.catalog.Resource;
+import dev.mixwright.catalog.Segment;
+import dev.mixwright.report.Json;
+import dev.mixwright.space.SpaceCount;
+import dev.mixwright.space.VariantSpace;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(
+    name = "check",
+    mixinStandardHelpOptions = true,
+    description = {
+      "Validates a catalog and describes it: groups, rules, resources, segments and the exact number",
+      "of buildable variants, in total and per segment. Every problem is named by its path in the file."
+    })
+final class CheckCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Parameters(index = "0", paramLabel = "CATALOG", description = "catalog file (.yaml, .yml or .json)")
+  Path catalogFile;
+
+  @Option(names = "--json", description = "print the description as JSON")
+  boolean json;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    Catalog catalog = Inputs.catalog(catalogFile);
+    VariantSpace space = new VariantSpace(catalog);
+    SpaceFacts facts = SpaceFacts.of(space);
+    List<String> notes = notes(catalog, facts);
+    if (json) {
+      out.println(Json.pretty().writeValueAsString(toJson(catalog, space, facts, notes)));
+    } else {
+      print(out, catalog, space, facts, notes);
+    }
+    return facts.nothingSellable() ? ExitCodes.STOPPED : ExitCodes.OK;
+  }
+
+  static List<String> notes(Catalog catalog, SpaceFacts facts) {
+    List<String> notes = new ArrayList<>();
+    if (facts.total().isEmpty()) {
+      notes.add("no variant is buildable: " + facts.emptyReason());
+    }
+    for (int s = 0; s < catalog.segments().size(); s++) {
+      if (facts.perSegment().get(s).isEmpty() && !facts.total().isEmpty()) {
+        notes.add("segments[" + s + "] (" + catalog.segments().get(s).id()
+            + ") accepts no buildable variant: it will sell nothing");
+      }
+    }
+    return notes;
+  }
+
+  private static ObjectNode toJson(Catalog c, VariantSpace space, SpaceFacts facts, List<String> notes) {
+    ObjectNode n = Json.pretty().createObjectNode();
+    n.put("valid", true);
+    n.put("name", c.name());
+    n.put("groups", c.groups().size());
+    n.put("choices", space.totalChoices());
+    n.put("rules", c.rules().size());
+    n.put("resources", c.resources().size());
+    putCount(n, "buildableVariants", facts.total());
+    ArrayNode segs = n.putArray("segments");
+    for (int s = 0; s < c.segments().size(); s++) {
+      ObjectNode o = segs.addObject();
+      o.put("id", c.segments().get(s).id());
+      putCount(o, "acceptedVariants", facts.perSegment().get(s));
+    }
+    ArrayNode ns = n.putArray("notes");
+    notes.forEach(ns::add);
+    return n;
+  }
+
+  private static void putCount(ObjectNode n, String field, SpaceCount count) {
+    if (count.exact()) {
+      n.put(field, count.value().toString());
+    } else {
+      n.putNull(field);
+      n.put(field + "AtMost", count.value().toString());
+    }
+  }
+
+  private static void print(PrintWriter out, Catalog c, VariantSpace space, SpaceFacts facts, List<String> notes) {
+    out.println(c.name() + " — valid");
+    out.println(String.format(Locale.ROOT, "  %d option groups, %d choices in all", c.groups().size(), space.totalChoices()));
+    for (Group g : c.groups()) {
+      out.println(String.format(Locale.ROOT, "    %-16s %2d options%s", g.id(), g.options().size(),
+          g.required() ? "" : " + none (optional)"));
+    }
+    out.println(String.format(Locale.ROOT, "  %d rules (%d forbidden combinations after compiling)",
+        c.rules().size(), space.nogoodCount()));
+    out.println("  " + c.resources().size() + " resources");
+    for (Resource r : c.resources()) {
+      out.println(String.format(Locale.ROOT, "    %-16s capacity %s %s", r.id(), Numbers.qty(r.capacity()),
+          r.unit() == null ? "" : r.unit()));
+    }
+    out.println("  buildable variants: " + facts.total().text());
+    out.println("  " + c.segments().size() + " segments");
+    for (int s = 0; s < c.segments().size(); s++) {
+      Segment seg = c.segments().get(s);
+      out.println(String.format(Locale.ROOT, "    %-16s demand %s, max share %s, accepts %s variants",
+          seg.id(), Numbers.qty(seg.demand()), Numbers.qty(seg.maxShare()), facts.perSegment().get(s).text()));
+    }
+    c.portfolio().ifPresent(p -> out.println(String.format(Locale.ROOT,
+        "  portfolio: introduction cost %s per variant, at most %s variants, minimum lot %s",
+        Numbers.money(p.introductionCost()), p.maxVariants() == Integer.MAX_VALUE ? "unlimited" : p.maxVariants(),
+        Numbers.qty(p.minLot()))));
+    for (String note : notes) {
+      out.println("  note: " + note);
+    }
+  }
+}

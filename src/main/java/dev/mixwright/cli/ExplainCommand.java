@@ -1,0 +1,172 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.explain.Explainer;
+import dev.mixwright.explain.Explanation;
+import dev.mixwright.report.Json;
+import dev.mixwright.report.RunFolder;
+import dev.mixwright.report.RunReader;
+import dev.mixwright.space.VariantSpace;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(
+    name = "explain",
+    mixinStandardHelpOptions = true,
+    description = {
+      "Shows why a variant pays or not in a segment at the run's shadow prices: its margin, what each",
+      "resource and the segment's demand charge it, its reduced cost, and the price change at which",
+      "it would enter the plan."
+    })
+final class ExplainCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
+  Path runDir;
+
+  @Option(names = "--segment", required = true, paramLabel = "S", description = "segment id")
+  String segmentId;
+
+  @Option(names = "--variant", required = true, paramLabel = "G=O,...",
+      description = "one option per group, e.g. frame=step,motor=mid750 (optional groups left out mean none)")
+  String variantText;
+
+  @Option(names = "--json", description = "print the explanation as JSON")
+  boolean json;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    RunFolder folder = new RunFolder(runDir);
+    if (!Files.isRegularFile(folder.catalogCopy()) || !Files.isRegularFile(folder.result())) {
+      throw new UserError(runDir + " is not a finished run folder (needs catalog.json and result.json from 'mixwright solve --out')");
+    }
+    Catalog catalog = CatalogLoader.load(folder.catalogCopy());
+    VariantSpace space = new VariantSpace(catalog);
+    int s = catalog.segmentIndex(segmentId);
+    if (s < 0) {
+      throw new UserError("--segment: no segment '" + segmentId + "'; segments are "
+          + catalog.segments().stream().map(x -> x.id()).toList());
+    }
+    int[] v;
+    try {
+      v = space.parse(parseVariant(variantText));
+    } catch (IllegalArgumentException e) {
+      throw new UserError("--variant: " + e.getMessage());
+    }
+    RunReader.RunView run = RunReader.view(catalog, RunReader.readResult(runDir));
+    Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
+    double qty = run.quantity(segmentId, space.describe(v));
+    if (json) {
+      out.println(Json.pretty().writeValueAsString(toJson(space, e, qty, run)));
+    } else {
+      print(out, space, e, qty, run);
+    }
+    return ExitCodes.OK;
+  }
+
+  static Map<String, String> parseVariant(String text) {
+    Map<String, String> m = new LinkedHashMap<>();
+    for (String part : text.split(",")) {
+      String p = part.trim();
+      if (p.isEmpty()) {
+        continue;
+      }
+      int eq = p.indexOf('=');
+      if (eq <= 0 || eq == p.length() - 1) {
+        throw new UserError("--variant: '" + p + "' is not group=option; write e.g. frame=step,motor=mid750");
+      }
+      String g = p.substring(0, eq).trim();
+      if (m.put(g, p.substring(eq + 1).trim()) != null) {
+        throw new UserError("--variant: group '" + g + "' is given twice");
+      }
+    }
+    return m;
+  }
+
+  private static ObjectNode toJson(VariantSpace space, Explanation e, double qty, RunReader.RunView run) {
+    ObjectNode n = Json.pretty().createObjectNode();
+    n.put("segment", space.catalog().segments().get(e.segment()).id());
+    ObjectNode opts = n.putObject("options");
+    space.describe(e.choices()).forEach(opts::put);
+    n.put("sellable", e.sellable());
+    if (!e.sellable()) {
+      e.problems().forEach(n.putArray("problems")::add);
+    }
+    n.put("margin", e.margin());
+    ObjectNode parts = n.putObject("marginParts");
+    for (Explanation.MarginPart p : e.marginParts()) {
+      ObjectNode o = parts.putObject(p.group());
+      o.put("option", p.option());
+      o.put("price", p.price());
+      o.put("cost", p.cost());
+      o.put("segmentValue", p.segmentValue());
+    }
+    ObjectNode charges = n.putObject("charges");
+    ObjectNode uses = n.putObject("uses");
+    for (Explanation.Charge c : e.charges()) {
+      charges.put(c.resource(), c.amount());
+      uses.put(c.resource(), c.use());
+    }
+    n.put("segmentCharge", e.segmentCharge());
+    n.put("reducedCost", e.reducedCost());
+    n.put("quantity", qty);
+    n.put("inPlan", qty > 0);
+    n.put("priceRiseToEnter", qty > 0 ? 0.0 : e.priceRiseToEnter());
+    n.put("runStatus", run.status());
+    return n;
+  }
+
+  private static void print(PrintWriter out, VariantSpace space, Explanation e, double qty, RunReader.RunView run) {
+    String seg = space.catalog().segments().get(e.segment()).id();
+    out.println("variant " + space.label(e.choices()) + " in segment " + seg);
+    if (!e.sellable()) {
+      out.println("  cannot be sold there:");
+      e.problems().forEach(p -> out.println("    - " + p));
+    }
+    out.println("  margin                 " + fmt(e.margin()));
+    for (Explanation.MarginPart p : e.marginParts()) {
+      String val = p.segmentValue() == 0 ? "" : String.format(Locale.ROOT, " + segment value %s", fmt(p.segmentValue()));
+      out.println(String.format(Locale.ROOT, "    %-18s %s  (price %s - cost %s%s)", p.group() + "=" + p.option(),
+          fmt(p.total()), fmt(p.price()), fmt(p.cost()), val));
+    }
+    for (Explanation.Charge c : e.charges()) {
+      out.println(String.format(Locale.ROOT, "  - %-20s %s  (%s used x shadow price %s)", c.resource(),
+          fmt(c.amount()), fmt(c.use()), fmt(c.shadowPrice())));
+    }
+    out.println(String.format(Locale.ROOT, "  - %-20s %s  (segment shadow price)", "demand of " + seg, fmt(e.segmentCharge())));
+    out.println("  = reduced cost         " + fmt(e.reducedCost()));
+    if (run.status().equals("optimal") || run.status().equals("stopped")) {
+      if (qty > 0) {
+        out.println("  in the plan: " + Numbers.qty(qty) + " units"
+            + (e.reducedCost() > 1e-7 ? " (at its share limit: it pays more than its resources' worth)" : ""));
+      } else if (e.reducedCost() < -1e-9) {
+        out.println(String.format(Locale.ROOT,
+            "  not in the plan: it would enter if its price rose by more than %s per unit", fmt(-e.reducedCost())));
+      } else {
+        out.println("  not in the plan, though it pays as much as its resources' worth: an alternative optimum");
+      }
+    }
+    if (!run.status().equals("optimal")) {
+      out.println("  note: the run ended " + run.status() + "; shadow prices are those of its last master");
+    }
+  }
+
+  private static String fmt(double v) {
+    return String.format(Locale.ROOT, "%12.4f", v);
+  }
+
+}

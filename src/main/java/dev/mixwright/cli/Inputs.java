@@ -1,0 +1,39 @@
+package dev.mixwright.cli;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogException;
+import dev.mixwright.catalog.CatalogLoader;
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.HexFormat;
+
+/** Reading what the user names on the command line, with errors for people. */
+final class Inputs {
+  private Inputs() {}
+
+  static Catalog catalog(Path file) throws CatalogException {
+    if (!Files.isRegularFile(file)) {
+      throw new UserError("no catalog file at " + file + " — give the path of a .yaml, .yml or .json catalog");
+    }
+    return CatalogLoader.load(file);
+  }
+
+  static String sha256(Path file) {
+    try (InputStream in = Files.newInputStream(file)) {
+      MessageDigest md = MessageDigest.getInstance("SHA-256");
+      byte[] buf = new byte[1 << 16];
+      for (int n; (n = in.read(buf)) > 0; ) {
+        md.update(buf, 0, n);
+      }
+      return HexFormat.of().formatHex(md.digest());
+    } catch (IOException e) {
+      throw new UserError("cannot read " + file + ": " + e.getMessage());
+    } catch (NoSuchAlgorithmException e) {
+      throw new IllegalStateException(e);
+    }
+  }
+}

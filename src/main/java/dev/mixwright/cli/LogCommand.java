@@ -1,0 +1,85 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import dev.mixwright.colgen.Durations;
+import dev.mixwright.report.ColumnLogReader;
+import dev.mixwright.report.RunFolder;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Iterator;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(
+    name = "log",
+    mixinStandardHelpOptions = true,
+    description = "Shows a run's column log as a table: when each column entered, which variant in which"
+        + " segment, its reduced cost, and the objective and bound after its round.")
+final class LogCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
+  Path runDir;
+
+  @Option(names = "--segment", paramLabel = "S", description = "only columns of this segment")
+  String segment;
+
+  @Option(names = "--full", description = "show every group of a variant, optional groups at none included")
+  boolean full;
+
+  @Override
+  public Integer call() throws IOException {
+    PrintWriter out = spec.commandLine().getOut();
+    Path file = new RunFolder(runDir).columnLog();
+    if (!Files.isRegularFile(file)) {
+      throw new UserError("no column log at " + file + " — give a folder written by 'mixwright solve --out'");
+    }
+    ColumnLogReader.Entries entries;
+    try {
+      entries = ColumnLogReader.read(file);
+    } catch (IOException e) {
+      throw new UserError(e.getMessage());
+    }
+    out.println(String.format(Locale.ROOT, "%5s  %9s  %-14s  %14s  %16s  %16s  %s",
+        "round", "time", "segment", "reduced cost", "objective after", "bound after", "variant"));
+    int shown = 0;
+    for (JsonNode n : entries.lines()) {
+      String seg = n.path("segment").asText();
+      if (segment != null && !segment.equals(seg)) {
+        continue;
+      }
+      shown++;
+      JsonNode b = n.path("boundAfter");
+      out.println(String.format(Locale.ROOT, "%5d  %9s  %-14s  %14s  %16s  %16s  %s",
+          n.path("iteration").asInt(), Durations.format(n.path("elapsedMs").asLong()), seg,
+          n.path("iteration").asInt() == 0 ? "seed" : String.format(Locale.ROOT, "%,.4f", n.path("reducedCost").asDouble()),
+          Numbers.money(n.path("objectiveAfter").asDouble()),
+          b.isNumber() ? Numbers.money(b.asDouble()) : "—", variant(n.path("options"))));
+    }
+    out.println(shown + " columns" + (segment == null ? "" : " in segment " + segment)
+        + (entries.droppedTornLines() > 0 ? "; " + entries.droppedTornLines()
+            + " torn last line dropped (the run was cut off while writing it)" : ""));
+    return ExitCodes.OK;
+  }
+
+  private String variant(JsonNode options) {
+    StringBuilder sb = new StringBuilder();
+    Iterator<Map.Entry<String, JsonNode>> it = options.fields();
+    while (it.hasNext()) {
+      Map.Entry<String, JsonNode> e = it.next();
+      if (!full && e.getValue().asText().equals("none")) {
+        continue;
+      }
+      sb.append(sb.length() == 0 ? "" : ",").append(e.getKey()).append('=').append(e.getValue().asText());
+    }
+    return sb.toString();
+  }
+}

@@ -1,0 +1,168 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogWriter;
+import dev.mixwright.colgen.ColumnGeneration;
+import dev.mixwright.colgen.Durations;
+import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.colgen.StopCriterion;
+import dev.mixwright.pricing.Pricer;
+import dev.mixwright.pricing.Pricers;
+import dev.mixwright.report.AtomicFiles;
+import dev.mixwright.report.ColumnLog;
+import dev.mixwright.report.ResultWriter;
+import dev.mixwright.report.RunFolder;
+import dev.mixwright.space.VariantSpace;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicBoolean;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+@Command(
+    name = "solve",
+    mixinStandardHelpOptions = true,
+    description = {
+      "Finds the best LP plan over the whole variant space by column generation and proves it.",
+      "Writes RUN_DIR/result.json, RUN_DIR/columns.jsonl (one line per column added) and",
+      "RUN_DIR/catalog.json (the catalog as solved)."
+    })
+final class SolveCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Parameters(index = "0", paramLabel = "CATALOG", description = "catalog file (.yaml, .yml or .json)")
+  Path catalogFile;
+
+  @Option(names = "--out", required = true, paramLabel = "RUN_DIR", description = "folder for the run's files")
+  Path runDir;
+
+  @Option(names = "--gap", paramLabel = "REL", defaultValue = "1e-6",
+      description = "stop when (bound - objective) / max(1, |objective|) <= REL (default ${DEFAULT-VALUE})")
+  double gap;
+
+  @Option(names = "--time-limit", paramLabel = "DURATION", description = "stop after this long, e.g. 90s, 10m, 8h")
+  String timeLimit;
+
+  @Option(names = "--max-iterations", paramLabel = "N", description = "stop after N rounds")
+  int maxIterations;
+
+  @Option(names = "--pricer", paramLabel = "NAME", defaultValue = "bnb",
+      description = "exact pricing algorithm: bnb (default), cpsat, brute")
+  String pricerName;
+
+  @Option(names = "--per-round", paramLabel = "K", defaultValue = "" + SolveSettings.DEFAULT_PER_ROUND,
+      description = "columns sought per segment per round (default ${DEFAULT-VALUE})")
+  int perRound;
+
+  @Option(names = "--heuristic-first", description = "price with a fast heuristic first; exact rounds prove the bound")
+  boolean heuristicFirst;
+
+  @Option(names = "--replace", description = "overwrite the files of an earlier run in RUN_DIR")
+  boolean replace;
+
+  @Option(names = "--progress", negatable = true,
+      description = "one line per round on stderr (default: on when stderr is a terminal)")
+  Boolean progress;
+
+  @Override
+  public Integer call() throws Exception {
+    long start = System.nanoTime();
+    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter err = spec.commandLine().getErr();
+    if (!(gap >= 0)) {
+      throw new UserError("--gap must be >= 0, got " + gap);
+    }
+    if (perRound < 1) {
+      throw new UserError("--per-round must be at least 1, got " + perRound);
+    }
+    if (maxIterations < 0) {
+      throw new UserError("--max-iterations must be at least 1, got " + maxIterations);
+    }
+    long timeMs = 0;
+    if (timeLimit != null) {
+      try {
+        timeMs = Durations.parse(timeLimit);
+      } catch (IllegalArgumentException e) {
+        throw new UserError("--time-limit: " + e.getMessage());
+      }
+    }
+    Catalog catalog = Inputs.catalog(catalogFile);
+    String sha = Inputs.sha256(catalogFile);
+    VariantSpace space = new VariantSpace(catalog);
+    Pricer pricer;
+    try {
+      pricer = Pricers.byName(pricerName, space);
+    } catch (IllegalArgumentException e) {
+      throw new UserError("--pricer: " + e.getMessage());
+    }
+    if (!pricerExact(pricerName)) {
+      throw new UserError("--pricer " + pricerName + " proves no bound; choose bnb, cpsat or brute"
+          + " (use --heuristic-first to add the heuristic in front of an exact pricer)");
+    }
+    RunFolder folder = new RunFolder(runDir);
+    if (!replace && folder.holdsRun()) {
+      throw new UserError(runDir + " already holds a run; choose another --out folder, or add --replace to overwrite it");
+    }
+    Files.createDirectories(runDir);
+    AtomicFiles.write(folder.catalogCopy(), CatalogWriter.toJson(catalog));
+
+    SpaceFacts facts = SpaceFacts.of(space);
+    SolveSettings settings = new SolveSettings(gap, perRound, timeMs, maxIterations, heuristicFirst);
+    AtomicBoolean interrupted = new AtomicBoolean();
+    CountDownLatch written = new CountDownLatch(1);
+    Thread hook = new Thread(() -> {
+      interrupted.set(true);
+      try {
+        // Let the loop finish its round and write result.json before the JVM goes.
+        written.await(60, TimeUnit.SECONDS);
+      } catch (InterruptedException e) {
+        Thread.currentThread().interrupt();
+      }
+    }, "mixwright-stop");
+    Runtime.getRuntime().addShutdownHook(hook);
+    try (ColumnLog log = new ColumnLog(space, runDir, false)) {
+      ColumnGeneration cg = new ColumnGeneration(space, pricer,
+          heuristicFirst ? Pricers.byName("heuristic", space) : null, settings,
+          StopCriterion.signal(interrupted), start);
+      cg.addListener(log);
+      boolean showProgress = progress != null ? progress : System.console() != null;
+      if (showProgress) {
+        cg.addListener(new Progress(err));
+      }
+      SolveOutcome outcome = facts.nothingSellable() ? null : cg.run();
+      long elapsed = (System.nanoTime() - start) / 1_000_000;
+      ResultWriter.RunInfo info = new ResultWriter.RunInfo(catalogFile.toString(), sha, pricer.name(),
+          new ResultWriter.SpaceSize(facts.buildable(), facts.exact()), elapsed);
+      if (outcome == null) {
+        outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
+      }
+      ObjectNode result = ResultWriter.build(space, outcome, info);
+      ResultWriter.write(runDir, result);
+      Summary.print(out, space, outcome, result, runDir);
+      return outcome.status().isOptimal() ? ExitCodes.OK : ExitCodes.STOPPED;
+    } finally {
+      written.countDown();
+      if (!interrupted.get()) {
+        try {
+          Runtime.getRuntime().removeShutdownHook(hook);
+        } catch (IllegalStateException shuttingDown) {
+          // the JVM is already exiting; the hook has been released above
+        }
+      }
+    }
+  }
+
+  private static boolean pricerExact(String name) {
+    return !name.equals("heuristic");
+  }
+}

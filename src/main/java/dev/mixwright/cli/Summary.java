@@ -1,0 +1,56 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.colgen.Durations;
+import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.space.VariantSpace;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+/** The few lines a person reads after a solve. */
+final class Summary {
+  private Summary() {}
+
+  static void print(PrintWriter out, VariantSpace space, SolveOutcome o, ObjectNode result, Path runDir) {
+    String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();
+    out.println(space.catalog().name() + ": " + o.status().word()
+        + (o.stopReason().isEmpty() ? "" : " (" + o.stopReason() + ")"));
+    JsonNode bv = result.get("buildableVariants");
+    out.println("  buildable variants  " + (bv.isNull()
+        ? "at most " + result.get("buildableVariantsAtMost").asText() : bv.asText()));
+    out.println("  LP objective        " + Numbers.money(o.objective()) + cur);
+    out.println("  proven bound        " + Numbers.money(o.bound()) + cur + "   gap " + Numbers.percent(o.gap()));
+    out.println(String.format(Locale.ROOT, "  rounds %d, columns generated %d, time %s",
+        o.iterations(), o.columnsGenerated(), Durations.format(result.get("elapsedMs").asLong())));
+    List<String> binding = new ArrayList<>();
+    for (JsonNode r : result.get("resources")) {
+      if (r.get("shadowPrice").asDouble() > 1e-9) {
+        binding.add(r.get("id").asText() + " " + Numbers.money(r.get("shadowPrice").asDouble()));
+      }
+    }
+    out.println("  shadow prices       " + (binding.isEmpty() ? "none (no resource limits the plan)" : String.join(", ", binding)));
+    JsonNode offers = result.get("offers");
+    out.println("  offers              " + offers.size() + " (variant, segment) pairs");
+    int shown = 0;
+    for (JsonNode off : offers) {
+      if (shown++ == 8) {
+        out.println("    ... " + (offers.size() - 8) + " more in result.json");
+        break;
+      }
+      StringBuilder v = new StringBuilder();
+      off.get("options").fields().forEachRemaining(e -> {
+        if (!e.getValue().asText().equals("none")) {
+          v.append(v.length() == 0 ? "" : ",").append(e.getKey()).append('=').append(e.getValue().asText());
+        }
+      });
+      out.println(String.format(Locale.ROOT, "    %-14s %10s x %s", off.get("segment").asText(),
+          Numbers.qty(off.get("quantity").asDouble()), v));
+    }
+    out.println("  written to          " + runDir);
+    out.flush();
+  }
+}

@@ -1,0 +1,99 @@
+package dev.mixwright.explain;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Group;
+import dev.mixwright.catalog.Option;
+import dev.mixwright.catalog.Rule;
+import dev.mixwright.space.Nogood;
+import dev.mixwright.space.VariantSpace;
+import java.util.ArrayList;
+import java.util.List;
+
+/** Computes {@link Explanation}s from the catalog's figures and a run's shadow prices. */
+public final class Explainer {
+  private final VariantSpace space;
+
+  public Explainer(VariantSpace space) {
+    this.space = space;
+  }
+
+  /**
+   * @param pi resource shadow prices aligned with the catalog's resources
+   * @param mu segment shadow prices aligned with the catalog's segments
+   */
+  public Explanation explain(int[] v, int s, double[] pi, double[] mu) {
+    Catalog cat = space.catalog();
+    List<Explanation.MarginPart> parts = new ArrayList<>();
+    double margin = 0;
+    for (int g = 0; g < space.groupCount(); g++) {
+      Group group = cat.groups().get(g);
+      int f = space.offset(g) + v[g];
+      double price = 0;
+      double cost = 0;
+      if (v[g] < group.options().size()) {
+        Option o = group.options().get(v[g]);
+        price = o.price();
+        cost = o.cost();
+      }
+      Explanation.MarginPart p = new Explanation.MarginPart(group.id(), group.choiceId(v[g]), price, cost,
+          space.choiceValue(s, f));
+      parts.add(p);
+      margin += p.total();
+    }
+    double[] use = space.use(v);
+    List<Explanation.Charge> charges = new ArrayList<>();
+    double charged = 0;
+    for (int r = 0; r < use.length; r++) {
+      Explanation.Charge c = new Explanation.Charge(cat.resources().get(r).id(), use[r], pi[r]);
+      charges.add(c);
+      charged += c.amount();
+    }
+    double d = margin - charged - mu[s];
+    return new Explanation(s, v.clone(), margin, parts, charges, mu[s], d, problems(v, s));
+  }
+
+  /** Why v cannot be sold in s: the rules it breaks and the segment's accepts it fails. */
+  public List<String> problems(int[] v, int s) {
+    Catalog cat = space.catalog();
+    List<String> out = new ArrayList<>();
+    for (int g = 0; g < space.groupCount(); g++) {
+      int f = space.offset(g) + v[g];
+      String choice = cat.groups().get(g).id() + "=" + cat.groups().get(g).choiceId(v[g]);
+      if (!space.allowed(f)) {
+        out.add(choice + " is ruled out by " + singleGroupRules(g, v[g]));
+      } else if (!space.allowedIn(s, f)) {
+        out.add("segment " + cat.segments().get(s).id() + " does not accept " + choice
+            + " (its accepts." + cat.groups().get(g).id() + ")");
+      }
+    }
+    int[] off = space.offsets();
+    for (int i = 0; i < space.nogoodCount(); i++) {
+      Nogood n = space.nogood(i);
+      if (n.violatedBy(v, off)) {
+        out.add("rules[" + n.rule() + "] " + describe(cat.rules().get(n.rule())) + " forbids this combination");
+      }
+    }
+    return out.stream().distinct().toList();
+  }
+
+  private String singleGroupRules(int g, int k) {
+    Catalog cat = space.catalog();
+    String gid = cat.groups().get(g).id();
+    String cid = cat.groups().get(g).choiceId(k);
+    List<String> hits = new ArrayList<>();
+    for (int r = 0; r < cat.rules().size(); r++) {
+      Rule rule = cat.rules().get(r);
+      boolean names = rule.forbid().getOrDefault(gid, List.of()).contains(cid)
+          || (rule.when().isEmpty() && rule.require().containsKey(gid) && !rule.require().get(gid).contains(cid))
+          || (rule.require().containsKey(gid) && rule.when().containsKey(gid));
+      if (names) {
+        hits.add("rules[" + r + "]" + (rule.id() == null ? "" : " (" + rule.id() + ")"));
+      }
+    }
+    return hits.isEmpty() ? "the rules" : String.join(", ", hits);
+  }
+
+  private static String describe(Rule r) {
+    return r.id() == null ? "" : "(" + r.id() + ")";
+  }
+}
