@@ -74,7 +74,8 @@ public final class EnumeratedLp {
   /**
    * The solved full master. {@code x} is aligned with {@code columns}; {@code resourceDual} (π) and
    * {@code segmentDual} (μ) are one optimal solution of the dual LP — duals of a degenerate LP are
-   * not unique, so compare another solver's duals through {@link Reference#dualBound}, not entry by entry.
+   * not unique, so compare another solver's duals through {@link Reference#dualBound}, not entry
+   * by entry.
    */
   public record Reference(
       double objective,
@@ -132,7 +133,7 @@ public final class EnumeratedLp {
     }
 
     /**
-     * The Lasdon-type bound z_RM + Σ_s demand_s·max(0, d̄_s) (Lasdon 1970; Lübbecke & Desrosiers
+     * The Lasdon-type bound z_RM + Σ_s demand_s·max(0, d̄_s) (Lasdon 1970; Lübbecke &amp; Desrosiers
      * 2005), with d̄_s from {@link #maxReducedCost}. Valid when (π, μ) are optimal duals of the
      * restricted master whose value is {@code zRm} and whose columns are {@code inMaster}.
      */
