@@ -181,7 +181,7 @@ public final class CatalogLoader {
   }
 
   private static String yamlHint(String problem) {
-    if (problem.contains("'\\t'") || problem.contains("\t")) {
+    if (problem.contains("\\t") || problem.contains("\t") || problem.contains("(TAB)")) {
       return " — YAML indents with spaces, not tabs";
     }
     if (problem.startsWith("mapping values are not allowed")) {

@@ -329,7 +329,7 @@ final class CatalogReader {
               e.getValue(),
               at,
               "the amount of '" + e.getKey() + "' one unit with this option uses, e.g. 1.6",
-              false);
+              true);
       if (amount == null) {
         ok = false;
       } else {
@@ -807,6 +807,10 @@ final class CatalogReader {
    */
   private Double number(JsonNode v, String path, String hint, boolean nonNegative) {
     if (v == null || v.isNull()) {
+      problem(path, "is empty — give " + hint);
+      return null;
+    }
+    if (v.isTextual() && v.textValue().isBlank()) {
       problem(path, "is empty — give " + hint);
       return null;
     }
