@@ -4,7 +4,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.catalog.Checks.IdKind;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -317,8 +316,7 @@ final class CatalogReader {
       return null;
     }
     boolean ok = true;
-    for (Iterator<Map.Entry<String, JsonNode>> it = v.fields(); it.hasNext(); ) {
-      Map.Entry<String, JsonNode> e = it.next();
+    for (Map.Entry<String, JsonNode> e : v.properties()) {
       String at = Where.field(path, e.getKey());
       if (!resourceIdAt.containsKey(e.getKey())) {
         unknownResource(e.getKey(), at);
@@ -472,8 +470,7 @@ final class CatalogReader {
               + Where.describe(v));
       return out;
     }
-    for (Iterator<Map.Entry<String, JsonNode>> it = v.fields(); it.hasNext(); ) {
-      Map.Entry<String, JsonNode> e = it.next();
+    for (Map.Entry<String, JsonNode> e : v.properties()) {
       String key = e.getKey();
       String at = Where.field(path, key);
       Double x =
@@ -567,8 +564,7 @@ final class CatalogReader {
     }
     boolean ok = true;
     Map<String, List<String>> out = new LinkedHashMap<>();
-    for (Iterator<Map.Entry<String, JsonNode>> it = v.fields(); it.hasNext(); ) {
-      Map.Entry<String, JsonNode> e = it.next();
+    for (Map.Entry<String, JsonNode> e : v.properties()) {
       String gid = e.getKey();
       String at = Where.field(path, gid);
       GroupRef g = groupsById.get(gid);
@@ -718,8 +714,8 @@ final class CatalogReader {
   }
 
   private void unknownFields(JsonNode o, String path, List<String> allowed, String what) {
-    for (Iterator<String> it = o.fieldNames(); it.hasNext(); ) {
-      String f = it.next();
+    for (Map.Entry<String, JsonNode> field : o.properties()) {
+      String f = field.getKey();
       if (!allowed.contains(f)) {
         problem(
             Where.field(path, f),

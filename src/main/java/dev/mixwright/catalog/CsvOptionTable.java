@@ -226,7 +226,7 @@ final class CsvOptionTable {
   /** Rows with the line each starts on; rows whose cells are all blank are left out. */
   private static List<Row> rows(String text) throws JsonProcessingException {
     List<Row> rows = new ArrayList<>();
-    try (CsvParser p = (CsvParser) CSV.getFactory().createParser(text)) {
+    try (CsvParser p = CSV.getFactory().createParser(text)) {
       p.enable(CsvParser.Feature.WRAP_AS_ARRAY);
       List<String> cells = null;
       int line = -1;
