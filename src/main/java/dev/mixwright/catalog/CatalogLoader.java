@@ -61,7 +61,8 @@ public final class CatalogLoader {
     formatOf(name); // reject an unknown file type before reading it
     if (Files.isDirectory(file)) {
       throw new CatalogException(
-          new CatalogProblem(name, "is a folder, not a catalog file — give the .yaml or .json file"));
+          new CatalogProblem(
+              name, "is a folder, not a catalog file — give the .yaml or .json file"));
     }
     String text;
     try {
@@ -70,12 +71,14 @@ public final class CatalogLoader {
       throw new CatalogException(
           new CatalogProblem(name, "no such file (looked for " + file.toAbsolutePath() + ")"));
     } catch (AccessDeniedException e) {
-      throw new CatalogException(new CatalogProblem(name, "cannot read the file: permission denied"));
+      throw new CatalogException(
+          new CatalogProblem(name, "cannot read the file: permission denied"));
     } catch (MalformedInputException e) {
       throw new CatalogException(
           new CatalogProblem(name, "is not UTF-8 text — save the catalog in UTF-8"));
     } catch (IOException e) {
-      throw new CatalogException(new CatalogProblem(name, "cannot read the file: " + e.getMessage()));
+      throw new CatalogException(
+          new CatalogProblem(name, "cannot read the file: " + e.getMessage()));
     }
     return parse(text, file.toString(), file.toAbsolutePath().getParent());
   }
@@ -127,7 +130,8 @@ public final class CatalogLoader {
   }
 
   /** One problem for text that is not YAML or JSON at all, at the line and column of the error. */
-  private static CatalogProblem syntaxProblem(JsonProcessingException e, String name, boolean yaml) {
+  private static CatalogProblem syntaxProblem(
+      JsonProcessingException e, String name, boolean yaml) {
     MarkedYAMLException marked = null;
     for (Throwable t = e; t != null && marked == null; t = t.getCause()) {
       if (t instanceof MarkedYAMLException m) {
@@ -149,7 +153,10 @@ public final class CatalogLoader {
             .append(")");
       }
       msg.append(yamlHint(problem));
-      String where = at == null ? name : name + " line " + (at.getLine() + 1) + " column " + (at.getColumn() + 1);
+      String where =
+          at == null
+              ? name
+              : name + " line " + (at.getLine() + 1) + " column " + (at.getColumn() + 1);
       return new CatalogProblem(where, msg.toString());
     }
     JsonLocation loc = e.getLocation();
@@ -157,7 +164,8 @@ public final class CatalogLoader {
         loc != null && loc.getLineNr() > 0
             ? name + " line " + loc.getLineNr() + " column " + loc.getColumnNr()
             : name;
-    return new CatalogProblem(where, "not valid " + (yaml ? "YAML" : "JSON") + ": " + plainJacksonMessage(e));
+    return new CatalogProblem(
+        where, "not valid " + (yaml ? "YAML" : "JSON") + ": " + plainJacksonMessage(e));
   }
 
   private static String plainJacksonMessage(JsonProcessingException e) {
@@ -170,9 +178,12 @@ public final class CatalogLoader {
       return "more content after the end of the catalog — a file holds one catalog (one JSON"
           + " object, or one YAML document)";
     }
-    Matcher bad = Pattern.compile("(?:Non-standard token|Malformed numeric value) '(.*?)'").matcher(m);
+    Matcher bad =
+        Pattern.compile("(?:Non-standard token|Malformed numeric value) '(.*?)'").matcher(m);
     if (bad.find()) {
-      return "'" + bad.group(1) + "' is not a number this format reads — numbers must be finite and"
+      return "'"
+          + bad.group(1)
+          + "' is not a number this format reads — numbers must be finite and"
           + " written as digits, e.g. 1.6";
     }
     m = JACKSON_LOCATION.matcher(m).replaceAll("line $1, column $2");

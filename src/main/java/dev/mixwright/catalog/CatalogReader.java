@@ -15,21 +15,29 @@ import java.util.Set;
  * Walks a parsed catalog tree by hand, so that every problem is reported with its exact path and
  * the walk goes on after it: one pass collects all problems. Sections are read in the order
  * resources, groups, rules, segments, so each reference can be checked against the ids declared
- * before it. Only single-rule checks happen here; what several rules do together is analysed on
- * the compiled variant space.
+ * before it. Only single-rule checks happen here; what several rules do together is analysed on the
+ * compiled variant space.
  *
  * <p>Not thread-safe; one instance reads one document.
  */
 final class CatalogReader {
   private static final List<String> TOP_FIELDS =
       List.of(
-          "format", "name", "currency", "period", "resources", "groups", "rules", "segments",
+          "format",
+          "name",
+          "currency",
+          "period",
+          "resources",
+          "groups",
+          "rules",
+          "segments",
           "portfolio");
   private static final List<String> RESOURCE_FIELDS = List.of("id", "label", "unit", "capacity");
   private static final List<String> GROUP_FIELDS =
       List.of("id", "label", "required", "options", "optionsFile");
   private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "cost", "uses");
-  private static final List<String> RULE_FIELDS = List.of("id", "note", "when", "require", "forbid");
+  private static final List<String> RULE_FIELDS =
+      List.of("id", "note", "when", "require", "forbid");
   private static final List<String> SEGMENT_FIELDS =
       List.of("id", "label", "demand", "maxShare", "accepts", "value");
   private static final List<String> PORTFOLIO_FIELDS =
@@ -67,9 +75,12 @@ final class CatalogReader {
   /** What later sections may refer to in a group, known even when parts of the group are wrong. */
   static final class GroupRef {
     final String id;
+
     /** Null when the file's {@code required} is not a boolean: then {@code none} is not checked. */
     final Boolean required;
+
     final Map<String, String> optionIdAt = new LinkedHashMap<>();
+
     /** False when an option table could not be read: references to its options go unchecked. */
     boolean complete = true;
 
@@ -133,7 +144,8 @@ final class CatalogReader {
     if (!problems.isEmpty()) {
       throw new CatalogException(problems);
     }
-    return new Catalog(format, name, currency, period, resources, groups, rules, segments, portfolio);
+    return new Catalog(
+        format, name, currency, period, resources, groups, rules, segments, portfolio);
   }
 
   // ---------------------------------------------------------------- sections
@@ -145,7 +157,8 @@ final class CatalogReader {
       return 0;
     }
     if (!v.isNumber()) {
-      problem("format", "must be the number 1, got " + Where.describe(v) + unquoteHint(v, "format"));
+      problem(
+          "format", "must be the number 1, got " + Where.describe(v) + unquoteHint(v, "format"));
       return 0;
     }
     if (v.doubleValue() != 1) {
@@ -167,7 +180,8 @@ final class CatalogReader {
     if (!v.isArray()) {
       problem(
           "resources",
-          "must be a list of resources, e.g. [{id: weld, capacity: 14000}], got " + Where.describe(v));
+          "must be a list of resources, e.g. [{id: weld, capacity: 14000}], got "
+              + Where.describe(v));
       return out;
     }
     for (int i = 0; i < v.size(); i++) {
@@ -185,7 +199,10 @@ final class CatalogReader {
       String unit = optionalText(r, path, "unit");
       Double capacity =
           requiredNumber(
-              r, path, "capacity", "the capacity per period in the resource's unit, e.g. capacity: 14000");
+              r,
+              path,
+              "capacity",
+              "the capacity per period in the resource's unit, e.g. capacity: 14000");
       if (id != null && capacity != null) {
         out.add(new Resource(id, label, unit, capacity));
       }
@@ -197,15 +214,20 @@ final class CatalogReader {
     List<Group> out = new ArrayList<>();
     String example = "[{id: frame, options: [{id: step, price: 520, cost: 210}]}]";
     if (v == null) {
-      problem("groups", "missing — a catalog needs at least one option group, e.g. groups: " + example);
+      problem(
+          "groups", "missing — a catalog needs at least one option group, e.g. groups: " + example);
       return out;
     }
     if (!v.isArray()) {
-      problem("groups", "must be a list of option groups, e.g. " + example + ", got " + Where.describe(v));
+      problem(
+          "groups",
+          "must be a list of option groups, e.g. " + example + ", got " + Where.describe(v));
       return out;
     }
     if (v.isEmpty()) {
-      problem("groups", "is empty — a catalog needs at least one option group, e.g. groups: " + example);
+      problem(
+          "groups",
+          "is empty — a catalog needs at least one option group, e.g. groups: " + example);
     }
     for (int i = 0; i < v.size(); i++) {
       String path = Where.index("groups", i);
@@ -256,7 +278,8 @@ final class CatalogReader {
         if (!file.isTextual() || file.textValue().isBlank()) {
           problem(
               filePath,
-              "must be the name of a CSV file next to the catalog, e.g. optionsFile: frame.csv, got "
+              "must be the name of a CSV file next to the catalog, e.g. optionsFile: frame.csv, got"
+                  + " "
                   + Where.describe(file));
           complete = false;
         } else {
@@ -345,7 +368,8 @@ final class CatalogReader {
     if (!v.isArray()) {
       problem(
           "rules",
-          "must be a list of rules, e.g. [{when: {motor: [mid750]}, require: {battery: [b750]}}], got "
+          "must be a list of rules, e.g. [{when: {motor: [mid750]}, require: {battery: [b750]}}],"
+              + " got "
               + Where.describe(v));
       return out;
     }
@@ -369,7 +393,8 @@ final class CatalogReader {
       JsonNode w = value(r, "when");
       JsonNode q = value(r, "require");
       JsonNode f = value(r, "forbid");
-      Map<String, List<String>> when = w == null ? Map.of() : clause(w, Where.field(path, "when"), Clause.WHEN);
+      Map<String, List<String>> when =
+          w == null ? Map.of() : clause(w, Where.field(path, "when"), Clause.WHEN);
       Map<String, List<String>> require =
           q == null ? Map.of() : clause(q, Where.field(path, "require"), Clause.REQUIRE);
       Map<String, List<String>> forbid =
@@ -408,15 +433,20 @@ final class CatalogReader {
     List<Segment> out = new ArrayList<>();
     String example = "[{id: commuters, demand: 9000}]";
     if (v == null) {
-      problem("segments", "missing — a catalog needs at least one segment to sell to, e.g. segments: " + example);
+      problem(
+          "segments",
+          "missing — a catalog needs at least one segment to sell to, e.g. segments: " + example);
       return out;
     }
     if (!v.isArray()) {
-      problem("segments", "must be a list of segments, e.g. " + example + ", got " + Where.describe(v));
+      problem(
+          "segments", "must be a list of segments, e.g. " + example + ", got " + Where.describe(v));
       return out;
     }
     if (v.isEmpty()) {
-      problem("segments", "is empty — a catalog needs at least one segment to sell to, e.g. segments: " + example);
+      problem(
+          "segments",
+          "is empty — a catalog needs at least one segment to sell to, e.g. segments: " + example);
     }
     for (int i = 0; i < v.size(); i++) {
       String path = Where.index("segments", i);
@@ -433,7 +463,10 @@ final class CatalogReader {
       String label = optionalText(s, path, "label");
       Double demand =
           requiredNumber(
-              s, path, "demand", "the units per period this segment buys at most, e.g. demand: 9000");
+              s,
+              path,
+              "demand",
+              "the units per period this segment buys at most, e.g. demand: 9000");
       double maxShare = 1;
       JsonNode ms = value(s, "maxShare");
       if (ms != null) {
@@ -452,7 +485,8 @@ final class CatalogReader {
       Map<String, List<String>> accepts =
           a == null ? Map.of() : clause(a, Where.field(path, "accepts"), Clause.ACCEPTS);
       JsonNode val = value(s, "value");
-      Map<String, Double> valueMap = val == null ? Map.of() : readValue(val, Where.field(path, "value"));
+      Map<String, Double> valueMap =
+          val == null ? Map.of() : readValue(val, Where.field(path, "value"));
       if (problems.size() == before) {
         out.add(new Segment(id, label, demand, maxShare, accepts, valueMap));
       }
@@ -523,17 +557,32 @@ final class CatalogReader {
     unknownFields(v, "portfolio", PORTFOLIO_FIELDS, "the portfolio section");
     double introductionCost =
         optionalNumber(
-            v, "portfolio", "introductionCost", 0, "the fixed cost per distinct variant offered, e.g. introductionCost: 18000");
+            v,
+            "portfolio",
+            "introductionCost",
+            0,
+            "the fixed cost per distinct variant offered, e.g. introductionCost: 18000");
     double minLot =
         optionalNumber(
-            v, "portfolio", "minLot", 0, "the least a variant offered is built, all segments together, e.g. minLot: 150");
+            v,
+            "portfolio",
+            "minLot",
+            0,
+            "the least a variant offered is built, all segments together, e.g. minLot: 150");
     int maxVariants = Integer.MAX_VALUE;
     JsonNode mv = value(v, "maxVariants");
     if (mv != null) {
       String at = "portfolio.maxVariants";
-      String hint = "the most distinct variants offered, e.g. maxVariants: 24; leave it out for no limit";
+      String hint =
+          "the most distinct variants offered, e.g. maxVariants: 24; leave it out for no limit";
       if (!mv.isNumber()) {
-        problem(at, "must be a whole number >= 1, got " + Where.describe(mv) + unquoteHint(mv, "maxVariants") + " — " + hint);
+        problem(
+            at,
+            "must be a whole number >= 1, got "
+                + Where.describe(mv)
+                + unquoteHint(mv, "maxVariants")
+                + " — "
+                + hint);
       } else {
         double d = mv.doubleValue();
         if (!Double.isFinite(d) || d != Math.rint(d)) {
@@ -541,7 +590,8 @@ final class CatalogReader {
         } else if (d < 1) {
           problem(at, "must be >= 1, got " + Where.num(d) + " — " + hint);
         } else if (d > Integer.MAX_VALUE) {
-          problem(at, "must be at most " + Integer.MAX_VALUE + ", got " + Where.num(d) + " — " + hint);
+          problem(
+              at, "must be at most " + Integer.MAX_VALUE + ", got " + Where.num(d) + " — " + hint);
         } else {
           maxVariants = (int) d;
         }
@@ -555,7 +605,12 @@ final class CatalogReader {
   /** A mapping of group to choices, every group and choice checked; null when any is wrong. */
   private Map<String, List<String>> clause(JsonNode v, String path, Clause kind) {
     if (!v.isObject()) {
-      problem(path, "must be a mapping of group to a list of choices, " + kind.purpose + ", got " + Where.describe(v));
+      problem(
+          path,
+          "must be a mapping of group to a list of choices, "
+              + kind.purpose
+              + ", got "
+              + Where.describe(v));
       return null;
     }
     if (v.isEmpty() && kind != Clause.ACCEPTS) {
@@ -572,7 +627,8 @@ final class CatalogReader {
         unknownGroup(gid, at);
         ok = false;
       }
-      List<String> choices = choiceList(e.getValue(), at, g, String.format(kind.emptyList, gid, gid));
+      List<String> choices =
+          choiceList(e.getValue(), at, g, String.format(kind.emptyList, gid, gid));
       if (choices == null) {
         ok = false;
       } else {
@@ -664,19 +720,31 @@ final class CatalogReader {
         resourceIdAt.isEmpty()
             ? " (the catalog declares no resources; add it under resources)"
             : " (resources: " + Where.list(resourceIdAt.keySet()) + ")";
-    problem(path, "unknown resource '" + rid + "'" + known + Where.didYouMean(rid, resourceIdAt.keySet()));
+    problem(
+        path,
+        "unknown resource '" + rid + "'" + known + Where.didYouMean(rid, resourceIdAt.keySet()));
   }
 
   Set<String> resourceIds() {
     return resourceIdAt.keySet();
   }
 
-  /** Records an option id of a group, reporting a duplicate; used by inline options and CSV rows. */
+  /**
+   * Records an option id of a group, reporting a duplicate; used by inline options and CSV rows.
+   */
   void registerOption(GroupRef ref, String id, String path) {
     String first = ref.optionIdAt.putIfAbsent(id, path);
     if (first != null) {
       String in = ref.id == null ? "" : " in group '" + ref.id + "'";
-      problem(path, "duplicate option id '" + id + "'" + in + " (first at " + first + ") — give each option its own id");
+      problem(
+          path,
+          "duplicate option id '"
+              + id
+              + "'"
+              + in
+              + " (first at "
+              + first
+              + ") — give each option its own id");
     }
   }
 
@@ -688,8 +756,15 @@ final class CatalogReader {
     }
     problem(
         path,
-        "duplicate " + kind.noun + " id '" + id + "' (first at " + first + ") — give each "
-            + kind.noun + " its own id");
+        "duplicate "
+            + kind.noun
+            + " id '"
+            + id
+            + "' (first at "
+            + first
+            + ") — give each "
+            + kind.noun
+            + " its own id");
     return false;
   }
 
@@ -719,7 +794,12 @@ final class CatalogReader {
       if (!allowed.contains(f)) {
         problem(
             Where.field(path, f),
-            "unknown field (" + what + " takes: " + Where.list(allowed) + ")" + Where.didYouMean(f, allowed));
+            "unknown field ("
+                + what
+                + " takes: "
+                + Where.list(allowed)
+                + ")"
+                + Where.didYouMean(f, allowed));
       }
     }
   }
@@ -728,13 +808,21 @@ final class CatalogReader {
     String at = Where.field(path, "id");
     JsonNode v = o.get("id");
     if (v == null || v.isNull()) {
-      problem(at, (v == null ? "missing" : "is empty") + " — every " + kind.noun + " needs an id, e.g. id: " + kind.example);
+      problem(
+          at,
+          (v == null ? "missing" : "is empty")
+              + " — every "
+              + kind.noun
+              + " needs an id, e.g. id: "
+              + kind.example);
       return null;
     }
     return idText(v, at, kind);
   }
 
-  /** The id as text, even when its spelling breaks a rule (so that references to it still resolve). */
+  /**
+   * The id as text, even when its spelling breaks a rule (so that references to it still resolve).
+   */
   private String idText(JsonNode v, String path, IdKind kind) {
     if (!v.isTextual()) {
       problem(path, "must be text, got " + Where.describe(v) + quoteHint(v));
@@ -811,7 +899,8 @@ final class CatalogReader {
       return null;
     }
     if (!v.isNumber()) {
-      problem(path, "must be a number, got " + Where.describe(v) + unquoteHint(v, null) + " — " + hint);
+      problem(
+          path, "must be a number, got " + Where.describe(v) + unquoteHint(v, null) + " — " + hint);
       return null;
     }
     double x = v.doubleValue();
@@ -829,21 +918,23 @@ final class CatalogReader {
       return "";
     }
     String t = v.textValue().strip();
-    boolean looksLikeValue =
-        Checks.decimal(t) != null || t.equals("true") || t.equals("false");
+    boolean looksLikeValue = Checks.decimal(t) != null || t.equals("true") || t.equals("false");
     if (!looksLikeValue) {
       return "";
     }
-    return field == null ? " (write it without quotes)" : " (write it without quotes: " + field + ": " + t + ")";
+    return field == null
+        ? " (write it without quotes)"
+        : " (write it without quotes: " + field + ": " + t + ")";
   }
 
   /** For a number or boolean where text belongs: YAML turned an unquoted word into a value. */
   private static String quoteHint(JsonNode v) {
     if (v.isNumber()) {
-      return " — ids are text; put it in quotes, e.g. \"" + Where.num(v.doubleValue()) + "\"";
+      return " — put it in quotes, e.g. \"" + Where.num(v.doubleValue()) + "\"";
     }
     if (v.isBoolean()) {
-      return " — put it in quotes (YAML reads unquoted yes, no, on, off, true and false as true or false)";
+      return " — put it in quotes (YAML reads unquoted yes, no, on, off, true and false as true or"
+                 + " false)";
     }
     return "";
   }

@@ -18,13 +18,13 @@ import java.util.Map;
 import java.util.TreeMap;
 
 /**
- * Writes a catalog in the schema {@link CatalogLoader} reads, in one canonical form: fields in a fixed
- * order, options inline (never as CSV tables), defaults written out ({@code required},
- * {@code maxShare}, {@code uses}, {@code accepts}, {@code value}, {@code introductionCost},
- * {@code minLot}); absent labels and names are left out, and so is {@code maxVariants} when there is
- * no limit. Whole numbers are written without a fraction; other numbers in Java's shortest
- * round-trip form, so {@code CatalogLoader.parse(toJson(c), "x.json", null)} equals {@code c} for any
- * catalog the loader accepts.
+ * Writes a catalog in the schema {@link CatalogLoader} reads, in one canonical form: fields in a
+ * fixed order, options inline (never as CSV tables), defaults written out ({@code required}, {@code
+ * maxShare}, {@code uses}, {@code accepts}, {@code value}, {@code introductionCost}, {@code
+ * minLot}); absent labels and names are left out, and so is {@code maxVariants} when there is no
+ * limit. Whole numbers are written without a fraction; other numbers in Java's shortest round-trip
+ * form, so {@code CatalogLoader.parse(toJson(c), "x.json", null)} equals {@code c} for any catalog
+ * the loader accepts.
  */
 public final class CatalogWriter {
   /** Doubles up to 2^53 in magnitude are exact as longs. */
@@ -61,7 +61,10 @@ public final class CatalogWriter {
     }
   }
 
-  /** The same content as {@link #toJson} in YAML; every string is quoted, so none reads back as a number or boolean. */
+  /**
+   * The same content as {@link #toJson} in YAML; every string is quoted, so none reads back as a
+   * number or boolean.
+   */
   public static String toYaml(Catalog catalog) {
     try {
       return YAML.writeValueAsString(tree(catalog));
@@ -174,7 +177,10 @@ public final class CatalogWriter {
     return keys;
   }
 
-  /** Keys of a value map ({@code group.option}) in group, then choice order; unknown keys after, sorted. */
+  /**
+   * Keys of a value map ({@code group.option}) in group, then choice order; unknown keys after,
+   * sorted.
+   */
   private static List<String> inChoiceOrder(Catalog c, Map<String, Double> value) {
     List<String> keys = new ArrayList<>();
     for (Group g : c.groups()) {

@@ -66,7 +66,9 @@ final class Checks {
   }
 
   static String finiteProblem(double x, String hint) {
-    return Double.isFinite(x) ? null : "must be a finite number, got " + Where.num(x) + " — " + hint;
+    return Double.isFinite(x)
+        ? null
+        : "must be a finite number, got " + Where.num(x) + " — " + hint;
   }
 
   static String shareProblem(double x) {
@@ -74,7 +76,8 @@ final class Checks {
         ? null
         : "must be in (0, 1], got "
             + Where.num(x)
-            + " — a share of demand, e.g. 0.35 (write 35% as 0.35; leave maxShare out for no limit)";
+            + " — a share of demand, e.g. 0.35 (write 35% as 0.35; leave maxShare out for no"
+            + " limit)";
   }
 
   /** A plain decimal number as written in a CSV cell, or null when the text is not one. */

@@ -18,9 +18,9 @@ import java.util.Map;
 
 /**
  * An option table in a CSV file next to the catalog: a header {@code id,price,cost[,label]
- * [,uses.<resource>...]} (columns in any order) and one row per option. Problems are named
- * {@code groups[2].optionsFile frame.csv line 5 column uses.weld}; lines count from 1 at the header,
- * blank lines are skipped, cells are trimmed, an empty {@code uses.*} cell means zero use.
+ * [,uses.<resource>...]} (columns in any order) and one row per option. Problems are named {@code
+ * groups[2].optionsFile frame.csv line 5 column uses.weld}; lines count from 1 at the header, blank
+ * lines are skipped, cells are trimmed, an empty {@code uses.*} cell means zero use.
  */
 final class CsvOptionTable {
   private static final CsvMapper CSV = new CsvMapper();
@@ -98,7 +98,10 @@ final class CsvOptionTable {
       String colAt = headerAt + " column " + (name.isEmpty() ? "#" + (j + 1) : name);
       if (name.isEmpty()) {
         reader.problem(
-            colAt, "the header has an empty column name — every column needs a name (" + HEADER_FORM + ")");
+            colAt,
+            "the header has an empty column name — every column needs a name ("
+                + HEADER_FORM
+                + ")");
         headerOk = false;
       } else if (!seen.add(name)) {
         reader.problem(colAt, "the column appears twice in the header; keep one");
@@ -113,7 +116,10 @@ final class CsvOptionTable {
         usesColumn.put(rid, j);
       } else if (header.cells().size() == 1 && name.contains(";")) {
         reader.problem(
-            headerAt, "the header is one column \"" + name + "\" — separate the columns with commas, not semicolons");
+            headerAt,
+            "the header is one column \""
+                + name
+                + "\" — separate the columns with commas, not semicolons");
         return -1;
       } else {
         List<String> allowed = new ArrayList<>(FIXED);
@@ -128,7 +134,8 @@ final class CsvOptionTable {
     }
     for (String needed : List.of("id", "price", "cost")) {
       if (!column.containsKey(needed)) {
-        reader.problem(headerAt, "missing column '" + needed + "' — the header must be " + HEADER_FORM);
+        reader.problem(
+            headerAt, "missing column '" + needed + "' — the header must be " + HEADER_FORM);
         headerOk = false;
       }
     }
@@ -141,7 +148,10 @@ final class CsvOptionTable {
       if (row.cells().size() != width) {
         reader.problem(
             lineAt,
-            "has " + row.cells().size() + " cells, the header has " + width
+            "has "
+                + row.cells().size()
+                + " cells, the header has "
+                + width
                 + " — check for a missing or extra comma (quote cells that contain commas)");
         int idColumn = column.get("id");
         if (idColumn < row.cells().size() && !row.cells().get(idColumn).isEmpty()) {
@@ -178,10 +188,25 @@ final class CsvOptionTable {
       }
       reader.registerOption(ref, id, idAt);
     }
-    Double price = cell(reader, lineAt, "price", cells.get(column.get("price")), "the list price this option adds, e.g. 520", true);
-    Double cost = cell(reader, lineAt, "cost", cells.get(column.get("cost")), "the variable cost this option adds, e.g. 210", true);
+    Double price =
+        cell(
+            reader,
+            lineAt,
+            "price",
+            cells.get(column.get("price")),
+            "the list price this option adds, e.g. 520",
+            true);
+    Double cost =
+        cell(
+            reader,
+            lineAt,
+            "cost",
+            cells.get(column.get("cost")),
+            "the variable cost this option adds, e.g. 210",
+            true);
     Integer labelColumn = column.get("label");
-    String label = labelColumn == null || cells.get(labelColumn).isEmpty() ? null : cells.get(labelColumn);
+    String label =
+        labelColumn == null || cells.get(labelColumn).isEmpty() ? null : cells.get(labelColumn);
     Map<String, Double> uses = new LinkedHashMap<>();
     for (Map.Entry<String, Integer> u : usesColumn.entrySet()) {
       String text = cells.get(u.getValue());
@@ -189,8 +214,13 @@ final class CsvOptionTable {
         continue;
       }
       Double x =
-          cell(reader, lineAt, "uses." + u.getKey(), text,
-              "the amount of '" + u.getKey() + "' one unit with this option uses, e.g. 1.6", false);
+          cell(
+              reader,
+              lineAt,
+              "uses." + u.getKey(),
+              text,
+              "the amount of '" + u.getKey() + "' one unit with this option uses, e.g. 1.6",
+              false);
       if (x == null) {
         ok = false;
       } else {
@@ -201,7 +231,12 @@ final class CsvOptionTable {
   }
 
   private static Double cell(
-      CatalogReader reader, String lineAt, String columnName, String text, String hint, boolean required) {
+      CatalogReader reader,
+      String lineAt,
+      String columnName,
+      String text,
+      String hint,
+      boolean required) {
     String at = lineAt + " column " + columnName;
     if (text.isEmpty()) {
       if (required) {
@@ -212,7 +247,11 @@ final class CsvOptionTable {
     Double x = Checks.decimal(text);
     if (x == null) {
       reader.problem(
-          at, "not a number: " + Where.quote(text) + " — write a plain number with a dot for decimals; " + hint);
+          at,
+          "not a number: "
+              + Where.quote(text)
+              + " — write a plain number with a dot for decimals; "
+              + hint);
       return null;
     }
     String p = Checks.nonNegativeProblem(x, hint);

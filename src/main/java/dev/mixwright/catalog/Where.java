@@ -110,7 +110,10 @@ final class Where {
       for (int j = 1; j <= b.length(); j++) {
         int cost = a.charAt(i - 1) == b.charAt(j - 1) ? 0 : 1;
         d[i][j] = Math.min(d[i - 1][j - 1] + cost, Math.min(d[i - 1][j], d[i][j - 1]) + 1);
-        if (i > 1 && j > 1 && a.charAt(i - 1) == b.charAt(j - 2) && a.charAt(i - 2) == b.charAt(j - 1)) {
+        if (i > 1
+            && j > 1
+            && a.charAt(i - 1) == b.charAt(j - 2)
+            && a.charAt(i - 2) == b.charAt(j - 1)) {
           d[i][j] = Math.min(d[i][j], d[i - 2][j - 2] + 1);
         }
       }

@@ -27,7 +27,8 @@ class CatalogRoundTripProperties {
     Catalog c = RandomCatalogs.random(new Random(seed), groups, 4, resources, 3, 6, portfolio);
     // RandomCatalogs may draw a price below zero (cost + [-15, 65) with cost >= 10), which the
     // loader rejects; those draws say nothing about the writer.
-    Assume.that(c.groups().stream().flatMap(g -> g.options().stream()).allMatch(o -> o.price() >= 0));
+    Assume.that(
+        c.groups().stream().flatMap(g -> g.options().stream()).allMatch(o -> o.price() >= 0));
     assertRoundTrips(c);
   }
 
@@ -52,7 +53,8 @@ class CatalogRoundTripProperties {
     assertEquals(c, CatalogLoader.parse(yaml, "c.yaml", null), yaml);
   }
 
-  // ------------------------------------------------------------------ a generator of awkward catalogs
+  // ------------------------------------------------------------------ a generator of awkward
+  // catalogs
 
   /** Words that YAML or JSON could misread when written carelessly (invented test data). */
   private static final List<String> WORDS =
@@ -63,7 +65,14 @@ class CatalogRoundTripProperties {
           "weld", "frame", "step", "b750");
 
   private static final List<String> LABELS =
-      List.of("", "line1\nline2", "  spaced  ", "ünïcödé ✓", "emoji 🚲", "colon: here", "quote \" and '");
+      List.of(
+          "",
+          "line1\nline2",
+          "  spaced  ",
+          "ünïcödé ✓",
+          "emoji 🚲",
+          "colon: here",
+          "quote \" and '");
 
   private static Catalog tricky(Random rnd) {
     List<Resource> resources = new ArrayList<>();
@@ -92,13 +101,19 @@ class CatalogRoundTripProperties {
       if (rnd.nextBoolean() || a == b) {
         rules.add(new Rule(id, Map.of(), Map.of(), Map.of(a.id(), List.of(choice(rnd, a)))));
       } else {
-        rules.add(new Rule(id, Map.of(a.id(), List.of(choice(rnd, a))), Map.of(b.id(), List.of(choice(rnd, b))), Map.of()));
+        rules.add(
+            new Rule(
+                id,
+                Map.of(a.id(), List.of(choice(rnd, a))),
+                Map.of(b.id(), List.of(choice(rnd, b))),
+                Map.of()));
       }
     }
     List<Segment> segments = new ArrayList<>();
     for (String sid : ids(rnd, Checks.IdKind.SEGMENT, 1 + rnd.nextInt(2))) {
       Group g = groups.get(rnd.nextInt(groups.size()));
-      Map<String, List<String>> accepts = rnd.nextBoolean() ? Map.of(g.id(), List.of(choice(rnd, g))) : Map.of();
+      Map<String, List<String>> accepts =
+          rnd.nextBoolean() ? Map.of(g.id(), List.of(choice(rnd, g))) : Map.of();
       Map<String, Double> value = new LinkedHashMap<>();
       for (Group h : groups) {
         if (rnd.nextBoolean()) {
@@ -116,12 +131,14 @@ class CatalogRoundTripProperties {
                     nonNegative(rnd),
                     rnd.nextBoolean() ? Integer.MAX_VALUE : 1 + rnd.nextInt(Integer.MAX_VALUE),
                     nonNegative(rnd)));
-    return new Catalog(1, text(rnd), text(rnd), text(rnd), resources, groups, rules, segments, portfolio);
+    return new Catalog(
+        1, text(rnd), text(rnd), text(rnd), resources, groups, rules, segments, portfolio);
   }
 
   /** Distinct ids the loader accepts for this kind. */
   private static List<String> ids(Random rnd, Checks.IdKind kind, int n) {
-    List<String> pool = new ArrayList<>(WORDS.stream().filter(w -> Checks.idProblem(w, kind) == null).toList());
+    List<String> pool =
+        new ArrayList<>(WORDS.stream().filter(w -> Checks.idProblem(w, kind) == null).toList());
     java.util.Collections.shuffle(pool, rnd);
     return pool.subList(0, Math.min(n, pool.size()));
   }
@@ -142,7 +159,21 @@ class CatalogRoundTripProperties {
   /** Any finite double >= 0: often a plain value, else any bit pattern (subnormals, 1e300, ...). */
   private static double nonNegative(Random rnd) {
     if (rnd.nextBoolean()) {
-      return pick(rnd, List.of(0.0, 1.0, 0.1, 1.6, 14000.0, 1e-7, 0.35, 9007199254740993.0, 1e15, 1e16, Double.MIN_VALUE, Double.MAX_VALUE));
+      return pick(
+          rnd,
+          List.of(
+              0.0,
+              1.0,
+              0.1,
+              1.6,
+              14000.0,
+              1e-7,
+              0.35,
+              9007199254740993.0,
+              1e15,
+              1e16,
+              Double.MIN_VALUE,
+              Double.MAX_VALUE));
     }
     double x = Double.longBitsToDouble(rnd.nextLong() & Long.MAX_VALUE);
     return Double.isFinite(x) ? x : 123.25;

@@ -89,7 +89,8 @@ final class CatalogTesting {
   /** The problem at {@code path} among several. */
   static CatalogProblem at(List<CatalogProblem> ps, String path) {
     List<CatalogProblem> found = ps.stream().filter(p -> p.path().equals(path)).toList();
-    assertEquals(1, found.size(), () -> "expected one problem at " + path + ", got:\n" + render(ps));
+    assertEquals(
+        1, found.size(), () -> "expected one problem at " + path + ", got:\n" + render(ps));
     return found.get(0);
   }
 

@@ -73,30 +73,38 @@ class CsvOptionTablesTest {
         CATALOG.replace(
             "    optionsFile: frame.csv\n",
             """
-                options:
-                  - {id: step, label: Step-through, price: 520, cost: 210, uses: {weld: 1.6}}
-                  - {id: low, price: 480, cost: 190, uses: {weld: 1.4, paint: 0.5}}
-                  - {id: cargo, label: "Long-tail, cargo", price: 900.5, cost: 420, uses: {weld: 3.1, paint: 0.1}}
-            """);
+    options:
+      - {id: step, label: Step-through, price: 520, cost: 210, uses: {weld: 1.6}}
+      - {id: low, price: 480, cost: 190, uses: {weld: 1.4, paint: 0.5}}
+      - {id: cargo, label: "Long-tail, cargo", price: 900.5, cost: 420, uses: {weld: 3.1, paint: 0.1}}
+""");
     assertEquals(CatalogTesting.load(inline), fromCsv);
-    assertEquals(List.of("step", "low", "cargo"), fromCsv.groups().get(2).options().stream().map(Option::id).toList());
+    assertEquals(
+        List.of("step", "low", "cargo"),
+        fromCsv.groups().get(2).options().stream().map(Option::id).toList());
   }
 
   @Test
   void inlineOptionsComeFirstThenTheTable() throws Exception {
-    String catalog = CATALOG.replace("    optionsFile: frame.csv\n", "    optionsFile: frame.csv\n    options: [{id: cargo, price: 900, cost: 420}]\n");
+    String catalog =
+        CATALOG.replace(
+            "    optionsFile: frame.csv\n",
+            "    optionsFile: frame.csv\n    options: [{id: cargo, price: 900, cost: 420}]\n");
     Catalog c = load(catalog, "cost,id,price\n210,step,520\n190,low,480\n");
     Group frame = c.groups().get(2);
-    assertEquals(List.of("cargo", "step", "low"), frame.options().stream().map(Option::id).toList());
+    assertEquals(
+        List.of("cargo", "step", "low"), frame.options().stream().map(Option::id).toList());
     assertEquals(new Option("step", null, 520, 210, Map.of()), frame.options().get(1));
   }
 
   @Test
   void tableInASubfolderIsFoundRelativeToTheCatalog() throws Exception {
     Files.createDirectories(dir.resolve("tables"));
-    Files.writeString(dir.resolve("tables/frame.csv"), "id,price,cost\nstep,1,1\nlow,1,1\ncargo,1,1\n");
+    Files.writeString(
+        dir.resolve("tables/frame.csv"), "id,price,cost\nstep,1,1\nlow,1,1\ncargo,1,1\n");
     Path file = dir.resolve("range.yaml");
-    Files.writeString(file, CATALOG.replace("optionsFile: frame.csv", "optionsFile: tables/frame.csv"));
+    Files.writeString(
+        file, CATALOG.replace("optionsFile: frame.csv", "optionsFile: tables/frame.csv"));
     assertEquals(3, CatalogLoader.load(file).groups().get(2).options().size());
   }
 
@@ -114,20 +122,38 @@ class CsvOptionTablesTest {
     assertEquals(6, ps.size(), () -> CatalogTesting.render(ps));
     says(at(ps, PREFIX + " line 3 column price"), "not a number: \"abc\"", "e.g. 520");
     says(at(ps, PREFIX + " line 4 column cost"), "must be >= 0, got -1");
-    says(at(ps, PREFIX + " line 4 column uses.weld"), "not a number: \"x\"", "with a dot for decimals");
+    says(
+        at(ps, PREFIX + " line 4 column uses.weld"),
+        "not a number: \"x\"",
+        "with a dot for decimals");
     says(at(ps, PREFIX + " line 5 column id"), "'none' is reserved");
     says(at(ps, PREFIX + " line 6 column id"), "empty", "needs an id");
-    says(at(ps, PREFIX + " line 7 column id"), "duplicate option id 'step' in group 'frame'", "first at " + PREFIX + " line 2 column id");
+    says(
+        at(ps, PREFIX + " line 7 column id"),
+        "duplicate option id 'step' in group 'frame'",
+        "first at " + PREFIX + " line 2 column id");
   }
 
   @Test
   void headerProblemsAreNamed() throws Exception {
     List<CatalogProblem> ps = problems("id,price,uses.wled,colour\nstep,1,1,red\n");
-    says(at(ps, PREFIX + " line 1 column uses.wled"), "unknown resource 'wled' (resources: weld, paint)", "did you mean 'weld'?");
-    says(at(ps, PREFIX + " line 1 column colour"), "unknown column", "id, price, cost, label, uses.<resource>", "uses.weld");
-    says(at(ps, PREFIX + " line 1"), "missing column 'cost'", "id,price,cost[,label][,uses.<resource>...]");
+    says(
+        at(ps, PREFIX + " line 1 column uses.wled"),
+        "unknown resource 'wled' (resources: weld, paint)",
+        "did you mean 'weld'?");
+    says(
+        at(ps, PREFIX + " line 1 column colour"),
+        "unknown column",
+        "id, price, cost, label, uses.<resource>",
+        "uses.weld");
+    says(
+        at(ps, PREFIX + " line 1"),
+        "missing column 'cost'",
+        "id,price,cost[,label][,uses.<resource>...]");
     says(at(problems("id;price;cost\nstep;1;1\n"), PREFIX + " line 1"), "commas, not semicolons");
-    says(at(problems("id,price,cost,id\nstep,1,1,x\n"), PREFIX + " line 1 column id"), "appears twice");
+    says(
+        at(problems("id,price,cost,id\nstep,1,1,x\n"), PREFIX + " line 1 column id"),
+        "appears twice");
   }
 
   @Test
@@ -141,7 +167,9 @@ class CsvOptionTablesTest {
   void referencesToTableOptionsAreChecked() throws Exception {
     List<CatalogProblem> ps = problems("id,price,cost\nstep,1,1\nlow,1,1\n");
     assertEquals(1, ps.size(), () -> CatalogTesting.render(ps));
-    assertEquals("unknown option 'cargo' in group 'frame' (options: step, low)", at(ps, "rules[0].forbid.frame[0]").message());
+    assertEquals(
+        "unknown option 'cargo' in group 'frame' (options: step, low)",
+        at(ps, "rules[0].forbid.frame[0]").message());
   }
 
   @Test
@@ -151,7 +179,11 @@ class CsvOptionTablesTest {
     CatalogException e = assertThrows(CatalogException.class, () -> CatalogLoader.load(file));
     // the rule and accepts name frame options that cannot be checked without the table: one problem
     assertEquals(1, e.problems().size(), e::getMessage);
-    says(at(e.problems(), "groups[2].optionsFile"), "cannot read 'frame.csv'", "no such file", "relative to the catalog file's folder");
+    says(
+        at(e.problems(), "groups[2].optionsFile"),
+        "cannot read 'frame.csv'",
+        "no such file",
+        "relative to the catalog file's folder");
 
     says(at(problems(""), PREFIX), "the file is empty", "id,price,cost");
     says(at(problems("id,price,cost\n"), PREFIX), "has no option rows");
@@ -160,7 +192,12 @@ class CsvOptionTablesTest {
 
   @Test
   void tableNeedsAFolder() {
-    CatalogException e = assertThrows(CatalogException.class, () -> CatalogLoader.parse(CATALOG, "range.yaml", null));
-    says(at(e.problems(), "groups[2].optionsFile"), "not read from a file", "list the options inline");
+    CatalogException e =
+        assertThrows(
+            CatalogException.class, () -> CatalogLoader.parse(CATALOG, "range.yaml", null));
+    says(
+        at(e.problems(), "groups[2].optionsFile"),
+        "not read from a file",
+        "list the options inline");
   }
 }
