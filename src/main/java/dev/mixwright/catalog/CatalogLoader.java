@@ -199,6 +199,11 @@ public final class CatalogLoader {
       return " — often a missing space after ':' or a value containing ': '; put such a value in"
           + " quotes";
     }
+    if (problem.startsWith("expected <block end>")
+        || problem.contains("could not find expected ':'")) {
+      return " — often a line indented differently from the entries beside it; check the"
+                 + " indentation";
+    }
     return "";
   }
 

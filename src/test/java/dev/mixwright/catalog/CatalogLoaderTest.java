@@ -656,6 +656,13 @@ class CatalogLoaderTest {
   }
 
   @Test
+  void misIndentedYamlPointsAtTheLine() {
+    CatalogProblem p = problems("format: 1\ngroups:\n  - id: frame\n - id: rack\n").get(0);
+    assertEquals("range.yaml line 4 column 2", p.path());
+    says(p, "not valid YAML", "check the indentation");
+  }
+
+  @Test
   void malformedJsonIsOneProblemAtItsLineAndColumn() {
     List<CatalogProblem> ps =
         problems("{\n  \"format\": 1,\n  \"groups\": [,]\n}\n", "range.json", null);
