@@ -1,0 +1,941 @@
+package dev.mixwright.catalog;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import dev.mixwright.catalog.Checks.IdKind;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+
+/**
+ * Walks a parsed catalog tree by hand, so that every problem is reported with its exact path and
+ * the walk goes on after it: one pass collects all problems. Sections are read in the order
+ * resources, groups, rules, segments, so each reference can be checked against the ids declared
+ * before it. Only single-rule checks happen here; what several rules do together is analysed on the
+ * compiled variant space.
+ *
+ * <p>Not thread-safe; one instance reads one document.
+ */
+final class CatalogReader {
+  private static final List<String> TOP_FIELDS =
+      List.of(
+          "format",
+          "name",
+          "currency",
+          "period",
+          "resources",
+          "groups",
+          "rules",
+          "segments",
+          "portfolio");
+  private static final List<String> RESOURCE_FIELDS = List.of("id", "label", "unit", "capacity");
+  private static final List<String> GROUP_FIELDS =
+      List.of("id", "label", "required", "options", "optionsFile");
+  private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "cost", "uses");
+  private static final List<String> RULE_FIELDS =
+      List.of("id", "note", "when", "require", "forbid");
+  private static final List<String> SEGMENT_FIELDS =
+      List.of("id", "label", "demand", "maxShare", "accepts", "value");
+  private static final List<String> PORTFOLIO_FIELDS =
+      List.of("introductionCost", "maxVariants", "minLot");
+
+  static final String PRICE_HINT = "the list price this option adds, e.g. price: 520";
+  static final String COST_HINT = "the variable cost this option adds, e.g. cost: 210";
+
+  /** The parts of a rule or segment that map groups to lists of choices. */
+  private enum Clause {
+    WHEN(
+        "the condition of the rule, e.g. when: {motor: [mid750]}",
+        "the rule can never fire; list the choices of '%s' that trigger it, or drop '%s'"),
+    REQUIRE(
+        "what must hold when the rule fires, e.g. require: {battery: [b625, b750]}",
+        "it can never be satisfied, so every variant matching when would be forbidden; list the"
+            + " allowed choices of '%s', or drop '%s' (to rule a combination out, use forbid)"),
+    FORBID(
+        "the combination never offered, e.g. forbid: {frame: [cargo], wheel: [w20]}",
+        "it forbids nothing; list the choices of '%s' to rule out, or drop '%s'"),
+    ACCEPTS(
+        "the choices a variant sold here must have, e.g. accepts: {frame: [step, low]}",
+        "the segment would accept no variant; list the accepted choices of '%s', or drop '%s'"
+            + " to accept any");
+
+    final String purpose;
+    final String emptyList;
+
+    Clause(String purpose, String emptyList) {
+      this.purpose = purpose;
+      this.emptyList = emptyList;
+    }
+  }
+
+  /** What later sections may refer to in a group, known even when parts of the group are wrong. */
+  static final class GroupRef {
+    final String id;
+
+    /** Null when the file's {@code required} is not a boolean: then {@code none} is not checked. */
+    final Boolean required;
+
+    final Map<String, String> optionIdAt = new LinkedHashMap<>();
+
+    /** False when an option table could not be read: references to its options go unchecked. */
+    boolean complete = true;
+
+    GroupRef(String id, Boolean required) {
+      this.id = id;
+      this.required = required;
+    }
+
+    List<String> choices() {
+      List<String> c = new ArrayList<>(optionIdAt.keySet());
+      if (Boolean.FALSE.equals(required)) {
+        c.add(Group.NONE);
+      }
+      return c;
+    }
+  }
+
+  private final String document;
+  private final Path baseDir;
+  private final List<CatalogProblem> problems = new ArrayList<>();
+  private final Map<String, String> resourceIdAt = new LinkedHashMap<>();
+  private final Map<String, GroupRef> groupsById = new LinkedHashMap<>();
+  private final Map<String, String> groupIdAt = new LinkedHashMap<>();
+  private final Map<String, String> segmentIdAt = new LinkedHashMap<>();
+  private final Map<String, String> ruleIdAt = new LinkedHashMap<>();
+
+  /**
+   * @param document the file name, the path of problems with the document as a whole
+   * @param baseDir folder option tables are read from, or null when there is none
+   */
+  CatalogReader(String document, Path baseDir) {
+    this.document = document;
+    this.baseDir = baseDir;
+  }
+
+  Catalog read(JsonNode root) throws CatalogException {
+    if (root == null || root.isMissingNode() || root.isNull()) {
+      problem(
+          document,
+          "the file is empty — a catalog starts with format: 1, then resources, groups, rules and"
+              + " segments");
+      throw new CatalogException(problems);
+    }
+    if (!root.isObject()) {
+      problem(
+          document,
+          "must be a mapping with format, resources, groups, rules and segments at the top, got "
+              + Where.describe(root));
+      throw new CatalogException(problems);
+    }
+    unknownFields(root, "", TOP_FIELDS, "the top level");
+    int format = readFormat(root.get("format"));
+    String name = optionalText(root, "", "name");
+    String currency = optionalText(root, "", "currency");
+    String period = optionalText(root, "", "period");
+    List<Resource> resources = readResources(value(root, "resources"));
+    List<Group> groups = readGroups(value(root, "groups"));
+    List<Rule> rules = readRules(value(root, "rules"));
+    List<Segment> segments = readSegments(value(root, "segments"));
+    Optional<PortfolioSpec> portfolio = readPortfolio(value(root, "portfolio"));
+    if (!problems.isEmpty()) {
+      throw new CatalogException(problems);
+    }
+    return new Catalog(
+        format, name, currency, period, resources, groups, rules, segments, portfolio);
+  }
+
+  // ---------------------------------------------------------------- sections
+
+  private int readFormat(JsonNode v) {
+    String hint = "the catalog format this version reads";
+    if (v == null || v.isNull()) {
+      problem("format", "missing — add format: 1 at the top of the file (" + hint + ")");
+      return 0;
+    }
+    if (!v.isNumber()) {
+      problem(
+          "format", "must be the number 1, got " + Where.describe(v) + unquoteHint(v, "format"));
+      return 0;
+    }
+    if (v.doubleValue() != 1) {
+      problem(
+          "format",
+          "this version reads format 1 only, got "
+              + Where.num(v.doubleValue())
+              + " — the file was written for another version of the format");
+      return 0;
+    }
+    return 1;
+  }
+
+  private List<Resource> readResources(JsonNode v) {
+    List<Resource> out = new ArrayList<>();
+    if (v == null) {
+      return out;
+    }
+    if (!v.isArray()) {
+      problem(
+          "resources",
+          "must be a list of resources, e.g. [{id: weld, capacity: 14000}], got "
+              + Where.describe(v));
+      return out;
+    }
+    for (int i = 0; i < v.size(); i++) {
+      String path = Where.index("resources", i);
+      JsonNode r = v.get(i);
+      if (!isMapping(r, path, "{id: weld, capacity: 14000}")) {
+        continue;
+      }
+      unknownFields(r, path, RESOURCE_FIELDS, "a resource");
+      String id = requiredId(r, path, IdKind.RESOURCE);
+      if (id != null) {
+        unique(resourceIdAt, id, Where.field(path, "id"), IdKind.RESOURCE);
+      }
+      String label = optionalText(r, path, "label");
+      String unit = optionalText(r, path, "unit");
+      Double capacity =
+          requiredNumber(
+              r,
+              path,
+              "capacity",
+              "the capacity per period in the resource's unit, e.g. capacity: 14000");
+      if (id != null && capacity != null) {
+        out.add(new Resource(id, label, unit, capacity));
+      }
+    }
+    return out;
+  }
+
+  private List<Group> readGroups(JsonNode v) {
+    List<Group> out = new ArrayList<>();
+    String example = "[{id: frame, options: [{id: step, price: 520, cost: 210}]}]";
+    if (v == null) {
+      problem(
+          "groups", "missing — a catalog needs at least one option group, e.g. groups: " + example);
+      return out;
+    }
+    if (!v.isArray()) {
+      problem(
+          "groups",
+          "must be a list of option groups, e.g. " + example + ", got " + Where.describe(v));
+      return out;
+    }
+    if (v.isEmpty()) {
+      problem(
+          "groups",
+          "is empty — a catalog needs at least one option group, e.g. groups: " + example);
+    }
+    for (int i = 0; i < v.size(); i++) {
+      String path = Where.index("groups", i);
+      JsonNode g = v.get(i);
+      if (!isMapping(g, path, "{id: frame, options: [...]}")) {
+        continue;
+      }
+      unknownFields(g, path, GROUP_FIELDS, "a group");
+      String id = requiredId(g, path, IdKind.GROUP);
+      String label = optionalText(g, path, "label");
+      Boolean required = optionalBoolean(g, path, "required", true);
+      GroupRef ref = new GroupRef(id, required);
+      if (id != null && unique(groupIdAt, id, Where.field(path, "id"), IdKind.GROUP)) {
+        groupsById.put(id, ref);
+      }
+      List<Option> options = new ArrayList<>();
+      boolean complete = true;
+      int entries = 0;
+      JsonNode inline = value(g, "options");
+      JsonNode file = value(g, "optionsFile");
+      String optionsPath = Where.field(path, "options");
+      String filePath = Where.field(path, "optionsFile");
+      if (inline == null && file == null) {
+        problem(
+            optionsPath,
+            "missing — list the group's options, e.g. options: [{id: step, price: 520, cost: 210}],"
+                + " or name a CSV table of them with optionsFile: frame.csv");
+        complete = false;
+      }
+      if (inline != null) {
+        if (!inline.isArray()) {
+          problem(
+              optionsPath,
+              "must be a list of options, e.g. [{id: step, price: 520, cost: 210}], got "
+                  + Where.describe(inline));
+          complete = false;
+        } else {
+          entries += inline.size();
+          for (int k = 0; k < inline.size(); k++) {
+            Option o = readOption(inline.get(k), Where.index(optionsPath, k), ref);
+            if (o != null) {
+              options.add(o);
+            }
+          }
+        }
+      }
+      if (file != null) {
+        if (!file.isTextual() || file.textValue().isBlank()) {
+          problem(
+              filePath,
+              "must be the name of a CSV file next to the catalog, e.g. optionsFile: frame.csv, got"
+                  + " "
+                  + Where.describe(file));
+          complete = false;
+        } else {
+          int rows = CsvOptionTable.read(this, ref, filePath, file.textValue(), baseDir, options);
+          if (rows < 0) {
+            complete = false;
+          } else {
+            entries += rows;
+          }
+        }
+      }
+      ref.complete = complete;
+      if (complete && entries == 0) {
+        if (file == null) {
+          problem(optionsPath, "is empty — a group needs at least one option");
+        } else {
+          problem(
+              filePath + " " + file.textValue(),
+              "has no option rows — a group needs at least one option; add a row below the header");
+        }
+      }
+      if (id != null) {
+        out.add(new Group(id, label, required == null || required, options));
+      }
+    }
+    return out;
+  }
+
+  private Option readOption(JsonNode o, String path, GroupRef ref) {
+    if (!isMapping(o, path, "{id: step, price: 520, cost: 210}")) {
+      return null;
+    }
+    unknownFields(o, path, OPTION_FIELDS, "an option");
+    String id = requiredId(o, path, IdKind.OPTION);
+    String label = optionalText(o, path, "label");
+    Double price = requiredNumber(o, path, "price", PRICE_HINT);
+    Double cost = requiredNumber(o, path, "cost", COST_HINT);
+    Map<String, Double> uses = readUses(value(o, "uses"), Where.field(path, "uses"));
+    if (id != null) {
+      registerOption(ref, id, Where.field(path, "id"));
+    }
+    return id != null && price != null && cost != null && uses != null
+        ? new Option(id, label, price, cost, uses)
+        : null;
+  }
+
+  private Map<String, Double> readUses(JsonNode v, String path) {
+    Map<String, Double> uses = new LinkedHashMap<>();
+    if (v == null) {
+      return uses;
+    }
+    if (!v.isObject()) {
+      problem(
+          path,
+          "must be a mapping of resource to amount per unit, e.g. uses: {weld: 1.6}, got "
+              + Where.describe(v));
+      return null;
+    }
+    boolean ok = true;
+    for (Map.Entry<String, JsonNode> e : v.properties()) {
+      String at = Where.field(path, e.getKey());
+      if (!resourceIdAt.containsKey(e.getKey())) {
+        unknownResource(e.getKey(), at);
+        ok = false;
+      }
+      Double amount =
+          number(
+              e.getValue(),
+              at,
+              "the amount of '" + e.getKey() + "' one unit with this option uses, e.g. 1.6",
+              true);
+      if (amount == null) {
+        ok = false;
+      } else {
+        uses.put(e.getKey(), amount);
+      }
+    }
+    return ok ? uses : null;
+  }
+
+  private List<Rule> readRules(JsonNode v) {
+    List<Rule> out = new ArrayList<>();
+    if (v == null) {
+      return out;
+    }
+    if (!v.isArray()) {
+      problem(
+          "rules",
+          "must be a list of rules, e.g. [{when: {motor: [mid750]}, require: {battery: [b750]}}],"
+              + " got "
+              + Where.describe(v));
+      return out;
+    }
+    for (int i = 0; i < v.size(); i++) {
+      String path = Where.index("rules", i);
+      JsonNode r = v.get(i);
+      if (!isMapping(r, path, "{when: {motor: [mid750]}, require: {battery: [b750]}}")) {
+        continue;
+      }
+      int before = problems.size();
+      unknownFields(r, path, RULE_FIELDS, "a rule");
+      String id = null;
+      JsonNode idNode = value(r, "id");
+      if (idNode != null) {
+        id = idText(idNode, Where.field(path, "id"), IdKind.RULE);
+        if (id != null) {
+          unique(ruleIdAt, id, Where.field(path, "id"), IdKind.RULE);
+        }
+      }
+      optionalText(r, path, "note"); // a note is for the people who read the file
+      JsonNode w = value(r, "when");
+      JsonNode q = value(r, "require");
+      JsonNode f = value(r, "forbid");
+      Map<String, List<String>> when =
+          w == null ? Map.of() : clause(w, Where.field(path, "when"), Clause.WHEN);
+      Map<String, List<String>> require =
+          q == null ? Map.of() : clause(q, Where.field(path, "require"), Clause.REQUIRE);
+      Map<String, List<String>> forbid =
+          f == null ? Map.of() : clause(f, Where.field(path, "forbid"), Clause.FORBID);
+      if (f != null && (w != null || q != null)) {
+        problem(
+            path,
+            "has both forbid and when/require — a rule is either when + require (if ... then ...)"
+                + " or forbid (never together); split it into two rules");
+      } else if (f == null && w == null && q == null) {
+        problem(
+            path,
+            "says nothing — write when: {group: [choices]} with require: {group: [choices]}, or"
+                + " forbid: {group: [choices], group: [choices]}");
+      } else if (w != null && q == null) {
+        problem(
+            Where.field(path, "require"),
+            "missing — a rule with when also needs require: "
+                + Clause.REQUIRE.purpose
+                + "; to rule a combination out instead, use forbid");
+      } else if (q != null && w == null) {
+        problem(
+            Where.field(path, "when"),
+            "missing — a rule with require also needs when: "
+                + Clause.WHEN.purpose
+                + "; to rule choices out outright, use forbid: {group: [choices]}");
+      }
+      if (problems.size() == before) {
+        out.add(new Rule(id, when, require, forbid));
+      }
+    }
+    return out;
+  }
+
+  private List<Segment> readSegments(JsonNode v) {
+    List<Segment> out = new ArrayList<>();
+    String example = "[{id: commuters, demand: 9000}]";
+    if (v == null) {
+      problem(
+          "segments",
+          "missing — a catalog needs at least one segment to sell to, e.g. segments: " + example);
+      return out;
+    }
+    if (!v.isArray()) {
+      problem(
+          "segments", "must be a list of segments, e.g. " + example + ", got " + Where.describe(v));
+      return out;
+    }
+    if (v.isEmpty()) {
+      problem(
+          "segments",
+          "is empty — a catalog needs at least one segment to sell to, e.g. segments: " + example);
+    }
+    for (int i = 0; i < v.size(); i++) {
+      String path = Where.index("segments", i);
+      JsonNode s = v.get(i);
+      if (!isMapping(s, path, "{id: commuters, demand: 9000}")) {
+        continue;
+      }
+      int before = problems.size();
+      unknownFields(s, path, SEGMENT_FIELDS, "a segment");
+      String id = requiredId(s, path, IdKind.SEGMENT);
+      if (id != null) {
+        unique(segmentIdAt, id, Where.field(path, "id"), IdKind.SEGMENT);
+      }
+      String label = optionalText(s, path, "label");
+      Double demand =
+          requiredNumber(
+              s,
+              path,
+              "demand",
+              "the units per period this segment buys at most, e.g. demand: 9000");
+      double maxShare = 1;
+      JsonNode ms = value(s, "maxShare");
+      if (ms != null) {
+        String at = Where.field(path, "maxShare");
+        Double x = number(ms, at, "a share of demand, e.g. maxShare: 0.35", true);
+        if (x != null) {
+          String p = Checks.shareProblem(x);
+          if (p != null) {
+            problem(at, p);
+          } else {
+            maxShare = x;
+          }
+        }
+      }
+      JsonNode a = value(s, "accepts");
+      Map<String, List<String>> accepts =
+          a == null ? Map.of() : clause(a, Where.field(path, "accepts"), Clause.ACCEPTS);
+      JsonNode val = value(s, "value");
+      Map<String, Double> valueMap =
+          val == null ? Map.of() : readValue(val, Where.field(path, "value"));
+      if (problems.size() == before) {
+        out.add(new Segment(id, label, demand, maxShare, accepts, valueMap));
+      }
+    }
+    return out;
+  }
+
+  private Map<String, Double> readValue(JsonNode v, String path) {
+    Map<String, Double> out = new LinkedHashMap<>();
+    if (!v.isObject()) {
+      problem(
+          path,
+          "must be a mapping of group.option to the extra value per unit, e.g. value:"
+              + " {\"battery.b750\": 90}, got "
+              + Where.describe(v));
+      return out;
+    }
+    for (Map.Entry<String, JsonNode> e : v.properties()) {
+      String key = e.getKey();
+      String at = Where.field(path, key);
+      Double x =
+          number(
+              e.getValue(),
+              at,
+              "what this segment pays extra per unit for the choice (negative: pays less), e.g. 90",
+              false);
+      int dot = key.indexOf('.');
+      if (dot <= 0 || dot == key.length() - 1) {
+        problem(at, "write the key as group.option, " + valueKeyExample(key));
+        continue;
+      }
+      String gid = key.substring(0, dot);
+      GroupRef g = groupsById.get(gid);
+      if (g == null) {
+        unknownGroup(gid, at);
+      } else {
+        checkChoice(g, key.substring(dot + 1), at);
+      }
+      if (x != null) {
+        out.put(key, x);
+      }
+    }
+    return out;
+  }
+
+  /** An example key for a value entry, built from the catalog when the intended option is clear. */
+  private String valueKeyExample(String key) {
+    String bare = key.replace(".", "");
+    List<String> owners = new ArrayList<>();
+    for (GroupRef g : groupsById.values()) {
+      if (g.optionIdAt.containsKey(bare)) {
+        owners.add(g.id);
+      }
+    }
+    if (owners.size() == 1) {
+      return "e.g. \"" + owners.get(0) + "." + bare + "\" (the group, a dot, the option)";
+    }
+    return "e.g. \"battery.b750\" (the group, a dot, the option)";
+  }
+
+  private Optional<PortfolioSpec> readPortfolio(JsonNode v) {
+    if (v == null) {
+      return Optional.empty();
+    }
+    if (!isMapping(v, "portfolio", "{introductionCost: 18000, maxVariants: 24, minLot: 150}")) {
+      return Optional.empty();
+    }
+    unknownFields(v, "portfolio", PORTFOLIO_FIELDS, "the portfolio section");
+    double introductionCost =
+        optionalNumber(
+            v,
+            "portfolio",
+            "introductionCost",
+            0,
+            "the fixed cost per distinct variant offered, e.g. introductionCost: 18000");
+    double minLot =
+        optionalNumber(
+            v,
+            "portfolio",
+            "minLot",
+            0,
+            "the least a variant offered is built, all segments together, e.g. minLot: 150");
+    int maxVariants = Integer.MAX_VALUE;
+    JsonNode mv = value(v, "maxVariants");
+    if (mv != null) {
+      String at = "portfolio.maxVariants";
+      String hint =
+          "the most distinct variants offered, e.g. maxVariants: 24; leave it out for no limit";
+      if (!mv.isNumber()) {
+        problem(
+            at,
+            "must be a whole number >= 1, got "
+                + Where.describe(mv)
+                + unquoteHint(mv, "maxVariants")
+                + " — "
+                + hint);
+      } else {
+        double d = mv.doubleValue();
+        if (!Double.isFinite(d) || d != Math.rint(d)) {
+          problem(at, "must be a whole number >= 1, got " + Where.num(d) + " — " + hint);
+        } else if (d < 1) {
+          problem(at, "must be >= 1, got " + Where.num(d) + " — " + hint);
+        } else if (d > Integer.MAX_VALUE) {
+          problem(
+              at, "must be at most " + Integer.MAX_VALUE + ", got " + Where.num(d) + " — " + hint);
+        } else {
+          maxVariants = (int) d;
+        }
+      }
+    }
+    return Optional.of(new PortfolioSpec(introductionCost, maxVariants, minLot));
+  }
+
+  // ---------------------------------------------------------------- clauses and references
+
+  /** A mapping of group to choices, every group and choice checked; null when any is wrong. */
+  private Map<String, List<String>> clause(JsonNode v, String path, Clause kind) {
+    if (!v.isObject()) {
+      problem(
+          path,
+          "must be a mapping of group to a list of choices, "
+              + kind.purpose
+              + ", got "
+              + Where.describe(v));
+      return null;
+    }
+    if (v.isEmpty() && kind != Clause.ACCEPTS) {
+      problem(path, "names no group — it should give " + kind.purpose);
+      return null;
+    }
+    boolean ok = true;
+    Map<String, List<String>> out = new LinkedHashMap<>();
+    for (Map.Entry<String, JsonNode> e : v.properties()) {
+      String gid = e.getKey();
+      String at = Where.field(path, gid);
+      GroupRef g = groupsById.get(gid);
+      if (g == null) {
+        unknownGroup(gid, at);
+        ok = false;
+      }
+      List<String> choices =
+          choiceList(e.getValue(), at, g, String.format(kind.emptyList, gid, gid));
+      if (choices == null) {
+        ok = false;
+      } else {
+        out.put(gid, choices);
+      }
+    }
+    return ok ? out : null;
+  }
+
+  private List<String> choiceList(JsonNode v, String path, GroupRef g, String whyNotEmpty) {
+    if (!v.isArray()) {
+      String fix =
+          v.isTextual()
+              ? " — write it as a list: [" + v.textValue() + "]"
+              : " — write a list of choices, e.g. [step, low]";
+      problem(path, "must be a list of choices, got " + Where.describe(v) + fix);
+      return null;
+    }
+    if (v.isEmpty()) {
+      problem(path, "empty list — " + whyNotEmpty);
+      return null;
+    }
+    int before = problems.size();
+    List<String> out = new ArrayList<>();
+    Set<String> seen = new LinkedHashSet<>();
+    for (int k = 0; k < v.size(); k++) {
+      String at = Where.index(path, k);
+      JsonNode c = v.get(k);
+      if (!c.isTextual()) {
+        problem(at, "must be an option id, got " + Where.describe(c) + quoteHint(c));
+        continue;
+      }
+      String choice = c.textValue();
+      if (!seen.add(choice)) {
+        problem(at, "'" + choice + "' is listed twice; keep one");
+        continue;
+      }
+      checkChoice(g, choice, at);
+      out.add(choice);
+    }
+    return problems.size() == before ? out : null;
+  }
+
+  /** A choice of a known group: one of its options, or {@code none} when the group is optional. */
+  private void checkChoice(GroupRef g, String choice, String path) {
+    if (g == null) {
+      return;
+    }
+    if (Group.NONE.equals(choice)) {
+      if (Boolean.TRUE.equals(g.required)) {
+        problem(
+            path,
+            "group '"
+                + g.id
+                + "' is required, so 'none' is not one of its choices — 'none' is only for optional"
+                + " groups (required: false); list options of '"
+                + g.id
+                + "' here, or make the group optional");
+      }
+      return;
+    }
+    if (g.complete && !g.optionIdAt.containsKey(choice)) {
+      problem(
+          path,
+          "unknown option '"
+              + choice
+              + "' in group '"
+              + g.id
+              + "' (options: "
+              + Where.list(g.choices())
+              + ")"
+              + Where.didYouMean(choice, g.choices()));
+    }
+  }
+
+  private void unknownGroup(String gid, String path) {
+    problem(
+        path,
+        "unknown group '"
+            + gid
+            + "' (groups: "
+            + Where.list(groupsById.keySet())
+            + ")"
+            + Where.didYouMean(gid, groupsById.keySet()));
+  }
+
+  void unknownResource(String rid, String path) {
+    String known =
+        resourceIdAt.isEmpty()
+            ? " (the catalog declares no resources; add it under resources)"
+            : " (resources: " + Where.list(resourceIdAt.keySet()) + ")";
+    problem(
+        path,
+        "unknown resource '" + rid + "'" + known + Where.didYouMean(rid, resourceIdAt.keySet()));
+  }
+
+  Set<String> resourceIds() {
+    return resourceIdAt.keySet();
+  }
+
+  /**
+   * Records an option id of a group, reporting a duplicate; used by inline options and CSV rows.
+   */
+  void registerOption(GroupRef ref, String id, String path) {
+    String first = ref.optionIdAt.putIfAbsent(id, path);
+    if (first != null) {
+      String in = ref.id == null ? "" : " in group '" + ref.id + "'";
+      problem(
+          path,
+          "duplicate option id '"
+              + id
+              + "'"
+              + in
+              + " (first at "
+              + first
+              + ") — give each option its own id");
+    }
+  }
+
+  /** Records an id in its namespace; false (and a problem) when it was declared before. */
+  private boolean unique(Map<String, String> idAt, String id, String path, IdKind kind) {
+    String first = idAt.putIfAbsent(id, path);
+    if (first == null) {
+      return true;
+    }
+    problem(
+        path,
+        "duplicate "
+            + kind.noun
+            + " id '"
+            + id
+            + "' (first at "
+            + first
+            + ") — give each "
+            + kind.noun
+            + " its own id");
+    return false;
+  }
+
+  // ---------------------------------------------------------------- fields and values
+
+  void problem(String path, String message) {
+    problems.add(new CatalogProblem(path, message));
+  }
+
+  /** A field's value, or null when absent or written as null (an empty YAML value). */
+  private static JsonNode value(JsonNode o, String field) {
+    JsonNode v = o.get(field);
+    return v == null || v.isNull() ? null : v;
+  }
+
+  private boolean isMapping(JsonNode v, String path, String example) {
+    if (v != null && v.isObject()) {
+      return true;
+    }
+    problem(path, "must be a mapping such as " + example + ", got " + Where.describe(v));
+    return false;
+  }
+
+  private void unknownFields(JsonNode o, String path, List<String> allowed, String what) {
+    for (Map.Entry<String, JsonNode> field : o.properties()) {
+      String f = field.getKey();
+      if (!allowed.contains(f)) {
+        problem(
+            Where.field(path, f),
+            "unknown field ("
+                + what
+                + " takes: "
+                + Where.list(allowed)
+                + ")"
+                + Where.didYouMean(f, allowed));
+      }
+    }
+  }
+
+  private String requiredId(JsonNode o, String path, IdKind kind) {
+    String at = Where.field(path, "id");
+    JsonNode v = o.get("id");
+    if (v == null || v.isNull()) {
+      problem(
+          at,
+          (v == null ? "missing" : "is empty")
+              + " — every "
+              + kind.noun
+              + " needs an id, e.g. id: "
+              + kind.example);
+      return null;
+    }
+    return idText(v, at, kind);
+  }
+
+  /**
+   * The id as text, even when its spelling breaks a rule (so that references to it still resolve).
+   */
+  private String idText(JsonNode v, String path, IdKind kind) {
+    if (!v.isTextual()) {
+      problem(path, "must be text, got " + Where.describe(v) + quoteHint(v));
+      return null;
+    }
+    String id = v.textValue();
+    String p = Checks.idProblem(id, kind);
+    if (p != null) {
+      problem(path, p);
+    }
+    return id;
+  }
+
+  private String optionalText(JsonNode o, String path, String field) {
+    JsonNode v = value(o, field);
+    if (v == null) {
+      return null;
+    }
+    if (!v.isTextual()) {
+      problem(Where.field(path, field), "must be text, got " + Where.describe(v) + quoteHint(v));
+      return null;
+    }
+    return v.textValue();
+  }
+
+  private Boolean optionalBoolean(JsonNode o, String path, String field, boolean absent) {
+    JsonNode v = value(o, field);
+    if (v == null) {
+      return absent;
+    }
+    if (!v.isBoolean()) {
+      problem(
+          Where.field(path, field),
+          "must be true or false, got "
+              + Where.describe(v)
+              + unquoteHint(v, field)
+              + " — true: a variant holds exactly one option of the group; false: at most one"
+              + " (the absent choice is written none)");
+      return null;
+    }
+    return v.booleanValue();
+  }
+
+  private Double requiredNumber(JsonNode o, String path, String field, String hint) {
+    String at = Where.field(path, field);
+    JsonNode v = o.get(field);
+    if (v == null || v.isNull()) {
+      problem(at, (v == null ? "missing" : "is empty") + " — give " + hint);
+      return null;
+    }
+    return number(v, at, hint, true);
+  }
+
+  private double optionalNumber(JsonNode o, String path, String field, double absent, String hint) {
+    JsonNode v = value(o, field);
+    if (v == null) {
+      return absent;
+    }
+    Double x = number(v, Where.field(path, field), hint, true);
+    return x == null ? absent : x;
+  }
+
+  /**
+   * A number; {@code nonNegative} also rules out values below zero. Every number must be finite.
+   * Null (and a problem) when the value is wrong.
+   */
+  private Double number(JsonNode v, String path, String hint, boolean nonNegative) {
+    if (v == null || v.isNull()) {
+      problem(path, "is empty — give " + hint);
+      return null;
+    }
+    if (v.isTextual() && v.textValue().isBlank()) {
+      problem(path, "is empty — give " + hint);
+      return null;
+    }
+    if (!v.isNumber()) {
+      problem(
+          path, "must be a number, got " + Where.describe(v) + unquoteHint(v, null) + " — " + hint);
+      return null;
+    }
+    double x = v.doubleValue();
+    String p = nonNegative ? Checks.nonNegativeProblem(x, hint) : Checks.finiteProblem(x, hint);
+    if (p != null) {
+      problem(path, p);
+      return null;
+    }
+    return x;
+  }
+
+  /** For text that holds a number or boolean: say to drop the quotes. */
+  private static String unquoteHint(JsonNode v, String field) {
+    if (!v.isTextual()) {
+      return "";
+    }
+    String t = v.textValue().strip();
+    boolean looksLikeValue = Checks.decimal(t) != null || t.equals("true") || t.equals("false");
+    if (!looksLikeValue) {
+      return "";
+    }
+    return field == null
+        ? " (write it without quotes)"
+        : " (write it without quotes: " + field + ": " + t + ")";
+  }
+
+  /** For a number or boolean where text belongs: YAML turned an unquoted word into a value. */
+  private static String quoteHint(JsonNode v) {
+    if (v.isNumber()) {
+      return " — put it in quotes, e.g. \"" + Where.num(v.doubleValue()) + "\"";
+    }
+    if (v.isBoolean()) {
+      return " — put it in quotes (YAML reads unquoted yes, no, on, off, true and false as true or"
+                 + " false)";
+    }
+    return "";
+  }
+}
