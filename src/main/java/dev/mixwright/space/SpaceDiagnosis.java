@@ -90,7 +90,7 @@ public final class SpaceDiagnosis {
     Segment seg = catalog.segments().get(s);
     String who = "segment " + seg.id() + " (segments[" + s + "])";
     String accepts =
-        seg.accepts().isEmpty() ? "accepting every variant" : "with its accepts " + cond(seg.accepts());
+        seg.accepts().isEmpty() ? "though it accepts every variant" : "given its accepts (" + cond(seg.accepts()) + ")";
     String message;
     if (core.isEmpty()) {
       message = who + " accepts no variant at all: its accepts " + cond(seg.accepts()) + " allow none";
