@@ -1,0 +1,194 @@
+package dev.mixwright.space;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Group;
+import dev.mixwright.catalog.Rule;
+import dev.mixwright.testing.RandomCatalogs;
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Random;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.IntRange;
+
+/** SpaceCounter against brute force (odometer over every combination of choices). */
+class SpaceCounterProperties {
+  static final long MAX_BRUTE = 100_000;
+
+  /** A random catalog from RandomCatalogs, with fewer groups until brute force stays small. */
+  static Catalog sized(long seed, int groups, int maxOptions, int rules, int segments) {
+    for (int g = groups; ; g--) {
+      Catalog c = RandomCatalogs.random(new Random(seed), g, maxOptions, 1, segments, rules, false);
+      if (BruteForce.combinations(c) <= MAX_BRUTE) {
+        return c;
+      }
+    }
+  }
+
+  /** Adds rules over three groups (forbid) and two-group when with require on a third. */
+  static Catalog withWideRules(Catalog c, long seed, int extra) {
+    int n = c.groups().size();
+    if (n < 3) {
+      return c;
+    }
+    Random rnd = new Random(seed ^ 0x5eed);
+    List<Rule> rules = new ArrayList<>(c.rules());
+    for (int i = 0; i < extra; i++) {
+      List<Integer> pick = new ArrayList<>();
+      while (pick.size() < 3) {
+        int g = rnd.nextInt(n);
+        if (!pick.contains(g)) {
+          pick.add(g);
+        }
+      }
+      Map<String, List<String>> a = new LinkedHashMap<>();
+      for (int j = 0; j < 2; j++) {
+        Group g = c.groups().get(pick.get(j));
+        a.put(g.id(), someChoices(rnd, g));
+      }
+      Group third = c.groups().get(pick.get(2));
+      if (rnd.nextBoolean()) {
+        a.put(third.id(), someChoices(rnd, third));
+        rules.add(new Rule("wide" + i, Map.of(), Map.of(), a));
+      } else {
+        rules.add(new Rule("wide" + i, a, Map.of(third.id(), someChoices(rnd, third)), Map.of()));
+      }
+    }
+    return new Catalog(
+        c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), rules,
+        c.segments(), c.portfolio());
+  }
+
+  static List<String> someChoices(Random rnd, Group g) {
+    List<String> out = new ArrayList<>();
+    for (int k = 0; k < g.choiceCount(); k++) {
+      if (rnd.nextDouble() < 0.5) {
+        out.add(g.choiceId(k));
+      }
+    }
+    if (out.isEmpty()) {
+      out.add(g.choiceId(rnd.nextInt(g.choiceCount())));
+    }
+    return out;
+  }
+
+  @Property(tries = 100)
+  void exactCountEqualsBruteForce(
+      @ForAll long seed,
+      @ForAll @IntRange(min = 1, max = 12) int groups,
+      @ForAll @IntRange(min = 1, max = 7) int maxOptions,
+      @ForAll @IntRange(min = 0, max = 30) int rules) {
+    VariantSpace space = new VariantSpace(sized(seed, groups, maxOptions, rules, 3));
+    SpaceCounter counter = new SpaceCounter(space);
+    SpaceCount all = counter.count();
+    assertTrue(all.exact());
+    assertEquals(BigInteger.valueOf(BruteForce.buildable(space)), all.value()); // brute force
+    List<SpaceCount> per = counter.perSegment();
+    for (int s = 0; s < space.segmentCount(); s++) {
+      assertTrue(per.get(s).exact());
+      assertEquals(BigInteger.valueOf(BruteForce.columns(space, s)), per.get(s).value(), "segment " + s);
+    }
+  }
+
+  @Property(tries = 80)
+  void exactCountEqualsBruteForceWithWideRules(
+      @ForAll long seed,
+      @ForAll @IntRange(min = 3, max = 12) int groups,
+      @ForAll @IntRange(min = 2, max = 6) int maxOptions,
+      @ForAll @IntRange(min = 0, max = 12) int rules,
+      @ForAll @IntRange(min = 1, max = 12) int wide) {
+    VariantSpace space =
+        new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 2), seed, wide));
+    SpaceCounter counter = new SpaceCounter(space);
+    assertEquals(new SpaceCount(BigInteger.valueOf(BruteForce.buildable(space)), true), counter.count());
+    for (int s = 0; s < space.segmentCount(); s++) {
+      assertEquals(
+          new SpaceCount(BigInteger.valueOf(BruteForce.columns(space, s)), true), counter.count(s));
+    }
+  }
+
+  /** With tiny tables the count may only be a bound, but never below the truth. */
+  @Property(tries = 80)
+  void boundNeverBelowTruth(
+      @ForAll long seed,
+      @ForAll @IntRange(min = 3, max = 12) int groups,
+      @ForAll @IntRange(min = 2, max = 6) int maxOptions,
+      @ForAll @IntRange(min = 5, max = 40) int rules,
+      @ForAll @IntRange(min = 1, max = 64) int limit) {
+    VariantSpace space =
+        new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 1), seed, 4));
+    SpaceCount c = new SpaceCounter(space, limit).count();
+    BigInteger truth = BigInteger.valueOf(BruteForce.buildable(space)); // brute force
+    if (c.exact()) {
+      assertEquals(truth, c.value());
+    } else {
+      assertTrue(c.value().compareTo(truth) >= 0, c.value() + " < " + truth);
+    }
+    assertTrue(c.value().compareTo(BigInteger.valueOf(BruteForce.combinations(space.catalog()))) <= 0);
+  }
+
+  /** count(domain) and the feasibility search agree with brute force on random restrictions. */
+  @Property(tries = 80)
+  void restrictedCountAndSearchEqualBruteForce(
+      @ForAll long seed,
+      @ForAll @IntRange(min = 2, max = 10) int groups,
+      @ForAll @IntRange(min = 2, max = 6) int maxOptions,
+      @ForAll @IntRange(min = 0, max = 30) int rules) {
+    VariantSpace space =
+        new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 1), seed, 3));
+    Random rnd = new Random(seed);
+    boolean[] domain = new boolean[space.totalChoices()];
+    for (int f = 0; f < domain.length; f++) {
+      domain[f] = rnd.nextDouble() < 0.75;
+    }
+    int[] off = space.offsets();
+    long truth =
+        BruteForce.count(
+            space.catalog(),
+            v -> {
+              for (int g = 0; g < v.length; g++) {
+                if (!domain[off[g] + v[g]]) {
+                  return false;
+                }
+              }
+              return space.isBuildable(v);
+            });
+    assertEquals(new SpaceCount(BigInteger.valueOf(truth), true), new SpaceCounter(space).count(domain));
+    boolean[] within = domain.clone();
+    for (int f = 0; f < within.length; f++) {
+      within[f] &= space.allowed(f);
+    }
+    assertEquals(truth > 0, SpaceDiagnosis.anyBuildable(space, within));
+  }
+
+  /** The compiled space (allowed + nogoods) says what the catalog's rules say, read directly. */
+  @Property(tries = 60)
+  void compiledRulesAgreeWithCatalogRules(
+      @ForAll long seed,
+      @ForAll @IntRange(min = 2, max = 10) int groups,
+      @ForAll @IntRange(min = 1, max = 6) int maxOptions,
+      @ForAll @IntRange(min = 0, max = 25) int rules) {
+    Catalog c = withWideRules(sized(seed, groups, maxOptions, rules, 3), seed, 3);
+    VariantSpace space = new VariantSpace(c);
+    long mismatches =
+        BruteForce.count(c, v -> space.isBuildable(v) != BruteForce.rulesHold(c, c.rules(), v));
+    assertEquals(0, mismatches);
+    for (int s = 0; s < space.segmentCount(); s++) {
+      int seg = s;
+      long segMismatches =
+          BruteForce.count(
+              c,
+              v ->
+                  space.isColumn(v, seg)
+                      != (BruteForce.rulesHold(c, c.rules(), v)
+                          && BruteForce.accepts(c, c.segments().get(seg), v)));
+      assertEquals(0, segMismatches, "segment " + s);
+    }
+  }
+}
