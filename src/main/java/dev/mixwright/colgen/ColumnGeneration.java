@@ -165,18 +165,22 @@ public final class ColumnGeneration {
         for (int s = 0; s < segCount; s++) {
           PricingOutcome o = null;
           if (settings.heuristicFirst() && heuristic != null) {
-            o = heuristic.price(ReducedCosts.query(space, s, pi, mu[s], settings.perRound(), entryTolerance, inMaster.get(s)));
-            if (o.found().isEmpty()) {
+            o = heuristic.price(ReducedCosts.query(space, s, pi, mu[s], settings.perRound(), 0.0, inMaster.get(s)));
+            if (o.best() <= entryTolerance) {
               o = null;
             }
           }
           if (o == null) {
-            o = exact.price(ReducedCosts.query(space, s, pi, mu[s], settings.perRound(), entryTolerance, inMaster.get(s)));
+            // Threshold 0, so that the bound uses the best reduced cost itself; only columns that pay
+            // more than the round-off tolerance enter.
+            o = exact.price(ReducedCosts.query(space, s, pi, mu[s], settings.perRound(), 0.0, inMaster.get(s)));
           }
           allExact &= o.exact();
           roundBound += demand[s] * Math.max(0.0, o.upperBound());
           for (PricedVariant pv : o.found()) {
-            found.add(column(s, pv.choices(), upper[s], iteration, pv.reducedCost()));
+            if (pv.reducedCost() > entryTolerance) {
+              found.add(column(s, pv.choices(), upper[s], iteration, pv.reducedCost()));
+            }
           }
         }
         bestBound = Math.min(bestBound, roundBound);

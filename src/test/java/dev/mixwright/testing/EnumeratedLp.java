@@ -192,6 +192,52 @@ public final class EnumeratedLp {
     }
   }
 
+  /**
+   * For fixed π the dual separates per segment into min over μ_s ≥ 0 of D_s·μ_s + Σ_j u_j·max(0,
+   * e_j − μ_s), e_j = m_j − a_j·π: convex and piecewise linear, so its minimum lies at 0 or at one of
+   * the e_j. Replacing μ by that minimiser only lowers the dual value. Needed because Commons Math
+   * 3.6.1 returned a non-optimal dual vertex (μ = 20 where 0 was optimal, dual 12337 against 5617)
+   * on a two-column LP; the polished point met strong duality.
+   */
+  private static void polishSegmentDuals(List<Column> cols, double[] demand, double[] pi, double[] mu) {
+    for (int s = 0; s < demand.length; s++) {
+      List<Double> e = new ArrayList<>();
+      List<Double> u = new ArrayList<>();
+      for (Column c : cols) {
+        if (c.segment() == s) {
+          double d = c.margin();
+          for (int r = 0; r < pi.length; r++) {
+            d -= pi[r] * c.use()[r];
+          }
+          e.add(d);
+          u.add(c.upper());
+        }
+      }
+      double bestMu = mu[s];
+      double best = segmentDualValue(demand[s], bestMu, e, u);
+      List<Double> candidates = new ArrayList<>(e);
+      candidates.add(0.0);
+      for (double t : candidates) {
+        if (t >= 0) {
+          double v = segmentDualValue(demand[s], t, e, u);
+          if (v < best) {
+            best = v;
+            bestMu = t;
+          }
+        }
+      }
+      mu[s] = bestMu;
+    }
+  }
+
+  private static double segmentDualValue(double demand, double mu, List<Double> e, List<Double> u) {
+    double v = demand * mu;
+    for (int j = 0; j < e.size(); j++) {
+      v += u.get(j) * Math.max(0.0, e.get(j) - mu);
+    }
+    return v;
+  }
+
   private static double dualValue(
       List<Column> cols, double[] capacity, double[] demand, double[] pi, double[] mu) {
     double v = 0;
@@ -295,6 +341,7 @@ public final class EnumeratedLp {
         for (int s = 0; s < ns; s++) {
           mu[s] = Math.max(0.0, dual[nr + s]);
         }
+        polishSegmentDuals(cols, demand, pi, mu);
         // With w_j = max(0, d_j) every π, μ ≥ 0 is dual feasible, so this value is a valid bound.
         double dz = dualValue(cols, capacity, demand, pi, mu);
         if (dz < bestDual) {
@@ -342,29 +389,75 @@ public final class EnumeratedLp {
     return run(new LinearObjectiveFunction(m, 0.0), rows, GoalType.MAXIMIZE, n, rule);
   }
 
-  /** Variables (π_1..π_R, μ_1..μ_S, w_1..w_n). */
+  /**
+   * Variables (π_1..π_R, μ_1..μ_S, w_1..w_n), returned in that layout. A resource no column uses, or
+   * a segment with no column, has π_r = 0 (μ_s = 0) at every optimum (its cost is ≥ 0 and it appears
+   * in no row), so it is left out of the LP: measured, Commons Math 3.6.1 returned a non-optimal
+   * point (dual 12337 against 5617) on a two-column LP with such an all-zero variable.
+   */
   private static double[] solveDual(
       List<Column> cols, double[] capacity, double[] demand, PivotSelectionRule rule) {
     int n = cols.size();
     int nr = capacity.length;
     int ns = demand.length;
-    int nv = nr + ns + n;
+    int[] varOf = new int[nr + ns];
+    Arrays.fill(varOf, -1);
+    int nv = 0;
+    for (int r = 0; r < nr; r++) {
+      for (Column col : cols) {
+        if (col.use()[r] != 0.0) {
+          varOf[r] = nv++;
+          break;
+        }
+      }
+    }
+    for (int s = 0; s < ns; s++) {
+      for (Column col : cols) {
+        if (col.segment() == s) {
+          varOf[nr + s] = nv++;
+          break;
+        }
+      }
+    }
+    int first = nv;
+    nv += n;
     double[] c = new double[nv];
-    System.arraycopy(capacity, 0, c, 0, nr);
-    System.arraycopy(demand, 0, c, nr, ns);
+    for (int r = 0; r < nr; r++) {
+      if (varOf[r] >= 0) {
+        c[varOf[r]] = capacity[r];
+      }
+    }
+    for (int s = 0; s < ns; s++) {
+      if (varOf[nr + s] >= 0) {
+        c[varOf[nr + s]] = demand[s];
+      }
+    }
     for (int j = 0; j < n; j++) {
-      c[nr + ns + j] = cols.get(j).upper();
+      c[first + j] = cols.get(j).upper();
     }
     List<LinearConstraint> rows = new ArrayList<>();
     for (int j = 0; j < n; j++) {
       Column col = cols.get(j);
       double[] a = new double[nv];
-      System.arraycopy(col.use(), 0, a, 0, nr);
-      a[nr + col.segment()] = 1.0;
-      a[nr + ns + j] = 1.0;
+      for (int r = 0; r < nr; r++) {
+        if (varOf[r] >= 0) {
+          a[varOf[r]] = col.use()[r];
+        }
+      }
+      a[varOf[nr + col.segment()]] = 1.0;
+      a[first + j] = 1.0;
       rows.add(new LinearConstraint(a, Relationship.GEQ, col.margin()));
     }
-    return run(new LinearObjectiveFunction(c, 0.0), rows, GoalType.MINIMIZE, nv, rule);
+    double[] p = run(new LinearObjectiveFunction(c, 0.0), rows, GoalType.MINIMIZE, nv, rule);
+    if (p == null) {
+      return null;
+    }
+    double[] out = new double[nr + ns + n];
+    for (int i = 0; i < nr + ns; i++) {
+      out[i] = varOf[i] >= 0 ? p[varOf[i]] : 0.0;
+    }
+    System.arraycopy(p, first, out, nr + ns, n);
+    return out;
   }
 
   /** The point found, or null when the iteration limit was hit (the next rule gets a try). */
