@@ -43,7 +43,7 @@ final class CheckCommand implements Callable<Integer> {
     Catalog catalog = Inputs.catalog(catalogFile);
     VariantSpace space = new VariantSpace(catalog);
     SpaceFacts facts = SpaceFacts.of(space);
-    List<String> notes = notes(catalog, facts);
+    List<String> notes = notes(space, facts);
     if (json) {
       out.println(Json.pretty().writeValueAsString(toJson(catalog, space, facts, notes)));
     } else {
@@ -52,16 +52,15 @@ final class CheckCommand implements Callable<Integer> {
     return facts.nothingSellable() ? ExitCodes.STOPPED : ExitCodes.OK;
   }
 
-  static List<String> notes(Catalog catalog, SpaceFacts facts) {
+  static List<String> notes(VariantSpace space, SpaceFacts facts) {
     List<String> notes = new ArrayList<>();
-    if (facts.total().isEmpty()) {
-      notes.add("no variant is buildable: " + facts.emptyReason());
+    if (facts.nothingSellable()) {
+      notes.add(facts.emptyReason());
+    } else {
+      notes.addAll(facts.segmentNotes());
     }
-    for (int s = 0; s < catalog.segments().size(); s++) {
-      if (facts.perSegment().get(s).isEmpty() && !facts.total().isEmpty()) {
-        notes.add("segments[" + s + "] (" + catalog.segments().get(s).id()
-            + ") accepts no buildable variant: it will sell nothing");
-      }
+    if (!facts.total().isEmpty()) {
+      notes.addAll(SpaceFacts.ruleNotes(space));
     }
     return notes;
   }

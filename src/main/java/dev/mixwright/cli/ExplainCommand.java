@@ -155,7 +155,7 @@ final class ExplainCommand implements Callable<Integer> {
             + (e.reducedCost() > 1e-7 ? " (at its share limit: it pays more than its resources' worth)" : ""));
       } else if (e.reducedCost() < -1e-9) {
         out.println(String.format(Locale.ROOT,
-            "  not in the plan: it would enter if its price rose by more than %s per unit", fmt(-e.reducedCost())));
+            "  not in the plan: it would enter if its price rose by more than %.4f per unit", -e.reducedCost()));
       } else {
         out.println("  not in the plan, though it pays as much as its resources' worth: an alternative optimum");
       }

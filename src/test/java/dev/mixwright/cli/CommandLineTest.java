@@ -1,0 +1,240 @@
+package dev.mixwright.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.Paths;
+import java.util.List;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The commands end to end, through picocli with captured output, on the small demo catalog. */
+class CommandLineTest {
+  static final Path STARTER = Paths.get("catalogs", "heatpump-starter.yaml");
+  static final ObjectMapper JSON = new ObjectMapper();
+
+  @TempDir static Path shared;
+  static Path run;
+  static CliRun solved;
+
+  @BeforeAll
+  static void solveOnce() {
+    run = shared.resolve("starter");
+    solved = CliRun.of("solve", STARTER.toString(), "--out", run.toString());
+  }
+
+  @Test
+  void solveWritesTheRunFiles() throws IOException {
+    assertEquals(0, solved.code(), solved.err());
+    JsonNode r = JSON.readTree(run.resolve("result.json").toFile());
+    assertEquals("optimal", r.get("status").asText());
+    for (String f : List.of("objective", "bound", "gap", "iterations", "columnsGenerated",
+        "buildableVariants", "elapsedMs", "offers", "resources", "segments")) {
+      assertTrue(r.has(f), "result.json lacks " + f);
+    }
+    assertTrue(r.get("gap").asDouble() <= 1e-6);
+    // Counted by the demo author by brute force (catalog header comment).
+    assertEquals("2244", r.get("buildableVariants").asText());
+    assertTrue(r.get("bound").asDouble() >= r.get("objective").asDouble() - 1e-6);
+    double sum = 0;
+    for (JsonNode o : r.get("offers")) {
+      sum += o.get("quantity").asDouble() * o.get("unitMargin").asDouble();
+    }
+    assertEquals(r.get("objective").asDouble(), sum, 1e-6 * Math.abs(sum));
+    List<String> lines = Files.readAllLines(run.resolve("columns.jsonl"));
+    assertFalse(lines.isEmpty());
+    for (String line : lines) {
+      JsonNode n = JSON.readTree(line);
+      for (String f : List.of("iteration", "segment", "options", "reducedCost", "objectiveAfter", "boundAfter", "elapsedMs")) {
+        assertTrue(n.has(f), "columns.jsonl line lacks " + f + ": " + line);
+      }
+    }
+    assertEquals(r.get("columnsInMaster").asInt(), lines.size());
+    assertTrue(Files.isRegularFile(run.resolve("catalog.json")));
+  }
+
+  /** explain's reduced cost recomputed by hand from result.json's shadow prices and the catalog. */
+  @Test
+  void explainReproducesReducedCostFromResultJson() throws IOException {
+    JsonNode r = JSON.readTree(run.resolve("result.json").toFile());
+    // capacity=c5 (3300-2280), compressor=rotary (450-370), refrigerant=r32 (0), casing=powder
+    // (180-115), controller=wifi (190-95), tank none; uses from the catalog file.
+    String variant = "capacity=c5,compressor=rotary,refrigerant=r32,casing=powder,controller=wifi";
+    CliRun e = CliRun.of("explain", run.toString(), "--segment", "retrofit", "--variant", variant, "--json");
+    assertEquals(0, e.code(), e.err());
+    JsonNode x = JSON.readTree(e.out());
+    double margin = (3300 - 2280) + (450 - 370) + 0 + (180 - 115) + (190 - 95);
+    assertEquals(margin, x.get("margin").asDouble(), 1e-9);
+    double pi = 0;
+    JsonNode uses = x.get("uses");
+    for (JsonNode res : r.get("resources")) {
+      double charge = uses.get(res.get("id").asText()).asDouble() * res.get("shadowPrice").asDouble();
+      assertEquals(charge, x.get("charges").get(res.get("id").asText()).asDouble(), 1e-9);
+      pi += charge;
+    }
+    double mu = 0;
+    for (JsonNode s : r.get("segments")) {
+      if (s.get("id").asText().equals("retrofit")) {
+        mu = s.get("shadowPrice").asDouble();
+      }
+    }
+    assertEquals(mu, x.get("segmentCharge").asDouble(), 1e-12);
+    assertEquals(margin - pi - mu, x.get("reducedCost").asDouble(), 1e-9);
+    // The demo catalog's uses for this variant: assembly 2.6+0.3+0.1, testbench 0.45, inverter 1.
+    assertEquals(3.0, uses.get("assembly").asDouble(), 1e-12);
+    assertEquals(0.45, uses.get("testbench").asDouble(), 1e-12);
+    assertEquals(1.0, uses.get("inverter").asDouble(), 1e-12);
+  }
+
+  @Test
+  void everyOfferHasZeroOrPositiveReducedCostAndOutsideColumnsDoNotPay() throws IOException {
+    JsonNode r = JSON.readTree(run.resolve("result.json").toFile());
+    for (JsonNode o : r.get("offers")) {
+      assertTrue(o.get("reducedCost").asDouble() >= -1e-6, o.toString());
+    }
+  }
+
+  @Test
+  void explainTextSaysWhenItWouldEnter() {
+    CliRun e = CliRun.of("explain", run.toString(), "--segment", "quiet", "--variant",
+        "capacity=c5,compressor=scroll,refrigerant=r32,casing=acoustic,controller=basic");
+    assertEquals(0, e.code(), e.err());
+    assertTrue(e.out().contains("reduced cost"), e.out());
+    assertTrue(e.out().contains("would enter if its price rose by more than"), e.out());
+  }
+
+  @Test
+  void explainNamesTheRuleOrAcceptsThatBlocksAVariant() {
+    CliRun e = CliRun.of("explain", run.toString(), "--segment", "quiet", "--variant",
+        "capacity=c5,compressor=rotary,refrigerant=r32,casing=galv,controller=basic");
+    assertEquals(0, e.code(), e.err());
+    assertTrue(e.out().contains("does not accept casing=galv"), e.out());
+  }
+
+  @Test
+  void explainRejectsUnknownOptionWithTheChoices() {
+    CliRun e = CliRun.of("explain", run.toString(), "--segment", "quiet", "--variant", "capacity=c99");
+    assertEquals(2, e.code());
+    assertTrue(e.err().contains("group 'capacity' has no option 'c99'"), e.err());
+    assertFalse(e.err().contains("Exception"), e.err());
+  }
+
+  @Test
+  void explainRejectsUnknownSegment() {
+    CliRun e = CliRun.of("explain", run.toString(), "--segment", "nobody", "--variant", "capacity=c5");
+    assertEquals(2, e.code());
+    assertTrue(e.err().contains("no segment 'nobody'"), e.err());
+  }
+
+  @Test
+  void logShowsTheColumnsAsATable() throws IOException {
+    CliRun l = CliRun.of("log", run.toString());
+    assertEquals(0, l.code(), l.err());
+    int lines = Files.readAllLines(run.resolve("columns.jsonl")).size();
+    assertTrue(l.out().contains(lines + " columns"), l.out());
+    assertTrue(l.out().contains("reduced cost") && l.out().contains("bound after"), l.out());
+  }
+
+  @Test
+  void logDropsATornLastLine(@TempDir Path dir) throws IOException {
+    List<String> lines = Files.readAllLines(run.resolve("columns.jsonl"));
+    String torn = String.join("\n", lines) + "\n" + lines.get(0).substring(0, 20);
+    Files.writeString(dir.resolve("columns.jsonl"), torn);
+    CliRun l = CliRun.of("log", dir.toString());
+    assertEquals(0, l.code(), l.err());
+    assertTrue(l.out().contains(lines.size() + " columns; 1 torn last line dropped"), l.out());
+  }
+
+  @Test
+  void solveRefusesToOverwriteARun() {
+    CliRun again = CliRun.of("solve", STARTER.toString(), "--out", run.toString());
+    assertEquals(2, again.code());
+    assertTrue(again.err().contains("already holds a run") && again.err().contains("--replace"), again.err());
+  }
+
+  @Test
+  void iterationLimitStopsWithExitOneAndAValidBound(@TempDir Path dir) throws IOException {
+    Path out = dir.resolve("r");
+    CliRun s = CliRun.of("solve", Paths.get("catalogs", "heatpump-range.yaml").toString(), "--out",
+        out.toString(), "--max-iterations", "2");
+    assertEquals(1, s.code(), s.err());
+    JsonNode r = JSON.readTree(out.resolve("result.json").toFile());
+    assertEquals("stopped", r.get("status").asText());
+    assertTrue(r.get("stopReason").asText().contains("iteration limit"));
+    assertTrue(r.get("bound").asDouble() > r.get("objective").asDouble());
+  }
+
+  @Test
+  void checkDescribesAValidCatalog() {
+    CliRun c = CliRun.of("check", STARTER.toString());
+    assertEquals(0, c.code(), c.err());
+    assertTrue(c.out().contains("buildable variants: 2244"), c.out());
+  }
+
+  @Test
+  void checkNamesTheExactPathOfABadField(@TempDir Path dir) throws IOException {
+    String text = Files.readString(STARTER).replace("capacity: 9500", "capacity: -9500");
+    Path bad = dir.resolve("bad.yaml");
+    Files.writeString(bad, text);
+    CliRun c = CliRun.of("check", bad.toString());
+    assertEquals(2, c.code());
+    assertTrue(c.err().contains("resources[1].capacity"), c.err());
+    assertFalse(c.err().contains("at dev.mixwright"), "no stack trace: " + c.err());
+  }
+
+  @Test
+  void missingCatalogFileIsBadInput(@TempDir Path dir) {
+    CliRun c = CliRun.of("solve", dir.resolve("nope.yaml").toString(), "--out", dir.resolve("r").toString());
+    assertEquals(2, c.code());
+    assertTrue(c.err().contains("no catalog file"), c.err());
+  }
+
+  @Test
+  void badOptionValuesAreBadInput(@TempDir Path dir) {
+    CliRun t = CliRun.of("solve", STARTER.toString(), "--out", dir.resolve("a").toString(), "--time-limit", "soon");
+    assertEquals(2, t.code());
+    assertTrue(t.err().contains("--time-limit") && t.err().contains("90s"), t.err());
+    CliRun p = CliRun.of("solve", STARTER.toString(), "--out", dir.resolve("b").toString(), "--pricer", "magic");
+    assertEquals(2, p.code());
+    assertTrue(p.err().contains("unknown pricer 'magic'"), p.err());
+    CliRun u = CliRun.of("solve", STARTER.toString());
+    assertEquals(2, u.code());
+    assertTrue(u.err().contains("--out"), u.err());
+  }
+
+  @Test
+  void noBuildableVariantIsInfeasibleWithTheRulesNamed(@TempDir Path dir) throws IOException {
+    String yaml = """
+        format: 1
+        name: clash
+        resources: [{id: line, capacity: 100}]
+        groups:
+          - id: body
+            options: [{id: a, price: 10, cost: 5}, {id: b, price: 12, cost: 6}]
+          - id: trim
+            options: [{id: x, price: 3, cost: 1}]
+        rules:
+          - {id: no-a, forbid: {body: [a], trim: [x]}}
+          - {id: no-b, forbid: {body: [b], trim: [x]}}
+        segments: [{id: all, demand: 10}]
+        """;
+    Path f = dir.resolve("clash.yaml");
+    Files.writeString(f, yaml);
+    CliRun s = CliRun.of("solve", f.toString(), "--out", dir.resolve("r").toString());
+    assertEquals(1, s.code(), s.err());
+    JsonNode r = JSON.readTree(dir.resolve("r").resolve("result.json").toFile());
+    assertEquals("infeasible", r.get("status").asText());
+    assertTrue(r.get("stopReason").asText().contains("rules[0]") && r.get("stopReason").asText().contains("rules[1]"),
+        r.get("stopReason").asText());
+    CliRun c = CliRun.of("check", f.toString());
+    assertEquals(1, c.code());
+    assertTrue(c.out().contains("rules[0]") && c.out().contains("rules[1]"), c.out());
+  }
+}
