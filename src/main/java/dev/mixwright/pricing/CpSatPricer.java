@@ -63,6 +63,7 @@ public final class CpSatPricer implements Pricer {
 
   @Override
   public PricingOutcome price(PricingQuery q) {
+    long start = System.nanoTime();
     QueryChecks.check(space, q);
     int groups = space.groupCount();
     double[] w = q.weight();
@@ -121,7 +122,6 @@ public final class CpSatPricer implements Pricer {
     }
     model.maximize(DoubleLinearExpr.weightedSum(objLits.toArray(new Literal[0]), coef));
 
-    long start = System.nanoTime();
     boolean exact = true;
     double openBound = Double.NEGATIVE_INFINITY;
     long solves = 0;
@@ -148,10 +148,13 @@ public final class CpSatPricer implements Pricer {
       }
       if (status != CpSolverStatus.OPTIMAL) {
         exact = false;
-        // every variant not yet forbidden scores at most CP-SAT's bound; the forbidden ones are kept or excluded
-        double b = solver.bestObjectiveBound() + q.constant();
-        openBound = Double.isNaN(b) ? Double.POSITIVE_INFINITY : b;
+        openBound = Double.POSITIVE_INFINITY; // UNKNOWN: the reported bound is a placeholder (0), not a proof
         if (status == CpSolverStatus.FEASIBLE) {
+          // every variant not yet forbidden scores at most CP-SAT's bound (the forbidden ones are kept
+          // or excluded); widened by the precision CP-SAT scales a floating objective to (its
+          // mip_wanted_precision, 1e-6 by default — the default recalled, not measured)
+          double b = solver.bestObjectiveBound() + q.constant();
+          openBound = Double.isNaN(b) ? Double.POSITIVE_INFINITY : b + 1e-6 * (1 + Math.abs(b));
           read(solver, x, v);
           double s = QueryChecks.score(offset, w, q.constant(), v);
           if (s > top.cutoff(q.threshold()) && !q.excluded().contains(space.key(v))) {

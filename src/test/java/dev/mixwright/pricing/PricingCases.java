@@ -53,6 +53,9 @@ final class PricingCases {
         i % 3 == 2
             ? RandomCatalogs.random(rnd, 5 + rnd.nextInt(4), 4, 3, 3, 6 + rnd.nextInt(14), false)
             : RandomCatalogs.small(i);
+    if (i % 2 == 1) {
+      c = withWideRules(c, rnd, 1 + rnd.nextInt(4));
+    }
     VariantSpace space = new VariantSpace(c);
     int s = rnd.nextInt(space.segmentCount());
     double[] pi = new double[space.resourceCount()];
@@ -62,6 +65,51 @@ final class PricingCases {
     }
     double mu = rnd.nextDouble() < 0.3 ? 0 : rnd.nextDouble() * 120;
     return new Case(space, s, pi, mu, enumerate(space, s, pi, mu));
+  }
+
+  /**
+   * The catalog plus rules over three groups (a forbid of three, or a when of two groups with a
+   * require on a third), which compile to nogoods wider than a pair.
+   */
+  static Catalog withWideRules(Catalog c, Random rnd, int count) {
+    List<Group> gs = c.groups();
+    if (gs.size() < 3) {
+      return c;
+    }
+    List<Rule> rules = new ArrayList<>(c.rules());
+    for (int n = 0; n < count; n++) {
+      List<Integer> pick = new ArrayList<>();
+      while (pick.size() < 3) {
+        int g = rnd.nextInt(gs.size());
+        if (!pick.contains(g)) {
+          pick.add(g);
+        }
+      }
+      LinkedHashMap<String, List<String>> two = new LinkedHashMap<>();
+      for (int k = 0; k < 2; k++) {
+        Group g = gs.get(pick.get(k));
+        two.put(g.id(), List.of(g.choiceId(rnd.nextInt(g.choiceCount()))));
+      }
+      Group third = gs.get(pick.get(2));
+      if (rnd.nextBoolean()) {
+        LinkedHashMap<String, List<String>> f = new LinkedHashMap<>(two);
+        f.put(third.id(), List.of(third.choiceId(rnd.nextInt(third.choiceCount()))));
+        rules.add(new Rule(null, Map.of(), Map.of(), f));
+      } else {
+        List<String> req = new ArrayList<>();
+        for (int k = 0; k < third.choiceCount(); k++) {
+          if (rnd.nextDouble() < 0.5) {
+            req.add(third.choiceId(k));
+          }
+        }
+        if (req.isEmpty()) {
+          req.add(third.choiceId(0));
+        }
+        rules.add(new Rule(null, two, Map.of(third.id(), req), Map.of()));
+      }
+    }
+    return new Catalog(
+        c.format(), c.name(), c.currency(), c.period(), c.resources(), gs, rules, c.segments(), c.portfolio());
   }
 
   /** Every column of segment s, best reduced cost first. */
