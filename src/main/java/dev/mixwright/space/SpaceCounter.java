@@ -29,10 +29,12 @@ import java.util.List;
  * matches leaves the nogood's scope, and a nogood left with one group removes choices. This often
  * cuts components apart, in particular for segments whose accepts narrow a group.
  *
- * <p>Numbers: tables hold longs. When a component overflows, it is recounted modulo enough primes
- * below 2^31 that their product exceeds the product of the component's domain sizes, and the count
- * is rebuilt by the Chinese remainder theorem (multi-modular counting, common practice in exact
- * computer algebra). Tables stay primitive {@code long[]} either way.
+ * <p>Numbers: tables hold longs. A component whose count may pass 2^62 is first counted in doubles
+ * for its size; then either in longs (small enough) or modulo as many primes below 2^31 as it
+ * takes to pass twice that size, the count being rebuilt by the Chinese remainder theorem
+ * (multi-modular counting, common practice in exact computer algebra). Tables stay primitive
+ * {@code long[]} throughout; a nogood's 0/1 table becomes bit masks over the eliminated group's
+ * choices, so it costs a word AND per entry rather than a read per choice.
  *
  * <p>When a table would exceed the limit, the widest nogood among those that fed it is dropped and
  * the component is planned again; the result is then an upper bound ({@link SpaceCount#exact()}
@@ -116,8 +118,30 @@ public final class SpaceCounter {
     return countWithin(d);
   }
 
-  /** A nogood restricted to the live choices: scope ascending, member[j][local choice]. */
-  private record Local(int[] scope, boolean[][] member) {}
+  /**
+   * A nogood restricted to the live choices: scope ascending, member[j][local choice]. A class, not
+   * a record: lists of them are edited by identity.
+   */
+  private static final class Local {
+    private final int[] scope;
+    private final boolean[][] member;
+
+    Local(int[] scope, boolean[][] member) {
+      this.scope = scope;
+      this.member = member;
+    }
+
+    int[] scope() {
+      return scope;
+    }
+
+    boolean[][] member() {
+      return member;
+    }
+  }
+
+  /** An elimination order (local indices), or the nogood to drop when some table is too big. */
+  private record Plan(int[] order, Local drop) {}
 
   private static final SpaceCount NONE = new SpaceCount(BigInteger.ZERO, true);
 
@@ -234,11 +258,11 @@ public final class SpaceCounter {
     while (!work.isEmpty()) {
       List<Local> comp = work.pop();
       int[] groups = groupsOf(comp, n);
-      Object plan = plan(groups, comp, dsize);
-      if (plan instanceof Local drop) {
+      Plan plan = plan(groups, comp, dsize);
+      if (plan.drop() != null) {
         exact = false;
         List<Local> rest = new ArrayList<>(comp);
-        rest.remove(drop);
+        rest.remove(plan.drop());
         boolean[] still = new boolean[n];
         for (Local l : rest) {
           for (int g : l.scope()) {
@@ -252,7 +276,7 @@ public final class SpaceCounter {
         }
         work.addAll(split(rest, n));
       } else {
-        value = value.multiply(evaluate(groups, comp, (int[]) plan, dsize));
+        value = value.multiply(evaluate(groups, comp, plan.order(), dsize));
       }
       if (value.signum() == 0) {
         return NONE; // a component with no assignment empties the space whatever was dropped
@@ -354,10 +378,10 @@ public final class SpaceCounter {
   }
 
   /**
-   * Simulates the elimination on scopes only. Returns the order ({@code int[]} of local indices)
-   * when every table fits, or the {@link Local} nogood to drop.
+   * Simulates the elimination on scopes only: the order when every table fits, else the widest
+   * nogood among those that fed the first table too big.
    */
-  private Object plan(int[] groups, List<Local> comp, int[] dsize) {
+  private Plan plan(int[] groups, List<Local> comp, int[] dsize) {
     int c = groups.length;
     int[] where = localIndex(groups, dsize.length);
     int[] dim = new int[c];
@@ -376,7 +400,7 @@ public final class SpaceCounter {
       }
     }
     if (tooWide >= 0) {
-      return comp.get(tooWide);
+      return new Plan(null, comp.get(tooWide));
     }
     BitSet[] adj = new BitSet[c];
     for (int v = 0; v < c; v++) {
@@ -425,7 +449,7 @@ public final class SpaceCounter {
             drop = i;
           }
         }
-        return comp.get(drop);
+        return new Plan(null, comp.get(drop));
       }
       if (!newScope.isEmpty()) {
         fScope.add(newScope);
@@ -440,7 +464,7 @@ public final class SpaceCounter {
       remaining.clear(v);
       order[step] = v;
     }
-    return order;
+    return new Plan(order, null);
   }
 
   private static int[] localIndex(int[] groups, int n) {
