@@ -29,10 +29,12 @@ import java.util.List;
  * matches leaves the nogood's scope, and a nogood left with one group removes choices. This often
  * cuts components apart, in particular for segments whose accepts narrow a group.
  *
- * <p>Numbers: tables hold longs. When a component overflows, it is recounted modulo enough primes
- * below 2^31 that their product exceeds the product of the component's domain sizes, and the count
- * is rebuilt by the Chinese remainder theorem (multi-modular counting, common practice in exact
- * computer algebra). Tables stay primitive {@code long[]} either way.
+ * <p>Numbers: tables hold longs. A component whose count may pass 2^62 is first counted in doubles
+ * for its size; then either in longs (small enough) or modulo as many primes below 2^31 as it
+ * takes to pass twice that size, the count being rebuilt by the Chinese remainder theorem
+ * (multi-modular counting, common practice in exact computer algebra). Tables stay primitive
+ * {@code long[]} throughout; a nogood's 0/1 table becomes bit masks over the eliminated group's
+ * choices, so it costs a word AND per entry rather than a read per choice.
  *
  * <p>When a table would exceed the limit, the widest nogood among those that fed it is dropped and
  * the component is planned again; the result is then an upper bound ({@link SpaceCount#exact()}
@@ -116,8 +118,30 @@ public final class SpaceCounter {
     return countWithin(d);
   }
 
-  /** A nogood restricted to the live choices: scope ascending, member[j][local choice]. */
-  private record Local(int[] scope, boolean[][] member) {}
+  /**
+   * A nogood restricted to the live choices: scope ascending, member[j][local choice]. A class, not
+   * a record: lists of them are edited by identity.
+   */
+  private static final class Local {
+    private final int[] scope;
+    private final boolean[][] member;
+
+    Local(int[] scope, boolean[][] member) {
+      this.scope = scope;
+      this.member = member;
+    }
+
+    int[] scope() {
+      return scope;
+    }
+
+    boolean[][] member() {
+      return member;
+    }
+  }
+
+  /** An elimination order (local indices), or the nogood to drop when some table is too big. */
+  private record Plan(int[] order, Local drop) {}
 
   private static final SpaceCount NONE = new SpaceCount(BigInteger.ZERO, true);
 
@@ -234,11 +258,11 @@ public final class SpaceCounter {
     while (!work.isEmpty()) {
       List<Local> comp = work.pop();
       int[] groups = groupsOf(comp, n);
-      Object plan = plan(groups, comp, dsize);
-      if (plan instanceof Local drop) {
+      Plan plan = plan(groups, comp, dsize);
+      if (plan.drop() != null) {
         exact = false;
         List<Local> rest = new ArrayList<>(comp);
-        rest.remove(drop);
+        rest.remove(plan.drop());
         boolean[] still = new boolean[n];
         for (Local l : rest) {
           for (int g : l.scope()) {
@@ -252,7 +276,7 @@ public final class SpaceCounter {
         }
         work.addAll(split(rest, n));
       } else {
-        value = value.multiply(evaluate(groups, comp, (int[]) plan, dsize));
+        value = value.multiply(evaluate(groups, comp, plan.order(), dsize));
       }
       if (value.signum() == 0) {
         return NONE; // a component with no assignment empties the space whatever was dropped
@@ -354,10 +378,10 @@ public final class SpaceCounter {
   }
 
   /**
-   * Simulates the elimination on scopes only. Returns the order ({@code int[]} of local indices)
-   * when every table fits, or the {@link Local} nogood to drop.
+   * Simulates the elimination on scopes only: the order when every table fits, else the widest
+   * nogood among those that fed the first table too big.
    */
-  private Object plan(int[] groups, List<Local> comp, int[] dsize) {
+  private Plan plan(int[] groups, List<Local> comp, int[] dsize) {
     int c = groups.length;
     int[] where = localIndex(groups, dsize.length);
     int[] dim = new int[c];
@@ -376,7 +400,7 @@ public final class SpaceCounter {
       }
     }
     if (tooWide >= 0) {
-      return comp.get(tooWide);
+      return new Plan(null, comp.get(tooWide));
     }
     BitSet[] adj = new BitSet[c];
     for (int v = 0; v < c; v++) {
@@ -425,7 +449,7 @@ public final class SpaceCounter {
             drop = i;
           }
         }
-        return comp.get(drop);
+        return new Plan(null, comp.get(drop));
       }
       if (!newScope.isEmpty()) {
         fScope.add(newScope);
@@ -440,7 +464,7 @@ public final class SpaceCounter {
       remaining.clear(v);
       order[step] = v;
     }
-    return order;
+    return new Plan(order, null);
   }
 
   private static int[] localIndex(int[] groups, int n) {
@@ -486,40 +510,71 @@ public final class SpaceCounter {
     return best;
   }
 
-  private BigInteger evaluate(int[] groups, List<Local> comp, int[] order, int[] dsize) {
-    try {
-      return BigInteger.valueOf(eliminate(groups, comp, order, dsize, 0));
-    } catch (ArithmeticException overflow) {
-      BigInteger bound = BigInteger.ONE;
-      for (int g : groups) {
-        bound = bound.multiply(BigInteger.valueOf(dsize[g]));
-      }
-      BigInteger x = BigInteger.ZERO;
-      BigInteger modulus = BigInteger.ONE;
-      for (int i = 0; modulus.compareTo(bound) <= 0; i++) {
-        long p = Primes.below31(i);
-        long r = eliminate(groups, comp, order, dsize, p);
-        // Chinese remainder step: x' = x + M·((r − x)·M⁻¹ mod p), so x' ≡ x (mod M), x' ≡ r (mod p).
-        BigInteger bp = BigInteger.valueOf(p);
-        BigInteger t =
-            BigInteger.valueOf(r)
-                .subtract(x)
-                .multiply(modulus.modInverse(bp))
-                .mod(bp);
-        x = x.add(modulus.multiply(t));
-        modulus = modulus.multiply(bp);
-      }
-      return x;
-    }
+  /** Arithmetic of one elimination pass. */
+  private enum Mode {
+    /** Longs, throwing on overflow. */
+    EXACT,
+    /** Residues modulo a prime below 2^31: every product of two fits in a long. */
+    MODULAR,
+    /** Doubles (stored as raw bits in the long tables), for the magnitude only. */
+    ESTIMATE
   }
 
-  /** A dense table over ascending local variables, row-major (last variable fastest). */
+  private static final double TWO_POW_62 = 0x1p62;
+
+  /**
+   * Exact count of one component. Tables never overflow when the product of the domain sizes fits
+   * in a long (an entry counts assignments of the groups summed out so far). Otherwise a
+   * floating-point pass estimates the count: if it is below 2^62 the long pass is tried, else the
+   * count is taken modulo primes until their product exceeds twice the estimate. The estimate's
+   * relative error is below (eliminations × (choices + bucket size)) × 2^-53, far less than the
+   * factor 2 of margin, since every operation adds or multiplies nonnegative numbers.
+   */
+  private BigInteger evaluate(int[] groups, List<Local> comp, int[] order, int[] dsize) {
+    BigInteger bound = BigInteger.ONE;
+    for (int g : groups) {
+      bound = bound.multiply(BigInteger.valueOf(dsize[g]));
+    }
+    if (bound.bitLength() <= 62) {
+      return BigInteger.valueOf(eliminate(groups, comp, order, dsize, Mode.EXACT, 0));
+    }
+    double estimate =
+        Double.longBitsToDouble(eliminate(groups, comp, order, dsize, Mode.ESTIMATE, 0));
+    BigInteger need = bound;
+    if (estimate < TWO_POW_62) {
+      try {
+        return BigInteger.valueOf(eliminate(groups, comp, order, dsize, Mode.EXACT, 0));
+      } catch (ArithmeticException overflow) {
+        // The estimate was close to 2^62; the bound below still holds.
+      }
+    } else if (Double.isFinite(estimate)) {
+      need = new java.math.BigDecimal(estimate).toBigInteger().shiftLeft(1).add(BigInteger.TWO).min(bound);
+    }
+    BigInteger x = BigInteger.ZERO;
+    BigInteger modulus = BigInteger.ONE;
+    for (int i = 0; modulus.compareTo(need) <= 0; i++) {
+      long p = Primes.below31(i);
+      long r = eliminate(groups, comp, order, dsize, Mode.MODULAR, p);
+      // Chinese remainder step: x' = x + M·((r − x)·M⁻¹ mod p), so x' ≡ x (mod M), x' ≡ r (mod p).
+      BigInteger bp = BigInteger.valueOf(p);
+      BigInteger t = BigInteger.valueOf(r).subtract(x).multiply(modulus.modInverse(bp)).mod(bp);
+      x = x.add(modulus.multiply(t));
+      modulus = modulus.multiply(bp);
+    }
+    return x;
+  }
+
+  /**
+   * A dense table over ascending local variables, row-major (last variable fastest). A binary table
+   * (a nogood) holds 0/1 in every mode and only masks; other tables hold numbers of the pass's mode.
+   */
   private static final class Table {
     final int[] vars;
     final int[] stride;
     final long[] data;
+    final boolean binary;
 
-    Table(int[] vars, int[] dim, long[] data) {
+    Table(int[] vars, int[] dim, long[] data, boolean binary) {
       this.vars = vars;
       this.stride = new int[vars.length];
       int s = 1;
@@ -528,6 +583,7 @@ public final class SpaceCounter {
         s *= dim[vars[i]];
       }
       this.data = data;
+      this.binary = binary;
     }
 
     int strideOf(int v) {
@@ -544,8 +600,9 @@ public final class SpaceCounter {
     }
   }
 
-  /** Runs the elimination exactly in longs ({@code mod == 0}, throws on overflow) or modulo mod. */
-  private static long eliminate(int[] groups, List<Local> comp, int[] order, int[] dsize, long mod) {
+  /** One elimination pass; returns the count (raw double bits in ESTIMATE mode, a residue in MODULAR). */
+  private static long eliminate(
+      int[] groups, List<Local> comp, int[] order, int[] dsize, Mode mode, long mod) {
     int c = groups.length;
     int[] where = localIndex(groups, dsize.length);
     int[] dim = new int[c];
@@ -556,7 +613,8 @@ public final class SpaceCounter {
     for (Local l : comp) {
       tables.add(nogoodTable(l, where, dim));
     }
-    long scalar = 1;
+    long exact = 1;
+    double estimate = 1;
     for (int v : order) {
       List<Table> bucket = new ArrayList<>();
       for (int i = tables.size() - 1; i >= 0; i--) {
@@ -564,18 +622,24 @@ public final class SpaceCounter {
           bucket.add(tables.remove(i));
         }
       }
-      if (bucket.isEmpty()) {
-        scalar = mul(scalar, dim[v], mod);
-        continue;
+      long factor = dim[v];
+      if (!bucket.isEmpty()) {
+        Table t = sumOut(bucket, v, dim, mode, mod);
+        if (t.vars.length > 0) {
+          tables.add(t);
+          continue;
+        }
+        factor = t.data[0];
+      } else if (mode == Mode.ESTIMATE) {
+        factor = Double.doubleToRawLongBits(dim[v]);
       }
-      Table t = sumOut(bucket, v, dim, mod);
-      if (t.vars.length == 0) {
-        scalar = mul(scalar, t.data[0], mod);
-      } else {
-        tables.add(t);
+      switch (mode) {
+        case EXACT -> exact = Math.multiplyExact(exact, factor);
+        case MODULAR -> exact = exact * factor % mod;
+        case ESTIMATE -> estimate *= Double.longBitsToDouble(factor);
       }
     }
-    return scalar;
+    return mode == Mode.ESTIMATE ? Double.doubleToRawLongBits(estimate) : exact;
   }
 
   private static Table nogoodTable(Local l, int[] where, int[] dim) {
@@ -590,7 +654,7 @@ public final class SpaceCounter {
     }
     long[] data = new long[size];
     Arrays.fill(data, 1);
-    Table t = new Table(vars, dim, data);
+    Table t = new Table(vars, dim, data, true);
     // Zero the member combinations only: odometer over each group's member choices.
     int[][] hits = new int[k][];
     for (int j = 0; j < k; j++) {
@@ -615,7 +679,12 @@ public final class SpaceCounter {
     }
   }
 
-  private static Table sumOut(List<Table> bucket, int v, int[] dim, long mod) {
+  /**
+   * Σ over v of the product of the bucket's tables, as a table over their other variables. Binary
+   * tables are first turned into bit masks over v's choices, so that for each entry of the result
+   * the live choices of v come from a few word ANDs; only the numeric tables are read per choice.
+   */
+  private static Table sumOut(List<Table> bucket, int v, int[] dim, Mode mode, long mod) {
     BitSet u = new BitSet();
     for (Table t : bucket) {
       for (int x : t.vars) {
@@ -629,64 +698,119 @@ public final class SpaceCounter {
     for (int x : vars) {
       size *= dim[x];
     }
-    int b = bucket.size();
-    long[][] data = new long[b][];
-    int[][] st = new int[b][nv];
-    int[] vst = new int[b];
-    int[] idx = new int[b];
-    for (int f = 0; f < b; f++) {
-      Table t = bucket.get(f);
+    int dv = dim[v];
+    int words = (dv + 63) >>> 6;
+    long lastWord = (dv & 63) == 0 ? -1L : (1L << (dv & 63)) - 1;
+    List<Table> bins = new ArrayList<>();
+    List<Table> nums = new ArrayList<>();
+    for (Table t : bucket) {
+      (t.binary ? bins : nums).add(t);
+    }
+    int nb = bins.size();
+    long[][] mask = new long[nb][];
+    int[][] mst = new int[nb][nv];
+    int[] midx = new int[nb];
+    for (int f = 0; f < nb; f++) {
+      Table t = bins.get(f);
+      int sv = t.strideOf(v);
+      long[] md = new long[t.data.length / dv * words];
+      for (int e = 0; e < t.data.length; e++) {
+        if (t.data[e] != 0) {
+          int x = (e / sv) % dv;
+          int r = (e / (sv * dv)) * sv + e % sv;
+          md[r * words + (x >>> 6)] |= 1L << (x & 63);
+        }
+      }
+      mask[f] = md;
+      for (int i = 0; i < nv; i++) {
+        int s = t.strideOf(vars[i]);
+        mst[f][i] = (s > sv ? s / dv : s) * words;
+      }
+    }
+    int nn = nums.size();
+    long[][] data = new long[nn][];
+    int[][] st = new int[nn][nv];
+    int[] vst = new int[nn];
+    int[] idx = new int[nn];
+    for (int f = 0; f < nn; f++) {
+      Table t = nums.get(f);
       data[f] = t.data;
       vst[f] = t.strideOf(v);
       for (int i = 0; i < nv; i++) {
         st[f][i] = t.strideOf(vars[i]);
       }
     }
-    int dv = dim[v];
     int[] digit = new int[nv];
     long[] out = new long[size];
     for (int p = 0; p < size; p++) {
       long sum = 0;
-      for (int x = 0; x < dv; x++) {
-        long prod = 1;
-        for (int f = 0; f < b; f++) {
-          long e = data[f][idx[f] + x * vst[f]];
-          if (e == 0) {
-            prod = 0;
-            break;
-          }
-          prod = mul(prod, e, mod);
+      double sumD = 0;
+      for (int w = 0; w < words; w++) {
+        long m = w == words - 1 ? lastWord : -1L;
+        for (int f = 0; f < nb && m != 0; f++) {
+          m &= mask[f][midx[f] + w];
         }
-        sum = add(sum, prod, mod);
+        if (nn == 0) {
+          // Only nogoods here: each live choice counts one.
+          sum += Long.bitCount(m);
+          sumD += Long.bitCount(m);
+          continue;
+        }
+        for (; m != 0; m &= m - 1) {
+          int x = (w << 6) + Long.numberOfTrailingZeros(m);
+          switch (mode) {
+            case EXACT -> {
+              long prod = data[0][idx[0] + x * vst[0]];
+              for (int f = 1; f < nn && prod != 0; f++) {
+                prod = Math.multiplyExact(prod, data[f][idx[f] + x * vst[f]]);
+              }
+              sum = Math.addExact(sum, prod);
+            }
+            case MODULAR -> {
+              long prod = data[0][idx[0] + x * vst[0]];
+              for (int f = 1; f < nn && prod != 0; f++) {
+                prod = prod * data[f][idx[f] + x * vst[f]] % mod;
+              }
+              sum += prod;
+              if (sum >= mod) {
+                sum -= mod;
+              }
+            }
+            case ESTIMATE -> {
+              double prod = Double.longBitsToDouble(data[0][idx[0] + x * vst[0]]);
+              for (int f = 1; f < nn; f++) {
+                prod *= Double.longBitsToDouble(data[f][idx[f] + x * vst[f]]);
+              }
+              sumD += prod;
+            }
+          }
+        }
       }
-      out[p] = sum;
+      if (nn == 0 && mode == Mode.MODULAR) {
+        sum %= mod;
+      }
+      out[p] = mode == Mode.ESTIMATE ? Double.doubleToRawLongBits(sumD) : sum;
       for (int i = nv - 1; i >= 0; i--) {
         digit[i]++;
-        for (int f = 0; f < b; f++) {
+        for (int f = 0; f < nn; f++) {
           idx[f] += st[f][i];
+        }
+        for (int f = 0; f < nb; f++) {
+          midx[f] += mst[f][i];
         }
         if (digit[i] < dim[vars[i]]) {
           break;
         }
-        for (int f = 0; f < b; f++) {
+        for (int f = 0; f < nn; f++) {
           idx[f] -= st[f][i] * dim[vars[i]];
+        }
+        for (int f = 0; f < nb; f++) {
+          midx[f] -= mst[f][i] * dim[vars[i]];
         }
         digit[i] = 0;
       }
     }
-    return new Table(vars, dim, out);
-  }
-
-  private static long mul(long a, long b, long mod) {
-    return mod == 0 ? Math.multiplyExact(a, b) : (a % mod) * (b % mod) % mod;
-  }
-
-  private static long add(long a, long b, long mod) {
-    if (mod == 0) {
-      return Math.addExact(a, b);
-    }
-    long s = a + b;
-    return s >= mod ? s - mod : s;
+    return new Table(vars, dim, out, false);
   }
 
   /** Primes just below 2^31, found by trial division and kept once found. */

@@ -19,37 +19,66 @@ import java.util.StringJoiner;
  * constraint sets in linear programs", ORSA Journal on Computing 3(2), applied here to rules): start
  * from all rules, drop each in turn and keep it dropped when what is left still leaves nothing. The
  * result is irreducible: it leaves nothing, and without any one of its rules something is
- * buildable. It is one such set, not necessarily the smallest. Each test compiles a sub-catalog with
- * only the kept rules and counts it with {@link SpaceCounter}; when the count is only a bound above
- * zero, a depth-first search settles whether a variant exists. Cost: m + 1 compilations and counts
- * for m rules.
+ * buildable. It is one such set, not necessarily the smallest. Cost: m + 1 questions for m rules.
+ *
+ * <p>Each question ("does this sub-catalog leave a variant?") compiles a catalog with only the kept
+ * rules and asks, in order: a search with constraint propagation and a small node budget
+ * ({@link Feasibility}); a {@link SpaceCounter} count (a count, or bound, of zero proves emptiness;
+ * an exact count above zero proves a variant); the search again with a large budget. When all three
+ * fail to settle it the answer is unknown: a conflict then keeps the rule and says it may not be
+ * irreducible, and a rule note is not given.
  *
  * <p>Rules are catalog rules, so a single-group rule that {@link VariantSpace} folded into
  * {@link VariantSpace#allowed} is named like any other.
  */
 public final class SpaceDiagnosis {
+  /** Table limit of the counts a diagnosis runs: smaller than a count's default, since it runs many. */
+  public static final long DEFAULT_TABLE_LIMIT = 1L << 16;
+
+  static final long QUICK_SEARCH_NODES = 20_000;
+  static final long DEEP_SEARCH_NODES = 2_000_000;
+
+  private enum Verdict {
+    EMPTY,
+    NOT_EMPTY,
+    UNKNOWN
+  }
+
   private final VariantSpace space;
   private final Catalog catalog;
   private final long tableLimit;
+  private final long quickNodes;
+  private final long deepNodes;
 
   public SpaceDiagnosis(VariantSpace space) {
-    this(space, SpaceCounter.DEFAULT_TABLE_LIMIT);
+    this(space, DEFAULT_TABLE_LIMIT);
   }
 
   /** @param tableLimit passed to every {@link SpaceCounter} this diagnosis runs */
   public SpaceDiagnosis(VariantSpace space, long tableLimit) {
+    this(space, tableLimit, QUICK_SEARCH_NODES, DEEP_SEARCH_NODES);
+  }
+
+  /** Tests set the budgets low to send questions through counting, or to leave them unknown. */
+  SpaceDiagnosis(VariantSpace space, long tableLimit, long quickNodes, long deepNodes) {
     this.space = space;
     this.catalog = space.catalog();
     this.tableLimit = tableLimit;
+    this.quickNodes = quickNodes;
+    this.deepNodes = deepNodes;
   }
 
-  /** The rules that leave nothing buildable; empty when some variant is buildable. */
+  /**
+   * The rules that leave nothing buildable; empty when some variant is buildable (or when that
+   * cannot be settled within the search budget and table limit).
+   */
   public Optional<RuleConflict> spaceConflict() {
     List<Integer> all = allRules();
-    if (!leavesNothing(all, -1, Map.of())) {
+    if (ask(all, -1, Map.of()) != Verdict.EMPTY) {
       return Optional.empty();
     }
-    List<Integer> core = deletionFilter(List.of(), all, -1, Map.of());
+    boolean[] sure = {true};
+    List<Integer> core = deletionFilter(List.of(), all, -1, Map.of(), sure);
     String message;
     if (core.isEmpty()) {
       message = "no buildable variant: some group has no choice at all";
@@ -62,6 +91,9 @@ public final class SpaceDiagnosis {
               + " together leave nothing buildable, and dropping any one of them makes some variant"
               + " buildable";
     }
+    if (!sure[0]) {
+      message += notIrreducible();
+    }
     List<RuleNote> notes = new ArrayList<>();
     for (int r : core) {
       String role =
@@ -70,12 +102,12 @@ public final class SpaceDiagnosis {
               : "one of " + core.size() + " rules that together leave nothing buildable";
       notes.add(new RuleNote(r, RuleNote.Kind.IN_CONFLICT, ref(r) + ": " + summary(r) + " — " + role));
     }
-    return Optional.of(new RuleConflict(OptionalInt.empty(), core, message, notes));
+    return Optional.of(new RuleConflict(OptionalInt.empty(), core, sure[0], message, notes));
   }
 
   /**
    * The rules that, with segment s's accepts fixed, leave no buildable variant the segment accepts;
-   * empty when the segment has one.
+   * empty when the segment has one (or when that cannot be settled).
    */
   public Optional<RuleConflict> segmentConflict(int s) {
     if (s < 0 || s >= catalog.segments().size()) {
@@ -83,14 +115,17 @@ public final class SpaceDiagnosis {
           "segment index " + s + " out of range 0.." + (catalog.segments().size() - 1));
     }
     List<Integer> all = allRules();
-    if (!leavesNothing(all, s, Map.of())) {
+    if (ask(all, s, Map.of()) != Verdict.EMPTY) {
       return Optional.empty();
     }
-    List<Integer> core = deletionFilter(List.of(), all, s, Map.of());
+    boolean[] sure = {true};
+    List<Integer> core = deletionFilter(List.of(), all, s, Map.of(), sure);
     Segment seg = catalog.segments().get(s);
     String who = "segment " + seg.id() + " (segments[" + s + "])";
     String accepts =
-        seg.accepts().isEmpty() ? "though it accepts every variant" : "given its accepts (" + cond(seg.accepts()) + ")";
+        seg.accepts().isEmpty()
+            ? "though it accepts every variant"
+            : "given its accepts (" + cond(seg.accepts()) + ")";
     String message;
     if (core.isEmpty()) {
       message = who + " accepts no variant at all: its accepts " + cond(seg.accepts()) + " allow none";
@@ -104,6 +139,9 @@ public final class SpaceDiagnosis {
               + andList(core.stream().map(this::ref).toList())
               + " together leave nothing, and dropping any one of them makes a variant acceptable";
     }
+    if (!sure[0]) {
+      message += notIrreducible();
+    }
     List<RuleNote> notes = new ArrayList<>();
     for (int r : core) {
       String role =
@@ -113,7 +151,7 @@ public final class SpaceDiagnosis {
                   + " leave nothing";
       notes.add(new RuleNote(r, RuleNote.Kind.IN_CONFLICT, ref(r) + ": " + summary(r) + " — " + role));
     }
-    return Optional.of(new RuleConflict(OptionalInt.of(s), core, message, notes));
+    return Optional.of(new RuleConflict(OptionalInt.of(s), core, sure[0], message, notes));
   }
 
   /** {@link #segmentConflict} for every segment that has no acceptable variant, in catalog order. */
@@ -128,24 +166,26 @@ public final class SpaceDiagnosis {
   /**
    * Rules that can never fire (no variant the other rules allow matches the rule's {@code when}, or
    * holds its full {@code forbid} combination) and when/require rules that forbid every variant their
-   * {@code when} matches. Each note names the other rules responsible (a minimal set, found by the
-   * same deletion filter). A rule is not judged when the other rules already leave nothing
-   * buildable; {@link #spaceConflict} covers that. Cost: about 2m compilations and counts, plus m per note.
+   * {@code when} matches. Each note names the other rules responsible (found by the same deletion
+   * filter). A rule is not judged when the other rules already leave nothing buildable
+   * ({@link #spaceConflict} covers that) or when a question cannot be settled. Cost: about 3m
+   * questions, plus m per note.
    */
   public List<RuleNote> ruleNotes() {
     List<Integer> all = allRules();
-    boolean spaceEmpty = leavesNothing(all, -1, Map.of());
+    Verdict whole = ask(all, -1, Map.of());
     List<RuleNote> notes = new ArrayList<>();
     for (int i = 0; i < all.size(); i++) {
       Rule rule = catalog.rules().get(i);
       List<Integer> others = new ArrayList<>(all);
       others.remove(Integer.valueOf(i));
-      if (leavesNothing(others, -1, Map.of())) {
+      if (ask(others, -1, Map.of()) != Verdict.NOT_EMPTY) {
         continue;
       }
       Map<String, List<String>> match = rule.isForbid() ? rule.forbid() : rule.when();
-      if (leavesNothing(others, -1, match)) {
-        List<Integer> core = deletionFilter(List.of(), others, -1, match);
+      Verdict matchable = ask(others, -1, match);
+      if (matchable == Verdict.EMPTY) {
+        List<Integer> core = deletionFilter(List.of(), others, -1, match, new boolean[] {true});
         String what =
             rule.isForbid()
                 ? "holds " + combination(match) + ", so it removes nothing"
@@ -158,9 +198,12 @@ public final class SpaceDiagnosis {
                     + cause(core, "its own lists name no choice a variant can hold") + ")"));
         continue;
       }
-      if (!rule.isForbid() && !rule.when().isEmpty() && !spaceEmpty
-          && leavesNothing(all, -1, match)) {
-        List<Integer> core = deletionFilter(List.of(i), others, -1, match);
+      if (matchable == Verdict.NOT_EMPTY
+          && !rule.isForbid()
+          && !rule.when().isEmpty()
+          && whole == Verdict.NOT_EMPTY
+          && ask(all, -1, match) == Verdict.EMPTY) {
+        List<Integer> core = deletionFilter(List.of(i), others, -1, match, new boolean[] {true});
         notes.add(
             new RuleNote(
                 i,
@@ -184,28 +227,36 @@ public final class SpaceDiagnosis {
 
   /**
    * Deletion filter: {@code fixed} stay, each of {@code candidates} is dropped in turn and stays
-   * dropped when what is left still leaves nothing. Needs: fixed + candidates leave nothing.
+   * dropped when what is left still leaves nothing. Needs: fixed + candidates leave nothing. A
+   * question that cannot be settled keeps the rule and clears {@code sure[0]}.
    */
   private List<Integer> deletionFilter(
-      List<Integer> fixed, List<Integer> candidates, int segment, Map<String, List<String>> match) {
+      List<Integer> fixed,
+      List<Integer> candidates,
+      int segment,
+      Map<String, List<String>> match,
+      boolean[] sure) {
     List<Integer> keep = new ArrayList<>(candidates);
     for (Integer r : candidates) {
       List<Integer> trial = new ArrayList<>(keep);
       trial.remove(r);
       List<Integer> rules = new ArrayList<>(fixed);
       rules.addAll(trial);
-      if (leavesNothing(rules, segment, match)) {
+      Verdict v = ask(rules, segment, match);
+      if (v == Verdict.EMPTY) {
         keep = trial;
+      } else if (v == Verdict.UNKNOWN) {
+        sure[0] = false;
       }
     }
     return keep;
   }
 
   /**
-   * True when the catalog with only {@code rules} has no buildable variant that segment s accepts
-   * (s = -1: any buildable variant) and that holds, in every group of {@code match}, a listed choice.
+   * Whether the catalog with only {@code rules} has a buildable variant that segment s accepts (s =
+   * -1: any buildable variant) and that holds, in every group of {@code match}, a listed choice.
    */
-  boolean leavesNothing(List<Integer> rules, int segment, Map<String, List<String>> match) {
+  private Verdict ask(List<Integer> rules, int segment, Map<String, List<String>> match) {
     VariantSpace vs =
         rules.size() == catalog.rules().size() ? space : new VariantSpace(subCatalog(rules));
     boolean[] domain = new boolean[vs.totalChoices()];
@@ -221,11 +272,22 @@ public final class SpaceDiagnosis {
         }
       }
     }
+    Feasibility.Answer quick = Feasibility.search(vs, domain, quickNodes);
+    if (quick != Feasibility.Answer.UNKNOWN) {
+      return quick == Feasibility.Answer.FOUND ? Verdict.NOT_EMPTY : Verdict.EMPTY;
+    }
     SpaceCount c = new SpaceCounter(vs, tableLimit).count(domain);
     if (c.isEmpty()) {
-      return true;
+      return Verdict.EMPTY;
     }
-    return !c.exact() && !anyBuildable(vs, domain);
+    if (c.exact()) {
+      return Verdict.NOT_EMPTY;
+    }
+    return switch (Feasibility.search(vs, domain, deepNodes)) {
+      case FOUND -> Verdict.NOT_EMPTY;
+      case NONE -> Verdict.EMPTY;
+      case UNKNOWN -> Verdict.UNKNOWN;
+    };
   }
 
   private Catalog subCatalog(List<Integer> rules) {
@@ -242,59 +304,13 @@ public final class SpaceDiagnosis {
         catalog.portfolio());
   }
 
-  /**
-   * Depth-first search for one buildable variant within {@code domain}, groups in index order, each
-   * nogood checked once its last group is set. Exponential in the worst case; only used when the
-   * count gave a bound above zero.
-   */
+  /** A complete search for one variant within {@code domain}; exponential in the worst case. */
   static boolean anyBuildable(VariantSpace vs, boolean[] domain) {
-    int n = vs.groupCount();
-    if (n == 0) {
-      return true;
-    }
-    int[] off = vs.offsets();
-    List<List<Nogood>> checkAt = new ArrayList<>();
-    for (int g = 0; g < n; g++) {
-      checkAt.add(new ArrayList<>());
-    }
-    for (Nogood ng : vs.nogoods()) {
-      int last = 0;
-      for (int g : ng.groups()) {
-        last = Math.max(last, g);
-      }
-      checkAt.get(last).add(ng);
-    }
-    int[] v = new int[n];
-    v[0] = -1;
-    int depth = 0;
-    while (depth >= 0) {
-      int k = v[depth] + 1;
-      while (k < vs.choiceCount(depth)
-          && !(domain[off[depth] + k] && passes(checkAt.get(depth), v, k, depth, off))) {
-        k++;
-      }
-      if (k == vs.choiceCount(depth)) {
-        depth--;
-        continue;
-      }
-      v[depth] = k;
-      if (depth == n - 1) {
-        return true;
-      }
-      depth++;
-      v[depth] = -1;
-    }
-    return false;
+    return Feasibility.search(vs, domain, Long.MAX_VALUE) == Feasibility.Answer.FOUND;
   }
 
-  private static boolean passes(List<Nogood> nogoods, int[] v, int k, int depth, int[] off) {
-    v[depth] = k;
-    for (Nogood ng : nogoods) {
-      if (ng.violatedBy(v, off)) {
-        return false;
-      }
-    }
-    return true;
+  private static String notIrreducible() {
+    return " (some checks ran out of search budget, so the set may hold rules it does not need)";
   }
 
   private String ref(int r) {

@@ -1,5 +1,6 @@
 /**
  * The variant space compiled for speed: a variant is an {@code int[]} of choice indices, rules are
- * compiled into forbidden combinations, and the buildable space is counted without listing it.
+ * compiled into forbidden combinations, the buildable space is counted without listing it, and the
+ * rules that leave it (or a segment) empty are named.
  */
 package dev.mixwright.space;

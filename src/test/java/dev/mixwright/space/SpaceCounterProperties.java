@@ -165,6 +165,10 @@ class SpaceCounterProperties {
       within[f] &= space.allowed(f);
     }
     assertEquals(truth > 0, SpaceDiagnosis.anyBuildable(space, within));
+    Feasibility.Answer quick = Feasibility.search(space, within, 1 + rnd.nextInt(20));
+    if (quick != Feasibility.Answer.UNKNOWN) {
+      assertEquals(truth > 0, quick == Feasibility.Answer.FOUND);
+    }
   }
 
   /** The compiled space (allowed + nogoods) says what the catalog's rules say, read directly. */

@@ -1,6 +1,7 @@
 package dev.mixwright.space;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
 import java.util.ArrayList;
@@ -20,18 +21,21 @@ class SpaceDiagnosisProperties {
       @ForAll @IntRange(min = 1, max = 3) int maxOptions,
       @ForAll @IntRange(min = 4, max = 25) int rules,
       @ForAll @IntRange(min = 1, max = 4) int wide,
-      @ForAll @IntRange(min = 1, max = 64) int limit) {
+      @ForAll @IntRange(min = 1, max = 64) int limit,
+      @ForAll @IntRange(min = 0, max = 30) int quickNodes) {
     Catalog c =
         SpaceCounterProperties.withWideRules(
             SpaceCounterProperties.sized(seed, groups, maxOptions, rules, 2), seed, wide);
-    // A small table limit makes counts bounds only, so the feasibility search gets used too.
-    SpaceDiagnosis d = new SpaceDiagnosis(new VariantSpace(c), limit);
+    // A short search budget sends questions to the counter, and a small table limit makes its
+    // counts bounds only, so the full search gets used too.
+    SpaceDiagnosis d = new SpaceDiagnosis(new VariantSpace(c), limit, quickNodes, Long.MAX_VALUE);
     List<Integer> all = new ArrayList<>();
     for (int r = 0; r < c.rules().size(); r++) {
       all.add(r);
     }
     Optional<RuleConflict> space = d.spaceConflict();
     assertEquals(!BruteForce.feasible(c, all, -1), space.isPresent());
+    space.ifPresent(x -> assertTrue(x.irreducible()));
     space.ifPresent(x -> SpaceDiagnosisTest.assertIrreducible(c, x.rules(), -1));
     for (int s = 0; s < c.segments().size(); s++) {
       Optional<RuleConflict> seg = d.segmentConflict(s);

@@ -131,6 +131,44 @@ class SpaceDiagnosisTest {
         && BruteForce.matches(c, rules.get(4).forbid(), v)) > 0);
   }
 
+  /**
+   * Three two-way groups that must all differ pairwise: a triangle to 2-colour, so nothing is
+   * buildable, yet no single choice is ruled out. With no search budget and a one-entry table the
+   * question stays open, and the diagnosis must then claim no conflict rather than a wrong one.
+   */
+  @Test
+  void anUnsettledQuestionGivesNoConflict() {
+    List<Group> groups =
+        List.of(group("a", true, "x", "y"), group("b", true, "x", "y"), group("c", true, "x", "y"));
+    List<Rule> rules = new ArrayList<>();
+    for (String[] pair : new String[][] {{"a", "b"}, {"a", "c"}, {"b", "c"}}) {
+      for (String o : List.of("x", "y")) {
+        rules.add(forbid(m(pair[0], o, pair[1], o)));
+      }
+    }
+    Catalog c = catalog(groups, rules, List.of());
+    VariantSpace space = new VariantSpace(c);
+    assertEquals(Optional.empty(), new SpaceDiagnosis(space, 1, 0, 0).spaceConflict());
+    RuleConflict found = new SpaceDiagnosis(space).spaceConflict().orElseThrow();
+    assertTrue(found.irreducible());
+    assertIrreducible(c, found.rules(), -1);
+    // With counting alone (no search) the exact count of zero settles every question.
+    RuleConflict counted = new SpaceDiagnosis(space, 1 << 10, 0, 0).spaceConflict().orElseThrow();
+    assertEquals(found.rules(), counted.rules());
+  }
+
+  @Test
+  void aSegmentWhoseAcceptsListNothingNeedsNoRule() {
+    Catalog c =
+        catalog(
+            BIKE,
+            List.of(forbid(m("frame", "cargo", "wheel", "w20"))),
+            List.of(segment("nobody", Map.of("frame", List.of()))));
+    RuleConflict x = new SpaceDiagnosis(new VariantSpace(c)).segmentConflict(0).orElseThrow();
+    assertEquals(List.of(), x.rules());
+    assertTrue(x.message().contains("accepts no variant at all"), x.message());
+  }
+
   private static List<Rule> without(Catalog c, int r) {
     List<Rule> out = new ArrayList<>(c.rules());
     out.remove(r);
