@@ -577,6 +577,7 @@ public final class Scenarios {
     List<String> ids = catalog.rules().stream().map(Rule::id).filter(x -> x != null).toList();
     if (!ids.contains(id)) {
       problem(where, "the catalog has no rule with id '" + id + "'" + Where.didYouMean(id, ids)
+          + (Where.closest(id, ids) == null ? "; rule ids are " + Where.list(ids) : "")
           + (ids.size() < catalog.rules().size()
               ? " (only rules with an id can be switched: give the rule an id: in the catalog)" : ""));
       return null;

@@ -32,14 +32,22 @@ final class CatalogSource {
     if (!Files.isRegularFile(src)) {
       return new Check(true, false, "the catalog file " + src + " is no longer there", null, null);
     }
+    Path scn = m.scenario() == null ? null : Path.of(m.scenario().path());
+    if (scn != null && !Files.isRegularFile(scn)) {
+      return new Check(true, false, "the scenario file " + scn + " is no longer there", null, null);
+    }
+    if (scn != null && !Checksums.sha256(scn).equals(m.scenario().sha256())) {
+      return new Check(false, true, "the scenario file " + scn + " changed since the run began",
+          loadOrNull(src, scn), new RunManifest.Source(m.catalog().path(), Checksums.sha256(src)));
+    }
     String nowSha = Checksums.sha256(src);
     RunManifest.Source now = new RunManifest.Source(m.catalog().path(), nowSha);
     if (!nowSha.equals(m.catalog().sha256())) {
       String why = "the catalog file " + src + " changed since the run began (SHA-256 was "
           + m.catalog().sha256().substring(0, 12) + "…, is now " + nowSha.substring(0, 12) + "…)";
-      return new Check(false, true, why, loadOrNull(src), now);
+      return new Check(false, true, why, loadOrNull(src, scn), now);
     }
-    Catalog current = CatalogLoader.load(src);
+    Catalog current = load(src, scn);
     if (!CatalogWriter.toJson(current).equals(copyText)) {
       return new Check(false, true, "an option table (CSV file) named by the catalog file " + src
           + " changed since the run began", current, now);
@@ -47,12 +55,17 @@ final class CatalogSource {
     return new Check(false, false, "", current, now);
   }
 
-  /** The catalog as it loads now; a catalog that no longer loads is reported when it is needed. */
-  private static Catalog loadOrNull(Path src) {
+  /** The catalog as it loads now, the scenario applied; one that no longer loads is reported when needed. */
+  private static Catalog loadOrNull(Path src, Path scn) {
     try {
-      return CatalogLoader.load(src);
-    } catch (CatalogException e) {
+      return load(src, scn);
+    } catch (CatalogException | UserError e) {
       return null;
     }
+  }
+
+  static Catalog load(Path src, Path scn) throws CatalogException {
+    Catalog c = CatalogLoader.load(src);
+    return scn == null ? c : Inputs.withScenario(c, scn);
   }
 }

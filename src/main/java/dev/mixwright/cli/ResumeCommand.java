@@ -152,7 +152,8 @@ final class ResumeCommand implements Callable<Integer> {
       if (source.missing()) {
         throw new UserError(why + ", and the catalog file is gone, so there is nothing to re-price against");
       }
-      catalog = source.current() != null ? source.current() : CatalogLoader.load(Path.of(m.catalog().path()));
+      catalog = source.current() != null ? source.current() : CatalogSource.load(Path.of(m.catalog().path()),
+          m.scenario() == null ? null : Path.of(m.scenario().path()));
       String copy = CatalogWriter.toJson(catalog);
       AtomicFiles.write(folder.catalogCopy(), copy);
       m = m.withSession("resume", "re-priced: " + why, source.nowSource(), Checksums.sha256(copy));

@@ -66,6 +66,10 @@ final class SolveCommand implements Callable<Integer> {
   @Option(names = "--heuristic-first", description = "price with a fast heuristic first; exact rounds prove the bound")
   boolean heuristicFirst;
 
+  @Option(names = "--scenario", paramLabel = "FILE",
+      description = "solve the catalog changed by this scenario file (capacities, prices, costs, demand, rules)")
+  Path scenarioFile;
+
   @Option(names = "--replace", description = "overwrite the files of an earlier run in RUN_DIR")
   boolean replace;
 
@@ -98,6 +102,9 @@ final class SolveCommand implements Callable<Integer> {
     }
     Catalog catalog = Inputs.catalog(catalogFile);
     String sha = Inputs.sha256(catalogFile);
+    if (scenarioFile != null) {
+      catalog = Inputs.withScenario(catalog, scenarioFile);
+    }
     VariantSpace space = new VariantSpace(catalog);
     Pricer pricer;
     try {
@@ -117,7 +124,8 @@ final class SolveCommand implements Callable<Integer> {
     SolveSettings settings = new SolveSettings(gap, perRound, timeMs, maxIterations, heuristicFirst);
     try (RunLock lock = RunSessions.lock(folder);
         StopSignals signals = StopSignals.install(err)) {
-      RunManifest manifest = RunSessions.begin(folder, catalog, RunSessions.source(catalogFile, sha), null,
+      RunManifest manifest = RunSessions.begin(folder, catalog, RunSessions.source(catalogFile, sha),
+          scenarioFile == null ? null : RunSessions.source(scenarioFile, Inputs.sha256(scenarioFile)),
           RunSessions.settings(settings, pricer.name()));
       SpaceFacts facts = SpaceFacts.of(space);
       try (ColumnLog log = ColumnLog.open(space, runDir, 1, 0)) {

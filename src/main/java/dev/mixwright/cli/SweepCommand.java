@@ -113,7 +113,12 @@ final class SweepCommand implements Callable<Integer> {
     }
     Catalog catalog = Inputs.catalog(catalogFile);
     String sha = Inputs.sha256(catalogFile);
-    SweepPlan plan = plan(catalog);
+    SweepPlan plan;
+    try {
+      plan = plan(catalog);
+    } catch (CatalogException e) {
+      throw Inputs.problems(sweepFile != null ? "the sweep file " + sweepFile : "the --grid axes", e);
+    }
     List<SweepPlan.Point> points = plan.points();
     if (points.isEmpty()) {
       throw new UserError("nothing to sweep: give --grid PATH=VALUES, a --sweep file, or --scenario files");
@@ -200,11 +205,15 @@ final class SweepCommand implements Callable<Integer> {
     return Scenarios.grid(grid, base, List.of(), catalog);
   }
 
-  private static Scenario scenario(Path f, Catalog catalog) throws CatalogException {
+  private static Scenario scenario(Path f, Catalog catalog) {
     if (!Files.isRegularFile(f)) {
       throw new UserError("no scenario file at " + f);
     }
-    return Scenarios.load(f, catalog);
+    try {
+      return Scenarios.load(f, catalog);
+    } catch (CatalogException e) {
+      throw Inputs.problems("the scenario file " + f, e);
+    }
   }
 
   /** The hash that says whether an earlier sweep.json in OUT is of this very sweep. */
