@@ -209,10 +209,9 @@ public record Scenario(String name, List<Change> changes) {
           }
           Option o = old.options().get(k);
           boolean price = t.field() == Field.PRICE;
-          double v = a.apply(price ? o.price() : o.cost());
-          if (!Double.isFinite(v)) {
-            problem = "gives " + Where.num(v) + "; a " + t.field().word + " must be a finite number";
-          }
+          double base = price ? o.price() : o.cost();
+          double v = a.apply(base);
+          problem = nonNegative(v, a, base, "a " + t.field().word);
           List<Option> opts = new ArrayList<>(old.options());
           opts.set(k, new Option(o.id(), o.label(), price ? v : o.price(), price ? o.cost() : v, o.uses()));
           groups.set(g, new Group(old.id(), old.label(), old.required(), opts));

@@ -30,8 +30,8 @@ import java.util.Map;
  * </pre>
  *
  * A value is a number (the new figure) or text: {@code "+500"} / {@code "-500"} add, {@code "+10%"}
- * / {@code "-10%"} scale, {@code "x1.1"} multiplies, {@code "=-50"} sets (for a negative figure
- * written as text). Rules take {@code on} / {@code off}.
+ * / {@code "-10%"} scale, {@code "x1.1"} multiplies, {@code "=5000"} sets (a number as text). Rules
+ * take {@code on} / {@code off}.
  */
 public final class Scenarios {
   private static final List<String> SCENARIO_FIELDS =
@@ -59,7 +59,8 @@ public final class Scenarios {
           "must be a mapping of the figures to change, e.g. resources: {weld: {capacity: 16000}}"));
     }
     r.format(root, "format");
-    Scenario s = r.scenario(root, "", SCENARIO_FIELDS, fileStem(file));
+    Scenario s = r.scenario(root, "", SCENARIO_FIELDS,
+        root.path("name").isTextual() ? root.get("name").asText() : fileStem(file));
     r.check(s, Scenario.none());
     r.done();
     return s;
@@ -426,7 +427,7 @@ public final class Scenarios {
   /** {@code plainIsSet}: on the command line a plain number sets; in a file a number is a number already. */
   private Amount amountText(String t, String path, boolean plainIsSet) {
     String hint = " — write a number to set the figure, \"+500\" or \"-500\" to add, \"+10%\" or \"-10%\" to"
-        + " scale, \"x1.2\" to multiply, \"=-50\" to set a negative figure";
+        + " scale, \"x1.2\" to multiply";
     try {
       if (t.startsWith("=")) {
         return Amount.set(Double.parseDouble(t.substring(1)));
