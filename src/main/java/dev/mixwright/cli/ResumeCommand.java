@@ -108,9 +108,15 @@ final class ResumeCommand implements Callable<Integer> {
       if (r == null) {
         return ExitCodes.OK;
       }
+      if (r == INFEASIBLE) {
+        return ExitCodes.STOPPED;
+      }
       return run(folder, r, start, sessionTimeMs, signals, out, err);
     }
   }
+
+  /** Marks a run that ended infeasible: nothing to resume, exit 1. */
+  private static final Resumed INFEASIBLE = new Resumed(null, null, false, null, null);
 
   /** What the session starts from. */
   private record Resumed(RunManifest manifest, Catalog catalog, boolean repriced, ColumnLogReader.Entries log,
@@ -172,8 +178,10 @@ final class ResumeCommand implements Callable<Integer> {
         return null;
       }
       if (status.equals("infeasible")) {
-        throw new UserError(runDir + ": the run ended infeasible (" + result.path("stopReason").asText()
-            + "); a resume cannot change that — fix the catalog and solve again");
+        spec.commandLine().getOut().println(runDir + ": the run ended infeasible ("
+            + result.path("stopReason").asText() + "); a resume cannot change that — fix the catalog and solve"
+            + " again");
+        return INFEASIBLE;
       }
     }
 
@@ -244,7 +252,7 @@ final class ResumeCommand implements Callable<Integer> {
           StopCriterion.anyOf(StopCriterion.signal(signals.flag()), limits), shiftedStart)
           .continuing(priorIterations, priorBound);
       cg.addListener(log);
-      cg.addListener(new SnapshotWriter(folder, m.runId(), session));
+      cg.addListener(new SnapshotWriter(folder, m, session));
       Progress.attach(cg, err, progress, "");
       SolveOutcome outcome = facts.nothingSellable() ? null : cg.run(pool.columns());
       long elapsed = priorElapsed + (System.nanoTime() - start) / 1_000_000;

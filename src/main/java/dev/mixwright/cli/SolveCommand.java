@@ -133,7 +133,7 @@ final class SolveCommand implements Callable<Integer> {
             heuristicFirst ? Pricers.byName("heuristic", space) : null, settings,
             StopCriterion.signal(signals.flag()), start);
         cg.addListener(log);
-        cg.addListener(new SnapshotWriter(folder, manifest.runId(), 1));
+        cg.addListener(new SnapshotWriter(folder, manifest, 1));
         Progress.attach(cg, err, progress, "");
         SolveOutcome outcome = facts.nothingSellable() ? null : cg.run();
         long elapsed = (System.nanoTime() - start) / 1_000_000;

@@ -11,8 +11,8 @@ import java.util.Optional;
 
 /**
  * {@code state.json}: the loop's state after a round — the round number, the master objective, the
- * best bound proven so far (+∞ for none), the gap, columns in the master and elapsed time over all
- * sessions — and its status ({@code running} until the session ends). Written by temp file, sync and
+ * best bound proven so far (+∞ for none), the gap, columns in the master, elapsed time over all
+ * sessions and the settings — and its status ({@code running} until the session ends). Written by temp file, sync and
  * rename after every round, so it is whole or absent; one found damaged anyway (copied half, edited)
  * is set aside with a reason and the state is taken from the column log instead.
  */
@@ -26,6 +26,11 @@ public record LoopSnapshot(
   public record Loaded(Optional<LoopSnapshot> snapshot, String problem) {}
 
   public void write(RunFolder folder) throws IOException {
+    write(folder, null);
+  }
+
+  /** Writes state.json, with the run's settings beside the state when given. */
+  public void write(RunFolder folder, RunManifest.Settings settings) throws IOException {
     ObjectNode n = Json.pretty().createObjectNode();
     n.put("format", 1);
     n.put("runId", runId);
@@ -38,6 +43,15 @@ public record LoopSnapshot(
     n.put("columns", columns);
     n.put("elapsedMs", elapsedMs);
     n.put("writtenAt", Instant.now().toString());
+    if (settings != null) {
+      ObjectNode s = n.putObject("settings");
+      s.put("pricer", settings.pricer());
+      s.put("gap", settings.gap());
+      s.put("perRound", settings.perRound());
+      s.put("heuristicFirst", settings.heuristicFirst());
+      s.put("timeLimitMs", settings.timeLimitMs());
+      s.put("maxIterations", settings.maxIterations());
+    }
     AtomicFiles.write(folder.snapshot(), Json.pretty().writeValueAsString(n) + "\n");
   }
 

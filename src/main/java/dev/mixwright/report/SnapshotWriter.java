@@ -10,11 +10,14 @@ import java.io.UncheckedIOException;
 public final class SnapshotWriter implements ColGenListener {
   private final RunFolder folder;
   private final String runId;
+  private final RunManifest.Settings settings;
   private final int session;
 
-  public SnapshotWriter(RunFolder folder, String runId, int session) {
+  /** Snapshots of session {@code session} of the run {@code manifest} describes, its settings included. */
+  public SnapshotWriter(RunFolder folder, RunManifest manifest, int session) {
     this.folder = folder;
-    this.runId = runId;
+    this.runId = manifest.runId();
+    this.settings = manifest.settings();
     this.session = session;
   }
 
@@ -32,7 +35,7 @@ public final class SnapshotWriter implements ColGenListener {
 
   private void write(LoopSnapshot s) {
     try {
-      s.write(folder);
+      s.write(folder, settings);
     } catch (IOException e) {
       throw new UncheckedIOException("cannot write " + folder.snapshot() + ": " + e.getMessage(), e);
     }
