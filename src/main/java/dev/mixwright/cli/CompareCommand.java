@@ -25,8 +25,10 @@ import picocli.CommandLine.Spec;
     name = "compare",
     mixinStandardHelpOptions = true,
     description = {
-      "Shows what changed from run A to run B: objective and bound, the catalog figures that differ,",
-      "offers that are new, dropped or sold in another quantity, and every shadow price."
+      "Shows what changed from run A to run B.",
+      "Objective and bound, the catalog figures that differ, offers that are new,",
+      "dropped or sold in another quantity, and the shadow prices of resources",
+      "and segments."
     })
 final class CompareCommand implements Callable<Integer> {
   @Spec CommandSpec spec;

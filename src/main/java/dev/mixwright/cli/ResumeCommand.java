@@ -46,10 +46,12 @@ import picocli.CommandLine.Spec;
     name = "resume",
     mixinStandardHelpOptions = true,
     description = {
-      "Continues a run that was stopped (a limit, Ctrl-C, SIGTERM) or cut off (a crash, kill -9,",
-      "power loss): rebuilds the master from the run's column log, keeps the bound it had proven and",
-      "goes on to the optimum, appending to the same column log. The final objective is the one an",
-      "uninterrupted run reaches. Refuses (exit 2) when the catalog file changed since the run",
+      "Continues a stopped or cut-off run to the optimum of an uninterrupted run.",
+      "A run stopped by a limit, Ctrl-C or SIGTERM, or cut off by a crash, kill -9",
+      "or power loss: resume rebuilds the master from the run's column log,",
+      "keeps the bound it had proven and goes on to the optimum, appending to the",
+      "same column log. The final objective is the one an uninterrupted run",
+      "reaches. Refuses (exit 2) when the catalog file changed since the run",
       "began, unless --reprice is given."
     })
 final class ResumeCommand implements Callable<Integer> {

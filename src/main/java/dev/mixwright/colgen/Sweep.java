@@ -7,6 +7,7 @@ import dev.mixwright.pricing.Pricers;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Optional;
 import java.util.Set;
 import java.util.function.BooleanSupplier;
 
@@ -89,7 +90,7 @@ public final class Sweep {
       List<Column> warm = warmStart && prevSpace != null
           ? WarmStart.reprice(prevSpace, prevColumns, space).columns() : List.of();
       ColumnGeneration cg = new ColumnGeneration(space, Pricers.byName(pricer, space), null, settings,
-          r -> stop.getAsBoolean() ? java.util.Optional.of("interrupted by a signal") : java.util.Optional.empty(),
+          r -> stop.getAsBoolean() ? Optional.of("interrupted by a signal") : Optional.empty(),
           System.nanoTime());
       ColGenListener l = listener.loopListener(p, nth, total);
       if (l != null) {

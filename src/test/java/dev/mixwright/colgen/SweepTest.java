@@ -142,4 +142,29 @@ class SweepTest {
       }
     }
   }
+
+  @Test
+  void aStoppedSweepLeavesTheRestForALaterRunThatSkipsWhatIsDone() throws Exception {
+    SweepPlan plan = Scenarios.grid(List.of("resources.testbench.capacity=6000..12000:1000"), Scenario.none(),
+        List.of(), starter);
+    List<Sweep.Row> all = sweep(starter, plan, true);
+    int[] solved = {0};
+    List<Sweep.Row> first = new Sweep(starter, plan, "bnb", TIGHT, true).run(Set.of(), () -> solved[0] >= 3,
+        new Sweep.Listener() {
+          @Override
+          public void solved(Sweep.Row row) {
+            solved[0]++;
+          }
+        });
+    assertEquals(3, first.size());
+    Set<Integer> done = new java.util.HashSet<>();
+    first.forEach(r -> done.add(r.point().index()));
+    List<Sweep.Row> rest = new Sweep(starter, plan, "bnb", TIGHT, true).run(done, () -> false, new Sweep.Listener() {});
+    assertEquals(all.size() - 3, rest.size());
+    for (Sweep.Row r : rest) {
+      assertTrue(!done.contains(r.point().index()));
+      assertEquals(all.get(r.point().index()).outcome().objective(), r.outcome().objective(),
+          1e-9 * r.outcome().objective());
+    }
+  }
 }
