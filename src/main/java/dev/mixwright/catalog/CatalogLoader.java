@@ -64,22 +64,7 @@ public final class CatalogLoader {
           new CatalogProblem(
               name, "is a folder, not a catalog file — give the .yaml or .json file"));
     }
-    String text;
-    try {
-      text = Files.readString(file, StandardCharsets.UTF_8);
-    } catch (NoSuchFileException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "no such file (looked for " + file.toAbsolutePath() + ")"));
-    } catch (AccessDeniedException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "cannot read the file: permission denied"));
-    } catch (MalformedInputException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "is not UTF-8 text — save the catalog in UTF-8"));
-    } catch (IOException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "cannot read the file: " + e.getMessage()));
-    }
+    String text = readText(file, name);
     return parse(text, file.toString(), file.toAbsolutePath().getParent());
   }
 
@@ -91,15 +76,51 @@ public final class CatalogLoader {
   public static Catalog parse(String text, String fileNameForFormat, Path baseDirForCsv)
       throws CatalogException {
     String name = nameOf(fileNameForFormat, null);
+    return new CatalogReader(name, baseDirForCsv).read(parseTree(text, fileNameForFormat));
+  }
+
+  /**
+   * YAML or JSON text (picked by the file name's ending) as a tree, for the files that sit beside a
+   * catalog (scenarios, sweeps); text that is neither is one problem naming the line and column.
+   */
+  static JsonNode parseTree(String text, String fileNameForFormat) throws CatalogException {
+    String name = nameOf(fileNameForFormat, null);
     boolean yaml = formatOf(name);
     String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
-    JsonNode root;
     try {
-      root = (yaml ? YAML : JSON).readTree(body);
+      return (yaml ? YAML : JSON).readTree(body);
     } catch (JsonProcessingException e) {
       throw new CatalogException(syntaxProblem(e, name, yaml));
     }
-    return new CatalogReader(name, baseDirForCsv).read(root);
+  }
+
+  /** A file's text, or one problem saying in words why it cannot be read. */
+  static String readText(Path file, String name) throws CatalogException {
+    formatOf(name);
+    if (Files.isDirectory(file)) {
+      throw new CatalogException(
+          new CatalogProblem(name, "is a folder, not a file — give the .yaml or .json file"));
+    }
+    try {
+      return Files.readString(file, StandardCharsets.UTF_8);
+    } catch (NoSuchFileException e) {
+      throw new CatalogException(
+          new CatalogProblem(name, "no such file (looked for " + file.toAbsolutePath() + ")"));
+    } catch (AccessDeniedException e) {
+      throw new CatalogException(
+          new CatalogProblem(name, "cannot read the file: permission denied"));
+    } catch (MalformedInputException e) {
+      throw new CatalogException(
+          new CatalogProblem(name, "is not UTF-8 text — save the file in UTF-8"));
+    } catch (IOException e) {
+      throw new CatalogException(
+          new CatalogProblem(name, "cannot read the file: " + e.getMessage()));
+    }
+  }
+
+  /** The file name problems are reported under. */
+  static String displayName(Path file) {
+    return nameOf(file.toString(), file);
   }
 
   /** True for YAML, false for JSON; a problem for any other file type. */

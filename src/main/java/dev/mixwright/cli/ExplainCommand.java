@@ -3,6 +3,7 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.explain.CapacityRanges;
 import dev.mixwright.explain.Explainer;
 import dev.mixwright.explain.Explanation;
 import dev.mixwright.report.Json;
@@ -13,7 +14,9 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
@@ -37,15 +40,23 @@ final class ExplainCommand implements Callable<Integer> {
   @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
   Path runDir;
 
-  @Option(names = "--segment", required = true, paramLabel = "S", description = "segment id")
+  @Option(names = "--segment", paramLabel = "S", description = "segment id")
   String segmentId;
 
-  @Option(names = "--variant", required = true, paramLabel = "G=O,...",
+  @Option(names = "--variant", paramLabel = "G=O,...",
       description = "one option per group, e.g. frame=step,motor=mid750 (optional groups left out mean none)")
   String variantText;
 
   @Option(names = "--json", description = "print the explanation as JSON")
   boolean json;
+
+  @Option(names = "--capacity-ranges",
+      description = "for each resource, the capacity range over which its shadow price holds, found by"
+          + " re-solving over the whole space at other capacities (several solves per resource)")
+  boolean capacityRanges;
+
+  @Option(names = "--resource", paramLabel = "ID", description = "with --capacity-ranges: only this resource (repeatable)")
+  List<String> resources = new ArrayList<>();
 
   @Override
   public Integer call() throws Exception {
@@ -54,7 +65,26 @@ final class ExplainCommand implements Callable<Integer> {
     if (!Files.isRegularFile(folder.catalogCopy()) || !Files.isRegularFile(folder.result())) {
       throw new UserError(runDir + " is not a finished run folder (needs catalog.json and result.json from 'mixwright solve --out')");
     }
+    if ((segmentId == null) != (variantText == null)) {
+      throw new UserError("--segment and --variant go together: give both to explain a variant");
+    }
+    if (segmentId == null && !capacityRanges) {
+      throw new UserError("give --segment S --variant G=O,... to explain a variant, or --capacity-ranges for"
+          + " the range of each shadow price");
+    }
     Catalog catalog = CatalogLoader.load(folder.catalogCopy());
+    List<CapacityRanges.Range> ranges = capacityRanges
+        ? CapacityRangeReport.compute(folder, catalog, resources, spec.commandLine().getErr()) : null;
+    if (segmentId == null) {
+      if (json) {
+        ObjectNode n = Json.pretty().createObjectNode();
+        n.set("capacityRanges", CapacityRangeReport.toJson(ranges));
+        out.println(Json.pretty().writeValueAsString(n));
+      } else {
+        CapacityRangeReport.print(out, ranges, RunReader.readResult(runDir));
+      }
+      return ExitCodes.OK;
+    }
     VariantSpace space = new VariantSpace(catalog);
     int s = catalog.segmentIndex(segmentId);
     if (s < 0) {
@@ -71,9 +101,16 @@ final class ExplainCommand implements Callable<Integer> {
     Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
     double qty = run.quantity(segmentId, space.describe(v));
     if (json) {
-      out.println(Json.pretty().writeValueAsString(toJson(space, e, qty, run)));
+      ObjectNode n = toJson(space, e, qty, run);
+      if (ranges != null) {
+        n.set("capacityRanges", CapacityRangeReport.toJson(ranges));
+      }
+      out.println(Json.pretty().writeValueAsString(n));
     } else {
       print(out, space, e, qty, run);
+      if (ranges != null) {
+        CapacityRangeReport.print(out, ranges, run.result());
+      }
     }
     return ExitCodes.OK;
   }

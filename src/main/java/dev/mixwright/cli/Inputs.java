@@ -3,6 +3,8 @@ package dev.mixwright.cli;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.catalog.Scenarios;
 import java.io.IOException;
 import java.io.InputStream;
 import java.nio.file.Files;
@@ -20,6 +22,31 @@ final class Inputs {
       throw new UserError("no catalog file at " + file + " — give the path of a .yaml, .yml or .json catalog");
     }
     return CatalogLoader.load(file);
+  }
+
+  /**
+   * A scenario file applied to {@code base}; its problems come as one bad-input error listing each
+   * with its path (the catalog's own problems keep their own wording).
+   */
+  static Catalog withScenario(Catalog base, Path scenarioFile) {
+    if (!Files.isRegularFile(scenarioFile)) {
+      throw new UserError("no scenario file at " + scenarioFile + " — give the path of a .yaml or .json scenario");
+    }
+    try {
+      return Scenarios.load(scenarioFile, base).applyTo(base);
+    } catch (CatalogException e) {
+      throw problems("the scenario file " + scenarioFile, e);
+    }
+  }
+
+  /** A CatalogException from a file other than the catalog, as a bad-input error naming that file. */
+  static UserError problems(String what, CatalogException e) {
+    StringBuilder sb = new StringBuilder(what + " has " + e.problems().size()
+        + (e.problems().size() == 1 ? " problem:" : " problems:"));
+    for (CatalogProblem p : e.problems()) {
+      sb.append("\n  ").append(p.path()).append(": ").append(p.message());
+    }
+    return new UserError(sb.toString());
   }
 
   static String sha256(Path file) {

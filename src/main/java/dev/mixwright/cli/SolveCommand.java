@@ -2,7 +2,6 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.SolveOutcome;
@@ -10,19 +9,16 @@ import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.pricing.Pricer;
 import dev.mixwright.pricing.Pricers;
-import dev.mixwright.report.AtomicFiles;
 import dev.mixwright.report.ColumnLog;
 import dev.mixwright.report.ResultWriter;
 import dev.mixwright.report.RunFolder;
+import dev.mixwright.report.RunLock;
+import dev.mixwright.report.RunManifest;
+import dev.mixwright.report.SnapshotWriter;
 import dev.mixwright.space.VariantSpace;
-import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
-import java.util.concurrent.CountDownLatch;
-import java.util.concurrent.TimeUnit;
-import java.util.concurrent.atomic.AtomicBoolean;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -35,7 +31,10 @@ import picocli.CommandLine.Model.CommandSpec;
     description = {
       "Finds the best LP plan over the whole variant space by column generation and proves it.",
       "Writes RUN_DIR/result.json, RUN_DIR/columns.jsonl (one line per column added) and",
-      "RUN_DIR/catalog.json (the catalog as solved)."
+      "RUN_DIR/catalog.json (the catalog as solved), RUN_DIR/run.json (what the run",
+      "is) and RUN_DIR/state.json (the loop's state after each round). Ctrl-C or",
+      "SIGTERM stops after the current round with status stopped (exit 1);",
+      "'mixwright resume RUN_DIR' continues such a run, or one cut off by a crash."
     })
 final class SolveCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
@@ -67,11 +66,16 @@ final class SolveCommand implements Callable<Integer> {
   @Option(names = "--heuristic-first", description = "price with a fast heuristic first; exact rounds prove the bound")
   boolean heuristicFirst;
 
+  @Option(names = "--scenario", paramLabel = "FILE",
+      description = "solve the catalog changed by this scenario file (capacities, prices, costs, demand, rules)")
+  Path scenarioFile;
+
   @Option(names = "--replace", description = "overwrite the files of an earlier run in RUN_DIR")
   boolean replace;
 
   @Option(names = "--progress", negatable = true,
-      description = "one line per round on stderr (default: on when stderr is a terminal)")
+      description = "progress on stderr: a live line on a terminal, else one line per round"
+          + " (default: on when stderr is a terminal)")
   Boolean progress;
 
   @Override
@@ -98,6 +102,9 @@ final class SolveCommand implements Callable<Integer> {
     }
     Catalog catalog = Inputs.catalog(catalogFile);
     String sha = Inputs.sha256(catalogFile);
+    if (scenarioFile != null) {
+      catalog = Inputs.withScenario(catalog, scenarioFile);
+    }
     VariantSpace space = new VariantSpace(catalog);
     Pricer pricer;
     try {
@@ -111,53 +118,34 @@ final class SolveCommand implements Callable<Integer> {
     }
     RunFolder folder = new RunFolder(runDir);
     if (!replace && folder.holdsRun()) {
-      throw new UserError(runDir + " already holds a run; choose another --out folder, or add --replace to overwrite it");
+      throw new UserError(runDir + " already holds a run; choose another --out folder, or add --replace to overwrite it"
+          + " (or continue it with 'mixwright resume " + runDir + "')");
     }
-    Files.createDirectories(runDir);
-    AtomicFiles.write(folder.catalogCopy(), CatalogWriter.toJson(catalog));
-
-    SpaceFacts facts = SpaceFacts.of(space);
     SolveSettings settings = new SolveSettings(gap, perRound, timeMs, maxIterations, heuristicFirst);
-    AtomicBoolean interrupted = new AtomicBoolean();
-    CountDownLatch written = new CountDownLatch(1);
-    Thread hook = new Thread(() -> {
-      interrupted.set(true);
-      try {
-        // Let the loop finish its round and write result.json before the JVM goes.
-        written.await(60, TimeUnit.SECONDS);
-      } catch (InterruptedException e) {
-        Thread.currentThread().interrupt();
-      }
-    }, "mixwright-stop");
-    Runtime.getRuntime().addShutdownHook(hook);
-    try (ColumnLog log = new ColumnLog(space, runDir, false)) {
-      ColumnGeneration cg = new ColumnGeneration(space, pricer,
-          heuristicFirst ? Pricers.byName("heuristic", space) : null, settings,
-          StopCriterion.signal(interrupted), start);
-      cg.addListener(log);
-      boolean showProgress = progress != null ? progress : System.console() != null;
-      if (showProgress) {
-        cg.addListener(new Progress(err));
-      }
-      SolveOutcome outcome = facts.nothingSellable() ? null : cg.run();
-      long elapsed = (System.nanoTime() - start) / 1_000_000;
-      ResultWriter.RunInfo info = new ResultWriter.RunInfo(catalogFile.toString(), sha, pricer.name(),
-          new ResultWriter.SpaceSize(facts.buildable(), facts.exact()), elapsed);
-      if (outcome == null) {
-        outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
-      }
-      ObjectNode result = ResultWriter.build(space, outcome, info);
-      ResultWriter.write(runDir, result);
-      Summary.print(out, space, outcome, result, runDir);
-      return outcome.status().isOptimal() ? ExitCodes.OK : ExitCodes.STOPPED;
-    } finally {
-      written.countDown();
-      if (!interrupted.get()) {
-        try {
-          Runtime.getRuntime().removeShutdownHook(hook);
-        } catch (IllegalStateException shuttingDown) {
-          // the JVM is already exiting; the hook has been released above
+    try (RunLock lock = RunSessions.lock(folder);
+        StopSignals signals = StopSignals.install(err)) {
+      RunManifest manifest = RunSessions.begin(folder, catalog, RunSessions.source(catalogFile, sha),
+          scenarioFile == null ? null : RunSessions.source(scenarioFile, Inputs.sha256(scenarioFile)),
+          RunSessions.settings(settings, pricer.name()));
+      SpaceFacts facts = SpaceFacts.of(space);
+      try (ColumnLog log = ColumnLog.open(space, runDir, 1, 0)) {
+        ColumnGeneration cg = new ColumnGeneration(space, pricer,
+            heuristicFirst ? Pricers.byName("heuristic", space) : null, settings,
+            StopCriterion.signal(signals.flag()), start);
+        cg.addListener(log);
+        cg.addListener(new SnapshotWriter(folder, manifest, 1));
+        Progress.attach(cg, err, progress, "");
+        SolveOutcome outcome = facts.nothingSellable() ? null : cg.run();
+        long elapsed = (System.nanoTime() - start) / 1_000_000;
+        ResultWriter.RunInfo info = new ResultWriter.RunInfo(catalogFile.toString(), sha, pricer.name(),
+            new ResultWriter.SpaceSize(facts.buildable(), facts.exact()), elapsed);
+        if (outcome == null) {
+          outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
         }
+        ObjectNode result = ResultWriter.build(space, outcome, info);
+        ResultWriter.write(runDir, result);
+        Summary.print(out, space, outcome, result, runDir);
+        return outcome.status().isOptimal() ? ExitCodes.OK : ExitCodes.STOPPED;
       }
     }
   }

@@ -3,6 +3,7 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.colgen.Durations;
+import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
@@ -51,6 +52,9 @@ final class Summary {
           Numbers.qty(off.get("quantity").asDouble()), v));
     }
     out.println("  written to          " + runDir);
+    if (o.status() == RunStatus.STOPPED) {
+      out.println("  continue with       mixwright resume " + runDir);
+    }
     out.flush();
   }
 }

@@ -44,6 +44,8 @@ public final class ColumnGeneration {
   private final StopCriterion stop;
   private final long startNanos;
   private final List<ColGenListener> listeners = new ArrayList<>();
+  private int priorIterations;
+  private double priorBound = Double.POSITIVE_INFINITY;
 
   /**
    * @param exact a pricer whose outcomes carry a valid upper bound (the last round relies on it)
@@ -76,6 +78,21 @@ public final class ColumnGeneration {
 
   public ColumnGeneration addListener(ColGenListener l) {
     listeners.add(l);
+    return this;
+  }
+
+  /**
+   * Continues an earlier run of the same catalog: rounds are numbered on from {@code iterationsDone}
+   * and {@code provenBound} (any bound proven earlier; +∞ for none) is kept as the best bound. Pass
+   * the earlier run's columns to {@link #run(List)}. Only valid when the catalog is unchanged: a
+   * bound proven for other figures proves nothing here.
+   */
+  public ColumnGeneration continuing(int iterationsDone, double provenBound) {
+    if (iterationsDone < 0 || Double.isNaN(provenBound)) {
+      throw new IllegalArgumentException("iterations done must be >= 0 and the bound a number");
+    }
+    this.priorIterations = iterationsDone;
+    this.priorBound = provenBound;
     return this;
   }
 
@@ -124,10 +141,15 @@ public final class ColumnGeneration {
         }
       }
       // Seed: the best column per segment at zero duals, whatever its sign, so every segment that
-      // accepts a variant is represented from the first solve.
+      // accepts a variant is represented from the first solve. Segments the warm start already
+      // covers need none.
       double[] zero = new double[resCount];
       boolean anyColumn = !columns.isEmpty();
+      int warmCount = columns.size();
       for (int s = 0; s < segCount; s++) {
+        if (!inMaster.get(s).isEmpty()) {
+          continue;
+        }
         PricingOutcome o = exact.price(ReducedCosts.query(space, s, zero, 0, 1, Double.NEGATIVE_INFINITY, inMaster.get(s)));
         for (PricedVariant pv : o.found()) {
           Column c = column(s, pv.choices(), upper[s], 0, pv.reducedCost());
@@ -147,12 +169,13 @@ public final class ColumnGeneration {
       }
 
       MasterSolution sol = solveOrFail(master);
-      List<Column> seeded = List.copyOf(columns);
+      List<Column> seeded = List.copyOf(columns.subList(warmCount, columns.size()));
       double z0 = sol.objective();
       long t0 = elapsedMs();
-      listeners.forEach(l -> l.columnsAdded(seeded, z0, Double.POSITIVE_INFINITY, t0));
-      double bestBound = Double.POSITIVE_INFINITY;
-      int iteration = 0;
+      double b0 = priorBound;
+      listeners.forEach(l -> l.columnsAdded(seeded, z0, b0, t0));
+      double bestBound = priorBound;
+      int iteration = priorIterations;
       RunStatus status;
       String reason = "";
       while (true) {

@@ -128,7 +128,10 @@ public final class CpSatPricer implements Pricer {
     int[] v = new int[groups];
     while (true) {
       CpSolver solver = new CpSolver();
-      solver.getParameters().setNumWorkers(workers).setAbsoluteGapLimit(0.0).setRandomSeed(1);
+      // CP-SAT's own SIGINT handler calls back into an unset C++ function from the JVM and aborts the
+      // process (measured: Ctrl-C during a solve ends it with SIGABRT); the command handles Ctrl-C.
+      solver.getParameters().setNumWorkers(workers).setAbsoluteGapLimit(0.0).setRandomSeed(1)
+          .setCatchSigintSignal(false);
       if (timeLimitSeconds > 0) {
         double left = timeLimitSeconds - (System.nanoTime() - start) / 1e9;
         if (left <= 0) {

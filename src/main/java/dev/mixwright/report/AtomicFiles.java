@@ -38,8 +38,21 @@ public final class AtomicFiles {
       } catch (AtomicMoveNotSupportedException e) {
         Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
       }
+      syncDirectory(dir);
     } finally {
       Files.deleteIfExists(tmp);
+    }
+  }
+
+  /**
+   * Forces a folder's entries (a rename, a new file) to disk, where the platform allows it: Linux and
+   * macOS do; elsewhere opening a folder fails and the rename's own durability has to do.
+   */
+  public static void syncDirectory(Path dir) {
+    try (FileChannel ch = FileChannel.open(dir, StandardOpenOption.READ)) {
+      ch.force(true);
+    } catch (IOException | UnsupportedOperationException e) {
+      // not supported here (e.g. Windows); nothing better is available from Java
     }
   }
 }

@@ -1,0 +1,108 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.colgen.Column;
+import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.explain.CapacityRanges;
+import dev.mixwright.report.ColumnLogReader;
+import dev.mixwright.report.ColumnPool;
+import dev.mixwright.report.Json;
+import dev.mixwright.report.RunFolder;
+import dev.mixwright.report.RunManifest;
+import dev.mixwright.space.VariantSpace;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+/** {@code explain --capacity-ranges}: each resource's shadow price and the capacities over which it holds. */
+final class CapacityRangeReport {
+  /** Re-solves aim this close, so that their error stays well under the tolerance that tells pieces apart. */
+  private static final SolveSettings RESOLVE = new SolveSettings(1e-9, SolveSettings.DEFAULT_PER_ROUND, 0, 0, false);
+
+  private CapacityRangeReport() {}
+
+  static List<CapacityRanges.Range> compute(RunFolder folder, Catalog catalog, List<String> only, PrintWriter err)
+      throws IOException {
+    VariantSpace space = new VariantSpace(catalog);
+    String pricer = "bnb";
+    if (Files.isRegularFile(folder.manifest())) {
+      pricer = RunManifest.read(folder).settings().pricer();
+    }
+    List<Column> warm = List.of();
+    if (Files.isRegularFile(folder.columnLog())) {
+      warm = ColumnPool.rebuild(space, ColumnLogReader.read(folder.columnLog()).lines()).columns();
+    }
+    for (String id : only) {
+      if (catalog.resourceIndex(id) < 0) {
+        throw new UserError("--resource: no resource '" + id + "'; resources are "
+            + catalog.resources().stream().map(r -> r.id()).toList());
+      }
+    }
+    CapacityRanges search = new CapacityRanges(1e-6, 1e-7);
+    List<CapacityRanges.Range> out = new ArrayList<>();
+    for (int r = 0; r < catalog.resources().size(); r++) {
+      String id = catalog.resources().get(r).id();
+      if (!only.isEmpty() && !only.contains(id)) {
+        continue;
+      }
+      CapacityRanges.ColumnGenerationSolver solver =
+          new CapacityRanges.ColumnGenerationSolver(catalog, r, pricer, RESOLVE, warm);
+      // The run's own figures come from a solve to its own gap; solve once more here so every point
+      // of the search has the same accuracy.
+      CapacityRanges.Point p0 = solver.at(catalog.resources().get(r).capacity());
+      out.add(search.find(id, p0, CapacityRanges.unusableCapacity(space, r), solver));
+      err.flush();
+    }
+    return out;
+  }
+
+  static ArrayNode toJson(List<CapacityRanges.Range> ranges) {
+    ArrayNode a = Json.pretty().createArrayNode();
+    for (CapacityRanges.Range r : ranges) {
+      ObjectNode n = a.addObject();
+      n.put("resource", r.resource());
+      n.put("capacity", r.capacity());
+      n.put("shadowPrice", r.price());
+      n.put("holdsFrom", r.low());
+      putNum(n, "holdsTo", r.high());
+      putNum(n, "priceBelow", r.priceBelow());
+      putNum(n, "priceAbove", r.priceAbove());
+      n.put("exact", r.exact());
+      n.put("solves", r.solves());
+    }
+    return a;
+  }
+
+  private static void putNum(ObjectNode n, String f, double v) {
+    if (Double.isFinite(v)) {
+      n.put(f, v);
+    } else {
+      n.putNull(f);
+    }
+  }
+
+  static void print(PrintWriter out, List<CapacityRanges.Range> ranges, JsonNode result) {
+    int solves = ranges.stream().mapToInt(CapacityRanges.Range::solves).sum() + ranges.size();
+    out.println("capacity ranges of the shadow prices (found by re-solving over the whole space, "
+        + solves + " solves):");
+    out.println(String.format(Locale.ROOT, "  %-14s %14s %12s   %-34s %12s %12s", "resource", "capacity",
+        "shadow price", "holds for capacity in", "below", "above"));
+    for (CapacityRanges.Range r : ranges) {
+      String range = "[" + Numbers.money(r.low()) + ", "
+          + (Double.isInfinite(r.high()) ? "no limit" : Numbers.money(r.high())) + "]" + (r.exact() ? "" : " at least");
+      out.println(String.format(Locale.ROOT, "  %-14s %14s %12s   %-34s %12s %12s", r.resource(),
+          Numbers.money(r.capacity()), Numbers.money(r.price()), range, Numbers.money(r.priceBelow()),
+          Numbers.money(r.priceAbove())));
+    }
+    if (result != null && !result.path("status").asText().equals("optimal")) {
+      out.println("  note: the run ended " + result.path("status").asText()
+          + "; the ranges are those of the re-solved optimum, not of its last master");
+    }
+  }
+}

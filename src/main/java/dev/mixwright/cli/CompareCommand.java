@@ -1,0 +1,173 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogException;
+import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.report.Json;
+import dev.mixwright.report.RunComparison;
+import dev.mixwright.report.RunFolder;
+import dev.mixwright.report.RunReader;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(
+    name = "compare",
+    mixinStandardHelpOptions = true,
+    description = {
+      "Shows what changed from run A to run B.",
+      "Objective and bound, the catalog figures that differ, offers that are new,",
+      "dropped or sold in another quantity, and the shadow prices of resources",
+      "and segments."
+    })
+final class CompareCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Parameters(index = "0", paramLabel = "RUN_A", description = "a run folder (the before)")
+  Path runA;
+
+  @Parameters(index = "1", paramLabel = "RUN_B", description = "a run folder (the after)")
+  Path runB;
+
+  @Option(names = "--json", description = "print the comparison as JSON")
+  boolean json;
+
+  @Option(names = "--all", description = "list unchanged resources and segments too")
+  boolean all;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    JsonNode a = result(runA);
+    JsonNode b = result(runB);
+    ObjectNode cmp = RunComparison.compare(a, b, catalog(runA), catalog(runB));
+    if (json) {
+      out.println(Json.pretty().writeValueAsString(cmp));
+    } else {
+      print(out, cmp);
+    }
+    return ExitCodes.OK;
+  }
+
+  private static JsonNode result(Path run) {
+    try {
+      return RunReader.readResult(run);
+    } catch (IOException e) {
+      throw new UserError(e.getMessage());
+    }
+  }
+
+  private static Catalog catalog(Path run) {
+    Path f = new RunFolder(run).catalogCopy();
+    if (!Files.isRegularFile(f)) {
+      return null;
+    }
+    try {
+      return CatalogLoader.load(f);
+    } catch (CatalogException e) {
+      return null; // the figures are then compared through result.json only
+    }
+  }
+
+  private void print(PrintWriter out, ObjectNode c) {
+    JsonNode s = c.path("summary");
+    out.println("run A " + runA + "  ->  run B " + runB);
+    out.println(String.format(Locale.ROOT, "  status      %-18s -> %s", s.path("status").path("a").asText(),
+        s.path("status").path("b").asText()));
+    for (String f : new String[] {"objective", "bound"}) {
+      JsonNode v = s.path(f);
+      out.println(String.format(Locale.ROOT, "  %-11s %18s -> %18s   %s", f, money(v.path("a")), money(v.path("b")),
+          change(v)));
+    }
+    out.println(String.format(Locale.ROOT, "  gap         %18s -> %18s", Numbers.percent(v(s.path("gap").path("a"))),
+        Numbers.percent(v(s.path("gap").path("b")))));
+    JsonNode cc = c.path("catalogChanges");
+    if (c.path("sameCatalog").asBoolean()) {
+      out.println("catalog: the same");
+    } else if (cc.isArray()) {
+      out.println("catalog: " + cc.size() + (cc.size() == 1 ? " figure differs" : " figures differ"));
+      int shown = 0;
+      for (JsonNode x : cc) {
+        if (shown++ == 20) {
+          out.println("  ... " + (cc.size() - 20) + " more (see --json)");
+          break;
+        }
+        out.println(String.format(Locale.ROOT, "  %-44s %14s -> %s", x.path("path").asText(), text(x.path("a")),
+            text(x.path("b"))));
+      }
+    } else {
+      out.println("catalog: differs (no catalog.json in one of the runs to list the figures)");
+    }
+    JsonNode o = c.path("offers");
+    out.println(String.format(Locale.ROOT, "offers: %d new, %d dropped, %d changed, %d unchanged",
+        o.path("new").size(), o.path("dropped").size(), o.path("changed").size(), o.path("unchanged").asInt()));
+    for (String kind : new String[] {"new", "dropped", "changed"}) {
+      for (JsonNode x : o.path(kind)) {
+        out.println(String.format(Locale.ROOT, "  %-8s %-14s %12s -> %-12s %s", kind, x.path("segment").asText(),
+            Numbers.qty(x.path("quantityA").asDouble()), Numbers.qty(x.path("quantityB").asDouble()),
+            RunComparison.variant(x.path("options"))));
+      }
+    }
+    section(out, "shadow prices of resources", c.path("resources"), "capacity", "used");
+    section(out, "shadow prices of segments", c.path("segments"), "demand", "sold");
+    out.flush();
+  }
+
+  private void section(PrintWriter out, String title, JsonNode rows, String f1, String f2) {
+    out.println(title + ":");
+    out.println(String.format(Locale.ROOT, "  %-14s %14s %14s %12s %14s %14s", "id", "price A", "price B", "change",
+        f1 + " A->B", f2 + " A->B"));
+    int hidden = 0;
+    for (JsonNode r : rows) {
+      JsonNode p = r.path("shadowPrice");
+      boolean changed = Math.abs(p.path("change").asDouble()) > 1e-9 || Math.abs(r.path(f1).path("change").asDouble()) > 1e-9
+          || Math.abs(r.path(f2).path("change").asDouble()) > 1e-6 || !p.has("change");
+      if (!changed && !all) {
+        hidden++;
+        continue;
+      }
+      out.println(String.format(Locale.ROOT, "  %-14s %14s %14s %12s %14s %14s", r.path("id").asText(),
+          money(p.path("a")), money(p.path("b")), p.has("change") ? Numbers.signed(p.path("change").asDouble()) : "",
+          arrow(r.path(f1)), arrow(r.path(f2))));
+    }
+    if (hidden > 0) {
+      out.println("  (" + hidden + " unchanged; --all shows them)");
+    }
+  }
+
+  private static String arrow(JsonNode v) {
+    return Math.abs(v.path("change").asDouble()) <= 1e-9 ? Numbers.qty(v(v.path("a")))
+        : Numbers.qty(v(v.path("a"))) + "->" + Numbers.qty(v(v.path("b")));
+  }
+
+  private static double v(JsonNode n) {
+    return n.isNumber() ? n.asDouble() : Double.NaN;
+  }
+
+  private static String money(JsonNode n) {
+    return n.isNumber() ? Numbers.money(n.asDouble()) : "—";
+  }
+
+  private static String text(JsonNode n) {
+    return n.isNumber() ? Numbers.qty(n.asDouble()) : n.isNull() ? "(none)" : n.asText();
+  }
+
+  private static String change(JsonNode v) {
+    if (!v.has("change")) {
+      return "";
+    }
+    double d = v.path("change").asDouble();
+    double a = v.path("a").asDouble();
+    return Numbers.signed(d) + (a != 0 ? String.format(Locale.ROOT, " (%+.3f%%)", 100 * d / Math.abs(a)) : "");
+  }
+}

@@ -1,0 +1,253 @@
+package dev.mixwright.report;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Resource;
+import dev.mixwright.catalog.Scenario;
+import dev.mixwright.catalog.Segment;
+import dev.mixwright.catalog.SweepPlan;
+import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.colgen.Sweep;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+
+/**
+ * The table of a sweep, one row per scenario: its grid values (the figures as solved), status,
+ * objective, bound, gap, rounds, columns, the binding resources, each resource's shadow price and use,
+ * each segment's shadow price — and, along every capacity or demand axis, the value per unit between
+ * the point and the one before it on the axis, (z − z_prev) / (b − b_prev): the capacity value curve,
+ * from re-solves of the whole space rather than one basis. Written as {@code sweep.json} and {@code
+ * sweep.csv}, both atomically, after every scenario, so a sweep cut off keeps the rows it finished.
+ */
+public final class SweepTable {
+  public static final String JSON_FILE = "sweep.json";
+  public static final String CSV_FILE = "sweep.csv";
+
+  private final SweepPlan plan;
+  private final Catalog base;
+  private final ObjectNode header;
+  private final Map<Integer, ObjectNode> rows = new TreeMap<>();
+
+  /** @param header fields written at the top of sweep.json (catalog, definition hash, settings) */
+  public SweepTable(SweepPlan plan, Catalog base, ObjectNode header) {
+    this.plan = plan;
+    this.base = base;
+    this.header = header;
+  }
+
+  /** Rows of an earlier sweep.json to keep (matched by index). */
+  public void keep(JsonNode row) {
+    rows.put(row.path("index").asInt(), (ObjectNode) row.deepCopy());
+  }
+
+  public Map<Integer, ObjectNode> rows() {
+    return rows;
+  }
+
+  public ObjectNode add(Sweep.Row r) {
+    ObjectNode n = Json.pretty().createObjectNode();
+    SweepPlan.Point p = r.point();
+    n.put("index", p.index());
+    n.put("name", p.name());
+    ObjectNode ax = n.putObject("axes");
+    for (SweepPlan.Axis a : plan.axes()) {
+      putFigure(ax, a.target(), r.catalog());
+    }
+    SolveOutcome o = r.outcome();
+    if (o == null) {
+      n.put("status", "invalid");
+      n.put("problem", r.problem());
+      rows.put(p.index(), n);
+      return n;
+    }
+    n.put("status", o.status().word());
+    if (!o.stopReason().isEmpty()) {
+      n.put("stopReason", o.stopReason());
+    }
+    n.put("objective", o.objective());
+    ResultWriter.putNum(n, "bound", o.bound());
+    ResultWriter.putNum(n, "gap", o.gap());
+    n.put("iterations", o.iterations());
+    n.put("columnsGenerated", o.columnsGenerated());
+    n.put("warmStartColumns", r.warmColumns());
+    n.put("elapsedMs", o.elapsedMs());
+    ArrayNode binding = n.putArray("binding");
+    ObjectNode res = n.putObject("resources");
+    Catalog c = r.catalog();
+    for (int i = 0; i < c.resources().size(); i++) {
+      Resource rr = c.resources().get(i);
+      if (r.binding(i)) {
+        binding.add(rr.id());
+      }
+      ObjectNode x = res.putObject(rr.id());
+      x.put("capacity", rr.capacity());
+      x.put("used", r.used()[i]);
+      x.put("shadowPrice", o.resourceDual().length > i ? o.resourceDual()[i] : 0.0);
+    }
+    ObjectNode segs = n.putObject("segments");
+    for (int s = 0; s < c.segments().size(); s++) {
+      Segment ss = c.segments().get(s);
+      ObjectNode x = segs.putObject(ss.id());
+      x.put("demand", ss.demand());
+      x.put("shadowPrice", o.segmentDual().length > s ? o.segmentDual()[s] : 0.0);
+    }
+    rows.put(p.index(), n);
+    return n;
+  }
+
+  private static void putFigure(ObjectNode ax, Scenario.Target t, Catalog c) {
+    if (t.field() == Scenario.Field.RULE) {
+      ax.put(t.path(), t.valueIn(c) > 0 ? "on" : "off");
+    } else {
+      ResultWriter.putNum(ax, t.path(), t.valueIn(c));
+    }
+  }
+
+  /** Fills each row's valuePerUnit from its neighbour one step back on every capacity or demand axis. */
+  private void slopes() {
+    List<SweepPlan.Axis> axes = plan.axes();
+    int[] stride = new int[axes.size()];
+    int s = 1;
+    for (int a = axes.size() - 1; a >= 0; a--) {
+      stride[a] = s;
+      s *= axes.get(a).values().size();
+    }
+    int grid = (int) Math.min(plan.gridSize(), SweepPlan.MAX_POINTS);
+    for (Map.Entry<Integer, ObjectNode> e : rows.entrySet()) {
+      int i = e.getKey();
+      ObjectNode n = e.getValue();
+      n.remove("valuePerUnit");
+      if (i >= grid) {
+        continue;
+      }
+      ObjectNode v = null;
+      for (int a = 0; a < axes.size(); a++) {
+        Scenario.Target t = axes.get(a).target();
+        if (!t.isRightHandSide()) {
+          continue;
+        }
+        if (v == null) {
+          v = n.putObject("valuePerUnit");
+        }
+        int step = (i / stride[a]) % axes.get(a).values().size();
+        ObjectNode prev = step == 0 ? null : rows.get(i - stride[a]);
+        double slope = Double.NaN;
+        if (prev != null && solved(n) && solved(prev)) {
+          double b = n.path("axes").path(t.path()).asDouble();
+          double bp = prev.path("axes").path(t.path()).asDouble();
+          if (b != bp) {
+            slope = (n.path("objective").asDouble() - prev.path("objective").asDouble()) / (b - bp);
+          }
+        }
+        ResultWriter.putNum(v, t.path(), slope);
+      }
+    }
+  }
+
+  private static boolean solved(JsonNode n) {
+    return n.path("status").asText().equals("optimal");
+  }
+
+  public ObjectNode toJson() {
+    slopes();
+    ObjectNode n = header.deepCopy();
+    ArrayNode axes = n.putArray("axes");
+    for (SweepPlan.Axis a : plan.axes()) {
+      axes.add(a.target().path());
+    }
+    ArrayNode rs = n.putArray("rows");
+    rows.values().forEach(rs::add);
+    return n;
+  }
+
+  /** One CSV line per row; columns named as in sweep.json, nested fields joined with dots. */
+  public String toCsv() {
+    slopes();
+    List<String> head = new ArrayList<>(List.of("index", "name"));
+    for (SweepPlan.Axis a : plan.axes()) {
+      head.add(a.target().path());
+    }
+    head.addAll(List.of("status", "objective", "bound", "gap", "iterations", "columnsGenerated",
+        "warmStartColumns", "elapsedMs", "binding"));
+    for (Resource r : base.resources()) {
+      head.add("shadowPrice." + r.id());
+    }
+    for (Resource r : base.resources()) {
+      head.add("used." + r.id());
+    }
+    for (Segment s : base.segments()) {
+      head.add("demandPrice." + s.id());
+    }
+    List<String> slopeCols = new ArrayList<>();
+    for (SweepPlan.Axis a : plan.axes()) {
+      if (a.target().isRightHandSide()) {
+        slopeCols.add(a.target().path());
+        head.add("valuePerUnit." + a.target().path());
+      }
+    }
+    head.add("problem");
+    StringBuilder sb = new StringBuilder();
+    line(sb, head);
+    for (ObjectNode n : rows.values()) {
+      List<String> cells = new ArrayList<>();
+      cells.add(n.path("index").asText());
+      cells.add(n.path("name").asText());
+      for (SweepPlan.Axis a : plan.axes()) {
+        cells.add(text(n.path("axes").path(a.target().path())));
+      }
+      for (String f : List.of("status", "objective", "bound", "gap", "iterations", "columnsGenerated",
+          "warmStartColumns", "elapsedMs")) {
+        cells.add(text(n.path(f)));
+      }
+      List<String> b = new ArrayList<>();
+      n.path("binding").forEach(x -> b.add(x.asText()));
+      cells.add(String.join(" ", b));
+      for (Resource r : base.resources()) {
+        cells.add(text(n.path("resources").path(r.id()).path("shadowPrice")));
+      }
+      for (Resource r : base.resources()) {
+        cells.add(text(n.path("resources").path(r.id()).path("used")));
+      }
+      for (Segment s : base.segments()) {
+        cells.add(text(n.path("segments").path(s.id()).path("shadowPrice")));
+      }
+      for (String p : slopeCols) {
+        cells.add(text(n.path("valuePerUnit").path(p)));
+      }
+      cells.add(n.path("problem").asText(""));
+      line(sb, cells);
+    }
+    return sb.toString();
+  }
+
+  private static String text(JsonNode v) {
+    return v.isMissingNode() || v.isNull() ? "" : v.asText();
+  }
+
+  private static void line(StringBuilder sb, List<String> cells) {
+    for (int i = 0; i < cells.size(); i++) {
+      if (i > 0) {
+        sb.append(',');
+      }
+      String c = cells.get(i);
+      if (c.indexOf(',') >= 0 || c.indexOf('"') >= 0 || c.indexOf('\n') >= 0) {
+        sb.append('"').append(c.replace("\"", "\"\"")).append('"');
+      } else {
+        sb.append(c);
+      }
+    }
+    sb.append('\n');
+  }
+
+  /** Writes both files, each atomically. */
+  public void write(Path dir) throws IOException {
+    AtomicFiles.write(dir.resolve(JSON_FILE), Json.pretty().writeValueAsString(toJson()) + "\n");
+    AtomicFiles.write(dir.resolve(CSV_FILE), toCsv());
+  }
+}

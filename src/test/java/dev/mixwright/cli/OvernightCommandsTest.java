@@ -1,0 +1,163 @@
+package dev.mixwright.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.report.Json;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** sweep, compare and explain --capacity-ranges through the command line. */
+class OvernightCommandsTest {
+  static final String STARTER = "catalogs/heatpump-starter.yaml";
+
+  @TempDir Path dir;
+
+  @Test
+  void aSweepWritesOneTableAsCsvAndJsonAndFinishesWhatAnEarlierRunLeft() throws Exception {
+    Path out = dir.resolve("sweep");
+    String[] args = {"sweep", STARTER, "--grid", "resources.testbench.capacity=8000..10000:1000",
+        "--grid", "options.compressor.evi.cost=-10%,+10%", "--out", out.toString()};
+    CliRun r = CliRun.of(args);
+    assertEquals(0, r.code(), r.toString());
+    JsonNode table = Json.pretty().readTree(out.resolve("sweep.json").toFile());
+    assertEquals(6, table.path("rows").size());
+    assertEquals(List.of("resources.testbench.capacity", "options.compressor.evi.cost"),
+        List.of(table.path("axes").get(0).asText(), table.path("axes").get(1).asText()));
+    JsonNode row = table.path("rows").get(2);
+    assertEquals(9000, row.path("axes").path("resources.testbench.capacity").asDouble());
+    assertEquals(960 * 0.9, row.path("axes").path("options.compressor.evi.cost").asDouble(), 1e-9);
+    assertTrue(row.path("resources").path("testbench").path("shadowPrice").isNumber());
+    assertTrue(row.path("valuePerUnit").path("resources.testbench.capacity").isNumber(),
+        "the value per unit of testbench from 8000 to 9000");
+    List<String> csv = Files.readAllLines(out.resolve("sweep.csv"));
+    assertEquals(7, csv.size());
+    assertTrue(csv.get(0).startsWith("index,name,resources.testbench.capacity,options.compressor.evi.cost,status,"
+        + "objective,bound,gap"), csv.get(0));
+    assertTrue(csv.get(0).contains("shadowPrice.testbench") && csv.get(0).contains("valuePerUnit."), csv.get(0));
+
+    // As if the sweep had been cut off after four scenarios: the rerun solves the last two only.
+    ObjectNode cut = (ObjectNode) table.deepCopy();
+    ((ArrayNode) cut.path("rows")).remove(5);
+    ((ArrayNode) cut.path("rows")).remove(4);
+    Files.writeString(out.resolve("sweep.json"), Json.pretty().writeValueAsString(cut));
+    CliRun again = CliRun.of(args);
+    assertEquals(0, again.code(), again.toString());
+    assertTrue(again.err().contains("4 scenarios already solved"), again.err());
+    assertTrue(again.out().contains("2 solved now, 4 kept"), again.out());
+    JsonNode after = Json.pretty().readTree(out.resolve("sweep.json").toFile());
+    for (int i = 0; i < 6; i++) {
+      assertEquals(table.path("rows").get(i).path("objective").asDouble(),
+          after.path("rows").get(i).path("objective").asDouble(), 1e-6 * table.path("rows").get(i).path("objective").asDouble());
+    }
+
+    CliRun other = CliRun.of("sweep", STARTER, "--grid", "resources.testbench.capacity=8000..9000:1000",
+        "--out", out.toString());
+    assertEquals(2, other.code(), other.toString());
+    assertTrue(other.err().contains("holds another sweep"), other.err());
+  }
+
+  @Test
+  void sweepJsonOnStdoutIsJustJson() throws Exception {
+    CliRun r = CliRun.of("sweep", STARTER, "--grid", "rules.propane-clearance=on,off", "--out",
+        dir.resolve("s").toString(), "--json", "--progress");
+    assertEquals(0, r.code(), r.toString());
+    JsonNode n = Json.pretty().readTree(r.out());
+    assertEquals(2, n.path("rows").size());
+    assertTrue(n.path("rows").get(1).path("objective").asDouble() >= n.path("rows").get(0).path("objective").asDouble() - 1e-6);
+    assertTrue(r.err().contains("round"), "progress goes to stderr: " + r.err());
+  }
+
+  @Test
+  void aBadGridOrScenarioIsExitTwoWithThePath() throws Exception {
+    CliRun r = CliRun.of("sweep", STARTER, "--grid", "resources.testbnch.capacity=1..2:1", "--out", dir.toString());
+    assertEquals(2, r.code(), r.toString());
+    assertTrue(r.err().contains("--grid resources.testbnch.capacity=1..2:1: the catalog has no resource 'testbnch'"
+        + " — did you mean 'testbench'?"), r.err());
+    Path sc = dir.resolve("s.yaml");
+    Files.writeString(sc, "segments: {quiet: {maxShare: 2}}\n");
+    CliRun s = CliRun.of("solve", STARTER, "--scenario", sc.toString(), "--out", dir.resolve("run").toString());
+    assertEquals(2, s.code(), s.toString());
+    assertTrue(s.err().contains("segments.quiet.maxShare: gives 2; maxShare must be in (0, 1]"), s.err());
+    assertFalse(s.err().contains("Exception"), s.err());
+  }
+
+  @Test
+  void compareSaysWhatChangedBetweenTwoRuns() throws Exception {
+    Path sc = dir.resolve("tight.yaml");
+    Files.writeString(sc, "resources: {testbench: {capacity: 8000}}\n");
+    assertEquals(0, CliRun.of("solve", STARTER, "--out", dir.resolve("a").toString()).code());
+    assertEquals(0, CliRun.of("solve", STARTER, "--scenario", sc.toString(), "--out", dir.resolve("b").toString()).code());
+    CliRun text = CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("b").toString());
+    assertEquals(0, text.code(), text.toString());
+    assertTrue(text.out().contains("resources.testbench.capacity"), text.out());
+    assertTrue(text.out().contains("9,500 -> 8,000"), text.out());
+    CliRun js = CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("b").toString(), "--json");
+    JsonNode n = Json.pretty().readTree(js.out());
+    JsonNode a = ResumeTest.result(dir.resolve("a"));
+    JsonNode b = ResumeTest.result(dir.resolve("b"));
+    assertEquals(b.path("objective").asDouble() - a.path("objective").asDouble(),
+        n.path("summary").path("objective").path("change").asDouble(), 1e-6);
+    assertFalse(n.path("sameCatalog").asBoolean());
+    assertEquals(1, n.path("catalogChanges").size());
+    JsonNode tb = null;
+    for (JsonNode r : n.path("resources")) {
+      if (r.path("id").asText().equals("testbench")) {
+        tb = r;
+      }
+    }
+    assertEquals(a.path("resources").get(1).path("shadowPrice").asDouble(), tb.path("shadowPrice").path("a").asDouble());
+    assertEquals(b.path("resources").get(1).path("shadowPrice").asDouble(), tb.path("shadowPrice").path("b").asDouble());
+    int offersB = n.path("offers").path("new").size() + n.path("offers").path("changed").size()
+        + n.path("offers").path("unchanged").asInt();
+    assertEquals(b.path("offers").size(), offersB);
+
+    CliRun self = CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("a").toString());
+    assertTrue(self.out().contains("catalog: the same") && self.out().contains("0 new, 0 dropped, 0 changed"), self.out());
+    assertEquals(2, CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("none").toString()).code());
+  }
+
+  @Test
+  void explainShowsTheCapacityRangeOfEveryShadowPrice() throws Exception {
+    Path run = dir.resolve("run");
+    assertEquals(0, CliRun.of("solve", STARTER, "--out", run.toString()).code());
+    CliRun r = CliRun.of("explain", run.toString(), "--capacity-ranges", "--json");
+    assertEquals(0, r.code(), r.toString());
+    JsonNode ranges = Json.pretty().readTree(r.out()).path("capacityRanges");
+    assertEquals(3, ranges.size());
+    JsonNode result = ResumeTest.result(run);
+    for (int i = 0; i < 3; i++) {
+      JsonNode x = ranges.get(i);
+      double cap = x.path("capacity").asDouble();
+      assertTrue(x.path("holdsFrom").asDouble() <= cap);
+      assertTrue(x.path("holdsTo").isNull() || x.path("holdsTo").asDouble() >= cap);
+      assertEquals(result.path("resources").get(i).path("shadowPrice").asDouble(), x.path("shadowPrice").asDouble(),
+          1e-6 * Math.max(1, x.path("shadowPrice").asDouble()));
+    }
+    CliRun text = CliRun.of("explain", run.toString(), "--capacity-ranges", "--resource", "testbench",
+        "--segment", "quiet", "--variant", "capacity=c9,compressor=rotary,refrigerant=r32,casing=acoustic,controller=zone,tank=t250");
+    assertEquals(0, text.code(), text.toString());
+    assertTrue(text.out().contains("reduced cost") && text.out().contains("holds for capacity in"), text.out());
+    String section = text.out().substring(text.out().indexOf("capacity ranges"));
+    assertTrue(section.contains("\n  testbench "), section);
+    assertFalse(section.contains("\n  assembly "), "only the resource asked for: " + section);
+    CliRun none = CliRun.of("explain", run.toString());
+    assertEquals(2, none.code());
+    assertTrue(none.err().contains("--capacity-ranges"), none.err());
+  }
+
+  @Test
+  void solveProgressGoesToStderrAndLeavesStdoutToTheSummary() throws Exception {
+    CliRun r = CliRun.of("solve", STARTER, "--out", dir.resolve("run").toString(), "--progress");
+    assertEquals(0, r.code());
+    assertTrue(r.err().contains("round    1  objective"), r.err());
+    assertFalse(r.out().contains("round    1"), r.out());
+  }
+}
