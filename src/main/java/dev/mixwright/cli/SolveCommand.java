@@ -24,6 +24,7 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicBoolean;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -73,6 +74,8 @@ final class SolveCommand implements Callable<Integer> {
   @Option(names = "--progress", negatable = true,
       description = "one line per round on stderr (default: on when stderr is a terminal)")
   Boolean progress;
+
+  @Mixin PortfolioOptions portfolio;
 
   @Override
   public Integer call() throws Exception {
@@ -147,6 +150,7 @@ final class SolveCommand implements Callable<Integer> {
         outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
       }
       ObjectNode result = ResultWriter.build(space, outcome, info);
+      PortfolioRun.attach(space, outcome, portfolio, runDir, result, start, showProgress ? err : null);
       ResultWriter.write(runDir, result);
       Summary.print(out, space, outcome, result, runDir);
       return outcome.status().isOptimal() ? ExitCodes.OK : ExitCodes.STOPPED;
