@@ -70,10 +70,14 @@ final class ExplainCommand implements Callable<Integer> {
     RunReader.RunView run = RunReader.view(catalog, RunReader.readResult(runDir));
     Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
     double qty = run.quantity(segmentId, space.describe(v));
+    var verdict = PortfolioExplainView.verdict(space, v, run.result());
     if (json) {
-      out.println(Json.pretty().writeValueAsString(toJson(space, e, qty, run)));
+      ObjectNode n = toJson(space, e, qty, run);
+      PortfolioExplainView.put(n, space, verdict);
+      out.println(Json.pretty().writeValueAsString(n));
     } else {
       print(out, space, e, qty, run);
+      PortfolioExplainView.print(out, space, verdict);
     }
     return ExitCodes.OK;
   }

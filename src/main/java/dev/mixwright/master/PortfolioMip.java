@@ -34,6 +34,15 @@ public final class PortfolioMip implements AutoCloseable {
       this.solverId = solverId;
     }
 
+    /**
+     * True when an optimal status and the bound hold for continuous sales. SCIP solves the model as
+     * given; CP-SAT scales continuous variables to integers, and was measured here to report a bound
+     * below the exact optimum of the continuous model, so its answers serve as incumbents only.
+     */
+    public boolean provesContinuous() {
+      return this == SCIP;
+    }
+
     /** Short name for options and reports. */
     public String word() {
       return name().toLowerCase(Locale.ROOT).replace("_", "");

@@ -121,9 +121,10 @@ public final class IntegerStage {
       emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "MIP over the pool");
     }
 
+    boolean proves = settings.engine().provesContinuous();
     boolean complete = false;
-    boolean mipOptimal = mip.status() == MipStatus.OPTIMAL;
-    double mipBound = mip.bound();
+    boolean mipOptimal = proves && mip.status() == MipStatus.OPTIMAL;
+    double mipBound = proves ? mip.bound() : Double.POSITIVE_INFINITY;
     double theta = Double.NaN;
     int added = 0;
     String reason = "";
@@ -138,23 +139,28 @@ public final class IntegerStage {
       double slack = 1e-7 * (1 + Math.abs(inc.value()));
       VariantPricing out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
           terms.introductionCost(), tooling, theta - slack, cap + 1, pool.keys(), deadlineAt(0.5)));
-      int n = Math.min(out.found().size(), cap);
+      complete = out.exact() && out.found().size() <= cap;
+      // Too many to prove with: add only the best few, so that the MIP can still finish and improve.
+      int n = complete ? out.found().size() : Math.min(out.found().size(), heuristicShare());
       int before = pool.size();
       for (int i = 0; i < n; i++) {
         pool.add(out.found().get(i).choices());
       }
       added += pool.size() - before;
-      complete = out.exact() && out.found().size() <= cap;
+      if (!complete) {
+        reason = out.exact()
+            ? "more than " + cap + " variants could still be part of a better portfolio (the best "
+                + n + " were tried)"
+            : "the time limit stopped the enumeration of the variants that could be part of a better portfolio";
+      }
       emit("survivors", theta, bound, pool.size(), n, complete
-          ? "every variant that could be part of a better portfolio is in the pool"
-          : out.exact() ? "more than " + cap + " variants could be part of a better portfolio"
-          : "the time limit stopped the enumeration");
-      if (pool.size() == before && mipOptimal) {
+          ? "every variant that could be part of a better portfolio is in the pool" : reason);
+      if (pool.size() == before && (mipOptimal || !complete)) {
         break;
       }
       MipRun again = mip(pool, inc, msLeft());
-      mipOptimal = again.status() == MipStatus.OPTIMAL;
-      mipBound = again.bound();
+      mipOptimal = proves && again.status() == MipStatus.OPTIMAL;
+      mipBound = proves ? again.bound() : Double.POSITIVE_INFINITY;
       boolean improved = again.plan() != null && again.plan().value() > inc.value() + 1e-9 * (1 + Math.abs(inc.value()));
       if (improved) {
         inc = again.plan();
@@ -170,16 +176,12 @@ public final class IntegerStage {
       bound = Math.min(bound, Math.max(inc.value(), mipBound));
     }
     bound = Math.max(bound, inc.value());
-    if (!proven && reason.isEmpty()) {
-      reason = !complete
-          ? (settings.timeLimitMs() > 0 && elapsedMs() >= settings.timeLimitMs()
-              ? "the time limit stopped the proof"
-              : "too many variants (more than " + cap + ") could still be part of a better portfolio")
-          : "the MIP over the pool was not solved to optimality in the time limit";
-    }
     if (proven) {
-      // proven to the MIP's relative gap: the bound is what the MIP proved over the complete pool
       reason = "";
+    } else if (reason.isEmpty()) {
+      reason = proves
+          ? "the MIP over the pool was not solved to optimality in the time limit"
+          : settings.engine().word() + " solves continuous sales in a scaled integer form, so it proves nothing here";
     }
     double gap = Relaxation.gap(inc.value(), bound);
     PortfolioOutcome o = new PortfolioOutcome(proven ? PortfolioStatus.PROVEN : PortfolioStatus.HEURISTIC, reason,
@@ -188,6 +190,12 @@ public final class IntegerStage {
     emit("end", o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
         + (reason.isEmpty() ? "" : ": " + reason));
     return o;
+  }
+
+  /** Survivors tried when they are too many to prove with: enough for a better incumbent, few enough to solve. */
+  private int heuristicShare() {
+    int k = terms.variantCap() == PortfolioTerms.UNLIMITED ? 50 : terms.variantCap();
+    return Math.min(settings.survivorLimit(), Math.max(200, 20 * k));
   }
 
   private record MipRun(MipStatus status, Plan plan, double bound) {}
@@ -222,8 +230,8 @@ public final class IntegerStage {
       }
       double mb = sol.status().hasSolution() ? sol.bound() : Double.POSITIVE_INFINITY;
       emit("mip", plan == null ? Double.NaN : plan.value(), mb, pool.size(), sol.y().length,
-          settings.engine().word() + " " + sol.status().name().toLowerCase() + " in " + sol.wallMs() + " ms, "
-              + sol.nodes() + " nodes");
+          settings.engine().word() + " " + sol.status().name().toLowerCase(java.util.Locale.ROOT) + " in " + sol.wallMs() + " ms, "
+              + sol.nodes() + " nodes (bound over the pool only)");
       return new MipRun(sol.status(), plan, mb);
     }
   }
