@@ -92,9 +92,11 @@ public final class IntegerStage {
         pool.add(c.choices());
       }
     }
-    if (pool.size() == 0) {
-      // no segment takes any buildable variant: every portfolio sells nothing and pays ≥ 0
-      emit("end", 0, 0, 0, 0, "nothing can be sold: the empty portfolio is optimal");
+    if (pool.size() == 0 || terms.variantCap() == 0) {
+      // no segment takes any buildable variant, or no lot fits the demand: every portfolio that can
+      // be offered is empty
+      emit("end", 0, 0, 0, 0, pool.size() == 0 ? "nothing can be sold: the empty portfolio is optimal"
+          : "the minimum lot exceeds all demand together: the empty portfolio is optimal");
       return new PortfolioOutcome(PortfolioStatus.PROVEN, "", 0, 0, 0, List.of(), 0, 0, 0,
           null, Double.NaN, 0, true, settings.engine().word(), 0, true, 0, elapsedMs());
     }

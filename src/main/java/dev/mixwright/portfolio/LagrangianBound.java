@@ -45,9 +45,10 @@ public record LagrangianBound(
       }
       return new LagrangianBound(sum, 0, sum, pi, mu);
     }
-    // values from the largest: sorted[n - 1 - i] is the (i+1)-th largest
+    // values from the largest: sorted[n - 1 - i] is the (i+1)-th largest; with K = 0 nothing can be
+    // offered and λ may rise to the largest value, which leaves L = π·b + μ·D
     double kPlus1 = cap < n ? sorted[n - 1 - cap] : Double.NEGATIVE_INFINITY;
-    double kth = cap <= n ? sorted[n - cap] : Double.NEGATIVE_INFINITY;
+    double kth = cap == 0 ? (n == 0 ? 0.0 : sorted[n - 1]) : cap <= n ? sorted[n - cap] : Double.NEGATIVE_INFINITY;
     double lamL = Math.max(lambdaMin, kPlus1);
     double lamHat = Math.max(lambdaMin, kth);
     double atL = at(constant, sorted, lamL, cap);
