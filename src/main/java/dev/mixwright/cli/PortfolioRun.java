@@ -9,11 +9,13 @@ import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.report.PortfolioLog;
 import dev.mixwright.report.PortfolioSection;
+import dev.mixwright.report.ResultWriter;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Locale;
+import java.util.function.BooleanSupplier;
 
 /** The integer stage inside {@code solve}: runs it, logs it, and adds its section to result.json. */
 final class PortfolioRun {
@@ -23,14 +25,17 @@ final class PortfolioRun {
    * Runs the stage when the catalog has a portfolio section and the options do not skip it, writing
    * {@code portfolio.jsonl} and putting {@code portfolio} into {@code result}; {@code result}'s
    * elapsedMs then covers both stages. Progress lines go to {@code progress} unless it is null.
+   * The LP stage's result.json is written first, so a signal during the stage loses nothing of it;
+   * {@code stop} ends the stage early with the best portfolio so far.
    */
   static void attach(VariantSpace space, SolveOutcome lp, PortfolioOptions options, Path runDir, ObjectNode result,
-      long startNanos, PrintWriter progress) throws IOException {
+      long startNanos, PrintWriter progress, BooleanSupplier stop) throws IOException {
     if (space.catalog().portfolio().isEmpty() || options.skip) {
       return;
     }
+    ResultWriter.write(runDir, result);
     PortfolioSettings settings = options.settings();
-    IntegerStage stage = new IntegerStage(space, settings);
+    IntegerStage stage = new IntegerStage(space, settings).stopWhen(stop);
     try (PortfolioLog log = new PortfolioLog(runDir)) {
       stage.addListener(log);
       if (progress != null) {

@@ -150,7 +150,7 @@ final class SolveCommand implements Callable<Integer> {
         outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
       }
       ObjectNode result = ResultWriter.build(space, outcome, info);
-      PortfolioRun.attach(space, outcome, portfolio, runDir, result, start, showProgress ? err : null);
+      PortfolioRun.attach(space, outcome, portfolio, runDir, result, start, showProgress ? err : null, interrupted::get);
       ResultWriter.write(runDir, result);
       Summary.print(out, space, outcome, result, runDir);
       return outcome.status().isOptimal() ? ExitCodes.OK : ExitCodes.STOPPED;

@@ -10,6 +10,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.function.BooleanSupplier;
 
 /**
  * The integer portfolio over a pool of variants, on a MIP solver OR-Tools bundles (SCIP or CP-SAT
@@ -83,6 +84,11 @@ public final class PortfolioMip implements AutoCloseable {
       throw new IllegalStateException("OR-Tools has no " + engine.solverId + " solver in this build");
     }
     solver.setNumThreads(1);
+    if (engine == Engine.SCIP) {
+      // SCIP catches Ctrl-C by default and swallows it; leave it to the JVM, whose handler stops the
+      // run (and this solve through interruptSolve) in the product's own way
+      solver.setSolverSpecificParametersAsString("misc/catchctrlc = FALSE");
+    }
     objective = solver.objective();
     objective.setMaximization();
     resourceRows = new MPConstraint[capacity.length];
@@ -174,10 +180,34 @@ public final class PortfolioMip implements AutoCloseable {
    * to 0 or 1; the caller re-solves the LP of that portfolio for exact quantities.
    */
   public MipSolution solve(long timeLimitMs, double relativeGap) {
+    return solve(timeLimitMs, relativeGap, () -> false);
+  }
+
+  /**
+   * As {@link #solve(long, double)}, and interrupted (ending as with a time limit) once {@code stop}
+   * turns true; a daemon thread polls it every 100 ms while the solver runs.
+   */
+  public MipSolution solve(long timeLimitMs, double relativeGap, BooleanSupplier stop) {
     if (timeLimitMs > 0) {
       solver.setTimeLimit(timeLimitMs);
     }
     MPSolverParameters p = new MPSolverParameters();
+    java.util.concurrent.atomic.AtomicBoolean done = new java.util.concurrent.atomic.AtomicBoolean();
+    Thread watch = new Thread(() -> {
+      while (!done.get()) {
+        if (stop.getAsBoolean()) {
+          solver.interruptSolve();
+          return;
+        }
+        try {
+          Thread.sleep(100);
+        } catch (InterruptedException e) {
+          return;
+        }
+      }
+    }, "mixwright-mip-stop");
+    watch.setDaemon(true);
+    watch.start();
     try {
       p.setDoubleParam(MPSolverParameters.DoubleParam.RELATIVE_MIP_GAP, relativeGap);
       long t0 = System.nanoTime();
@@ -216,6 +246,13 @@ public final class PortfolioMip implements AutoCloseable {
       }
       return new MipSolution(status, value, bound, y, x, solver.nodes(), wall);
     } finally {
+      done.set(true);
+      watch.interrupt();
+      try {
+        watch.join();
+      } catch (InterruptedException e) {
+        Thread.currentThread().interrupt();
+      }
       p.delete();
     }
   }

@@ -9,6 +9,7 @@ import dev.mixwright.master.PortfolioMip;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.BooleanSupplier;
 
 /**
  * The integer stage after the LP stage: a portfolio of whole variants with an introduction cost F
@@ -47,11 +48,21 @@ public final class IntegerStage {
   private final List<PortfolioListener> listeners = new ArrayList<>();
   private long startNanos;
   private int mipSolves;
+  private BooleanSupplier stop = () -> false;
 
   public IntegerStage(VariantSpace space, PortfolioSettings settings) {
     this.space = space;
     this.terms = PortfolioTerms.of(space);
     this.settings = settings;
+  }
+
+  /**
+   * A signal (e.g. Ctrl-C): once true the stage ends within about a tenth of a second with the best
+   * portfolio so far, marked heuristic.
+   */
+  public IntegerStage stopWhen(BooleanSupplier signal) {
+    this.stop = signal;
+    return this;
   }
 
   public IntegerStage addListener(PortfolioListener l) {
@@ -101,9 +112,9 @@ public final class IntegerStage {
           null, Double.NaN, 0, true, settings.engine().word(), 0, true, 0, elapsedMs());
     }
     double lpBound = Double.isFinite(lp.bound()) ? lp.bound() : Double.POSITIVE_INFINITY;
-    VariantPricer pricer = new VariantPricer(space, terms);
+    VariantPricer pricer = new VariantPricer(space, terms).stopWhen(stop);
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
-    RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, this::elapsedMs, deadlineAt(0.3))
+    RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, this::elapsedMs, deadlineAt(0.3), stop)
         .run(pool, lp.resourceDual(), lp.segmentDual());
     LagrangianBound b = rx.bound();
     double bound = Math.min(lpBound, b.value());
@@ -114,7 +125,7 @@ public final class IntegerStage {
     for (int i = 0; i < score.length; i++) {
       score[i] = VariantPricer.value(space, terms, pool.get(i).choices(), at);
     }
-    Plan inc = Rounding.greedy(pool, terms, rx.y(), score, deadlineAt(0.2));
+    Plan inc = Rounding.greedy(pool, terms, rx.y(), score, deadlineAt(0.2), stop);
     emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "rounding of the relaxation");
 
     MipRun mip = mip(pool, inc, Math.max(1, (long) (msLeft() * 0.5)));
@@ -133,6 +144,10 @@ public final class IntegerStage {
     double[] tooling = terms.hasTooling() ? terms.choiceCost() : null;
     int cap = settings.survivorLimit();
     for (int pass = 0; pass < PROOF_PASSES; pass++) {
+      if (stop.getAsBoolean()) {
+        reason = "stopped by a signal";
+        break;
+      }
       if (!b.isFinite()) {
         reason = "the relaxation gave no finite bound to rule variants out with";
         break;
@@ -180,6 +195,8 @@ public final class IntegerStage {
     bound = Math.max(bound, inc.value());
     if (proven) {
       reason = "";
+    } else if (stop.getAsBoolean()) {
+      reason = "stopped by a signal";
     } else if (reason.isEmpty()) {
       reason = proves
           ? "the MIP over the pool was not solved to optimality in the time limit"
@@ -219,7 +236,7 @@ public final class IntegerStage {
         x[hint.members()[j]] = hint.sales().get(j);
       }
       m.hint(y, x);
-      MipSolution sol = m.solve(timeMs, settings.gap());
+      MipSolution sol = m.solve(timeMs, settings.gap(), stop);
       Plan plan = null;
       if (sol.status().hasSolution()) {
         List<Integer> members = new ArrayList<>();
@@ -230,11 +247,16 @@ public final class IntegerStage {
         }
         plan = FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray());
       }
-      double mb = sol.status().hasSolution() ? sol.bound() : Double.POSITIVE_INFINITY;
+      MipStatus status = sol.status();
+      if (status.hasSolution() && plan == null) {
+        // the MIP's choice failed the exact LP of its portfolio (round-off at a minimum lot): use nothing of it
+        status = MipStatus.FAILED;
+      }
+      double mb = status.hasSolution() ? sol.bound() : Double.POSITIVE_INFINITY;
       emit("mip", plan == null ? Double.NaN : plan.value(), mb, pool.size(), sol.y().length,
           settings.engine().word() + " " + sol.status().name().toLowerCase(java.util.Locale.ROOT) + " in " + sol.wallMs() + " ms, "
               + sol.nodes() + " nodes (bound over the pool only)");
-      return new MipRun(sol.status(), plan, mb);
+      return new MipRun(status, plan, mb);
     }
   }
 

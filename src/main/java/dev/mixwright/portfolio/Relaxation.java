@@ -5,6 +5,7 @@ import dev.mixwright.master.PortfolioLpSolution;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.BooleanSupplier;
 import java.util.function.LongSupplier;
 
 /**
@@ -37,9 +38,10 @@ final class Relaxation {
   private final LongSupplier elapsedMs;
   private final long deadlineNanos;
   private final int cap;
+  private final BooleanSupplier stop;
 
   Relaxation(VariantSpace space, PortfolioTerms terms, VariantPricer pricer, PortfolioSettings settings,
-      PortfolioListener listener, LongSupplier elapsedMs, long deadlineNanos) {
+      PortfolioListener listener, LongSupplier elapsedMs, long deadlineNanos, BooleanSupplier stop) {
     this.space = space;
     this.terms = terms;
     this.pricer = pricer;
@@ -48,6 +50,7 @@ final class Relaxation {
     this.elapsedMs = elapsedMs;
     this.deadlineNanos = deadlineNanos;
     this.cap = terms.variantCap();
+    this.stop = stop;
   }
 
   /** Bounds are exact top-K sums up to this many listed values; beyond it the λ-form keeps them valid. */
@@ -119,7 +122,7 @@ final class Relaxation {
           break;
         }
         if (gap <= settings.gap() || round >= settings.relaxationRounds()
-            || (deadlineNanos != 0 && System.nanoTime() > deadlineNanos)) {
+            || (deadlineNanos != 0 && System.nanoTime() > deadlineNanos) || stop.getAsBoolean()) {
           break;
         }
         for (ValuedVariant f : entering) {

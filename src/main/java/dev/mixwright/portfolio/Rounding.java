@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
+import java.util.function.BooleanSupplier;
 
 /**
  * A first feasible portfolio from the relaxation, greedily: pool variants in order of their relaxed
@@ -15,7 +16,8 @@ import java.util.List;
 final class Rounding {
   private Rounding() {}
 
-  static Plan greedy(Pool pool, PortfolioTerms terms, double[] y, double[] score, long deadlineNanos) {
+  static Plan greedy(Pool pool, PortfolioTerms terms, double[] y, double[] score, long deadlineNanos,
+      BooleanSupplier stop) {
     Integer[] order = new Integer[pool.size()];
     for (int i = 0; i < order.length; i++) {
       order[i] = i;
@@ -25,7 +27,7 @@ final class Rounding {
     Plan best = Plan.empty();
     List<Integer> chosen = new ArrayList<>();
     for (int i : order) {
-      if (chosen.size() >= terms.maxVariants() || past(deadlineNanos)) {
+      if (chosen.size() >= terms.maxVariants() || past(deadlineNanos) || stop.getAsBoolean()) {
         break;
       }
       if ((i < y.length ? y[i] : 0) <= 1e-9 && score[i] <= 0) {
@@ -40,7 +42,7 @@ final class Rounding {
       }
     }
     boolean improved = true;
-    while (improved && !past(deadlineNanos)) {
+    while (improved && !past(deadlineNanos) && !stop.getAsBoolean()) {
       improved = false;
       for (int j = 0; j < chosen.size(); j++) {
         List<Integer> fewer = new ArrayList<>(chosen);

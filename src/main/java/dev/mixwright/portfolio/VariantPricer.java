@@ -9,6 +9,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.PriorityQueue;
 import java.util.Set;
+import java.util.function.BooleanSupplier;
 
 /**
  * Exact k-best pricing of whole variants for the portfolio relaxation: maximise ψ(v) of
@@ -76,6 +77,7 @@ public final class VariantPricer {
   private PriorityQueue<ValuedVariant> top;
   private long nodes;
   private long deadline;
+  private BooleanSupplier stop = () -> false;
   private double openBound;
 
   public VariantPricer(VariantSpace space, PortfolioTerms terms) {
@@ -179,6 +181,12 @@ public final class VariantPricer {
       d[s] = space.isColumn(v, s) ? ReducedCosts.of(space, v, s, pi, mu[s]) : Double.NEGATIVE_INFINITY;
     }
     return d;
+  }
+
+  /** A signal checked with the deadline: once true, searches stop early with valid bounds. */
+  public VariantPricer stopWhen(BooleanSupplier signal) {
+    this.stop = signal;
+    return this;
   }
 
   public VariantPricing price(VariantQuery q) {
@@ -314,7 +322,8 @@ public final class VariantPricer {
       if (cb[i] + slack(cut) <= cut) {
         break;
       }
-      if (nodes >= nodeLimit || (deadline != 0 && (nodes & 1023) == 0 && System.nanoTime() > deadline)) {
+      if (nodes >= nodeLimit || ((nodes & 1023) == 0
+          && ((deadline != 0 && System.nanoTime() > deadline) || stop.getAsBoolean()))) {
         openBound = Math.max(openBound, cb[i]);
         return false;
       }
