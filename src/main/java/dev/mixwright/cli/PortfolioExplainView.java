@@ -85,6 +85,14 @@ final class PortfolioExplainView {
           + (e.tooling() > 0 ? " and a share of tooling " + Numbers.money(e.tooling()) : ""));
       return;
     }
+    boolean anySegment = false;
+    for (double d : e.reducedCost()) {
+      anySegment |= d != Double.NEGATIVE_INFINITY;
+    }
+    if (!anySegment) {
+      out.println("    not in it: no segment can take it (see above), so it cannot be offered");
+      return;
+    }
     out.println("    not in it. At the relaxation's prices its reduced cost per segment is:");
     for (int s = 0; s < e.reducedCost().length; s++) {
       double d = e.reducedCost()[s];
