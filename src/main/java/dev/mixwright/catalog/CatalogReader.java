@@ -35,7 +35,7 @@ final class CatalogReader {
   private static final List<String> RESOURCE_FIELDS = List.of("id", "label", "unit", "capacity");
   private static final List<String> GROUP_FIELDS =
       List.of("id", "label", "required", "options", "optionsFile");
-  private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "cost", "uses");
+  private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "cost", "uses", "tooling");
   private static final List<String> RULE_FIELDS =
       List.of("id", "note", "when", "require", "forbid");
   private static final List<String> SEGMENT_FIELDS =
@@ -45,6 +45,9 @@ final class CatalogReader {
 
   static final String PRICE_HINT = "the list price this option adds, e.g. price: 520";
   static final String COST_HINT = "the variable cost this option adds, e.g. cost: 210";
+  static final String TOOLING_HINT =
+      "the one-off cost of offering this option at all (paid once by the portfolio, whatever the"
+          + " number of variants using it), e.g. tooling: 40000; leave it out for none";
 
   /** The parts of a rule or segment that map groups to lists of choices. */
   private enum Clause {
@@ -318,11 +321,12 @@ final class CatalogReader {
     Double price = requiredNumber(o, path, "price", PRICE_HINT);
     Double cost = requiredNumber(o, path, "cost", COST_HINT);
     Map<String, Double> uses = readUses(value(o, "uses"), Where.field(path, "uses"));
+    double tooling = optionalNumber(o, path, "tooling", 0, TOOLING_HINT);
     if (id != null) {
       registerOption(ref, id, Where.field(path, "id"));
     }
     return id != null && price != null && cost != null && uses != null
-        ? new Option(id, label, price, cost, uses)
+        ? new Option(id, label, price, cost, uses, tooling)
         : null;
   }
 

@@ -22,7 +22,7 @@ import java.util.TreeMap;
  * fixed order, options inline (never as CSV tables), defaults written out ({@code required}, {@code
  * maxShare}, {@code uses}, {@code accepts}, {@code value}, {@code introductionCost}, {@code
  * minLot}); absent labels and names are left out, and so is {@code maxVariants} when there is no
- * limit. Whole numbers are written without a fraction; other numbers in Java's shortest round-trip
+ * limit, and an option's {@code tooling} when it is 0. Whole numbers are written without a fraction; other numbers in Java's shortest round-trip
  * form, so {@code CatalogLoader.parse(toJson(c), "x.json", null)} equals {@code c} for any catalog
  * the loader accepts.
  */
@@ -104,6 +104,9 @@ public final class CatalogWriter {
         ObjectNode uses = on.putObject("uses");
         for (String key : inResourceOrder(c, o.uses())) {
           putNumber(uses, key, o.uses().get(key));
+        }
+        if (o.tooling() != 0) {
+          putNumber(on, "tooling", o.tooling());
         }
       }
     }

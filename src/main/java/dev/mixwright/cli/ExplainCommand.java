@@ -100,14 +100,17 @@ final class ExplainCommand implements Callable<Integer> {
     RunReader.RunView run = RunReader.view(catalog, RunReader.readResult(runDir));
     Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
     double qty = run.quantity(segmentId, space.describe(v));
+    var verdict = PortfolioExplainView.verdict(space, v, run.result());
     if (json) {
       ObjectNode n = toJson(space, e, qty, run);
       if (ranges != null) {
         n.set("capacityRanges", CapacityRangeReport.toJson(ranges));
       }
+      PortfolioExplainView.put(n, space, verdict);
       out.println(Json.pretty().writeValueAsString(n));
     } else {
       print(out, space, e, qty, run);
+      PortfolioExplainView.print(out, space, verdict);
       if (ranges != null) {
         CapacityRangeReport.print(out, ranges, run.result());
       }

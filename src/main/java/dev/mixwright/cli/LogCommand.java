@@ -35,9 +35,18 @@ final class LogCommand implements Callable<Integer> {
   @Option(names = "--full", description = "show every group of a variant, optional groups at none included")
   boolean full;
 
+  @Option(names = "--portfolio", description = "show only the integer stage's log (incumbents and bound over time)")
+  boolean portfolioOnly;
+
   @Override
   public Integer call() throws IOException {
     PrintWriter out = spec.commandLine().getOut();
+    if (portfolioOnly) {
+      if (!PortfolioLogView.print(out, runDir)) {
+        throw new UserError("no integer stage log in " + runDir + " — the catalog solved there has no portfolio section");
+      }
+      return ExitCodes.OK;
+    }
     Path file = new RunFolder(runDir).columnLog();
     if (!Files.isRegularFile(file)) {
       throw new UserError("no column log at " + file + " — give a folder written by 'mixwright solve --out'");
@@ -67,6 +76,9 @@ final class LogCommand implements Callable<Integer> {
     out.println(shown + " columns" + (segment == null ? "" : " in segment " + segment)
         + (entries.droppedTornLines() > 0 ? "; " + entries.droppedTornLines()
             + " torn last line dropped (the run was cut off while writing it)" : ""));
+    if (segment == null) {
+      PortfolioLogView.print(out, runDir);
+    }
     return ExitCodes.OK;
   }
 

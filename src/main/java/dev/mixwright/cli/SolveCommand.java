@@ -20,6 +20,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -77,6 +78,8 @@ final class SolveCommand implements Callable<Integer> {
       description = "progress on stderr: a live line on a terminal, else one line per round"
           + " (default: on when stderr is a terminal)")
   Boolean progress;
+
+  @Mixin PortfolioOptions portfolio;
 
   @Override
   public Integer call() throws Exception {
@@ -143,6 +146,8 @@ final class SolveCommand implements Callable<Integer> {
           outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
         }
         ObjectNode result = ResultWriter.build(space, outcome, info);
+        PortfolioRun.attach(space, outcome, portfolio, runDir, result, start,
+            Progress.choose(err, progress, "") != null ? err : null, signals.flag()::get);
         ResultWriter.write(runDir, result);
         Summary.print(out, space, outcome, result, runDir);
         return outcome.status().isOptimal() ? ExitCodes.OK : ExitCodes.STOPPED;

@@ -51,6 +51,7 @@ final class Summary {
       out.println(String.format(Locale.ROOT, "    %-14s %10s x %s", off.get("segment").asText(),
           Numbers.qty(off.get("quantity").asDouble()), v));
     }
+    PortfolioRun.print(out, space, result);
     out.println("  written to          " + runDir);
     if (o.status() == RunStatus.STOPPED) {
       out.println("  continue with       mixwright resume " + runDir);

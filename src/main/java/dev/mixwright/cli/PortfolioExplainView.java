@@ -1,0 +1,159 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.explain.PortfolioExplainer;
+import dev.mixwright.explain.PortfolioVerdict;
+import dev.mixwright.space.VariantSpace;
+import java.io.PrintWriter;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+/** The integer-portfolio part of {@code explain}: in or out, and why. */
+final class PortfolioExplainView {
+  private PortfolioExplainView() {}
+
+  /** The verdict for v, or null when the run has no integer portfolio. */
+  static PortfolioVerdict verdict(VariantSpace space, int[] v, JsonNode result) {
+    JsonNode p = result.get("portfolio");
+    if (p == null || space.catalog().portfolio().isEmpty()) {
+      return null;
+    }
+    Catalog cat = space.catalog();
+    List<int[]> offered = new ArrayList<>();
+    List<double[]> sales = new ArrayList<>();
+    for (JsonNode e : p.get("variants")) {
+      Map<String, String> opts = new LinkedHashMap<>();
+      e.get("options").fields().forEachRemaining(x -> opts.put(x.getKey(), x.getValue().asText()));
+      offered.add(space.parse(opts));
+      double[] q = new double[cat.segments().size()];
+      e.get("sales").fields().forEachRemaining(x -> {
+        int s = cat.segmentIndex(x.getKey());
+        if (s >= 0) {
+          q[s] = x.getValue().asDouble();
+        }
+      });
+      sales.add(q);
+    }
+    double[] pi = new double[cat.resources().size()];
+    double[] mu = new double[cat.segments().size()];
+    double lambda = 0;
+    double at = Double.POSITIVE_INFINITY;
+    JsonNode rx = p.get("relaxation");
+    if (rx != null) {
+      rx.path("prices").path("resources").fields().forEachRemaining(x -> {
+        int r = cat.resourceIndex(x.getKey());
+        if (r >= 0) {
+          pi[r] = x.getValue().asDouble();
+        }
+      });
+      rx.path("prices").path("segments").fields().forEachRemaining(x -> {
+        int s = cat.segmentIndex(x.getKey());
+        if (s >= 0) {
+          mu[s] = x.getValue().asDouble();
+        }
+      });
+      lambda = rx.path("variantLimitPrice").asDouble(0);
+      JsonNode b = rx.get("boundAtVariantLimitPrice");
+      at = b == null || b.isNull() ? Double.POSITIVE_INFINITY : b.asDouble();
+    }
+    PortfolioExplainer.Facts f = new PortfolioExplainer.Facts(p.get("status").asText().equals("proven"),
+        p.get("value").asDouble(), offered, sales, pi, mu, lambda, at);
+    return new PortfolioExplainer(space).explain(v, f);
+  }
+
+  static void print(PrintWriter out, VariantSpace space, PortfolioVerdict e) {
+    if (e == null) {
+      return;
+    }
+    Catalog cat = space.catalog();
+    out.println("  integer portfolio (worth " + Numbers.money(e.portfolioValue()) + "):");
+    if (e.offered()) {
+      StringBuilder sb = new StringBuilder();
+      for (int s = 0; s < e.sales().length; s++) {
+        if (e.sales()[s] > 0) {
+          sb.append(sb.length() == 0 ? "" : ", ").append(cat.segments().get(s).id()).append(' ')
+              .append(Numbers.qty(e.sales()[s]));
+        }
+      }
+      out.println("    in it: sells " + sb + "; margin " + Numbers.money(e.margin()) + " against introduction cost "
+          + Numbers.money(cat.portfolio().get().introductionCost())
+          + (e.tooling() > 0 ? " and a share of tooling " + Numbers.money(e.tooling()) : ""));
+      return;
+    }
+    boolean anySegment = false;
+    for (double d : e.reducedCost()) {
+      anySegment |= d != Double.NEGATIVE_INFINITY;
+    }
+    if (!anySegment) {
+      out.println("    not in it: no segment can take it (see above), so it cannot be offered");
+      return;
+    }
+    out.println("    not in it. At the relaxation's prices its reduced cost per segment is:");
+    for (int s = 0; s < e.reducedCost().length; s++) {
+      double d = e.reducedCost()[s];
+      out.println(String.format(Locale.ROOT, "      %-14s %s", cat.segments().get(s).id(),
+          d == Double.NEGATIVE_INFINITY ? "not accepted there" : Numbers.signed(d) + " per unit"));
+    }
+    if (e.lotValue() == Double.NEGATIVE_INFINITY) {
+      out.println("    no segment can take its minimum lot of " + Numbers.qty(cat.portfolio().get().minLot())
+          + " units, so it cannot be offered at all");
+      return;
+    }
+    out.println("    its best lot earns " + Numbers.money(e.lotValue()) + ", minus introduction cost "
+        + Numbers.money(cat.portfolio().get().introductionCost()) + " = " + Numbers.money(e.psi())
+        + (e.tooling() > 0 ? " (and its options' tooling " + Numbers.money(e.tooling()) + ")" : ""));
+    if (e.ruledOut()) {
+      out.println("    so any portfolio holding it is worth at most " + Numbers.money(e.boundWith())
+          + ", not more than the portfolio found: it cannot be part of a better one");
+    } else if (e.proven()) {
+      out.println("    a portfolio holding it could be worth up to " + Numbers.money(e.boundWith())
+          + " by the bound, so the proof gave it to the MIP, which found no better portfolio than the one offered");
+    } else {
+      out.println("    a portfolio holding it could be worth up to " + Numbers.money(e.boundWith())
+          + " by the bound: it is not ruled out, and the run did not prove its portfolio optimal");
+    }
+  }
+
+  static void put(ObjectNode n, VariantSpace space, PortfolioVerdict e) {
+    if (e == null) {
+      return;
+    }
+    ObjectNode p = n.putObject("portfolio");
+    p.put("offered", e.offered());
+    p.put("portfolioValue", e.portfolioValue());
+    if (e.offered()) {
+      ObjectNode sales = p.putObject("sales");
+      for (int s = 0; s < e.sales().length; s++) {
+        if (e.sales()[s] > 0) {
+          sales.put(space.catalog().segments().get(s).id(), e.sales()[s]);
+        }
+      }
+      p.put("margin", e.margin());
+      return;
+    }
+    ObjectNode d = p.putObject("reducedCosts");
+    for (int s = 0; s < e.reducedCost().length; s++) {
+      if (e.reducedCost()[s] != Double.NEGATIVE_INFINITY) {
+        d.put(space.catalog().segments().get(s).id(), e.reducedCost()[s]);
+      }
+    }
+    putNum(p, "lotValue", e.lotValue());
+    putNum(p, "valueAfterIntroduction", e.psi());
+    p.put("tooling", e.tooling());
+    putNum(p, "boundWithIt", e.boundWith());
+    p.put("ruledOut", e.ruledOut());
+  }
+
+  private static void putNum(ObjectNode n, String f, double v) {
+    if (Double.isFinite(v)) {
+      n.put(f, v);
+    } else {
+      n.putNull(f);
+    }
+  }
+}

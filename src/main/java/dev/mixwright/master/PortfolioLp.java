@@ -1,0 +1,214 @@
+package dev.mixwright.master;
+
+import com.google.ortools.linearsolver.MPConstraint;
+import com.google.ortools.linearsolver.MPObjective;
+import com.google.ortools.linearsolver.MPSolver;
+import com.google.ortools.linearsolver.MPVariable;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * The portfolio master with introduction decisions relaxed to 0 ≤ y_v ≤ 1, on GLOP. Per variant v
+ * (a block: its introduction y_v and one sales column x_vs per segment s that accepts it):
+ *
+ * <pre>
+ *   max  Σ_v [ Σ_s m_vs x_vs − F_v y_v ]
+ *   s.t. Σ_{v,s} a_rv x_vs ≤ capacity_r        (π_r ≥ 0)
+ *        Σ_v x_vs ≤ demand_s                   (μ_s ≥ 0)
+ *        Σ_v y_v ≤ K                           (λ ≥ 0; only when K is finite)
+ *        x_vs − u_s y_v ≤ 0                    per (v, s)   the link: no sales without introduction
+ *        L_v y_v − Σ_s x_vs ≤ 0                per v        the minimum lot (only when L_v &gt; 0)
+ *        0 ≤ x_vs ≤ u_s,  0 ≤ y_v ≤ 1
+ * </pre>
+ *
+ * The link is per variant and segment but the introduction is shared by all segments of the variant,
+ * so a variant sold in two segments pays F_v once. Blocks are added into the live solver (GLOP
+ * warm-starts from the previous basis); {@link #fixIntroduction} turns the relaxation into the LP of
+ * a fixed portfolio. Not thread-safe; close it to free the native solver.
+ */
+public final class PortfolioLp implements AutoCloseable {
+  private static final double FEASIBILITY_TOLERANCE = 1e-6;
+
+  private final MPSolver solver;
+  private final MPObjective objective;
+  private final MPConstraint[] resourceRows;
+  private final MPConstraint[] segmentRows;
+  private final MPConstraint limitRow;
+  private final double[] capacity;
+  private final double[] demand;
+  private final int limit;
+  private final List<Block> blocks = new ArrayList<>();
+  private boolean closed;
+
+  private record Block(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
+      double minLot, MPVariable y, MPVariable[] x) {}
+
+  /** @param variantLimit K, {@code Integer.MAX_VALUE} for none */
+  public PortfolioLp(double[] capacity, double[] demand, int variantLimit) {
+    Natives.load();
+    this.capacity = capacity.clone();
+    this.demand = demand.clone();
+    this.limit = variantLimit;
+    solver = MPSolver.createSolver("GLOP");
+    if (solver == null) {
+      throw new IllegalStateException("OR-Tools has no GLOP solver in this build");
+    }
+    solver.setSolverSpecificParametersAsString("use_preprocessing:false");
+    objective = solver.objective();
+    objective.setMaximization();
+    resourceRows = new MPConstraint[capacity.length];
+    for (int r = 0; r < capacity.length; r++) {
+      resourceRows[r] = solver.makeConstraint(Double.NEGATIVE_INFINITY, capacity[r], "r" + r);
+    }
+    segmentRows = new MPConstraint[demand.length];
+    for (int s = 0; s < demand.length; s++) {
+      segmentRows[s] = solver.makeConstraint(Double.NEGATIVE_INFINITY, demand[s], "s" + s);
+    }
+    limitRow = variantLimit == Integer.MAX_VALUE ? null
+        : solver.makeConstraint(Double.NEGATIVE_INFINITY, variantLimit, "limit");
+  }
+
+  /**
+   * Adds a variant block and returns its index.
+   *
+   * @param segments the segments that accept it (indices into the demand rows)
+   * @param margin unit margin per listed segment
+   * @param use resource use per unit, aligned with the capacity rows
+   * @param upper column bound u_s per listed segment
+   * @param fixedCost F_v, charged once per unit of y_v
+   * @param minLot L_v, the least it sells in all when introduced (0 for none)
+   */
+  public int addVariant(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
+      double minLot) {
+    int i = blocks.size();
+    MPVariable y = solver.makeNumVar(0.0, 1.0, "y" + i);
+    objective.setCoefficient(y, -fixedCost);
+    if (limitRow != null) {
+      limitRow.setCoefficient(y, 1.0);
+    }
+    MPConstraint lot = minLot > 0 ? solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "lot" + i) : null;
+    if (lot != null) {
+      lot.setCoefficient(y, minLot);
+    }
+    MPVariable[] x = new MPVariable[segments.length];
+    for (int k = 0; k < segments.length; k++) {
+      x[k] = solver.makeNumVar(0.0, upper[k], "x" + i + "_" + segments[k]);
+      objective.setCoefficient(x[k], margin[k]);
+      for (int r = 0; r < use.length; r++) {
+        if (use[r] != 0.0) {
+          resourceRows[r].setCoefficient(x[k], use[r]);
+        }
+      }
+      segmentRows[segments[k]].setCoefficient(x[k], 1.0);
+      MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "link" + i + "_" + segments[k]);
+      link.setCoefficient(x[k], 1.0);
+      link.setCoefficient(y, -upper[k]);
+      if (lot != null) {
+        lot.setCoefficient(x[k], -1.0);
+      }
+    }
+    blocks.add(new Block(segments.clone(), margin.clone(), use.clone(), upper.clone(), fixedCost, minLot, y, x));
+    return i;
+  }
+
+  /** Bounds on y_i: {@code 1, 1} offers the variant, {@code 0, 0} leaves it out, {@code 0, 1} relaxes. */
+  public void fixIntroduction(int i, double lower, double upper) {
+    blocks.get(i).y().setBounds(lower, upper);
+  }
+
+  public int variantCount() {
+    return blocks.size();
+  }
+
+  /** Solves and verifies the point against every row; duals only when optimal. */
+  public PortfolioLpSolution solve() {
+    MPSolver.ResultStatus rs = solver.solve();
+    LpStatus status =
+        switch (rs) {
+          case OPTIMAL -> LpStatus.OPTIMAL;
+          case INFEASIBLE -> LpStatus.INFEASIBLE;
+          case UNBOUNDED -> LpStatus.UNBOUNDED;
+          default -> LpStatus.FAILED;
+        };
+    if (!status.isOptimal()) {
+      return PortfolioLpSolution.failed(status);
+    }
+    int n = blocks.size();
+    double[] y = new double[n];
+    double[][] x = new double[n][];
+    double z = 0;
+    for (int i = 0; i < n; i++) {
+      Block b = blocks.get(i);
+      y[i] = b.y().solutionValue();
+      x[i] = new double[b.x().length];
+      z -= b.fixedCost() * y[i];
+      for (int k = 0; k < x[i].length; k++) {
+        x[i][k] = b.x()[k].solutionValue();
+        z += b.margin()[k] * x[i][k];
+      }
+    }
+    if (!feasible(y, x)) {
+      return PortfolioLpSolution.failed(LpStatus.FAILED);
+    }
+    double[] pi = new double[resourceRows.length];
+    for (int r = 0; r < pi.length; r++) {
+      pi[r] = Math.max(0.0, resourceRows[r].dualValue());
+    }
+    double[] mu = new double[segmentRows.length];
+    for (int s = 0; s < mu.length; s++) {
+      mu[s] = Math.max(0.0, segmentRows[s].dualValue());
+    }
+    double lambda = limitRow == null ? 0.0 : Math.max(0.0, limitRow.dualValue());
+    return new PortfolioLpSolution(LpStatus.OPTIMAL, z, y, x, pi, mu, lambda);
+  }
+
+  private boolean feasible(double[] y, double[][] x) {
+    double[] rowUse = new double[capacity.length];
+    double[] segUse = new double[demand.length];
+    double ys = 0;
+    for (int i = 0; i < y.length; i++) {
+      Block b = blocks.get(i);
+      if (y[i] < -FEASIBILITY_TOLERANCE || y[i] > 1 + FEASIBILITY_TOLERANCE) {
+        return false;
+      }
+      ys += y[i];
+      double sold = 0;
+      for (int k = 0; k < x[i].length; k++) {
+        double tol = FEASIBILITY_TOLERANCE * Math.max(1.0, b.upper()[k]);
+        if (x[i][k] < -tol || x[i][k] > b.upper()[k] * y[i] + tol) {
+          return false;
+        }
+        sold += x[i][k];
+        segUse[b.segments()[k]] += x[i][k];
+        for (int r = 0; r < rowUse.length; r++) {
+          rowUse[r] += b.use()[r] * x[i][k];
+        }
+      }
+      if (sold < b.minLot() * y[i] - FEASIBILITY_TOLERANCE * Math.max(1.0, b.minLot())) {
+        return false;
+      }
+    }
+    if (limitRow != null && ys > limit + FEASIBILITY_TOLERANCE * Math.max(1.0, limit)) {
+      return false;
+    }
+    for (int r = 0; r < rowUse.length; r++) {
+      if (rowUse[r] > capacity[r] + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(capacity[r]))) {
+        return false;
+      }
+    }
+    for (int s = 0; s < segUse.length; s++) {
+      if (segUse[s] > demand[s] + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(demand[s]))) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  @Override
+  public void close() {
+    if (!closed) {
+      closed = true;
+      solver.delete();
+    }
+  }
+}

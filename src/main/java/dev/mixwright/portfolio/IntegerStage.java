@@ -1,0 +1,283 @@
+package dev.mixwright.portfolio;
+
+import dev.mixwright.colgen.Column;
+import dev.mixwright.colgen.RunStatus;
+import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.master.MipSolution;
+import dev.mixwright.master.MipStatus;
+import dev.mixwright.master.PortfolioMip;
+import dev.mixwright.space.VariantSpace;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.BooleanSupplier;
+
+/**
+ * The integer stage after the LP stage: a portfolio of whole variants with an introduction cost F
+ * each, at most K of them, each selling at least L in all, and tooling T_o paid once per option used.
+ *
+ * <pre>
+ * (P)  max Σ_{v,s} m_vs x_vs − F Σ_v y_v − Σ_o T_o t_o
+ *      s.t. resources and demands as in the LP stage,  x_vs ≤ u_s y_v,  Σ_s x_vs ≥ L y_v,
+ *           Σ_v y_v ≤ K,  y_v ≤ t_o (o an option of v),  y, t ∈ {0, 1},  x ≥ 0
+ * </pre>
+ *
+ * <ol>
+ *   <li>Pool: the variants of the LP stage's columns. {@link Relaxation}: column generation on (P)
+ *       with y relaxed, priced over the whole space; gives the bound B and its prices.
+ *   <li>Incumbent: {@link Rounding} of the relaxation, then the MIP over the pool ({@link PortfolioMip},
+ *       warm-started from it).
+ *   <li>Proof (price-and-branch turned exact, in the spirit of the reduced-cost argument of Barnhart
+ *       et al. 1998, "Branch-and-price", Operations Research 46(3)): by {@link LagrangianBound}, a
+ *       portfolio holding w is worth at most B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w); so only variants with
+ *       ψ(w) − tooling(w) &gt; θ = value − B(λ̂) + λ̂ can be part of a better portfolio. The exact
+ *       variant pricer enumerates them outside the pool (threshold θ, up to the survivor limit); once
+ *       all are in the pool, a MIP solved to optimality over the pool is optimal over the whole
+ *       space. A better incumbent only raises θ, so the enumeration stays complete.
+ * </ol>
+ *
+ * The bound reported is the least of the LP stage's bound, B, and (when the survivors are complete)
+ * the MIP's own bound over the pool; all are valid for the whole space. Time: the relaxation gets up
+ * to 30 % of the limit, the first MIP half of what is left, the proof the rest.
+ */
+public final class IntegerStage {
+  private static final int PROOF_PASSES = 3;
+
+  private final VariantSpace space;
+  private final PortfolioTerms terms;
+  private final PortfolioSettings settings;
+  private final List<PortfolioListener> listeners = new ArrayList<>();
+  private long startNanos;
+  private int mipSolves;
+  private BooleanSupplier stop = () -> false;
+
+  public IntegerStage(VariantSpace space, PortfolioSettings settings) {
+    this.space = space;
+    this.terms = PortfolioTerms.of(space);
+    this.settings = settings;
+  }
+
+  /**
+   * A signal (e.g. Ctrl-C): once true the stage ends within about a tenth of a second with the best
+   * portfolio so far, marked heuristic.
+   */
+  public IntegerStage stopWhen(BooleanSupplier signal) {
+    this.stop = signal;
+    return this;
+  }
+
+  public IntegerStage addListener(PortfolioListener l) {
+    listeners.add(l);
+    return this;
+  }
+
+  private long elapsedMs() {
+    return (System.nanoTime() - startNanos) / 1_000_000;
+  }
+
+  private void emit(String kind, double value, double bound, int pool, int count, String note) {
+    PortfolioEvent e = new PortfolioEvent(kind, elapsedMs(), value, bound, pool, count, note);
+    listeners.forEach(l -> l.event(e));
+  }
+
+  private long deadlineAt(double share) {
+    if (settings.timeLimitMs() == 0) {
+      return 0;
+    }
+    long left = settings.timeLimitMs() * 1_000_000L - (System.nanoTime() - startNanos);
+    return System.nanoTime() + (long) (Math.max(0, left) * share);
+  }
+
+  private long msLeft() {
+    if (settings.timeLimitMs() == 0) {
+      return 0;
+    }
+    return Math.max(1, settings.timeLimitMs() - elapsedMs());
+  }
+
+  public PortfolioOutcome run(SolveOutcome lp) {
+    startNanos = System.nanoTime();
+    mipSolves = 0;
+    Pool pool = new Pool(space, terms);
+    if (lp.status() != RunStatus.INFEASIBLE) {
+      for (Column c : lp.columns()) {
+        pool.add(c.choices());
+      }
+    }
+    if (pool.size() == 0 || terms.variantCap() == 0) {
+      // no segment takes any buildable variant, or no lot fits the demand: every portfolio that can
+      // be offered is empty
+      emit("end", 0, 0, 0, 0, pool.size() == 0 ? "nothing can be sold: the empty portfolio is optimal"
+          : "the minimum lot exceeds all demand together: the empty portfolio is optimal");
+      return new PortfolioOutcome(PortfolioStatus.PROVEN, "", 0, 0, 0, List.of(), 0, 0, 0,
+          null, Double.NaN, 0, true, settings.engine().word(), 0, true, 0, elapsedMs());
+    }
+    double lpBound = Double.isFinite(lp.bound()) ? lp.bound() : Double.POSITIVE_INFINITY;
+    VariantPricer pricer = new VariantPricer(space, terms).stopWhen(stop);
+    PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
+    RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, this::elapsedMs, deadlineAt(0.3), stop)
+        .run(pool, lp.resourceDual(), lp.segmentDual());
+    LagrangianBound b = rx.bound();
+    double bound = Math.min(lpBound, b.value());
+
+    double[] score = new double[pool.size()];
+    VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), terms.introductionCost(), null,
+        Double.NEGATIVE_INFINITY, 1, null, 0);
+    for (int i = 0; i < score.length; i++) {
+      score[i] = VariantPricer.value(space, terms, pool.get(i).choices(), at);
+    }
+    Plan inc = Rounding.greedy(pool, terms, rx.y(), score, deadlineAt(0.2), stop);
+    emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "rounding of the relaxation");
+
+    MipRun mip = mip(pool, inc, Math.max(1, (long) (msLeft() * 0.5)));
+    if (mip.plan() != null && mip.plan().value() > inc.value()) {
+      inc = mip.plan();
+      emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "MIP over the pool");
+    }
+
+    boolean proves = settings.engine().provesContinuous();
+    boolean complete = false;
+    boolean mipOptimal = proves && mip.status() == MipStatus.OPTIMAL;
+    double mipBound = proves ? mip.bound() : Double.POSITIVE_INFINITY;
+    double theta = Double.NaN;
+    int added = 0;
+    String reason = "";
+    double[] tooling = terms.hasTooling() ? terms.choiceCost() : null;
+    int cap = settings.survivorLimit();
+    for (int pass = 0; pass < PROOF_PASSES; pass++) {
+      if (stop.getAsBoolean()) {
+        reason = "stopped by a signal";
+        break;
+      }
+      if (!b.isFinite()) {
+        reason = "the relaxation gave no finite bound to rule variants out with";
+        break;
+      }
+      theta = inc.value() - b.valueAtLambda() + b.lambda();
+      double slack = 1e-7 * (1 + Math.abs(inc.value()));
+      VariantPricing out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
+          terms.introductionCost(), tooling, theta - slack, cap + 1, pool.keys(), deadlineAt(0.5)));
+      complete = out.exact() && out.found().size() <= cap;
+      // Too many to prove with: add only the best few, so that the MIP can still finish and improve.
+      int n = complete ? out.found().size() : Math.min(out.found().size(), heuristicShare());
+      int before = pool.size();
+      for (int i = 0; i < n; i++) {
+        pool.add(out.found().get(i).choices());
+      }
+      added += pool.size() - before;
+      if (!complete) {
+        reason = out.exact()
+            ? "more than " + cap + " variants could still be part of a better portfolio (the best "
+                + n + " were tried)"
+            : "the time limit stopped the enumeration of the variants that could be part of a better portfolio";
+      }
+      emit("survivors", theta, bound, pool.size(), n, complete
+          ? "every variant that could be part of a better portfolio is in the pool" : reason);
+      if (pool.size() == before && (mipOptimal || !complete)) {
+        break;
+      }
+      MipRun again = mip(pool, inc, msLeft());
+      mipOptimal = proves && again.status() == MipStatus.OPTIMAL;
+      mipBound = proves ? again.bound() : Double.POSITIVE_INFINITY;
+      boolean improved = again.plan() != null && again.plan().value() > inc.value() + 1e-9 * (1 + Math.abs(inc.value()));
+      if (improved) {
+        inc = again.plan();
+        emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "MIP over the pool with survivors");
+      }
+      if (complete || !improved || (settings.timeLimitMs() > 0 && elapsedMs() >= settings.timeLimitMs())) {
+        break;
+      }
+    }
+    boolean proven = complete && mipOptimal;
+    if (complete && Double.isFinite(mipBound)) {
+      // every portfolio better than the incumbent lies in the pool, where the MIP bounds it
+      bound = Math.min(bound, Math.max(inc.value(), mipBound));
+    }
+    bound = Math.max(bound, inc.value());
+    if (proven) {
+      reason = "";
+    } else if (stop.getAsBoolean()) {
+      reason = "stopped by a signal";
+    } else if (reason.isEmpty()) {
+      reason = proves
+          ? "the MIP over the pool was not solved to optimality in the time limit"
+          : settings.engine().word() + " solves continuous sales in a scaled integer form, so it proves nothing here";
+    }
+    double gap = Relaxation.gap(inc.value(), bound);
+    PortfolioOutcome o = new PortfolioOutcome(proven ? PortfolioStatus.PROVEN : PortfolioStatus.HEURISTIC, reason,
+        inc.value(), bound, gap, offered(pool, inc), inc.introduction() + inc.tooling(), inc.tooling(), lpBound,
+        rx, theta, added, complete, settings.engine().word(), mipSolves, mipOptimal, pool.size(), elapsedMs());
+    emit("end", o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
+        + (reason.isEmpty() ? "" : ": " + reason));
+    return o;
+  }
+
+  /** Survivors tried when they are too many to prove with: enough for a better incumbent, few enough to solve. */
+  private int heuristicShare() {
+    int k = terms.variantCap() == PortfolioTerms.UNLIMITED ? 50 : terms.variantCap();
+    return Math.min(settings.survivorLimit(), Math.max(200, 20 * k));
+  }
+
+  private record MipRun(MipStatus status, Plan plan, double bound) {}
+
+  private MipRun mip(Pool pool, Plan hint, long timeMs) {
+    mipSolves++;
+    try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
+        terms.choiceCost())) {
+      for (PoolVariant v : pool.all()) {
+        m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(), v.tools());
+      }
+      double[] y = new double[pool.size()];
+      double[][] x = new double[pool.size()][];
+      for (int i = 0; i < pool.size(); i++) {
+        x[i] = new double[pool.get(i).segments().length];
+      }
+      for (int j = 0; j < hint.members().length; j++) {
+        y[hint.members()[j]] = 1;
+        x[hint.members()[j]] = hint.sales().get(j);
+      }
+      m.hint(y, x);
+      MipSolution sol = m.solve(timeMs, settings.gap(), stop);
+      Plan plan = null;
+      if (sol.status().hasSolution()) {
+        List<Integer> members = new ArrayList<>();
+        for (int i = 0; i < sol.y().length; i++) {
+          if (sol.y()[i] > 0.5) {
+            members.add(i);
+          }
+        }
+        plan = FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray());
+      }
+      MipStatus status = sol.status();
+      if (status.hasSolution() && plan == null) {
+        // the MIP's choice failed the exact LP of its portfolio (round-off at a minimum lot): use nothing of it
+        status = MipStatus.FAILED;
+      }
+      double mb = status.hasSolution() ? sol.bound() : Double.POSITIVE_INFINITY;
+      emit("mip", plan == null ? Double.NaN : plan.value(), mb, pool.size(), sol.y().length,
+          settings.engine().word() + " " + sol.status().name().toLowerCase(java.util.Locale.ROOT) + " in " + sol.wallMs() + " ms, "
+              + sol.nodes() + " nodes (bound over the pool only)");
+      return new MipRun(status, plan, mb);
+    }
+  }
+
+  private List<OfferedVariant> offered(Pool pool, Plan p) {
+    List<OfferedVariant> out = new ArrayList<>();
+    for (int j = 0; j < p.members().length; j++) {
+      PoolVariant v = pool.get(p.members()[j]);
+      double[] sales = new double[space.segmentCount()];
+      double margin = 0;
+      for (int k = 0; k < v.segments().length; k++) {
+        double q = Math.max(0.0, p.sales().get(j)[k]);
+        sales[v.segments()[k]] = q;
+        margin += q * v.margin()[k];
+      }
+      out.add(new OfferedVariant(v.choices().clone(), sales, margin));
+    }
+    out.sort((a, c) -> Double.compare(c.margin(), a.margin()));
+    return out;
+  }
+
+  public PortfolioTerms terms() {
+    return terms;
+  }
+}

@@ -1,0 +1,75 @@
+package dev.mixwright.portfolio;
+
+import java.util.Arrays;
+
+/**
+ * The bound on the integer portfolio over the whole space at given prices π, μ ≥ 0 (any, not only
+ * optimal ones). For a feasible portfolio S (|S| ≤ K, variants v with sales x_v), subtracting π·(b −
+ * used) ≥ 0 and μ·(D − sold) ≥ 0 from its value,
+ *
+ * <pre>
+ *   value(S) ≤ π·b + μ·D + Σ_{v ∈ S} ψ(v)  ≤  π·b + μ·D + λ·K + Σ_{all v} (ψ(v) − λ)⁺ =: L(λ)   for any λ ≥ 0
+ * </pre>
+ *
+ * with ψ(v) = g(d(v)) − F ({@link VariantPricer}, no penalty). The sum runs over the whole space; it is
+ * known exactly when every variant of ψ &gt; λ is listed: the pool (computed directly) plus the
+ * pricer's k best outside it, with {@code rest} ≥ ψ of everything not listed, so λ ≥ max(0, rest).
+ * L is convex piecewise linear in λ and smallest at the (K+1)-th largest listed value (clamped to
+ * that range); with K unlimited only λ = 0 is allowed, so L is finite only when rest ≤ 0.
+ *
+ * <p>For the survivor test the same inequality gives, for a portfolio holding w, value(S) ≤ L(λ) −
+ * (λ − ψ(w))⁺; with λ̂ = the K-th largest listed value (clamped) L(λ̂) is still the least L and the
+ * excluded set is largest. Cost: one sort of the listed values.
+ */
+public record LagrangianBound(
+    double value, double lambda, double valueAtLambda, double[] resourcePrice, double[] segmentPrice) {
+
+  /**
+   * @param constant π·b + μ·D
+   * @param listed ψ of every listed variant (pool and found; −∞ allowed)
+   * @param rest an upper bound on ψ of every variant not listed
+   * @param cap K, {@link PortfolioTerms#UNLIMITED} for none
+   */
+  public static LagrangianBound of(double constant, double[] listed, double rest, int cap, double[] pi, double[] mu) {
+    double lambdaMin = Math.max(0.0, rest);
+    double[] sorted = listed.clone();
+    Arrays.sort(sorted);
+    int n = sorted.length;
+    if (cap == PortfolioTerms.UNLIMITED) {
+      if (lambdaMin > 0) {
+        return new LagrangianBound(Double.POSITIVE_INFINITY, 0, Double.POSITIVE_INFINITY, pi, mu);
+      }
+      double sum = constant;
+      for (double x : sorted) {
+        sum += Math.max(0.0, x);
+      }
+      return new LagrangianBound(sum, 0, sum, pi, mu);
+    }
+    // values from the largest: sorted[n - 1 - i] is the (i+1)-th largest; with K = 0 nothing can be
+    // offered and λ may rise to the largest value, which leaves L = π·b + μ·D
+    double kPlus1 = cap < n ? sorted[n - 1 - cap] : Double.NEGATIVE_INFINITY;
+    double kth = cap == 0 ? (n == 0 ? 0.0 : sorted[n - 1]) : cap <= n ? sorted[n - cap] : Double.NEGATIVE_INFINITY;
+    double lamL = Math.max(lambdaMin, kPlus1);
+    double lamHat = Math.max(lambdaMin, kth);
+    double atL = at(constant, sorted, lamL, cap);
+    double atHat = at(constant, sorted, lamHat, cap);
+    return new LagrangianBound(Math.min(atL, atHat), lamHat, atHat, pi, mu);
+  }
+
+  private static double at(double constant, double[] values, double lambda, int cap) {
+    double sum = constant + lambda * cap;
+    for (double x : values) {
+      sum += Math.max(0.0, x - lambda);
+    }
+    return sum;
+  }
+
+  /** An upper bound on the value of any portfolio holding a variant of value ψ (before its tooling). */
+  public double withVariant(double psi) {
+    return valueAtLambda - Math.max(0.0, lambda - psi);
+  }
+
+  public boolean isFinite() {
+    return Double.isFinite(value);
+  }
+}

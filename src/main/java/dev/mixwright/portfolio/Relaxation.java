@@ -1,0 +1,150 @@
+package dev.mixwright.portfolio;
+
+import dev.mixwright.master.PortfolioLp;
+import dev.mixwright.master.PortfolioLpSolution;
+import dev.mixwright.space.VariantSpace;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.BooleanSupplier;
+import java.util.function.LongSupplier;
+
+/**
+ * Column generation on the relaxed portfolio master ({@link PortfolioLp}: introductions 0 ≤ y_v ≤ 1
+ * per variant, shared by its segments), where a "column" is a whole variant block.
+ *
+ * <pre>
+ * Pricing, at the master's duals π (resources), μ (segments), λ (variant limit):
+ *   a variant v outside the pool improves the master iff
+ *     max { Σ_s d_s(v) x_s − (F + λ) y : 0 ≤ y ≤ 1, 0 ≤ x_s ≤ u_s y, Σ_s x_s ≥ L y }  &gt; 0,
+ *   where d_s(v) = m(v, s) − π·a(v) − μ_s (−∞ where s does not accept v). The set is {0} joined
+ *   to {1} × P_v, P_v = {0 ≤ x ≤ u, Σ x ≥ L}, so the maximum is max(0, ψ(v) − λ) with
+ *     ψ(v) = g(d(v)) − F,   g(d) = max_{x ∈ P_v} Σ_s d_s x_s          ({@link LotValue})
+ *   and the pricing problem is max_v ψ(v) over the whole space ({@link VariantPricer}, exact).
+ * Bound (valid for any π, μ ≥ 0, so for every round): {@link LagrangianBound}.
+ * </pre>
+ *
+ * The Lagrangian subproblem (per variant, over conv({0} ∪ {1} × P_v)) has the integrality property,
+ * so the best bound over all prices equals the relaxed master's optimum over the whole space
+ * (Geoffrion 1974, "Lagrangean relaxation for integer programming", Mathematical Programming Study
+ * 2); at convergence the two meet. Each round costs one warm-started GLOP re-solve and one pricing
+ * call; rounds are few because the LP stage's columns seed the pool.
+ */
+final class Relaxation {
+  private final VariantSpace space;
+  private final PortfolioTerms terms;
+  private final VariantPricer pricer;
+  private final PortfolioSettings settings;
+  private final PortfolioListener listener;
+  private final LongSupplier elapsedMs;
+  private final long deadlineNanos;
+  private final int cap;
+  private final BooleanSupplier stop;
+
+  Relaxation(VariantSpace space, PortfolioTerms terms, VariantPricer pricer, PortfolioSettings settings,
+      PortfolioListener listener, LongSupplier elapsedMs, long deadlineNanos, BooleanSupplier stop) {
+    this.space = space;
+    this.terms = terms;
+    this.pricer = pricer;
+    this.settings = settings;
+    this.listener = listener;
+    this.elapsedMs = elapsedMs;
+    this.deadlineNanos = deadlineNanos;
+    this.cap = terms.variantCap();
+    this.stop = stop;
+  }
+
+  /** Bounds are exact top-K sums up to this many listed values; beyond it the λ-form keeps them valid. */
+  private static final int BOUND_DEPTH = 64;
+
+  /** A bound and the pricing behind it. */
+  record Probe(LagrangianBound bound, List<ValuedVariant> found, boolean exact) {}
+
+  /** The bound at prices (π, μ): one pricing call for the k best outside the pool. */
+  Probe bound(Pool pool, double[] pi, double[] mu, int k) {
+    VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost(), null, 0.0, k, pool.keys(), deadlineNanos);
+    VariantPricing out = pricer.price(q);
+    double[] listed = new double[pool.size() + out.found().size()];
+    for (int i = 0; i < pool.size(); i++) {
+      listed[i] = VariantPricer.value(space, terms, pool.get(i).choices(), q);
+    }
+    for (int i = 0; i < out.found().size(); i++) {
+      listed[pool.size() + i] = out.found().get(i).value();
+    }
+    double constant = 0;
+    for (int r = 0; r < pi.length; r++) {
+      constant += pi[r] * terms.capacity()[r];
+    }
+    for (int s = 0; s < mu.length; s++) {
+      constant += mu[s] * terms.demand()[s];
+    }
+    return new Probe(LagrangianBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone()),
+        out.found(), out.exact());
+  }
+
+  RelaxationResult run(Pool pool, double[] lpPi, double[] lpMu) {
+    long t0 = elapsedMs.getAsLong();
+    int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
+    LagrangianBound best = bound(pool, lpPi, lpMu, k).bound();
+    double lpPriceBound = best.value();
+    try (PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap)) {
+      for (PoolVariant v : pool.all()) {
+        add(lp, v);
+      }
+      PortfolioLpSolution sol = null;
+      boolean converged = false;
+      int round = 0;
+      while (true) {
+        round++;
+        sol = lp.solve();
+        if (!sol.isOptimal()) {
+          // y = 0, x = 0 is feasible and every variable is bounded: anything else is a solver fault
+          throw new IllegalStateException("the relaxed portfolio master ended " + sol.status()
+              + "; it is feasible and bounded by construction, so this is a solver fault");
+        }
+        Probe probe = bound(pool, sol.resourceDual(), sol.segmentDual(), k);
+        if (probe.bound().value() < best.value()) {
+          best = probe.bound();
+        }
+        double z = sol.objective();
+        double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(z));
+        List<ValuedVariant> entering = new ArrayList<>();
+        for (ValuedVariant f : probe.found()) {
+          if (f.value() > entry && entering.size() < settings.perRound()) {
+            entering.add(f);
+          }
+        }
+        boolean exact = probe.exact();
+        double gap = gap(z, best.value());
+        listener.event(new PortfolioEvent("relaxation", elapsedMs.getAsLong(), z, best.value(), pool.size(),
+            entering.size(), "round " + round));
+        if (entering.isEmpty() && exact) {
+          converged = true;
+          break;
+        }
+        if (gap <= settings.gap() || round >= settings.relaxationRounds()
+            || (deadlineNanos != 0 && System.nanoTime() > deadlineNanos) || stop.getAsBoolean()) {
+          break;
+        }
+        for (ValuedVariant f : entering) {
+          if (pool.add(f.choices())) {
+            add(lp, pool.get(pool.size() - 1));
+          }
+        }
+      }
+      double[] y = sol.y().clone();
+      return new RelaxationResult(sol.objective(), best, converged, round, y, lpPriceBound,
+          elapsedMs.getAsLong() - t0);
+    }
+  }
+
+  private void add(PortfolioLp lp, PoolVariant v) {
+    lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+  }
+
+  static double gap(double value, double bound) {
+    if (!Double.isFinite(bound)) {
+      return Double.POSITIVE_INFINITY;
+    }
+    return Math.max(0.0, bound - value) / Math.max(1.0, Math.abs(value));
+  }
+}

@@ -1,0 +1,480 @@
+package dev.mixwright.portfolio;
+
+import dev.mixwright.pricing.ReducedCosts;
+import dev.mixwright.space.Nogood;
+import dev.mixwright.space.VariantKey;
+import dev.mixwright.space.VariantSpace;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.PriorityQueue;
+import java.util.Set;
+import java.util.function.BooleanSupplier;
+
+/**
+ * Exact k-best pricing of whole variants for the portfolio relaxation: maximise ψ(v) of
+ * {@link VariantQuery} over every buildable variant, all segments at once.
+ *
+ * <p>Depth-first branch-and-bound over the groups in one order fixed per space, with forward checking
+ * of the rules (as in {@link dev.mixwright.pricing.BranchAndBoundPricer}: once all groups of a nogood
+ * but its last are assigned to member choices, the last group's member choices leave its domain).
+ * Bound of a partial variant: per segment s an optimistic reduced cost ub_s = (assigned part of d_s)
+ * + Σ over unassigned groups of their best remaining weight in s (−∞ once an assigned choice is not
+ * accepted by s, or some unassigned group has nothing left that s accepts); then g(ub) − charge −
+ * (assigned penalties + Σ of the smallest remaining penalty per unassigned group). It is valid because
+ * every completion has d_s ≤ ub_s per segment and g is nondecreasing in each argument ({@link
+ * LotValue}). Children are tried best bound first, so the first child whose bound cannot beat the
+ * cutoff (the threshold, or the k-th best value once k are held) ends the loop. Excluded variants are
+ * skipped only at leaves, so bounds stay bounds on every non-excluded variant below a node.
+ *
+ * <p>Cost per node O(S · Σ_g d_g) for the bounds; worst case exponential in the number of groups
+ * (pricing under exclusion rules is NP-hard already for one segment: maximum-weight independent set
+ * reduces to it, Garey &amp; Johnson GT20). With a node limit or deadline the search stops early; the
+ * rest bound is then also at least the bound of every unexplored sibling along the current path.
+ *
+ * <p>Not thread-safe: per-query state lives in arrays allocated once per pricer.
+ */
+public final class VariantPricer {
+  private final VariantSpace space;
+  private final PortfolioTerms terms;
+  private final long nodeLimit;
+  private final int groups;
+  private final int segments;
+  private final int[] offset;
+  private final int[] order;
+  private final int[] groupOf;
+
+  private final int[] trigStart;
+  private final boolean[][] trigMember;
+  private final int[][] trigCheck;
+  private final int[] trigTarget;
+  private final int[][] trigBlock;
+
+  private final boolean[] usable;
+  private final int[] blocked;
+  private final int[] live;
+  private final int[] trail;
+  private int trailTop;
+
+  private final double[][] partial; // [depth][segment]: Σ of the assigned weights (finite ones)
+  private final boolean[][] dead; // [depth][segment]: an assigned choice is not accepted there
+  private final double[] penPartial; // [depth]
+  private final int[][] cand; // [depth][i]: flat choices of the depth's group, best bound first
+  private final double[][] candBound;
+  private final double[] rest;
+  private final double[] ub;
+  private final double[] leafD;
+  private final int[] scratch;
+  private final int[] v;
+
+  private double[][] w;
+  private double[] constant;
+  private double[] pen;
+  private double charge;
+  private double threshold;
+  private int k;
+  private Set<VariantKey> excluded;
+  private PriorityQueue<ValuedVariant> top;
+  private long nodes;
+  private long deadline;
+  private BooleanSupplier stop = () -> false;
+  private double openBound;
+
+  public VariantPricer(VariantSpace space, PortfolioTerms terms) {
+    this(space, terms, Long.MAX_VALUE);
+  }
+
+  /** @param nodeLimit most nodes per query; past it the outcome is not exact but keeps a valid bound */
+  public VariantPricer(VariantSpace space, PortfolioTerms terms, long nodeLimit) {
+    if (nodeLimit < 1) {
+      throw new IllegalArgumentException("nodeLimit must be >= 1");
+    }
+    this.space = space;
+    this.terms = terms;
+    this.nodeLimit = nodeLimit;
+    groups = space.groupCount();
+    segments = space.segmentCount();
+    offset = space.offsets();
+    int total = space.totalChoices();
+    groupOf = new int[total];
+    int widest = 1;
+    for (int g = 0; g < groups; g++) {
+      Arrays.fill(groupOf, offset[g], offset[g + 1], g);
+      widest = Math.max(widest, space.choiceCount(g));
+    }
+    order = searchOrder(space);
+    int[] depthOf = new int[groups];
+    for (int d = 0; d < groups; d++) {
+      depthOf[order[d]] = d;
+    }
+    // Nogood t fires at the depth of its second-to-last group (in the search order).
+    Nogood[] nogoods = space.nogoods();
+    trigStart = new int[groups + 1];
+    trigMember = new boolean[nogoods.length][];
+    trigCheck = new int[nogoods.length][];
+    trigTarget = new int[nogoods.length];
+    trigBlock = new int[nogoods.length][];
+    int t = 0;
+    long trailNeed = 0;
+    List<int[]> sortedGroups = new ArrayList<>();
+    for (Nogood ng : nogoods) {
+      int[] gs = ng.groups().clone();
+      sortByDepth(gs, depthOf);
+      sortedGroups.add(gs);
+    }
+    for (int d = 0; d < groups; d++) {
+      trigStart[d] = t;
+      for (int n = 0; n < nogoods.length; n++) {
+        int[] gs = sortedGroups.get(n);
+        if (depthOf[gs[gs.length - 2]] != d) {
+          continue;
+        }
+        int target = gs[gs.length - 1];
+        trigMember[t] = nogoods[n].member();
+        trigCheck[t] = Arrays.copyOf(gs, gs.length - 1);
+        trigTarget[t] = target;
+        int[] block = new int[space.choiceCount(target)];
+        int nb = 0;
+        for (int c = 0; c < block.length; c++) {
+          if (nogoods[n].member()[offset[target] + c]) {
+            block[nb++] = offset[target] + c;
+          }
+        }
+        trigBlock[t] = Arrays.copyOf(block, nb);
+        trailNeed += nb;
+        t++;
+      }
+    }
+    trigStart[groups] = t;
+    usable = new boolean[total];
+    blocked = new int[total];
+    live = new int[groups];
+    trail = new int[(int) Math.min(Integer.MAX_VALUE - 8, Math.max(1, trailNeed))];
+    partial = new double[groups + 1][segments];
+    dead = new boolean[groups + 1][segments];
+    penPartial = new double[groups + 1];
+    cand = new int[groups][widest];
+    candBound = new double[groups][widest];
+    rest = new double[segments];
+    ub = new double[segments];
+    leafD = new double[segments];
+    scratch = new int[segments];
+    v = new int[groups];
+  }
+
+  /** ψ(v) at the query's prices, computed directly; −∞ when no segment can take v at its lot. */
+  public static double value(VariantSpace space, PortfolioTerms terms, int[] v, VariantQuery q) {
+    double[] d = reducedCosts(space, v, q.resourcePrice(), q.segmentPrice());
+    double p = 0;
+    if (q.penalty() != null) {
+      for (int g = 0; g < v.length; g++) {
+        p += q.penalty()[space.offset(g) + v[g]];
+      }
+    }
+    return LotValue.best(d, terms.columnBound(), terms.minLot()) - q.charge() - p;
+  }
+
+  /** d_s(v) per segment, −∞ where s does not accept v. */
+  public static double[] reducedCosts(VariantSpace space, int[] v, double[] pi, double[] mu) {
+    double[] d = new double[space.segmentCount()];
+    for (int s = 0; s < d.length; s++) {
+      d[s] = space.isColumn(v, s) ? ReducedCosts.of(space, v, s, pi, mu[s]) : Double.NEGATIVE_INFINITY;
+    }
+    return d;
+  }
+
+  /** A signal checked with the deadline: once true, searches stop early with valid bounds. */
+  public VariantPricer stopWhen(BooleanSupplier signal) {
+    this.stop = signal;
+    return this;
+  }
+
+  public VariantPricing price(VariantQuery q) {
+    if (q.resourcePrice().length != space.resourceCount() || q.segmentPrice().length != segments) {
+      throw new IllegalArgumentException("prices do not match the catalog's resources and segments");
+    }
+    if (q.penalty() != null && q.penalty().length != space.totalChoices()) {
+      throw new IllegalArgumentException("penalty has " + q.penalty().length + " entries, the space "
+          + space.totalChoices() + " choices");
+    }
+    w = new double[segments][];
+    constant = new double[segments];
+    for (int s = 0; s < segments; s++) {
+      w[s] = ReducedCosts.weights(space, s, q.resourcePrice());
+      constant[s] = -q.segmentPrice()[s];
+    }
+    pen = q.penalty() == null ? new double[space.totalChoices()] : q.penalty();
+    charge = q.charge();
+    threshold = q.threshold();
+    k = q.k();
+    excluded = q.excluded();
+    top = new PriorityQueue<>(VariantPricer::worseFirst);
+    nodes = 0;
+    deadline = q.deadlineNanos();
+    openBound = Double.NEGATIVE_INFINITY;
+    trailTop = 0;
+    Arrays.fill(blocked, 0);
+    boolean complete = true;
+    boolean empty = false;
+    for (int g = 0; g < groups; g++) {
+      live[g] = 0;
+      for (int f = offset[g]; f < offset[g + 1]; f++) {
+        boolean any = false;
+        for (int s = 0; s < segments && !any; s++) {
+          any = w[s][f] != Double.NEGATIVE_INFINITY;
+        }
+        usable[f] = any && space.allowed(f);
+        if (usable[f]) {
+          live[g]++;
+        }
+      }
+      empty |= live[g] == 0;
+    }
+    if (!empty) {
+      Arrays.fill(partial[0], 0.0);
+      Arrays.fill(dead[0], false);
+      penPartial[0] = 0;
+      complete = search(0);
+    }
+    List<ValuedVariant> found = new ArrayList<>(top);
+    found.sort((a, b) -> -worseFirst(a, b));
+    double restBound = cutoff();
+    if (!complete) {
+      restBound = Math.max(restBound, openBound);
+    }
+    VariantPricing out = new VariantPricing(found, restBound, complete, nodes);
+    w = null;
+    pen = null;
+    excluded = null;
+    top = null;
+    return out;
+  }
+
+  /** Lower value first; equal values: the lexicographically larger choices first (so they leave first). */
+  private static int worseFirst(ValuedVariant a, ValuedVariant b) {
+    int c = Double.compare(a.value(), b.value());
+    return c != 0 ? c : Arrays.compare(b.choices(), a.choices());
+  }
+
+  private double cutoff() {
+    return top.size() < k ? threshold : Math.max(threshold, top.peek().value());
+  }
+
+  /** Prune slack: bounds and leaf values are summed in different orders. */
+  private static double slack(double x) {
+    return 1e-9 * (1 + Math.abs(x));
+  }
+
+  /** Depth-first search below depth d; false when a limit stopped it. */
+  private boolean search(int d) {
+    if (d == groups) {
+      leaf();
+      return true;
+    }
+    int g = order[d];
+    double penRest = 0;
+    Arrays.fill(rest, 0.0);
+    for (int e = d + 1; e < groups; e++) {
+      int h = order[e];
+      double minPen = Double.POSITIVE_INFINITY;
+      for (int s = 0; s < segments; s++) {
+        double best = Double.NEGATIVE_INFINITY;
+        for (int f = offset[h]; f < offset[h + 1]; f++) {
+          if (usable[f] && blocked[f] == 0 && w[s][f] > best) {
+            best = w[s][f];
+          }
+        }
+        rest[s] += best;
+      }
+      for (int f = offset[h]; f < offset[h + 1]; f++) {
+        if (usable[f] && blocked[f] == 0 && pen[f] < minPen) {
+          minPen = pen[f];
+        }
+      }
+      penRest += minPen;
+    }
+    int n = 0;
+    int[] cs = cand[d];
+    double[] cb = candBound[d];
+    for (int f = offset[g]; f < offset[g + 1]; f++) {
+      if (!usable[f] || blocked[f] > 0) {
+        continue;
+      }
+      for (int s = 0; s < segments; s++) {
+        double x = w[s][f];
+        ub[s] = dead[d][s] || x == Double.NEGATIVE_INFINITY || rest[s] == Double.NEGATIVE_INFINITY
+            ? Double.NEGATIVE_INFINITY
+            : partial[d][s] + x + rest[s] + constant[s];
+      }
+      double b = LotValue.best(ub, terms.columnBound(), terms.minLot(), scratch)
+          - charge - (penPartial[d] + pen[f] + penRest);
+      int p = n++;
+      while (p > 0 && cb[p - 1] < b) {
+        cb[p] = cb[p - 1];
+        cs[p] = cs[p - 1];
+        p--;
+      }
+      cb[p] = b;
+      cs[p] = f;
+    }
+    for (int i = 0; i < n; i++) {
+      double cut = cutoff();
+      if (cb[i] + slack(cut) <= cut) {
+        break;
+      }
+      if (nodes >= nodeLimit || ((nodes & 1023) == 0
+          && ((deadline != 0 && System.nanoTime() > deadline) || stop.getAsBoolean()))) {
+        openBound = Math.max(openBound, cb[i]);
+        return false;
+      }
+      nodes++;
+      int f = cs[i];
+      v[g] = f - offset[g];
+      for (int s = 0; s < segments; s++) {
+        double x = w[s][f];
+        dead[d + 1][s] = dead[d][s] || x == Double.NEGATIVE_INFINITY;
+        partial[d + 1][s] = dead[d + 1][s] ? 0.0 : partial[d][s] + x;
+      }
+      penPartial[d + 1] = penPartial[d] + pen[f];
+      int mark = trailTop;
+      if (propagate(d) && !search(d + 1)) {
+        undo(mark);
+        if (i + 1 < n) {
+          openBound = Math.max(openBound, cb[i + 1]);
+        }
+        return false;
+      }
+      undo(mark);
+    }
+    return true;
+  }
+
+  /** Fires the triggers of depth d; false when a domain empties. */
+  private boolean propagate(int d) {
+    for (int t = trigStart[d]; t < trigStart[d + 1]; t++) {
+      boolean[] member = trigMember[t];
+      boolean match = true;
+      for (int cg : trigCheck[t]) {
+        if (!member[offset[cg] + v[cg]]) {
+          match = false;
+          break;
+        }
+      }
+      if (!match) {
+        continue;
+      }
+      int tg = trigTarget[t];
+      for (int f : trigBlock[t]) {
+        trail[trailTop++] = f;
+        if (++blocked[f] == 1 && usable[f]) {
+          live[tg]--;
+        }
+      }
+      if (live[tg] == 0) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  private void undo(int mark) {
+    while (trailTop > mark) {
+      int f = trail[--trailTop];
+      if (--blocked[f] == 0 && usable[f]) {
+        live[groupOf[f]]++;
+      }
+    }
+  }
+
+  private void leaf() {
+    assert space.isBuildable(v) : "forward checking let a rule violation through";
+    double[] d = leafD;
+    for (int s = 0; s < segments; s++) {
+      double x = constant[s];
+      for (int g = 0; g < groups; g++) {
+        double y = w[s][offset[g] + v[g]];
+        if (y == Double.NEGATIVE_INFINITY) {
+          x = Double.NEGATIVE_INFINITY;
+          break;
+        }
+        x += y;
+      }
+      d[s] = x;
+    }
+    double p = 0;
+    for (int g = 0; g < groups; g++) {
+      p += pen[offset[g] + v[g]];
+    }
+    double val = LotValue.best(d, terms.columnBound(), terms.minLot(), scratch) - charge - p;
+    if (val > cutoff() && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
+      top.add(new ValuedVariant(v.clone(), val));
+      if (top.size() > k) {
+        top.poll();
+      }
+    }
+  }
+
+  /**
+   * Search order, once per space: repeatedly the group sharing the most nogoods with the groups
+   * already placed (forward checking fires early), then the one in most nogoods, then the one whose
+   * margins spread widest; unconstrained groups come last, where the bound is exact per segment.
+   */
+  private static int[] searchOrder(VariantSpace space) {
+    int groups = space.groupCount();
+    int[] degree = new int[groups];
+    double[] spread = new double[groups];
+    for (int g = 0; g < groups; g++) {
+      degree[g] = space.nogoodsOf(g).length;
+      double lo = Double.POSITIVE_INFINITY;
+      double hi = Double.NEGATIVE_INFINITY;
+      for (int c = 0; c < space.choiceCount(g); c++) {
+        int f = space.offset(g) + c;
+        if (space.allowed(f)) {
+          lo = Math.min(lo, space.choiceMargin(f));
+          hi = Math.max(hi, space.choiceMargin(f));
+        }
+      }
+      spread[g] = hi >= lo ? hi - lo : 0;
+    }
+    Nogood[] nogoods = space.nogoods();
+    int[] links = new int[groups];
+    boolean[] placed = new boolean[groups];
+    int[] order = new int[groups];
+    for (int d = 0; d < groups; d++) {
+      int best = -1;
+      for (int g = 0; g < groups; g++) {
+        if (placed[g]) {
+          continue;
+        }
+        if (best < 0
+            || links[g] > links[best]
+            || links[g] == links[best]
+                && (degree[g] > degree[best] || degree[g] == degree[best] && spread[g] > spread[best])) {
+          best = g;
+        }
+      }
+      order[d] = best;
+      placed[best] = true;
+      for (int n : space.nogoodsOf(best)) {
+        for (int h : nogoods[n].groups()) {
+          if (!placed[h]) {
+            links[h]++;
+          }
+        }
+      }
+    }
+    return order;
+  }
+
+  private static void sortByDepth(int[] gs, int[] depthOf) {
+    for (int i = 1; i < gs.length; i++) {
+      int x = gs[i];
+      int j = i - 1;
+      while (j >= 0 && depthOf[gs[j]] > depthOf[x]) {
+        gs[j + 1] = gs[j];
+        j--;
+      }
+      gs[j + 1] = x;
+    }
+  }
+}

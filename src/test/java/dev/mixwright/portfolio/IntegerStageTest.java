@@ -1,0 +1,103 @@
+package dev.mixwright.portfolio;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.space.VariantSpace;
+import dev.mixwright.testing.EnumeratedMip;
+import dev.mixwright.testing.RandomCatalogs;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The integer stage against the fully enumerated MIP (every buildable variant, solved by SCIP in one
+ * piece: {@link EnumeratedMip}) on small random catalogs with a portfolio section.
+ */
+class IntegerStageTest {
+  private static final int CASES = 60;
+
+  private static double tol(double x) {
+    return 1e-6 * (1 + Math.abs(x));
+  }
+
+  private static Catalog randomCatalog(int i) {
+    Random rnd = new Random(4000 + i);
+    Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(3), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
+        rnd.nextInt(7), true);
+    return i % 4 == 3 ? StageRuns.withTooling(c, rnd) : c;
+  }
+
+  @Test
+  void provenMeansTheEnumeratedOptimumAndTheBoundNeverFallsBelowIt() {
+    int proven = 0;
+    int compared = 0;
+    for (int i = 0; i < CASES; i++) {
+      VariantSpace space = new VariantSpace(randomCatalog(i));
+      PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
+      StageRuns.checkFeasible(space, o);
+      EnumeratedMip.Result full = EnumeratedMip.solve(space, false, 60_000); // SCIP over all variants
+      if (!full.optimal()) {
+        continue;
+      }
+      compared++;
+      String where = "case " + i + " (" + o.status().word() + " " + o.reason() + ")";
+      assertTrue(full.value() <= o.bound() + tol(full.value()), where + ": bound " + o.bound()
+          + " below the enumerated optimum " + full.value());
+      assertTrue(o.value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
+      if (o.status().isProven()) {
+        proven++;
+        assertEquals(full.value(), o.value(), tol(full.value()), where);
+      }
+    }
+    assertTrue(compared >= CASES * 9 / 10, "the reference should solve nearly every case");
+    assertTrue(proven >= compared * 3 / 4, "most small cases should be proven, got " + proven + " of " + compared);
+  }
+
+  @Test
+  void theRelaxationBoundIsNeverBelowTheIntegerOptimum() {
+    // property over a seeded series: bound ≥ relaxed optimum over all variants ≥ integer optimum
+    for (int i = 0; i < CASES; i++) {
+      VariantSpace space = new VariantSpace(randomCatalog(100 + i));
+      PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
+      EnumeratedMip.Result mip = EnumeratedMip.solve(space, false, 60_000);
+      EnumeratedMip.Result lp = EnumeratedMip.solve(space, true, 0); // GLOP, y in [0, 1]
+      String where = "case " + (100 + i);
+      double relaxBound = o.relaxation() == null ? o.bound() : o.relaxation().bound().value();
+      assertTrue(mip.bound() <= relaxBound + tol(mip.bound()), where + ": relaxation bound " + relaxBound
+          + " below the integer optimum " + mip.bound());
+      PortfolioTerms t = PortfolioTerms.of(space);
+      boolean noTooling = !t.hasTooling();
+      if (noTooling && t.variantCap() == t.maxVariants() && o.relaxation() != null) {
+        // without tooling and without a cap tightened by the lots, the relaxed master over the whole
+        // space is exactly the enumerated LP relaxation
+        assertTrue(lp.value() <= relaxBound + tol(lp.value()), where + ": below the full relaxation");
+        if (o.relaxation().converged()) {
+          assertEquals(lp.value(), o.relaxation().objective(), tol(lp.value()), where + ": converged value");
+        }
+      }
+    }
+  }
+
+  @Test
+  void aProofCutShortStaysHeuristicWithAValidBound() {
+    // a survivor limit of 0 leaves every survivor out of the pool, so only the bounds speak
+    int heuristic = 0;
+    for (int i = 0; i < 30; i++) {
+      VariantSpace space = new VariantSpace(randomCatalog(200 + i));
+      PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings().withSurvivorLimit(0));
+      StageRuns.checkFeasible(space, o);
+      EnumeratedMip.Result full = EnumeratedMip.solve(space, false, 60_000);
+      String where = "case " + (200 + i);
+      assertTrue(full.bound() <= o.bound() + tol(full.bound()), where + ": bound below the optimum");
+      assertTrue(o.value() <= full.value() + tol(full.value()), where);
+      if (!o.status().isProven()) {
+        heuristic++;
+        assertTrue(o.survivorsAdded() == 0 && !o.survivorsComplete(), where);
+      } else {
+        assertEquals(full.value(), o.value(), tol(full.value()), where);
+      }
+    }
+    assertTrue(heuristic > 5, "some of these need survivors, so they cannot be proven: " + heuristic);
+  }
+}

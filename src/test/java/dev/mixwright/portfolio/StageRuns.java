@@ -1,0 +1,115 @@
+package dev.mixwright.portfolio;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Group;
+import dev.mixwright.catalog.Option;
+import dev.mixwright.catalog.PortfolioSpec;
+import dev.mixwright.colgen.ColumnGeneration;
+import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.pricing.BranchAndBoundPricer;
+import dev.mixwright.space.VariantSpace;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.Random;
+
+/** Runs both stages on a catalog and checks a portfolio against the catalog figures. */
+final class StageRuns {
+  private StageRuns() {}
+
+  static SolveOutcome lp(VariantSpace space) {
+    return new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults()).run();
+  }
+
+  static PortfolioOutcome stage(VariantSpace space, PortfolioSettings settings) {
+    return new IntegerStage(space, settings).run(lp(space));
+  }
+
+  static PortfolioSettings settings() {
+    return PortfolioSettings.defaults().withTimeLimit(30_000);
+  }
+
+  /** A copy of c with new portfolio terms. */
+  static Catalog withTerms(Catalog c, double introductionCost, int maxVariants, double minLot) {
+    return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(),
+        c.segments(), Optional.of(new PortfolioSpec(introductionCost, maxVariants, minLot)));
+  }
+
+  /** A copy of c where about a third of the options carry a random tooling cost. */
+  static Catalog withTooling(Catalog c, Random rnd) {
+    List<Group> gs = new ArrayList<>();
+    for (Group g : c.groups()) {
+      List<Option> os = new ArrayList<>();
+      for (Option o : g.options()) {
+        double t = rnd.nextDouble() < 0.35 ? 50 + rnd.nextInt(400) : 0;
+        os.add(new Option(o.id(), o.label(), o.price(), o.cost(), o.uses(), t));
+      }
+      gs.add(new Group(g.id(), g.label(), g.required(), os));
+    }
+    return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), gs, c.rules(), c.segments(),
+        c.portfolio());
+  }
+
+  /**
+   * Checks that the portfolio is feasible and worth what it says, from the catalog figures alone:
+   * capacities, demands, share limits, minimum lots, the variant limit, and value = Σ margin · sales −
+   * introduction costs − tooling of the options used (each once).
+   */
+  static void checkFeasible(VariantSpace space, PortfolioOutcome o) {
+    Catalog c = space.catalog();
+    PortfolioSpec p = c.portfolio().orElseThrow();
+    double tol = 1e-6;
+    double[] used = new double[c.resources().size()];
+    double[] sold = new double[c.segments().size()];
+    double value = 0;
+    java.util.Set<Integer> tools = new java.util.HashSet<>();
+    assertTrue(o.variants().size() <= p.maxVariants(), "variant limit");
+    for (OfferedVariant v : o.variants()) {
+      assertTrue(space.isBuildable(v.choices()), "buildable");
+      double units = 0;
+      double[] a = space.use(v.choices());
+      for (int s = 0; s < sold.length; s++) {
+        double q = v.sales()[s];
+        if (q == 0) {
+          continue;
+        }
+        assertTrue(space.isColumn(v.choices(), s), "sold where accepted");
+        assertTrue(q >= -tol && q <= c.segments().get(s).columnBound() * (1 + tol) + tol, "share limit");
+        units += q;
+        sold[s] += q;
+        value += q * space.margin(v.choices(), s);
+        for (int r = 0; r < used.length; r++) {
+          used[r] += a[r] * q;
+        }
+      }
+      assertTrue(units >= p.minLot() * (1 - tol) - tol, "minimum lot: " + units + " < " + p.minLot());
+      value -= p.introductionCost();
+      for (int g = 0; g < v.choices().length; g++) {
+        if (v.choices()[g] < c.groups().get(g).options().size()
+            && c.groups().get(g).options().get(v.choices()[g]).tooling() > 0) {
+          tools.add(space.offset(g) + v.choices()[g]);
+        }
+      }
+    }
+    for (int f : tools) {
+      for (int g = 0; g < space.groupCount(); g++) {
+        if (f >= space.offset(g) && f < space.offset(g) + space.choiceCount(g)) {
+          value -= c.groups().get(g).options().get(f - space.offset(g)).tooling();
+        }
+      }
+    }
+    for (int r = 0; r < used.length; r++) {
+      double cap = c.resources().get(r).capacity();
+      assertTrue(used[r] <= cap * (1 + tol) + tol, "capacity of " + c.resources().get(r).id());
+    }
+    for (int s = 0; s < sold.length; s++) {
+      double d = c.segments().get(s).demand();
+      assertTrue(sold[s] <= d * (1 + tol) + tol, "demand of " + c.segments().get(s).id());
+    }
+    assertEquals(value, o.value(), 1e-6 * (1 + Math.abs(value)), "value from the catalog figures");
+  }
+}

@@ -1,0 +1,122 @@
+package dev.mixwright.portfolio;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.space.VariantKey;
+import dev.mixwright.space.VariantSpace;
+import dev.mixwright.testing.RandomCatalogs;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Random;
+import java.util.Set;
+import org.junit.jupiter.api.Test;
+
+/** The variant pricer against brute force: every variant listed, ψ from {@link BruteVariants#value}. */
+class VariantPricerTest {
+
+  record Scored(int[] v, double value) {}
+
+  private static double tol(double x) {
+    return Double.isInfinite(x) ? 0 : 1e-7 * (1 + Math.abs(x));
+  }
+
+  @Test
+  void kBestAboveThresholdOutsideTheExcludedSet() {
+    for (int i = 0; i < 250; i++) {
+      Random rnd = new Random(500 + i);
+      Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(5), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
+          rnd.nextInt(10), true);
+      VariantSpace space = new VariantSpace(c);
+      PortfolioTerms t = PortfolioTerms.of(space);
+      double[] pi = new double[space.resourceCount()];
+      for (int r = 0; r < pi.length; r++) {
+        pi[r] = rnd.nextDouble() < 0.4 ? 0 : rnd.nextDouble() * 8;
+      }
+      double[] mu = new double[space.segmentCount()];
+      for (int s = 0; s < mu.length; s++) {
+        mu[s] = rnd.nextDouble() < 0.5 ? 0 : rnd.nextDouble() * 20;
+      }
+      double charge = rnd.nextInt(300);
+      double[] penalty = null;
+      if (rnd.nextBoolean()) {
+        penalty = new double[space.totalChoices()];
+        for (int f = 0; f < penalty.length; f++) {
+          penalty[f] = rnd.nextDouble() < 0.3 ? rnd.nextInt(200) : 0;
+        }
+      }
+      List<Scored> all = new ArrayList<>();
+      for (int[] v : BruteVariants.all(space)) {
+        all.add(new Scored(v, BruteVariants.value(space, t, v, pi, mu, charge, penalty)));
+      }
+      all.sort(Comparator.comparingDouble(Scored::value).reversed());
+      Set<VariantKey> excluded = new HashSet<>();
+      for (Scored sc : all) {
+        if (rnd.nextDouble() < 0.2) {
+          excluded.add(space.key(sc.v()));
+        }
+      }
+      int k = 1 + rnd.nextInt(6);
+      double threshold = rnd.nextBoolean() ? Double.NEGATIVE_INFINITY
+          : all.isEmpty() ? 0 : all.get(rnd.nextInt(all.size())).value() - 1;
+      VariantPricing out = new VariantPricer(space, t).price(
+          new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0));
+      assertTrue(out.exact());
+      List<Scored> want = all.stream()
+          .filter(sc -> !excluded.contains(space.key(sc.v())) && sc.value() > threshold)
+          .limit(k).toList();
+      String where = "case " + i;
+      assertEquals(want.size(), out.found().size(), where);
+      Set<VariantKey> seen = new HashSet<>();
+      for (int j = 0; j < want.size(); j++) {
+        ValuedVariant got = out.found().get(j);
+        assertEquals(want.get(j).value(), got.value(), tol(got.value()), where);
+        double direct = BruteVariants.value(space, t, got.choices(), pi, mu, charge, penalty);
+        assertEquals(direct, got.value(), tol(direct), where);
+        assertTrue(space.isBuildable(got.choices()), where);
+        assertFalse(excluded.contains(space.key(got.choices())), where);
+        assertTrue(seen.add(space.key(got.choices())), where);
+      }
+      for (Scored sc : all) {
+        VariantKey key = space.key(sc.v());
+        if (!excluded.contains(key) && !seen.contains(key)) {
+          assertTrue(sc.value() <= out.restBound() + tol(sc.value()), where + ": rest bound");
+        }
+      }
+    }
+  }
+
+  @Test
+  void anEarlyStopKeepsAValidRestBound() {
+    int stopped = 0;
+    for (int i = 0; i < 120; i++) {
+      Random rnd = new Random(900 + i);
+      Catalog c = RandomCatalogs.random(rnd, 4 + rnd.nextInt(3), 4, 2, 2, rnd.nextInt(8), true);
+      VariantSpace space = new VariantSpace(c);
+      PortfolioTerms t = PortfolioTerms.of(space);
+      double[] pi = new double[space.resourceCount()];
+      for (int r = 0; r < pi.length; r++) {
+        pi[r] = rnd.nextDouble() * 5;
+      }
+      double[] mu = new double[space.segmentCount()];
+      VariantPricing out = new VariantPricer(space, t, 1 + rnd.nextInt(12)).price(
+          new VariantQuery(pi, mu, 0, null, Double.NEGATIVE_INFINITY, 3, Set.of(), 0));
+      if (!out.exact()) {
+        stopped++;
+      }
+      Set<VariantKey> found = new HashSet<>();
+      out.found().forEach(f -> found.add(space.key(f.choices())));
+      for (int[] v : BruteVariants.all(space)) {
+        double x = BruteVariants.value(space, t, v, pi, mu, 0, null);
+        if (!found.contains(space.key(v))) {
+          assertTrue(x <= out.restBound() + tol(x), "case " + i);
+        }
+      }
+    }
+    assertTrue(stopped > 20, "the node limit should stop many of these searches");
+  }
+}

@@ -1,0 +1,149 @@
+package dev.mixwright.testing;
+
+import com.google.ortools.linearsolver.MPConstraint;
+import com.google.ortools.linearsolver.MPObjective;
+import com.google.ortools.linearsolver.MPSolver;
+import com.google.ortools.linearsolver.MPSolverParameters;
+import com.google.ortools.linearsolver.MPVariable;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Option;
+import dev.mixwright.catalog.PortfolioSpec;
+import dev.mixwright.master.Natives;
+import dev.mixwright.space.VariantSpace;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Independent reference for the integer portfolio over the whole variant space, for tests only:
+ * every buildable variant listed by an odometer, the MIP of PRODUCT.md written out from the catalog
+ * figures and handed to SCIP (bundled with OR-Tools) in one piece — no pool, no pricing, no bound of
+ * the project's own.
+ *
+ * <pre>
+ *   max Σ m_vs x_vs − F Σ y_v − Σ_o T_o t_o
+ *   Σ a_rv x_vs ≤ b_r,  Σ_v x_vs ≤ D_s,  x_vs ≤ u_s y_v,  Σ_s x_vs ≥ L y_v,  Σ y_v ≤ K,  y_v ≤ t_o (o in v)
+ *   y, t ∈ {0,1} (or [0,1] for the relaxation),  x ≥ 0
+ * </pre>
+ */
+public final class EnumeratedMip {
+  private EnumeratedMip() {}
+
+  /** The optimum ({@code optimal} false when SCIP stopped at its time limit) and, for a MIP, what it offers. */
+  public record Result(double value, double bound, boolean optimal, List<int[]> offered) {}
+
+  public static Result solve(VariantSpace space, boolean relaxed, long timeLimitMs) {
+    Natives.load();
+    Catalog c = space.catalog();
+    PortfolioSpec p = c.portfolio().orElseThrow();
+    List<int[]> variants = new ArrayList<>();
+    int groups = space.groupCount();
+    int[] v = new int[groups];
+    boolean any = true;
+    for (int g = 0; g < groups; g++) {
+      any &= space.choiceCount(g) > 0;
+    }
+    while (any) {
+      boolean sold = false;
+      for (int s = 0; s < space.segmentCount(); s++) {
+        sold |= space.isColumn(v, s);
+      }
+      if (sold) {
+        variants.add(v.clone());
+      }
+      int g = groups - 1;
+      while (g >= 0 && ++v[g] == space.choiceCount(g)) {
+        v[g] = 0;
+        g--;
+      }
+      if (g < 0) {
+        break;
+      }
+    }
+    MPSolver solver = MPSolver.createSolver(relaxed ? "GLOP" : "SCIP");
+    MPSolverParameters params = new MPSolverParameters();
+    try {
+      solver.setNumThreads(1);
+      if (timeLimitMs > 0) {
+        solver.setTimeLimit(timeLimitMs);
+      }
+      MPObjective obj = solver.objective();
+      obj.setMaximization();
+      MPConstraint[] res = new MPConstraint[c.resources().size()];
+      for (int r = 0; r < res.length; r++) {
+        res[r] = solver.makeConstraint(Double.NEGATIVE_INFINITY, c.resources().get(r).capacity());
+      }
+      MPConstraint[] dem = new MPConstraint[c.segments().size()];
+      for (int s = 0; s < dem.length; s++) {
+        dem[s] = solver.makeConstraint(Double.NEGATIVE_INFINITY, c.segments().get(s).demand());
+      }
+      MPConstraint limit = p.maxVariants() == Integer.MAX_VALUE ? null
+          : solver.makeConstraint(Double.NEGATIVE_INFINITY, p.maxVariants());
+      Map<Integer, MPVariable> tools = new HashMap<>();
+      List<MPVariable> ys = new ArrayList<>();
+      for (int[] w : variants) {
+        MPVariable y = relaxed ? solver.makeNumVar(0, 1, "") : solver.makeBoolVar("");
+        ys.add(y);
+        obj.setCoefficient(y, -p.introductionCost());
+        if (limit != null) {
+          limit.setCoefficient(y, 1);
+        }
+        MPConstraint lot = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0);
+        lot.setCoefficient(y, p.minLot());
+        double[] a = space.use(w);
+        for (int s = 0; s < dem.length; s++) {
+          if (!space.isColumn(w, s)) {
+            continue;
+          }
+          double u = c.segments().get(s).maxShare() * c.segments().get(s).demand();
+          MPVariable x = solver.makeNumVar(0, Double.POSITIVE_INFINITY, "");
+          obj.setCoefficient(x, space.margin(w, s));
+          for (int r = 0; r < res.length; r++) {
+            res[r].setCoefficient(x, a[r]);
+          }
+          dem[s].setCoefficient(x, 1);
+          MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0);
+          link.setCoefficient(x, 1);
+          link.setCoefficient(y, -u);
+          lot.setCoefficient(x, -1);
+        }
+        for (int g = 0; g < groups; g++) {
+          if (w[g] >= c.groups().get(g).options().size()) {
+            continue; // none
+          }
+          Option o = c.groups().get(g).options().get(w[g]);
+          if (o.tooling() <= 0) {
+            continue;
+          }
+          int key = space.offset(g) + w[g];
+          MPVariable t = tools.computeIfAbsent(key, kk -> {
+            MPVariable z = relaxed ? solver.makeNumVar(0, 1, "") : solver.makeBoolVar("");
+            obj.setCoefficient(z, -o.tooling());
+            return z;
+          });
+          MPConstraint need = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0);
+          need.setCoefficient(y, 1);
+          need.setCoefficient(t, -1);
+        }
+      }
+      params.setDoubleParam(MPSolverParameters.DoubleParam.RELATIVE_MIP_GAP, 1e-9);
+      MPSolver.ResultStatus st = solver.solve(params);
+      if (st != MPSolver.ResultStatus.OPTIMAL && st != MPSolver.ResultStatus.FEASIBLE) {
+        throw new IllegalStateException("the enumerated portfolio model ended " + st);
+      }
+      List<int[]> offered = new ArrayList<>();
+      for (int i = 0; i < ys.size(); i++) {
+        if (ys.get(i).solutionValue() > 0.5) {
+          offered.add(variants.get(i));
+        }
+      }
+      double value = obj.value();
+      double bound = relaxed ? value : obj.bestBound();
+      return new Result(value, bound, st == MPSolver.ResultStatus.OPTIMAL, offered);
+    } finally {
+      params.delete();
+      solver.delete();
+    }
+  }
+}
