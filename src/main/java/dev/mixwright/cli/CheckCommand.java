@@ -25,8 +25,8 @@ import picocli.CommandLine.Spec;
     name = "check",
     mixinStandardHelpOptions = true,
     description = {
-      "Validates a catalog and describes it: groups, rules, resources, segments and the exact number",
-      "of buildable variants, in total and per segment. Every problem is named by its path in the file."
+      "Validates a catalog and describes it: groups, rules, resources, segments and the exact number of buildable variants, in total and per segment.",
+      "Every problem is named by its path in the file."
     })
 final class CheckCommand implements Callable<Integer> {
   @Spec CommandSpec spec;

@@ -26,9 +26,7 @@ import picocli.CommandLine.Spec;
     mixinStandardHelpOptions = true,
     description = {
       "Shows what changed from run A to run B.",
-      "Objective and bound, the catalog figures that differ, offers that are new,",
-      "dropped or sold in another quantity, and the shadow prices of resources",
-      "and segments."
+      "Objective and bound, the catalog figures that differ, offers that are new, dropped or sold in another quantity, and the shadow prices of resources and segments."
     })
 final class CompareCommand implements Callable<Integer> {
   @Spec CommandSpec spec;

@@ -30,9 +30,7 @@ import picocli.CommandLine.Spec;
     name = "explain",
     mixinStandardHelpOptions = true,
     description = {
-      "Shows why a variant pays or not in a segment at the run's shadow prices: its margin, what each",
-      "resource and the segment's demand charge it, its reduced cost, and the price change at which",
-      "it would enter the plan."
+      "Shows why a variant pays or not in a segment at the run's shadow prices: its margin, what each resource and the segment's demand charge it, its reduced cost, and the price change at which it would enter the plan."
     })
 final class ExplainCommand implements Callable<Integer> {
   @Spec CommandSpec spec;

@@ -3,6 +3,7 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.colgen.Durations;
+import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.portfolio.IntegerStage;
 import dev.mixwright.portfolio.PortfolioOutcome;
@@ -33,6 +34,14 @@ final class PortfolioRun {
     if (space.catalog().portfolio().isEmpty() || options.skip) {
       return;
     }
+    if (!lp.status().isOptimal()) {
+      // A stopped LP stage means a limit or a signal ended the run: the integer stage, which can
+      // take minutes, waits until 'resume' has finished the LP.
+      result.put("portfolioPending", lp.status() == RunStatus.STOPPED
+          ? "the LP stage stopped before its optimum; 'mixwright resume' finishes it and then runs the integer stage"
+          : "nothing can be sold, so there is no portfolio to choose");
+      return;
+    }
     ResultWriter.write(runDir, result);
     PortfolioSettings settings = options.settings();
     IntegerStage stage = new IntegerStage(space, settings).stopWhen(stop);
@@ -56,6 +65,9 @@ final class PortfolioRun {
   static void print(PrintWriter out, VariantSpace space, JsonNode result) {
     JsonNode p = result.get("portfolio");
     if (p == null) {
+      if (result.has("portfolioPending")) {
+        out.println("  integer portfolio   not run: " + result.get("portfolioPending").asText());
+      }
       return;
     }
     String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();

@@ -38,6 +38,7 @@ import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -47,12 +48,7 @@ import picocli.CommandLine.Spec;
     mixinStandardHelpOptions = true,
     description = {
       "Continues a stopped or cut-off run to the optimum of an uninterrupted run.",
-      "A run stopped by a limit, Ctrl-C or SIGTERM, or cut off by a crash, kill -9",
-      "or power loss: resume rebuilds the master from the run's column log,",
-      "keeps the bound it had proven and goes on to the optimum, appending to the",
-      "same column log. The final objective is the one an uninterrupted run",
-      "reaches. Refuses (exit 2) when the catalog file changed since the run",
-      "began, unless --reprice is given."
+      "A run stopped by a limit, Ctrl-C or SIGTERM, or cut off by a crash, kill -9 or power loss: resume rebuilds the master from the run's column log, keeps the bound it had proven and goes on to the optimum, appending to the same column log. The final objective is the one an uninterrupted run reaches. Refuses (exit 2) when the catalog file changed since the run began, unless --reprice is given."
     })
 final class ResumeCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
@@ -79,6 +75,8 @@ final class ResumeCommand implements Callable<Integer> {
       description = "progress on stderr: a live line on a terminal, else one line per round"
           + " (default: on when stderr is a terminal)")
   Boolean progress;
+
+  @Mixin PortfolioOptions portfolio;
 
   @Override
   public Integer call() throws Exception {
@@ -265,6 +263,8 @@ final class ResumeCommand implements Callable<Integer> {
       }
       ObjectNode result = ResultWriter.build(space, outcome, info);
       result.put("sessions", session);
+      PortfolioRun.attach(space, outcome, portfolio, runDir, result, shiftedStart,
+          Progress.choose(err, progress, "") != null ? err : null, signals.flag()::get);
       ResultWriter.write(runDir, result);
       Summary.print(out, space, outcome, result, runDir);
       return outcome.status().isOptimal() ? ExitCodes.OK : ExitCodes.STOPPED;

@@ -31,11 +31,7 @@ import picocli.CommandLine.Model.CommandSpec;
     mixinStandardHelpOptions = true,
     description = {
       "Finds the best LP plan over the whole variant space by column generation and proves it.",
-      "Writes RUN_DIR/result.json, RUN_DIR/columns.jsonl (one line per column added) and",
-      "RUN_DIR/catalog.json (the catalog as solved), RUN_DIR/run.json (what the run",
-      "is) and RUN_DIR/state.json (the loop's state after each round). Ctrl-C or",
-      "SIGTERM stops after the current round with status stopped (exit 1);",
-      "'mixwright resume RUN_DIR' continues such a run, or one cut off by a crash."
+      "Writes RUN_DIR/result.json, RUN_DIR/columns.jsonl (one line per column added) and RUN_DIR/catalog.json (the catalog as solved), RUN_DIR/run.json (what the run is) and RUN_DIR/state.json (the loop's state after each round). Ctrl-C or SIGTERM stops after the current round with status stopped (exit 1); 'mixwright resume RUN_DIR' continues such a run, or one cut off by a crash."
     })
 final class SolveCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
