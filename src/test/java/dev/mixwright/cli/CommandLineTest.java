@@ -172,6 +172,25 @@ class CommandLineTest {
   }
 
   @Test
+  void integerStageWaitsForTheLpAndResumeRunsIt(@TempDir Path dir) throws IOException {
+    Path out = dir.resolve("r");
+    CliRun s = CliRun.of("solve", STARTER.toString(), "--out", out.toString(), "--max-iterations", "1");
+    assertEquals(1, s.code(), s.err());
+    JsonNode r = JSON.readTree(out.resolve("result.json").toFile());
+    assertEquals("stopped", r.get("status").asText());
+    assertFalse(r.has("portfolio"), "no integer stage on an unfinished LP");
+    assertTrue(r.get("portfolioPending").asText().contains("resume"));
+    assertTrue(s.out().contains("integer portfolio   not run"), s.out());
+    CliRun again = CliRun.of("resume", out.toString());
+    assertEquals(0, again.code(), again.err());
+    JsonNode done = JSON.readTree(out.resolve("result.json").toFile());
+    assertEquals("optimal", done.get("status").asText());
+    JsonNode p = done.get("portfolio");
+    assertTrue(p != null && p.get("value").asDouble() > 0, done.toString());
+    assertTrue(p.get("bound").asDouble() >= p.get("value").asDouble() - 1e-6);
+  }
+
+  @Test
   void checkDescribesAValidCatalog() {
     CliRun c = CliRun.of("check", STARTER.toString());
     assertEquals(0, c.code(), c.err());
