@@ -25,8 +25,8 @@ final class Summary {
         ? "at most " + result.get("buildableVariantsAtMost").asText() : bv.asText()));
     out.println("  LP objective        " + Numbers.money(o.objective()) + cur);
     out.println("  proven bound        " + Numbers.money(o.bound()) + cur + "   gap " + Numbers.percent(o.gap()));
-    out.println(String.format(Locale.ROOT, "  rounds %d, columns generated %d, time %s",
-        o.iterations(), o.columnsGenerated(), Durations.format(result.get("elapsedMs").asLong())));
+    out.println(String.format(Locale.ROOT, "  rounds %d, columns generated %d, LP stage %s",
+        o.iterations(), o.columnsGenerated(), Durations.format(o.elapsedMs())));
     List<String> binding = new ArrayList<>();
     for (JsonNode r : result.get("resources")) {
       if (r.get("shadowPrice").asDouble() > 1e-9) {
