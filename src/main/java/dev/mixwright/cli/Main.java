@@ -10,7 +10,7 @@ import picocli.CommandLine.Command;
     mixinStandardHelpOptions = true,
     versionProvider = Version.class,
     description = "Designs a product range over the whole space of buildable variants by column generation.",
-    subcommands = {CheckCommand.class, SolveCommand.class, ExplainCommand.class, LogCommand.class, GenerateCommand.class},
+    subcommands = {CheckCommand.class, SolveCommand.class, ExplainCommand.class, LogCommand.class, GenerateCommand.class, BenchCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
       "0:success",
