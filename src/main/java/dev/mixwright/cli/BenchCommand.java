@@ -68,9 +68,8 @@ final class BenchCommand implements Callable<Integer> {
   @Option(names = "--quick", description = "small sizes only (columns 10^4 and 10^5, variants 10^9) and a short ablation")
   boolean quick;
 
-  @Option(names = "--ablation", negatable = true, defaultValue = "true",
-      description = "measure each acceleration on and off (default on)")
-  boolean ablation;
+  @Option(names = "--skip-ablation", description = "leave out the runs with each acceleration on and off")
+  boolean skipAblation;
 
   @Option(names = "--seed", paramLabel = "X", defaultValue = "1", description = "seed of the generated catalogs (default ${DEFAULT-VALUE})")
   long seed;
@@ -120,6 +119,12 @@ final class BenchCommand implements Callable<Integer> {
       large.add(byVariants(e));
     }
 
+    // Warm-up, untimed: the first calls of each path pay for class loading and the JIT.
+    Instance warm = instance("warm-up", CatalogGenerator.Spec.of(4, 5, 20, 6, 8, seed + 1));
+    fullLp(warm);
+    colgen(warm, SolveSettings.defaults());
+    pricerRound(warm, colgen(warm, SolveSettings.defaults()).outcome, false);
+
     line("## Full LP against column generation");
     line("");
     line("| instance | buildable variants | columns | (a) full LP build + solve | (b) column generation | ratio a/b "
@@ -160,12 +165,12 @@ final class BenchCommand implements Callable<Integer> {
     line("| instance | bnb per round | cpsat per round | ratio cpsat/bnb | same k best reduced costs | best reduced cost |");
     line("|---|---|---|---|---|---|");
     for (int i = 0; i < all.size(); i++) {
-      pricerRound(all.get(i), outcomes.get(i));
+      pricerRound(all.get(i), outcomes.get(i), true);
       out.flush();
     }
     line("");
 
-    if (ablation) {
+    if (!skipAblation) {
       List<Instance> subjects = new ArrayList<>();
       if (!instances.isEmpty()) {
         subjects.add(instances.get(instances.size() - 1));
@@ -181,36 +186,56 @@ final class BenchCommand implements Callable<Integer> {
 
   // ---- instances -------------------------------------------------------------------------
 
-  /** Full-LP family: 6 options, 20 resources, 6 segments, 3 rules per group; groups picked by size. */
+  /**
+   * Full-LP family: 20 resources, 6 segments, 3 rules per group, 4 to 8 options per group; groups
+   * and options picked so that the column count is closest to 10^exponent.
+   */
   private Instance byColumns(int exponent) {
-    return pick("columns 1e" + exponent, exponent, true, g -> CatalogGenerator.Spec.of(g, 6, 20, 6, 3 * g, seed));
+    return pick("columns 1e" + exponent, exponent, true, 4, 8, (g, k) -> CatalogGenerator.Spec.of(g, k, 20, 6, 3 * g, seed));
   }
 
-  /** Large family: 8 options, 20 resources, 6 segments, 4 rules per 10x of variants (100 at 10^25). */
+  /**
+   * Large family: 20 resources, 6 segments, 4 rules per power of ten of the space (100 at 10^25),
+   * 6 to 10 options per group; groups and options picked so that the buildable variants are
+   * closest to 10^exponent.
+   */
   private Instance byVariants(int exponent) {
     int rules = Math.max(1, Math.round(4f * exponent));
-    return pick("variants 1e" + exponent, exponent, false, g -> CatalogGenerator.Spec.of(g, 8, 20, 6, rules, seed));
+    return pick("variants 1e" + exponent, exponent, false, 6, 10, (g, k) -> CatalogGenerator.Spec.of(g, k, 20, 6, rules, seed));
   }
 
-  /** The group count whose size (columns or variants) is closest to 10^exponent on a log scale. */
-  private Instance pick(String label, int exponent, boolean byColumns, java.util.function.IntFunction<CatalogGenerator.Spec> specOf) {
-    double target = exponent;
+  /** The (groups, options) whose size (columns or variants) is closest to 10^exponent on a log scale. */
+  private Instance pick(String label, int exponent, boolean byColumns, int minOptions, int maxOptions,
+      java.util.function.BiFunction<Integer, Integer, CatalogGenerator.Spec> specOf) {
     Instance best = null;
     double bestDist = Double.POSITIVE_INFINITY;
-    int start = Math.max(2, (int) Math.floor(exponent / Math.log10(specOf.apply(2).options())) - 1);
-    for (int g = start; g < 10_000; g++) {
-      Instance in = instance(label, specOf.apply(g));
-      double size = log10(byColumns ? in.columns : in.variants.value());
-      double dist = Math.abs(size - target);
-      if (dist < bestDist) {
-        best = in;
-        bestDist = dist;
-      }
-      if (size > target) {
-        break;
+    for (int k = minOptions; k <= maxOptions; k++) {
+      // rules only remove variants, so k^g >= 10^exponent needs at least this many groups
+      int start = Math.max(2, (int) Math.floor(exponent / Math.log10(k)) - (byColumns ? 1 : 0));
+      for (int g = start; g < 10_000; g++) {
+        Instance in = instance(label, specOf.apply(g, k));
+        double size = log10(byColumns ? in.columns : in.variants.value());
+        double dist = Math.abs(size - exponent);
+        if (dist < bestDist) {
+          best = in;
+          bestDist = dist;
+        }
+        if (size > exponent) {
+          break;
+        }
       }
     }
+    CatalogGenerator.Spec sp = best.spec;
+    note(String.format(Locale.ROOT, "%s: %d groups x %d options, %d rules: %s variants, %s columns", label,
+        sp.groups(), sp.options(), sp.rules(), sci(best.variants.value()), sci(best.columns)));
     return best;
+  }
+
+  /** Progress for the person waiting, on stderr, so the tables on stdout stay clean. */
+  private void note(String text) {
+    PrintWriter err = spec.commandLine().getErr();
+    err.println("bench: " + text);
+    err.flush();
   }
 
   private static Instance instance(String label, CatalogGenerator.Spec spec) {
@@ -279,7 +304,7 @@ final class BenchCommand implements Callable<Integer> {
 
   // ---- pricers ----------------------------------------------------------------------------
 
-  private void pricerRound(Instance in, SolveOutcome o) {
+  private void pricerRound(Instance in, SolveOutcome o, boolean print) {
     VariantSpace space = in.space;
     List<Set<VariantKey>> inMaster = new ArrayList<>();
     for (int s = 0; s < space.segmentCount(); s++) {
@@ -315,6 +340,9 @@ final class BenchCommand implements Callable<Integer> {
       // The whole point of the cross-check: two exact pricers that disagree is a bug to report.
       line("| " + in.label + " | " + secs(tb) + " | " + secs(tc) + " | – | **NO: the pricers disagree** | – |");
       throw new IllegalStateException("bnb and cpsat disagree on the k best of " + in.label);
+    }
+    if (!print) {
+      return;
     }
     line(String.format(Locale.ROOT, "| %s | %s | %s | %.1f | yes | %s |", in.label, secs(tb), secs(tc),
         (double) tc / Math.max(1, tb), money(best)));

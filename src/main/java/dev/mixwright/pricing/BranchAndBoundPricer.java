@@ -63,20 +63,35 @@ public final class BranchAndBoundPricer implements Pricer {
   private long nodes;
   private double openBound;
 
+  /** Largest total size of the bucket-elimination tables, in doubles (2 MiB). */
+  public static final long DEFAULT_TABLE_LIMIT = 1L << 18;
+
+  private final BucketSearch bucket;
+
   public BranchAndBoundPricer(VariantSpace space) {
     this(space, Long.MAX_VALUE);
+  }
+
+  public BranchAndBoundPricer(VariantSpace space, long nodeLimit) {
+    this(space, nodeLimit, DEFAULT_TABLE_LIMIT);
   }
 
   /**
    * @param nodeLimit most search nodes (choices tried) per query; when reached the outcome is not
    *     exact but keeps a valid upper bound. {@code Long.MAX_VALUE} for none.
+   * @param tableLimit most doubles the exact bound's tables may hold in all; above it (or at 0) the
+   *     search bounds by forward checking instead
    */
-  public BranchAndBoundPricer(VariantSpace space, long nodeLimit) {
+  public BranchAndBoundPricer(VariantSpace space, long nodeLimit, long tableLimit) {
     if (nodeLimit < 1) {
       throw new IllegalArgumentException("nodeLimit must be >= 1");
     }
+    if (tableLimit < 0) {
+      throw new IllegalArgumentException("tableLimit must be >= 0");
+    }
     this.space = space;
     this.nodeLimit = nodeLimit;
+    this.bucket = tableLimit == 0 ? null : BucketSearch.plan(space, tableLimit);
     this.groups = space.groupCount();
     this.offset = space.offsets();
     int total = space.totalChoices();
@@ -150,12 +165,20 @@ public final class BranchAndBoundPricer implements Pricer {
 
   /** The group order of the search (a copy), for logs and tests. */
   public int[] groupOrder() {
-    return order.clone();
+    return bucket != null ? bucket.order() : order.clone();
+  }
+
+  /** Whether the exact bucket-elimination bound is used (its tables fit the limit). */
+  public boolean exactBound() {
+    return bucket != null;
   }
 
   @Override
   public PricingOutcome price(PricingQuery q) {
     QueryChecks.check(space, q);
+    if (bucket != null) {
+      return bucket.price(q, nodeLimit);
+    }
     w = q.weight();
     constant = q.constant();
     threshold = q.threshold();
