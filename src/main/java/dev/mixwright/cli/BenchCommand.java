@@ -135,6 +135,7 @@ final class BenchCommand implements Callable<Integer> {
     List<Instance> all = new ArrayList<>(instances);
     all.addAll(large);
     for (Instance in : all) {
+      note("full LP against column generation: " + in.label);
       boolean withFull = instances.contains(in);
       FullRun a = withFull ? fullLp(in) : null;
       CgRun b = colgen(in, SolveSettings.defaults());
@@ -293,9 +294,14 @@ final class BenchCommand implements Callable<Integer> {
   record CgRun(long nanos, SolveOutcome outcome, RunStats stats, long peakHeap) {}
 
   private CgRun colgen(Instance in, SolveSettings settings) {
+    return colgen(in, settings, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
+  }
+
+  /** @param tableLimit of the branch-and-bound pricer; 0 for its forward-checking bound alone */
+  private CgRun colgen(Instance in, SolveSettings settings, long tableLimit) {
     quiet();
     long t0 = System.nanoTime();
-    ColumnGeneration cg = new ColumnGeneration(in.space, new BranchAndBoundPricer(in.space),
+    ColumnGeneration cg = new ColumnGeneration(in.space, new BranchAndBoundPricer(in.space, Long.MAX_VALUE, tableLimit),
         new HeuristicPricer(in.space), settings, null, t0);
     SolveOutcome o = cg.run(List.of());
     long t1 = System.nanoTime();
@@ -403,6 +409,11 @@ final class BenchCommand implements Callable<Integer> {
       names.add("retire never");
       variants.add(base.withRetireAfter(0));
     }
+    // The pricer's exact tables switched off; a time limit, because without them the large
+    // instances can take hours.
+    int forwardOnly = variants.size();
+    names.add("bnb without its exact tables (forward checking only; 120 s limit)");
+    variants.add(base.withLimits(120_000, 0));
     line("## Each acceleration on and off");
     line("");
     line("Column generation with the defaults (" + describe(base) + ") and with one switch changed. "
@@ -414,7 +425,8 @@ final class BenchCommand implements Callable<Integer> {
     line("|---|---|---|---|---|---|---|---|---|---|---|---|");
     for (Instance in : subjects) {
       for (int i = 0; i < variants.size(); i++) {
-        CgRun r = colgen(in, variants.get(i));
+        note("ablation: " + in.label + ", " + names.get(i));
+        CgRun r = colgen(in, variants.get(i), i == forwardOnly ? 0 : BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
         RunStats st = r.stats;
         line(String.format(Locale.ROOT, "| %s | %s | %s | %d | %s | %s / %s | %s | %d | %d | %d | %d | %s |",
             in.label, names.get(i), r.outcome.status().word(), r.outcome.iterations(), secs(r.nanos),
