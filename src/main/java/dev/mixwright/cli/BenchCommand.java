@@ -123,7 +123,7 @@ final class BenchCommand implements Callable<Integer> {
     Instance warm = instance("warm-up", CatalogGenerator.Spec.of(4, 5, 20, 6, 8, seed + 1));
     fullLp(warm);
     colgen(warm, SolveSettings.defaults());
-    pricerRound(warm, colgen(warm, SolveSettings.defaults()).outcome, false);
+    pricerRound(warm, colgen(warm, SolveSettings.defaults()).outcome, Double.NEGATIVE_INFINITY, "", false);
 
     line("## Full LP against column generation");
     line("");
@@ -159,14 +159,21 @@ final class BenchCommand implements Callable<Integer> {
 
     line("## Exact pricers on the same duals");
     line("");
-    line("One exact round at the final master duals of column generation: every segment priced for the "
-        + SolveSettings.DEFAULT_PER_ROUND + " best columns outside the master. Median of " + repeats
-        + " timed rounds after one untimed warm-up round.");
+    line("One exact round, every segment priced for the " + SolveSettings.DEFAULT_PER_ROUND
+        + " best columns outside the master, by both pricers on the same query. Mid-run: the master's"
+        + " duals after half the rounds of the default run, columns of reduced cost above 0 wanted."
+        + " Final: the final duals, the best columns whatever their sign (so there is a best reduced"
+        + " cost to compare). Median of " + repeats + " timed rounds after one untimed warm-up round.");
     line("");
-    line("| instance | bnb per round | cpsat per round | ratio cpsat/bnb | same k best reduced costs | best reduced cost |");
-    line("|---|---|---|---|---|---|");
+    line("| instance | round | bnb per round | cpsat per round | ratio cpsat/bnb | same k best reduced costs | best reduced cost |");
+    line("|---|---|---|---|---|---|---|");
     for (int i = 0; i < all.size(); i++) {
-      pricerRound(all.get(i), outcomes.get(i), true);
+      Instance in = all.get(i);
+      note("pricers: " + in.label);
+      int half = Math.max(1, outcomes.get(i).iterations() / 2);
+      SolveOutcome mid = colgen(in, SolveSettings.defaults().withLimits(0, half)).outcome;
+      pricerRound(in, mid, 0.0, "mid-run (after " + half + " rounds)", true);
+      pricerRound(in, outcomes.get(i), Double.NEGATIVE_INFINITY, "final", true);
       out.flush();
     }
     line("");
@@ -310,7 +317,7 @@ final class BenchCommand implements Callable<Integer> {
 
   // ---- pricers ----------------------------------------------------------------------------
 
-  private void pricerRound(Instance in, SolveOutcome o, boolean print) {
+  private void pricerRound(Instance in, SolveOutcome o, double threshold, String which, boolean print) {
     VariantSpace space = in.space;
     List<Set<VariantKey>> inMaster = new ArrayList<>();
     for (int s = 0; s < space.segmentCount(); s++) {
@@ -320,7 +327,7 @@ final class BenchCommand implements Callable<Integer> {
     List<PricingQuery> round = new ArrayList<>();
     for (int s = 0; s < space.segmentCount(); s++) {
       round.add(ReducedCosts.query(space, s, o.resourceDual(), o.segmentDual()[s], SolveSettings.DEFAULT_PER_ROUND,
-          Double.NEGATIVE_INFINITY, inMaster.get(s)));
+          threshold, inMaster.get(s)));
     }
     Pricer bnb = new BranchAndBoundPricer(space);
     Pricer cpsat = new CpSatPricer(space);
@@ -344,14 +351,14 @@ final class BenchCommand implements Callable<Integer> {
     }
     if (!same) {
       // The whole point of the cross-check: two exact pricers that disagree is a bug to report.
-      line("| " + in.label + " | " + secs(tb) + " | " + secs(tc) + " | – | **NO: the pricers disagree** | – |");
+      line("| " + in.label + " | " + which + " | " + secs(tb) + " | " + secs(tc) + " | – | **NO: the pricers disagree** | – |");
       throw new IllegalStateException("bnb and cpsat disagree on the k best of " + in.label);
     }
     if (!print) {
       return;
     }
-    line(String.format(Locale.ROOT, "| %s | %s | %s | %.1f | yes | %s |", in.label, secs(tb), secs(tc),
-        (double) tc / Math.max(1, tb), money(best)));
+    line(String.format(Locale.ROOT, "| %s | %s | %s | %s | %.1f | yes | %s |", in.label, which, secs(tb), secs(tc),
+        (double) tc / Math.max(1, tb), best == Double.NEGATIVE_INFINITY ? "none above 0" : money(best)));
   }
 
   private static List<PricingOutcome> priceRound(Pricer p, List<PricingQuery> round) {

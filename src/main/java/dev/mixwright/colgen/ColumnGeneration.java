@@ -32,7 +32,18 @@ import java.util.Set;
  *   z_LP ≤ z_RM + Σ_s demand_s · max(0, d̄_s)
  *   d̄_s = an upper bound on d over the columns of s NOT in the master. Master columns at their upper
  *   bound keep d > 0 legitimately; counting them would leave a gap that never closes.
+ * Bound for any resource prices y ≥ 0 (see {@link LagrangianBound}), used at every exact round and
+ * the only one valid at smoothed duals:
+ *   UB(y) = Σ_r y_r·capacity_r + Σ_s K_s(y),  K_s = continuous knapsack of segment s by m_j − a_j·y
  * </pre>
+ *
+ * <p>Accelerations, each a switch of {@link SolveSettings}: k columns per segment per round; a
+ * heuristic pricer tried first; Wentges smoothing (Wentges 1997, ITOR 4(2)) — price at
+ * α·y_best + (1 − α)·π_RM, where y_best gave the best Lagrangian bound so far — with the mispricing
+ * safeguard of Pessoa, Sadykov, Uchoa &amp; Vanderbeck 2018 (INFORMS JOC 30(2)): when no column
+ * found at the smoothed point pays at the master's duals, price again with α_k = max(0, 1 − k(1 −
+ * α)), down to the master's own duals; and retirement of columns idle for some rounds (bounds set to
+ * 0; pricing may bring them back). The master re-solves warm from its last basis.
  *
  * Each round costs one warm-started master re-solve plus one pricing call per segment; the number of
  * rounds is not bounded polynomially in general but is small in practice (measured in

@@ -9,9 +9,16 @@ import java.util.List;
 import java.util.Set;
 
 /**
- * Exact k-best pricing by depth-first branch-and-bound with forward checking; the default pricer.
+ * Exact k-best pricing by depth-first branch-and-bound; the default pricer.
  *
- * <p>Groups are assigned in one order fixed per space; a partial variant is bounded by its score plus,
+ * <p>When the tables of bucket elimination over the rule graph fit {@code tableLimit} (they do for
+ * rules among nearby groups, i.e. small induced width), the bound is exact: see {@link
+ * BucketSearch}. Measured on a generated catalog with 7.7e24 variants, 100 rules and 20 resources,
+ * the whole solve took 4.9 s with it against more than 2 minutes (stopped at a 2.4 % gap) with
+ * forward checking alone, whose relaxation ignores the rules among unassigned groups. Otherwise the
+ * search below runs.
+ *
+ * <p>Forward-checking search: groups are assigned in one order fixed per space; a partial variant is bounded by its score plus,
  * for every unassigned group, the best choice still in that group's domain ("best option per
  * remaining group", the relaxation that drops the rules among unassigned groups). Forward checking:
  * once every group of a nogood but its last (in the search order) is assigned and holds a member

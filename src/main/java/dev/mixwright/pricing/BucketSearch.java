@@ -42,6 +42,11 @@ final class BucketSearch {
   private final Nogood[] nogoods;
   private final int[] elimination;
   private final long tableEntries;
+  private final int[][] strideOfX; // per group x: the stride of x in each incoming message's scope
+  private final int[][] memberChoices; // per nogood: member choices (indices) of its deepest group
+  private final int[] usableOf;
+  private final int[] incomingBase;
+  private final boolean[] blockedChoice;
 
   // per query
   private final int[] v;
@@ -132,6 +137,42 @@ final class BucketSearch {
       }
       crossing[d] = c.stream().mapToInt(Integer::intValue).toArray();
     }
+    strideOfX = new int[groups][];
+    int maxIn = 0;
+    int maxChoices = 1;
+    for (int g = 0; g < groups; g++) {
+      strideOfX[g] = new int[incoming[g].length];
+      for (int k = 0; k < incoming[g].length; k++) {
+        int y = incoming[g][k];
+        for (int i = 0; i < scope[y].length; i++) {
+          if (scope[y][i] == g) {
+            strideOfX[g][k] = stride[y][i];
+          }
+        }
+      }
+      maxIn = Math.max(maxIn, incoming[g].length);
+      maxChoices = Math.max(maxChoices, space.choiceCount(g));
+    }
+    memberChoices = new int[nogoods.length][];
+    for (int n = 0; n < nogoods.length; n++) {
+      int deepest = -1;
+      for (int h : nogoods[n].groups()) {
+        if (deepest < 0 || depthOf[h] > depthOf[deepest]) {
+          deepest = h;
+        }
+      }
+      int[] list = new int[space.choiceCount(deepest)];
+      int c = 0;
+      for (int k = 0; k < list.length; k++) {
+        if (nogoods[n].member()[offset[deepest] + k]) {
+          list[c++] = k;
+        }
+      }
+      memberChoices[n] = Arrays.copyOf(list, c);
+    }
+    usableOf = new int[maxChoices];
+    incomingBase = new int[maxIn];
+    blockedChoice = new boolean[maxChoices];
     v = new int[groups];
     candChoice = new int[groups][];
     candBound = new double[groups][];
@@ -255,40 +296,70 @@ final class BucketSearch {
     return out;
   }
 
-  /** Fills m_x over every assignment of its scope (an odometer over the scope's groups). */
+  /**
+   * Fills m_x over every assignment of its scope (an odometer over the scope's groups). Per
+   * assignment the part of each incoming message's index that does not depend on x, and the choices
+   * of x that the bucket's nogoods block, are found once; the loop over x's choices then only adds.
+   */
   private void eliminate(int x) {
     int[] s = scope[x];
     double[] m = table[x];
     int base = offset[x];
-    int choices = space.choiceCount(x);
     int[] in = incoming[x];
+    int[] xs = strideOfX[x];
     int[] ng = bucketNogoods[x];
+    int nu = 0;
+    int[] uc = usableOf;
+    for (int c = 0; c < space.choiceCount(x); c++) {
+      if (QueryChecks.usable(space, w, base + c)) {
+        uc[nu++] = c;
+      }
+    }
+    int[] partial = incomingBase;
+    boolean[] blockedC = blockedChoice;
     for (int h : s) {
       v[h] = 0;
     }
     for (int idx = 0; idx < m.length; idx++) {
-      double best = Double.NEGATIVE_INFINITY;
-      for (int c = 0; c < choices; c++) {
-        int f = base + c;
-        if (!QueryChecks.usable(space, w, f)) {
-          continue;
-        }
-        v[x] = c;
-        if (violates(ng)) {
-          continue;
-        }
-        double val = w[f];
-        for (int y : in) {
-          val += table[y][index(y)];
-          if (val == Double.NEGATIVE_INFINITY) {
-            break;
+      for (int k = 0; k < in.length; k++) {
+        int y = in[k];
+        int[] sy = scope[y];
+        int[] st = stride[y];
+        int b = 0;
+        for (int i = 0; i < sy.length; i++) {
+          if (sy[i] != x) {
+            b += st[i] * v[sy[i]];
           }
+        }
+        partial[k] = b;
+      }
+      boolean anyBlocked = false;
+      for (int n : ng) {
+        if (othersMatch(n, x)) {
+          for (int c : memberChoices[n]) {
+            blockedC[c] = true;
+          }
+          anyBlocked = true;
+        }
+      }
+      double best = Double.NEGATIVE_INFINITY;
+      for (int i = 0; i < nu; i++) {
+        int c = uc[i];
+        if (anyBlocked && blockedC[c]) {
+          continue;
+        }
+        double val = w[base + c];
+        for (int k = 0; k < in.length; k++) {
+          val += table[in[k]][partial[k] + xs[k] * c];
         }
         if (val > best) {
           best = val;
         }
       }
       m[idx] = best;
+      if (anyBlocked) {
+        Arrays.fill(blockedC, false);
+      }
       // next assignment of the scope, last group fastest (matches the strides)
       for (int i = s.length - 1; i >= 0; i--) {
         int h = s[i];
@@ -298,6 +369,18 @@ final class BucketSearch {
         v[h] = 0;
       }
     }
+  }
+
+  /** Whether every group of nogood n other than x holds a member choice. */
+  private boolean othersMatch(int n, int x) {
+    Nogood ng = nogoods[n];
+    boolean[] member = ng.member();
+    for (int g : ng.groups()) {
+      if (g != x && !member[offset[g] + v[g]]) {
+        return false;
+      }
+    }
+    return true;
   }
 
   private int index(int y) {
