@@ -43,6 +43,11 @@ final class BucketSearch {
   private final int[] elimination;
   private final long tableEntries;
   private final int[][] strideOfX; // per group x: the stride of x in each incoming message's scope
+  private final int[][][] stepDelta; // per group x, scope position i: index change of each incoming message when i steps
+  private final int[][] crossWith; // per depth d: messages of crossing[d + 1] whose scope holds order[d]
+  private final int[][] crossWithStride; // ... and the stride of order[d] in each
+  private final int[][] crossWithout; // per depth d: the other messages of crossing[d + 1]
+  private final int[][] crossBase; // per depth d: scratch for the index bases of crossWith[d]
   private final int[][] memberChoices; // per nogood: member choices (indices) of its deepest group
   private final int[] usableOf;
   private final int[] incomingBase;
@@ -169,6 +174,60 @@ final class BucketSearch {
         }
       }
       memberChoices[n] = Arrays.copyOf(list, c);
+    }
+    crossWith = new int[groups][];
+    crossWithStride = new int[groups][];
+    crossWithout = new int[groups][];
+    crossBase = new int[groups][];
+    for (int d = 0; d < groups; d++) {
+      int x = order[d];
+      List<Integer> with = new ArrayList<>();
+      List<Integer> withStride = new ArrayList<>();
+      List<Integer> without = new ArrayList<>();
+      for (int y : crossing[d + 1]) {
+        int st = -1;
+        for (int i = 0; i < scope[y].length; i++) {
+          if (scope[y][i] == x) {
+            st = stride[y][i];
+          }
+        }
+        if (st >= 0) {
+          with.add(y);
+          withStride.add(st);
+        } else {
+          without.add(y);
+        }
+      }
+      crossWith[d] = with.stream().mapToInt(Integer::intValue).toArray();
+      crossWithStride[d] = withStride.stream().mapToInt(Integer::intValue).toArray();
+      crossWithout[d] = without.stream().mapToInt(Integer::intValue).toArray();
+      crossBase[d] = new int[with.size()];
+    }
+    stepDelta = new int[groups][][];
+    for (int g = 0; g < groups; g++) {
+      int[] sc = scope[g];
+      int[] inc = incoming[g];
+      int[][] strideIn = new int[inc.length][sc.length];
+      for (int k = 0; k < inc.length; k++) {
+        int y = inc[k];
+        for (int i = 0; i < sc.length; i++) {
+          for (int j = 0; j < scope[y].length; j++) {
+            if (scope[y][j] == sc[i]) {
+              strideIn[k][i] = stride[y][j];
+            }
+          }
+        }
+      }
+      stepDelta[g] = new int[sc.length][inc.length];
+      for (int i = 0; i < sc.length; i++) {
+        for (int k = 0; k < inc.length; k++) {
+          int delta = strideIn[k][i];
+          for (int j = i + 1; j < sc.length; j++) {
+            delta -= strideIn[k][j] * (space.choiceCount(sc[j]) - 1);
+          }
+          stepDelta[g][i][k] = delta;
+        }
+      }
     }
     usableOf = new int[maxChoices];
     incomingBase = new int[maxIn];
@@ -320,19 +379,10 @@ final class BucketSearch {
     for (int h : s) {
       v[h] = 0;
     }
+    // index bases of the incoming messages with x at 0, kept up to date as the odometer steps
+    Arrays.fill(partial, 0, in.length, 0);
+    int[][] delta = stepDelta[x];
     for (int idx = 0; idx < m.length; idx++) {
-      for (int k = 0; k < in.length; k++) {
-        int y = in[k];
-        int[] sy = scope[y];
-        int[] st = stride[y];
-        int b = 0;
-        for (int i = 0; i < sy.length; i++) {
-          if (sy[i] != x) {
-            b += st[i] * v[sy[i]];
-          }
-        }
-        partial[k] = b;
-      }
       boolean anyBlocked = false;
       for (int n : ng) {
         if (othersMatch(n, x)) {
@@ -364,6 +414,10 @@ final class BucketSearch {
       for (int i = s.length - 1; i >= 0; i--) {
         int h = s[i];
         if (++v[h] < space.choiceCount(h)) {
+          int[] dk = delta[i];
+          for (int k = 0; k < in.length; k++) {
+            partial[k] += dk[k];
+          }
           break;
         }
         v[h] = 0;
@@ -422,6 +476,18 @@ final class BucketSearch {
     double[] cb = candBound[x];
     int n = 0;
     double cutoff = top.cutoff(threshold);
+    // Messages that do not see x add the same to every child; the others differ by a stride of x.
+    double fixed = partial;
+    for (int y : crossWithout[d]) {
+      fixed += table[y][index(y)];
+    }
+    int[] with = crossWith[d];
+    int[] withStride = crossWithStride[d];
+    int[] wb = crossBase[d];
+    v[x] = 0;
+    for (int k = 0; k < with.length; k++) {
+      wb[k] = index(with[k]);
+    }
     for (int c = 0; c < space.choiceCount(x); c++) {
       int f = base + c;
       if (!QueryChecks.usable(space, w, f)) {
@@ -431,7 +497,10 @@ final class BucketSearch {
       if (violates(bucketNogoods[x])) {
         continue;
       }
-      double b = partial + w[f] + crossingSum(d + 1);
+      double b = fixed + w[f];
+      for (int k = 0; k < with.length; k++) {
+        b += table[with[k]][wb[k] + withStride[k] * c];
+      }
       if (b + slack(b) > cutoff) {
         // insertion by bound, best first
         int p = n++;
