@@ -388,7 +388,7 @@ final class BenchCommand implements Callable<Integer> {
     List<SolveSettings> variants = new ArrayList<>();
     names.add("defaults");
     variants.add(base);
-    for (int k : quick ? new int[] {1, 10} : new int[] {1, 2, 10, 20}) {
+    for (int k : quick ? new int[] {1, 10} : new int[] {1, 2, 5, 10, 20}) {
       if (k != base.perRound()) {
         names.add("columns per round " + k);
         variants.add(base.withPerRound(k));
