@@ -12,8 +12,11 @@ import java.util.Set;
  * Exact k-best pricing by depth-first branch-and-bound; the default pricer.
  *
  * <p>When the tables of bucket elimination over the rule graph fit {@code tableLimit} (they do for
- * rules among nearby groups, i.e. small induced width), the bound is exact: see {@link
- * BucketSearch}. Measured on a generated catalog with 7.7e24 variants, 100 rules and 20 resources,
+ * rules among nearby groups, i.e. small induced width), a query first runs the forward-checking
+ * search below on a node budget of an eighth of the tables' size, and when that runs out, the search with
+ * the exact bound of {@link BucketSearch}: the first wins when its bound prunes well (measured: 0.4 s
+ * against 4.2 s of pricing on one generated catalog with 30 groups, whose tables hold 493,025
+ * entries), the second when it does not. Measured on a generated catalog with 7.7e24 variants, 100 rules and 20 resources,
  * the whole solve took 4.9 s with it against more than 2 minutes (stopped at a 2.4 % gap) with
  * forward checking alone, whose relaxation ignores the rules among unassigned groups. Otherwise the
  * search below runs.
@@ -68,12 +71,14 @@ public final class BranchAndBoundPricer implements Pricer {
   private Set<VariantKey> excluded;
   private TopK top;
   private long nodes;
+  private long limit;
   private double openBound;
 
-  /** Largest total size of the bucket-elimination tables, in doubles (2 MiB). */
-  public static final long DEFAULT_TABLE_LIMIT = 1L << 18;
+  /** Largest total size of the bucket-elimination tables, in doubles (8 MiB). */
+  public static final long DEFAULT_TABLE_LIMIT = 1L << 20;
 
   private final BucketSearch bucket;
+  private final boolean tablesOnly;
 
   public BranchAndBoundPricer(VariantSpace space) {
     this(space, Long.MAX_VALUE);
@@ -90,6 +95,11 @@ public final class BranchAndBoundPricer implements Pricer {
    *     search bounds by forward checking instead
    */
   public BranchAndBoundPricer(VariantSpace space, long nodeLimit, long tableLimit) {
+    this(space, nodeLimit, tableLimit, false);
+  }
+
+  /** {@code tablesOnly}: skip the forward-checking try when the tables fit (for tests of the tables). */
+  BranchAndBoundPricer(VariantSpace space, long nodeLimit, long tableLimit, boolean tablesOnly) {
     if (nodeLimit < 1) {
       throw new IllegalArgumentException("nodeLimit must be >= 1");
     }
@@ -99,6 +109,7 @@ public final class BranchAndBoundPricer implements Pricer {
     this.space = space;
     this.nodeLimit = nodeLimit;
     this.bucket = tableLimit == 0 ? null : BucketSearch.plan(space, tableLimit);
+    this.tablesOnly = tablesOnly;
     this.groups = space.groupCount();
     this.offset = space.offsets();
     int total = space.totalChoices();
@@ -183,9 +194,23 @@ public final class BranchAndBoundPricer implements Pricer {
   @Override
   public PricingOutcome price(PricingQuery q) {
     QueryChecks.check(space, q);
-    if (bucket != null) {
-      return bucket.price(q, nodeLimit);
+    if (bucket == null) {
+      return forwardChecking(q, nodeLimit);
     }
+    // Forward checking first, on a budget of about the work of filling the tables (a node costs some
+    // eight table entries): the faster of the two when its bound prunes well; else the tables take over.
+    long budget = Math.max(1000, bucket.tableEntries() / 8);
+    if (!tablesOnly && budget < nodeLimit) {
+      PricingOutcome quick = forwardChecking(q, budget);
+      if (quick.exact()) {
+        return quick;
+      }
+    }
+    return bucket.price(q, nodeLimit);
+  }
+
+  private PricingOutcome forwardChecking(PricingQuery q, long nodeBudget) {
+    limit = nodeBudget;
     w = q.weight();
     constant = q.constant();
     threshold = q.threshold();
@@ -274,7 +299,7 @@ public final class BranchAndBoundPricer implements Pricer {
       if (head + restBefore <= cutoff) {
         break; // later choices weigh no more
       }
-      if (nodes >= nodeLimit) {
+      if (nodes >= limit) {
         openBound = Math.max(openBound, head + restBefore); // covers the later siblings too
         return false;
       }
