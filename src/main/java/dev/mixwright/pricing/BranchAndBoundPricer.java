@@ -11,19 +11,20 @@ import java.util.Set;
 /**
  * Exact k-best pricing by depth-first branch-and-bound; the default pricer.
  *
- * <p>When the tables of bucket elimination over the rule graph fit {@code tableLimit} (they do for
- * rules among nearby groups, i.e. small induced width), a query first runs the forward-checking
- * search below on a node budget of an eighth of the tables' size, and when that runs out, the search with
- * the exact bound of {@link BucketSearch}: the first wins when its bound prunes well (measured: 0.4 s
- * against 4.2 s of pricing on one generated catalog with 30 groups, whose tables hold 493,025
- * entries), the second when it does not. Measured on a generated catalog with 7.7e24 variants, 100 rules and 20 resources,
- * the whole solve took 4.9 s with it against more than 2 minutes (stopped at a 2.4 % gap) with
- * forward checking alone, whose relaxation ignores the rules among unassigned groups. Otherwise the
- * search below runs.
+ * <p>Two bounds. When the tables of bucket elimination over the rule graph fit {@code tableLimit}
+ * (they do for rules among nearby groups, i.e. small induced width), a query first runs the
+ * forward-checking search below on a node budget of an eighth of the tables' size; when that runs
+ * out, the search with the exact bound of {@link BucketSearch} answers it. Forward checking wins
+ * where its bound prunes well (measured: rounds of 0.4 s against 4.2 s with the tables alone on a
+ * generated catalog of 30 groups, tables of 493,025 entries), the tables where it does not (on one
+ * of 29 groups with 7.7e24 variants and 100 rules, a solve of 1 s against more than 2 minutes,
+ * interrupted at a 2.4 % gap, with forward checking alone, whose relaxation ignores the rules among
+ * unassigned groups). Without tables, only the search below runs.
  *
- * <p>Forward-checking search: groups are assigned in one order fixed per space; a partial variant is bounded by its score plus,
- * for every unassigned group, the best choice still in that group's domain ("best option per
- * remaining group", the relaxation that drops the rules among unassigned groups). Forward checking:
+ * <p>Forward-checking search: groups are assigned in one order fixed per space; a partial variant
+ * is bounded by its score plus, for every unassigned group, the best choice still in that group's
+ * domain ("best option per remaining group", the relaxation that drops the rules among unassigned
+ * groups). Forward checking:
  * once every group of a nogood but its last (in the search order) is assigned and holds a member
  * choice, that last group's member choices leave its domain (undone through a trail); an emptied
  * domain cuts the branch and a shrunken one tightens the bound. Choices are tried best weight first,
