@@ -11,7 +11,8 @@ import picocli.CommandLine.Command;
     versionProvider = Version.class,
     description = "Designs a product range over the whole space of buildable variants by column generation.",
     subcommands = {CheckCommand.class, SolveCommand.class, ExplainCommand.class, LogCommand.class,
-        ResumeCommand.class, SweepCommand.class, CompareCommand.class},
+        ResumeCommand.class, SweepCommand.class, CompareCommand.class, GenerateCommand.class,
+        BenchCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
       "0:success",

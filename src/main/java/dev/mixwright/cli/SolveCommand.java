@@ -60,8 +60,17 @@ final class SolveCommand implements Callable<Integer> {
       description = "columns sought per segment per round (default ${DEFAULT-VALUE})")
   int perRound;
 
-  @Option(names = "--heuristic-first", description = "price with a fast heuristic first; exact rounds prove the bound")
-  boolean heuristicFirst;
+  @Option(names = "--heuristic-first", negatable = true,
+      description = "price with a fast heuristic first; exact rounds prove the bound (default: off)")
+  boolean heuristicFirst = SolveSettings.defaults().heuristicFirst();
+
+  @Option(names = "--smoothing", paramLabel = "ALPHA", defaultValue = "" + SolveSettings.DEFAULT_SMOOTHING,
+      description = "weight of the best dual point so far when pricing, 0 (off) to below 1 (default ${DEFAULT-VALUE})")
+  double smoothing;
+
+  @Option(names = "--retire-after", paramLabel = "ROUNDS", defaultValue = "" + SolveSettings.DEFAULT_RETIRE_AFTER,
+      description = "take a column out of the master after this many rounds unused, 0 for never (default ${DEFAULT-VALUE})")
+  int retireAfter;
 
   @Option(names = "--scenario", paramLabel = "FILE",
       description = "solve the catalog changed by this scenario file (capacities, prices, costs, demand, rules)")
@@ -90,6 +99,12 @@ final class SolveCommand implements Callable<Integer> {
     }
     if (maxIterations < 0) {
       throw new UserError("--max-iterations must be at least 1, got " + maxIterations);
+    }
+    if (!(smoothing >= 0 && smoothing < 1)) {
+      throw new UserError("--smoothing must be at least 0 and below 1, got " + smoothing);
+    }
+    if (retireAfter < 0) {
+      throw new UserError("--retire-after must be 0 (never) or more, got " + retireAfter);
     }
     long timeMs = 0;
     if (timeLimit != null) {
@@ -120,7 +135,7 @@ final class SolveCommand implements Callable<Integer> {
       throw new UserError(runDir + " already holds a run; choose another --out folder, or add --replace to overwrite it"
           + " (or continue it with 'mixwright resume " + runDir + "')");
     }
-    SolveSettings settings = new SolveSettings(gap, perRound, timeMs, maxIterations, heuristicFirst);
+    SolveSettings settings = new SolveSettings(gap, perRound, timeMs, maxIterations, heuristicFirst, smoothing, retireAfter);
     try (RunLock lock = RunSessions.lock(folder);
         StopSignals signals = StopSignals.install(err)) {
       RunManifest manifest = RunSessions.begin(folder, catalog, RunSessions.source(catalogFile, sha),

@@ -110,6 +110,18 @@ public final class RestrictedMaster implements AutoCloseable {
 
   /** Solves, verifies primal feasibility, and reads values and duals. */
   public MasterSolution solve() {
+    MasterSolution sol = solveOnce();
+    if (sol.status() == LpStatus.FAILED) {
+      // Measured: GLOP's incremental re-solve without presolve can end ABNORMAL after some sequences
+      // of added columns (seen with smoothed duals on a generated catalog); a cold start from
+      // scratch then solves the same LP. reset() drops the basis, not the model.
+      solver.reset();
+      sol = solveOnce();
+    }
+    return sol;
+  }
+
+  private MasterSolution solveOnce() {
     MPSolver.ResultStatus rs = solver.solve();
     long iters = solver.iterations();
     int n = vars.size();

@@ -9,8 +9,19 @@ import java.util.List;
 import java.util.Set;
 
 /**
- * Exact k-best pricing by depth-first branch-and-bound with forward checking; the default pricer.
+ * Exact k-best pricing by depth-first branch-and-bound; the default pricer.
  *
+ * <p>Two bounds. When the tables of bucket elimination over the rule graph fit {@code tableLimit}
+ * (they do for rules among nearby groups, i.e. small induced width), a query first runs the
+ * forward-checking search below on a node budget of an eighth of the tables' size; when that runs
+ * out, the search with the exact bound of {@link BucketSearch} answers it. Forward checking wins
+ * where its bound prunes well (measured: rounds of 0.4 s against 4.2 s with the tables alone on a
+ * generated catalog of 30 groups, tables of 493,025 entries), the tables where it does not (on one
+ * of 29 groups with 7.7e24 variants and 100 rules, a solve of 1 s against more than 2 minutes,
+ * interrupted at a 2.4 % gap, with forward checking alone). Without tables, only the search below
+ * runs.
+ *
+ * <p>Forward-checking search:
  * <p>Groups are assigned in one order fixed per space (groups in many rules first). Forward checking:
  * once every group of a nogood but its last (in the order) is assigned and holds a member choice,
  * that last group's member choices leave its domain (undone through a trail); an emptied domain cuts
@@ -84,7 +95,14 @@ public final class BranchAndBoundPricer implements Pricer {
   private Set<VariantKey> excluded;
   private TopK top;
   private long nodes;
+  private long budget; // node budget of the current forward-checking search
   private double openBound;
+
+  /** Largest total size of the bucket-elimination tables, in doubles (8 MiB). */
+  public static final long DEFAULT_TABLE_LIMIT = 1L << 20;
+
+  private final BucketSearch bucket;
+  private final boolean tablesOnly;
 
   // Tail searches: the start depth, the best so far for the current first choice, and solutions.
   private boolean inTail;
@@ -112,12 +130,35 @@ public final class BranchAndBoundPricer implements Pricer {
    *     best remaining choice per group alone
    */
   public BranchAndBoundPricer(VariantSpace space, long nodeLimit, boolean tailBounds) {
+    this(space, nodeLimit, tailBounds, DEFAULT_TABLE_LIMIT, false);
+  }
+
+  /**
+   * @param tableLimit most doubles the exact bound's tables may hold in all; above it (or at 0) the
+   *     search bounds by forward checking (with tail bounds) alone
+   */
+  public BranchAndBoundPricer(VariantSpace space, long nodeLimit, long tableLimit) {
+    this(space, nodeLimit, true, tableLimit, false);
+  }
+
+  /** {@code tablesOnly}: skip the forward-checking try when the tables fit (for tests of the tables). */
+  BranchAndBoundPricer(VariantSpace space, long nodeLimit, long tableLimit, boolean tablesOnly) {
+    this(space, nodeLimit, true, tableLimit, tablesOnly);
+  }
+
+  BranchAndBoundPricer(
+      VariantSpace space, long nodeLimit, boolean tailBounds, long tableLimit, boolean tablesOnly) {
     if (nodeLimit < 1) {
       throw new IllegalArgumentException("nodeLimit must be >= 1");
+    }
+    if (tableLimit < 0) {
+      throw new IllegalArgumentException("tableLimit must be >= 0");
     }
     this.space = space;
     this.nodeLimit = nodeLimit;
     this.tailBounds = tailBounds;
+    this.bucket = tableLimit == 0 ? null : BucketSearch.plan(space, tableLimit);
+    this.tablesOnly = tablesOnly;
     this.groups = space.groupCount();
     this.offset = space.offsets();
     int total = space.totalChoices();
@@ -211,12 +252,34 @@ public final class BranchAndBoundPricer implements Pricer {
 
   /** The group order of the search (a copy), for logs and tests. */
   public int[] groupOrder() {
-    return order.clone();
+    return bucket != null ? bucket.order() : order.clone();
+  }
+
+  /** Whether the exact bucket-elimination bound is used (its tables fit the limit). */
+  public boolean exactBound() {
+    return bucket != null;
   }
 
   @Override
   public PricingOutcome price(PricingQuery q) {
     QueryChecks.check(space, q);
+    if (bucket == null) {
+      return forwardChecking(q, nodeLimit);
+    }
+    // Forward checking first, on a budget of about the work of filling the tables (a node costs some
+    // eight table entries): the faster of the two when its bound prunes well; else the tables take over.
+    long quickBudget = Math.max(1000, bucket.tableEntries() / 8);
+    if (!tablesOnly && quickBudget < nodeLimit) {
+      PricingOutcome quick = forwardChecking(q, quickBudget);
+      if (quick.exact()) {
+        return quick;
+      }
+    }
+    return bucket.price(q, nodeLimit);
+  }
+
+  private PricingOutcome forwardChecking(PricingQuery q, long nodeBudget) {
+    budget = nodeBudget;
     w = q.weight();
     constant = q.constant();
     threshold = q.threshold();
@@ -310,7 +373,7 @@ public final class BranchAndBoundPricer implements Pricer {
    */
   private void solveTails() {
     inTail = true;
-    tailLimit = nodeLimit == Long.MAX_VALUE ? Long.MAX_VALUE : nodeLimit / 2;
+    tailLimit = budget == Long.MAX_VALUE ? Long.MAX_VALUE : budget / 2;
     double below = 0; // best score of the tail below the current depth
     for (int i = groups - 1; i >= 1; i--) {
       from = i;
@@ -400,7 +463,7 @@ public final class BranchAndBoundPricer implements Pricer {
     int base = offset[g];
     int end = base + usableCount[g];
     double restBefore = bound(d + 1);
-    long limit = inTail ? tailLimit : nodeLimit;
+    long limit = inTail ? tailLimit : budget;
     for (int p = base; p < end; p++) {
       int f = sorted[p];
       if (blocked[f] > 0) {

@@ -6,6 +6,6 @@ import dev.mixwright.space.VariantSpace;
 class BranchAndBoundPlainBoundTest extends ExactPricerContract {
   @Override
   protected Pricer create(VariantSpace space) {
-    return new BranchAndBoundPricer(space, Long.MAX_VALUE, false);
+    return new BranchAndBoundPricer(space, Long.MAX_VALUE, false, 0, false);
   }
 }

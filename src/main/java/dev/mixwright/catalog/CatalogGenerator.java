@@ -1,0 +1,369 @@
+package dev.mixwright.catalog;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Random;
+
+/**
+ * Seeded synthetic catalogs for benchmarks and tests (invented data, no real product behind it).
+ *
+ * <p>Shape, chosen to look like a configurable-product catalog rather than noise:
+ *
+ * <ul>
+ *   <li>Options of a group are tiers: a higher tier costs more, sells for more, earns a larger
+ *       margin and mostly uses more of the group's resources (some resources run the other way, so
+ *       that trading tiers moves load between resources).
+ *   <li>Each group draws on one to three resources; every resource is used by some group.
+ *   <li>Rules are pairwise, mostly between groups close in catalog order (related parts sit
+ *       together, e.g. motor and battery), a few between any two groups: {@code forbid} of one or
+ *       two options against one or two, and {@code when}/{@code require} of one option against a
+ *       subset of another group.
+ *   <li>Segments buy a volume, cap the share of one variant, may accept only part of one group and
+ *       pay extra (or less) for a few options.
+ *   <li>Capacities: the use per unit of a typical good variant (per group, the mean use of the
+ *       better-margin half of its choices) times the total demand, scaled by a draw in 40–70 %, so
+ *       that selling everyone the best variant is impossible and several resources bind.
+ * </ul>
+ *
+ * <p>No rule may exclude a per-segment reference variant drawn up front, so every segment keeps at
+ * least one buildable, acceptable variant by construction. Same spec (seed included), same catalog:
+ * only {@link java.util.Random}, whose sequence Java specifies, drives the choices, and every number
+ * is rounded to a short decimal so the written file is stable. O(groups · options · resources +
+ * rules · segments · options) time.
+ */
+public final class CatalogGenerator {
+  /** Rules between groups at most this far apart in catalog order, except the long-range share. */
+  private static final int NEAR = 3;
+
+  private static final double LONG_RANGE_SHARE = 0.1;
+
+  private CatalogGenerator() {}
+
+  /**
+   * What to generate.
+   *
+   * @param groups option groups (≥ 2)
+   * @param options options per group (≥ 2); an optional group also has {@code none}
+   * @param resources shared resources (≥ 1)
+   * @param segments market segments (≥ 1)
+   * @param rules compatibility rules (≥ 0)
+   * @param optionalShare share of groups that are optional, 0..1
+   * @param seed the same seed gives the same catalog
+   */
+  public record Spec(
+      int groups, int options, int resources, int segments, int rules, double optionalShare, long seed) {
+    public Spec {
+      require(groups >= 2, "groups must be at least 2, got " + groups);
+      require(options >= 2, "options per group must be at least 2, got " + options);
+      require(resources >= 1, "resources must be at least 1, got " + resources);
+      require(segments >= 1, "segments must be at least 1, got " + segments);
+      require(rules >= 0, "rules must be at least 0, got " + rules);
+      require(optionalShare >= 0 && optionalShare <= 1, "optional share must be between 0 and 1, got " + optionalShare);
+      require(groups <= 9999 && options <= 999 && resources <= 999 && segments <= 999,
+          "at most 9999 groups, 999 options, 999 resources and 999 segments");
+    }
+
+    /** The defaults the benchmark uses for the share of optional groups. */
+    public static Spec of(int groups, int options, int resources, int segments, int rules, long seed) {
+      return new Spec(groups, options, resources, segments, rules, 0.2, seed);
+    }
+
+    private static void require(boolean ok, String message) {
+      if (!ok) {
+        throw new IllegalArgumentException(message);
+      }
+    }
+  }
+
+  public static Catalog generate(Spec spec) {
+    return new Draw(spec).catalog();
+  }
+
+  /** One generation: the random stream and what has been drawn so far. */
+  private static final class Draw {
+    final Spec spec;
+    final Random rnd;
+    final String[] groupId;
+    final String[] resourceId;
+    final boolean[] optional;
+    // per group, per choice (options then none): margin and use per resource
+    final double[][] margin;
+    final double[][][] use;
+
+    Draw(Spec spec) {
+      this.spec = spec;
+      this.rnd = new Random(spec.seed());
+      groupId = new String[spec.groups()];
+      resourceId = new String[spec.resources()];
+      optional = new boolean[spec.groups()];
+      margin = new double[spec.groups()][];
+      use = new double[spec.groups()][][];
+      for (int g = 0; g < groupId.length; g++) {
+        groupId[g] = id("g", g + 1, spec.groups());
+      }
+      for (int r = 0; r < resourceId.length; r++) {
+        resourceId[r] = id("r", r + 1, spec.resources());
+      }
+    }
+
+    Catalog catalog() {
+      List<Group> groups = groups();
+      List<Segment> partial = segments(groups);
+      int[][] reference = references(groups, partial);
+      List<Rule> rules = rules(groups, reference);
+      List<Resource> resources = resources(partial);
+      String name = String.format(Locale.ROOT, "Generated %d x %d, %d resources, %d segments, %d rules, seed %d",
+          spec.groups(), spec.options(), spec.resources(), spec.segments(), spec.rules(), spec.seed());
+      return new Catalog(1, name, "EUR", "year", resources, groups, rules, partial, Optional.empty());
+    }
+
+    List<Group> groups() {
+      int k = spec.options();
+      List<Group> out = new ArrayList<>();
+      for (int g = 0; g < spec.groups(); g++) {
+        optional[g] = rnd.nextDouble() < spec.optionalShare();
+        // Which resources this group loads, and in which direction along its tiers.
+        int[] profile = profile(g);
+        double[] intensity = new double[profile.length];
+        boolean[] falling = new boolean[profile.length];
+        for (int i = 0; i < profile.length; i++) {
+          intensity[i] = 0.2 + rnd.nextDouble() * 1.8;
+          falling[i] = rnd.nextDouble() < 0.25;
+        }
+        double base = 20 + rnd.nextInt(400);
+        int choices = k + (optional[g] ? 1 : 0);
+        margin[g] = new double[choices];
+        use[g] = new double[choices][spec.resources()];
+        List<Option> opts = new ArrayList<>();
+        for (int o = 0; o < k; o++) {
+          double tier = k == 1 ? 0 : (double) o / (k - 1);
+          double cost = round(base * (1 + 1.5 * tier) * (0.9 + 0.2 * rnd.nextDouble()), 0);
+          double markup = 1.12 + 0.3 * tier + (rnd.nextDouble() - 0.4) * 0.15;
+          double price = round(cost * markup, 0);
+          Map<String, Double> uses = new LinkedHashMap<>();
+          for (int i = 0; i < profile.length; i++) {
+            double t = falling[i] ? 1 - tier : tier;
+            double u = round(intensity[i] * (0.5 + t) * (0.8 + 0.4 * rnd.nextDouble()), 2);
+            if (u > 0) {
+              uses.put(resourceId[profile[i]], u);
+              use[g][o][profile[i]] = u;
+            }
+          }
+          margin[g][o] = price - cost;
+          opts.add(new Option("o" + (o + 1), null, price, cost, uses));
+        }
+        out.add(new Group(groupId[g], null, !optional[g], opts));
+      }
+      return out;
+    }
+
+    /**
+     * One to three distinct resources, more when there are more resources than groups: group g
+     * always takes every resource r with r mod G = g, so every resource is used.
+     */
+    int[] profile(int g) {
+      int must = 0;
+      for (int r = g; r < spec.resources(); r += spec.groups()) {
+        must++;
+      }
+      int n = Math.max(must, Math.min(spec.resources(), 1 + rnd.nextInt(3)));
+      int[] p = new int[n];
+      int i = 0;
+      for (int r = g; r < spec.resources(); r += spec.groups()) {
+        p[i++] = r;
+      }
+      for (; i < n; i++) {
+        int r;
+        boolean taken;
+        do {
+          r = rnd.nextInt(spec.resources());
+          taken = false;
+          for (int j = 0; j < i; j++) {
+            taken |= p[j] == r;
+          }
+        } while (taken);
+        p[i] = r;
+      }
+      return p;
+    }
+
+    List<Segment> segments(List<Group> groups) {
+      List<Segment> out = new ArrayList<>();
+      for (int s = 0; s < spec.segments(); s++) {
+        double demand = 100 * (20 + rnd.nextInt(181));
+        double share = 0.05 * (2 + rnd.nextInt(7));
+        Map<String, List<String>> accepts = new LinkedHashMap<>();
+        if (rnd.nextDouble() < 0.6) {
+          int g = rnd.nextInt(groups.size());
+          Group gg = groups.get(g);
+          List<String> ok = new ArrayList<>();
+          for (int c = 0; c < gg.choiceCount(); c++) {
+            if (rnd.nextDouble() < 0.6) {
+              ok.add(gg.choiceId(c));
+            }
+          }
+          if (ok.isEmpty()) {
+            ok.add(gg.choiceId(rnd.nextInt(gg.choiceCount())));
+          }
+          if (ok.size() < gg.choiceCount()) {
+            accepts.put(gg.id(), ok);
+          }
+        }
+        Map<String, Double> value = new LinkedHashMap<>();
+        int premiums = 2 + rnd.nextInt(3);
+        for (int i = 0; i < premiums; i++) {
+          Group gg = groups.get(rnd.nextInt(groups.size()));
+          // premium segments pay for the upper tiers, thrifty ones a little less for them
+          int o = spec.options() / 2 + rnd.nextInt(spec.options() - spec.options() / 2);
+          value.put(gg.id() + "." + gg.choiceId(o), round(-30 + rnd.nextDouble() * 150, 0));
+        }
+        out.add(new Segment(id("s", s + 1, spec.segments()), null, demand, round(share, 2), accepts, value));
+      }
+      return out;
+    }
+
+    /** A random accepted choice per group, per segment: variants no rule may exclude. */
+    int[][] references(List<Group> groups, List<Segment> segments) {
+      int[][] ref = new int[segments.size()][groups.size()];
+      for (int s = 0; s < segments.size(); s++) {
+        for (int g = 0; g < groups.size(); g++) {
+          Group gg = groups.get(g);
+          List<String> ok = segments.get(s).accepts().get(gg.id());
+          if (ok == null) {
+            ref[s][g] = rnd.nextInt(gg.choiceCount());
+          } else {
+            ref[s][g] = gg.indexOf(ok.get(rnd.nextInt(ok.size())));
+          }
+        }
+      }
+      return ref;
+    }
+
+    List<Rule> rules(List<Group> groups, int[][] reference) {
+      List<Rule> out = new ArrayList<>();
+      int guard = 0;
+      while (out.size() < spec.rules() && guard++ < 50 * spec.rules() + 100) {
+        int a = rnd.nextInt(groups.size());
+        int b;
+        if (rnd.nextDouble() < LONG_RANGE_SHARE) {
+          b = rnd.nextInt(groups.size() - 1);
+          b = b >= a ? b + 1 : b;
+        } else {
+          int step = 1 + rnd.nextInt(Math.min(NEAR, groups.size() - 1));
+          b = a + step < groups.size() ? a + step : a - step;
+          if (b < 0) {
+            continue;
+          }
+        }
+        Group ga = groups.get(a);
+        Group gb = groups.get(b);
+        int x = rnd.nextInt(ga.choiceCount());
+        Rule rule;
+        boolean[] inA = new boolean[ga.choiceCount()];
+        inA[x] = true;
+        if (rnd.nextDouble() < 0.6) {
+          if (rnd.nextDouble() < 0.3) {
+            inA[rnd.nextInt(ga.choiceCount())] = true;
+          }
+          boolean[] inB = new boolean[gb.choiceCount()];
+          inB[rnd.nextInt(gb.choiceCount())] = true;
+          if (rnd.nextDouble() < 0.3) {
+            inB[rnd.nextInt(gb.choiceCount())] = true;
+          }
+          if (excludesReference(reference, a, inA, b, inB)) {
+            continue;
+          }
+          Map<String, List<String>> f = new LinkedHashMap<>();
+          f.put(ga.id(), ids(ga, inA));
+          f.put(gb.id(), ids(gb, inB));
+          rule = new Rule(null, Map.of(), Map.of(), f);
+        } else {
+          boolean[] allowed = new boolean[gb.choiceCount()];
+          int n = 0;
+          for (int c = 0; c < allowed.length; c++) {
+            allowed[c] = rnd.nextDouble() < 0.55;
+            n += allowed[c] ? 1 : 0;
+          }
+          if (n == 0 || n == allowed.length) {
+            continue; // requires nothing, or forbids every variant holding the when-choice
+          }
+          boolean[] outside = new boolean[allowed.length];
+          for (int c = 0; c < allowed.length; c++) {
+            outside[c] = !allowed[c];
+          }
+          if (excludesReference(reference, a, inA, b, outside)) {
+            continue;
+          }
+          rule = new Rule(null, Map.of(ga.id(), ids(ga, inA)), Map.of(gb.id(), ids(gb, allowed)), Map.of());
+        }
+        out.add(rule);
+      }
+      return out;
+    }
+
+    /** Whether "group a in inA and group b in inB" holds for some segment's reference variant. */
+    static boolean excludesReference(int[][] reference, int a, boolean[] inA, int b, boolean[] inB) {
+      for (int[] v : reference) {
+        if (inA[v[a]] && inB[v[b]]) {
+          return true;
+        }
+      }
+      return false;
+    }
+
+    static List<String> ids(Group g, boolean[] marked) {
+      List<String> out = new ArrayList<>();
+      for (int c = 0; c < marked.length; c++) {
+        if (marked[c]) {
+          out.add(g.choiceId(c));
+        }
+      }
+      return out;
+    }
+
+    List<Resource> resources(List<Segment> segments) {
+      double totalDemand = 0;
+      for (Segment s : segments) {
+        totalDemand += s.demand();
+      }
+      double[] typical = new double[spec.resources()];
+      for (int g = 0; g < spec.groups(); g++) {
+        int choices = margin[g].length;
+        Integer[] byMargin = new Integer[choices];
+        for (int c = 0; c < choices; c++) {
+          byMargin[c] = c;
+        }
+        int gg = g;
+        java.util.Arrays.sort(byMargin, (p, q) -> Double.compare(margin[gg][q], margin[gg][p]));
+        int half = (choices + 1) / 2;
+        for (int i = 0; i < half; i++) {
+          for (int r = 0; r < spec.resources(); r++) {
+            typical[r] += use[g][byMargin[i]][r] / half;
+          }
+        }
+      }
+      List<Resource> out = new ArrayList<>();
+      for (int r = 0; r < spec.resources(); r++) {
+        double scale = 0.4 + 0.3 * rnd.nextDouble();
+        double cap = Math.max(1, round(typical[r] * totalDemand * scale, 0));
+        out.add(new Resource(resourceId[r], null, "h", cap));
+      }
+      return out;
+    }
+  }
+
+  /** {@code g07} for 7 of up to 99: ids of one kind have the same width, so they sort in order. */
+  private static String id(String prefix, int n, int count) {
+    int width = Integer.toString(count).length();
+    return prefix + String.format(Locale.ROOT, "%0" + width + "d", n);
+  }
+
+  private static double round(double x, int decimals) {
+    double f = Math.pow(10, decimals);
+    return Math.round(x * f) / f;
+  }
+}
