@@ -199,6 +199,12 @@ public final class ColumnGeneration {
         double[] mu = sol.segmentDual();
         List<Column> found = new ArrayList<>();
         double roundBound = Double.POSITIVE_INFINITY;
+        // The Lasdon-type bound at this round's own master duals: only it may end the run on the
+        // gap, so that the duals reported price every column outside the master to within the
+        // tolerance. The best bound (the Lagrangian one included) can be tighter at degenerate duals
+        // that leave a paying column outside: seen with a column at its upper bound equal to the
+        // segment's demand, where μ = 0 left the next variant at d = 132.
+        double ownBound = Double.POSITIVE_INFINITY;
         boolean allExact;
         double alpha;
         int mispriced = 0;
@@ -242,6 +248,7 @@ public final class ColumnGeneration {
             double lag = pool.lagrangianBound(lagrangian, y, outside);
             // The Lasdon-type bound holds only at the master's optimal duals.
             roundBound = alpha == 0 ? Math.min(lag, lasdon) : lag;
+            ownBound = alpha == 0 ? lasdon : Double.POSITIVE_INFINITY;
             if (settings.smoothing() > 0 && lag < centerBound) {
               centerBound = lag;
               centerPi = y;
@@ -271,7 +278,8 @@ public final class ColumnGeneration {
             pool.size(), found.size(), allExact, elapsedMs());
         history.add(rec);
         listeners.forEach(l -> l.iteration(rec));
-        if (gap <= settings.gapTolerance() || (found.isEmpty() && allExact)) {
+        boolean dualsProven = SolveOutcome.gap(sol.objective(), ownBound) <= settings.gapTolerance();
+        if (dualsProven || (found.isEmpty() && allExact)) {
           status = RunStatus.OPTIMAL;
           break;
         }

@@ -98,6 +98,8 @@ class IntegerStageTest {
         assertEquals(full.value(), o.value(), tol(full.value()), where);
       }
     }
-    assertTrue(heuristic > 5, "some of these need survivors, so they cannot be proven: " + heuristic);
+    // With 10 columns per segment per round the LP stage hands over a richer pool, so fewer cases
+    // stay unproven than with 5 (5 of 30 against more before); the point is that the path is taken.
+    assertTrue(heuristic >= 3, "some of these need survivors, so they cannot be proven: " + heuristic);
   }
 }
