@@ -3,6 +3,7 @@ package dev.mixwright.portfolio;
 import dev.mixwright.pricing.ReducedCosts;
 import dev.mixwright.space.Nogood;
 import dev.mixwright.space.VariantKey;
+import dev.mixwright.space.SearchOrder;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -102,7 +103,7 @@ public final class VariantPricer {
       Arrays.fill(groupOf, offset[g], offset[g + 1], g);
       widest = Math.max(widest, space.choiceCount(g));
     }
-    order = searchOrder(space);
+    order = SearchOrder.of(space);
     int[] depthOf = new int[groups];
     for (int d = 0; d < groups; d++) {
       depthOf[order[d]] = d;
@@ -118,9 +119,7 @@ public final class VariantPricer {
     long trailNeed = 0;
     List<int[]> sortedGroups = new ArrayList<>();
     for (Nogood ng : nogoods) {
-      int[] gs = ng.groups().clone();
-      sortByDepth(gs, depthOf);
-      sortedGroups.add(gs);
+      sortedGroups.add(SearchOrder.byDepth(ng.groups(), depthOf));
     }
     for (int d = 0; d < groups; d++) {
       trigStart[d] = t;
@@ -411,70 +410,6 @@ public final class VariantPricer {
       if (top.size() > k) {
         top.poll();
       }
-    }
-  }
-
-  /**
-   * Search order, once per space: repeatedly the group sharing the most nogoods with the groups
-   * already placed (forward checking fires early), then the one in most nogoods, then the one whose
-   * margins spread widest; unconstrained groups come last, where the bound is exact per segment.
-   */
-  private static int[] searchOrder(VariantSpace space) {
-    int groups = space.groupCount();
-    int[] degree = new int[groups];
-    double[] spread = new double[groups];
-    for (int g = 0; g < groups; g++) {
-      degree[g] = space.nogoodsOf(g).length;
-      double lo = Double.POSITIVE_INFINITY;
-      double hi = Double.NEGATIVE_INFINITY;
-      for (int c = 0; c < space.choiceCount(g); c++) {
-        int f = space.offset(g) + c;
-        if (space.allowed(f)) {
-          lo = Math.min(lo, space.choiceMargin(f));
-          hi = Math.max(hi, space.choiceMargin(f));
-        }
-      }
-      spread[g] = hi >= lo ? hi - lo : 0;
-    }
-    Nogood[] nogoods = space.nogoods();
-    int[] links = new int[groups];
-    boolean[] placed = new boolean[groups];
-    int[] order = new int[groups];
-    for (int d = 0; d < groups; d++) {
-      int best = -1;
-      for (int g = 0; g < groups; g++) {
-        if (placed[g]) {
-          continue;
-        }
-        if (best < 0
-            || links[g] > links[best]
-            || links[g] == links[best]
-                && (degree[g] > degree[best] || degree[g] == degree[best] && spread[g] > spread[best])) {
-          best = g;
-        }
-      }
-      order[d] = best;
-      placed[best] = true;
-      for (int n : space.nogoodsOf(best)) {
-        for (int h : nogoods[n].groups()) {
-          if (!placed[h]) {
-            links[h]++;
-          }
-        }
-      }
-    }
-    return order;
-  }
-
-  private static void sortByDepth(int[] gs, int[] depthOf) {
-    for (int i = 1; i < gs.length; i++) {
-      int x = gs[i];
-      int j = i - 1;
-      while (j >= 0 && depthOf[gs[j]] > depthOf[x]) {
-        gs[j + 1] = gs[j];
-        j--;
-      }
-      gs[j + 1] = x;
     }
   }
 }

@@ -2,6 +2,7 @@ package dev.mixwright.pricing;
 
 import dev.mixwright.space.Nogood;
 import dev.mixwright.space.VariantKey;
+import dev.mixwright.space.SearchOrder;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -168,7 +169,7 @@ public final class BranchAndBoundPricer implements Pricer {
       Arrays.fill(groupOf, offset[g], offset[g + 1], g);
       maxChoices = Math.max(maxChoices, space.choiceCount(g));
     }
-    order = searchOrder(space);
+    order = SearchOrder.of(space);
     int[] depthOf = new int[groups];
     for (int d = 0; d < groups; d++) {
       depthOf[order[d]] = d;
@@ -180,7 +181,7 @@ public final class BranchAndBoundPricer implements Pricer {
       byDepth.add(new ArrayList<>());
     }
     for (int n = 0; n < nogoods.length; n++) {
-      int[] gs = byDepthOrder(nogoods[n].groups(), depthOf);
+      int[] gs = SearchOrder.byDepth(nogoods[n].groups(), depthOf);
       byDepth.get(depthOf[gs[gs.length - 2]]).add(n);
     }
     int triggers = nogoods.length;
@@ -196,7 +197,7 @@ public final class BranchAndBoundPricer implements Pricer {
       trigStart[d] = t;
       for (int n : byDepth.get(d)) {
         Nogood ng = nogoods[n];
-        int[] gs = byDepthOrder(ng.groups(), depthOf);
+        int[] gs = SearchOrder.byDepth(ng.groups(), depthOf);
         int target = gs[gs.length - 1];
         trigMember[t] = ng.member();
         trigCheck[t] = Arrays.copyOf(gs, gs.length - 1);
@@ -585,70 +586,4 @@ public final class BranchAndBoundPricer implements Pricer {
     }
   }
 
-  /**
-   * Search order, once per space: repeatedly the group sharing the most nogoods with the groups
-   * already placed (so forward checking fires early), then the one in most nogoods, then the one
-   * whose margins spread widest (a wrong choice there costs most); unconstrained groups come last,
-   * where the bound is exact.
-   */
-  private static int[] searchOrder(VariantSpace space) {
-    int groups = space.groupCount();
-    int[] degree = new int[groups];
-    double[] spread = new double[groups];
-    for (int g = 0; g < groups; g++) {
-      degree[g] = space.nogoodsOf(g).length;
-      double lo = Double.POSITIVE_INFINITY;
-      double hi = Double.NEGATIVE_INFINITY;
-      for (int c = 0; c < space.choiceCount(g); c++) {
-        int f = space.offset(g) + c;
-        if (space.allowed(f)) {
-          lo = Math.min(lo, space.choiceMargin(f));
-          hi = Math.max(hi, space.choiceMargin(f));
-        }
-      }
-      spread[g] = hi >= lo ? hi - lo : 0;
-    }
-    Nogood[] nogoods = space.nogoods();
-    int[] links = new int[groups];
-    boolean[] placed = new boolean[groups];
-    int[] order = new int[groups];
-    for (int d = 0; d < groups; d++) {
-      int best = -1;
-      for (int g = 0; g < groups; g++) {
-        if (placed[g]) {
-          continue;
-        }
-        if (best < 0
-            || links[g] > links[best]
-            || links[g] == links[best]
-                && (degree[g] > degree[best] || degree[g] == degree[best] && spread[g] > spread[best])) {
-          best = g;
-        }
-      }
-      order[d] = best;
-      placed[best] = true;
-      for (int n : space.nogoodsOf(best)) {
-        for (int h : nogoods[n].groups()) {
-          if (!placed[h]) {
-            links[h]++;
-          }
-        }
-      }
-    }
-    return order;
-  }
-
-  private static int[] byDepthOrder(int[] groups, int[] depthOf) {
-    int[] gs = groups.clone();
-    for (int i = 1; i < gs.length; i++) {
-      int x = gs[i];
-      int j = i - 1;
-      while (j >= 0 && depthOf[gs[j]] > depthOf[x]) {
-        gs[j + 1] = gs[j];
-        j--;
-      }
-      gs[j + 1] = x;
-    }
-    return gs;
-  }
 }
