@@ -167,7 +167,7 @@ public final class IntegerStage {
       if (!complete) {
         reason = out.exact()
             ? "more than " + cap + " variants could still be part of a better portfolio (the best "
-                + n + " were tried)"
+                + added + " were added to the pool)"
             : "the time limit stopped the enumeration of the variants that could be part of a better portfolio";
       }
       emit("survivors", theta, bound, pool.size(), n, complete
