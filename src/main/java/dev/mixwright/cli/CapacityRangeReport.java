@@ -23,21 +23,27 @@ import java.util.Locale;
 /** {@code explain --capacity-ranges}: each resource's shadow price and the capacities over which it holds. */
 final class CapacityRangeReport {
   /** Re-solves aim this close, so that their error stays well under the tolerance that tells pieces apart. */
-  private static final SolveSettings RESOLVE = new SolveSettings(1e-9, SolveSettings.DEFAULT_PER_ROUND, 0, 0, false);
+  static final SolveSettings RESOLVE = new SolveSettings(1e-9, SolveSettings.DEFAULT_PER_ROUND, 0, 0, false);
 
   private CapacityRangeReport() {}
+
+  /** The exact pricer the run used (bnb when its manifest is missing). */
+  static String runPricer(RunFolder folder) throws IOException {
+    return Files.isRegularFile(folder.manifest()) ? RunManifest.read(folder).settings().pricer() : "bnb";
+  }
+
+  /** Every column of the run's log, as warm start for re-solves. */
+  static List<Column> runColumns(RunFolder folder, VariantSpace space) throws IOException {
+    return Files.isRegularFile(folder.columnLog())
+        ? ColumnPool.rebuild(space, ColumnLogReader.read(folder.columnLog()).lines()).columns()
+        : List.of();
+  }
 
   static List<CapacityRanges.Range> compute(RunFolder folder, Catalog catalog, List<String> only, PrintWriter err)
       throws IOException {
     VariantSpace space = new VariantSpace(catalog);
-    String pricer = "bnb";
-    if (Files.isRegularFile(folder.manifest())) {
-      pricer = RunManifest.read(folder).settings().pricer();
-    }
-    List<Column> warm = List.of();
-    if (Files.isRegularFile(folder.columnLog())) {
-      warm = ColumnPool.rebuild(space, ColumnLogReader.read(folder.columnLog()).lines()).columns();
-    }
+    String pricer = runPricer(folder);
+    List<Column> warm = runColumns(folder, space);
     for (String id : only) {
       if (catalog.resourceIndex(id) < 0) {
         throw new UserError("--resource: no resource '" + id + "'; resources are "

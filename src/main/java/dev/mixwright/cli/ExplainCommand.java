@@ -6,6 +6,7 @@ import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.explain.CapacityRanges;
 import dev.mixwright.explain.Explainer;
 import dev.mixwright.explain.Explanation;
+import dev.mixwright.explain.PriceRange;
 import dev.mixwright.report.Json;
 import dev.mixwright.report.RunFolder;
 import dev.mixwright.report.RunReader;
@@ -47,6 +48,11 @@ final class ExplainCommand implements Callable<Integer> {
 
   @Option(names = "--json", description = "print the explanation as JSON")
   boolean json;
+
+  @Option(names = "--leave-price",
+      description = "for a variant the plan sells: find, by re-solving over the whole space, how far its"
+          + " price may fall before the plan stops selling it (about 15 re-solves)")
+  boolean leavePrice;
 
   @Option(names = "--capacity-ranges",
       description = "for each resource, the capacity range over which its shadow price holds, found by"
@@ -99,8 +105,17 @@ final class ExplainCommand implements Callable<Integer> {
     Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
     double qty = run.quantity(segmentId, space.describe(v));
     var verdict = PortfolioExplainView.verdict(space, v, run.result());
+    PriceRange.Leave leave = null;
+    if (leavePrice && qty > 0 && e.sellable()) {
+      leave = new PriceRange(space, CapacityRangeReport.runPricer(folder), CapacityRangeReport.RESOLVE,
+          CapacityRangeReport.runColumns(folder, space)).leave(v, s, 1e-6);
+    }
     if (json) {
       ObjectNode n = toJson(space, e, qty, run);
+      if (leave != null) {
+        n.put("priceCutToLeave", leave.cut());
+        n.put("resolves", leave.solves());
+      }
       if (ranges != null) {
         n.set("capacityRanges", CapacityRangeReport.toJson(ranges));
       }
@@ -108,6 +123,13 @@ final class ExplainCommand implements Callable<Integer> {
       out.println(Json.pretty().writeValueAsString(n));
     } else {
       print(out, space, e, qty, run);
+      if (leave != null) {
+        out.println(String.format(Locale.ROOT,
+            "  leaves the plan if its price falls by more than %.4f per unit (margin %.4f), found by %d"
+                + " re-solves over the whole space", leave.cut(), leave.newMargin(), leave.solves()));
+      } else if (leavePrice && qty <= 0) {
+        out.println("  (--leave-price: the plan does not sell this variant here, so there is nothing to leave)");
+      }
       PortfolioExplainView.print(out, space, verdict);
       if (ranges != null) {
         CapacityRangeReport.print(out, ranges, run.result());

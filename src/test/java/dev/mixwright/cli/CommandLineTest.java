@@ -111,6 +111,22 @@ class CommandLineTest {
   }
 
   @Test
+  void explainFindsThePriceCutAtWhichAnOfferLeaves() throws IOException {
+    JsonNode r = JSON.readTree(run.resolve("result.json").toFile());
+    JsonNode offer = r.get("offers").get(0);
+    StringBuilder v = new StringBuilder();
+    offer.get("options").fields().forEachRemaining(f -> v.append(v.length() == 0 ? "" : ",")
+        .append(f.getKey()).append('=').append(f.getValue().asText()));
+    CliRun e = CliRun.of("explain", run.toString(), "--segment", offer.get("segment").asText(),
+        "--variant", v.toString(), "--leave-price", "--json");
+    assertEquals(0, e.code(), e.err());
+    JsonNode x = JSON.readTree(e.out());
+    double cut = x.get("priceCutToLeave").asDouble();
+    assertTrue(cut >= 0 && cut <= offer.get("unitMargin").asDouble() + 1, e.out());
+    assertTrue(x.get("resolves").asInt() > 1, e.out());
+  }
+
+  @Test
   void explainNamesTheRuleOrAcceptsThatBlocksAVariant() {
     CliRun e = CliRun.of("explain", run.toString(), "--segment", "quiet", "--variant",
         "capacity=c5,compressor=rotary,refrigerant=r32,casing=galv,controller=basic");
