@@ -46,7 +46,7 @@ public final class HtmlReport {
         .append("<style>\n").append(css()).append("</style>\n</head>\n<body>\n<main>\n");
     header(h, r, name, currency);
     convergence(h, r.path("rounds"));
-    resources(h, r.path("resources"));
+    resources(h, r.path("resources"), currency);
     segments(h, r, currency);
     if (r.path("portfolio").isObject()) {
       portfolio(h, r.path("portfolio"), r.path("segments"), currency);
@@ -137,10 +137,10 @@ public final class HtmlReport {
         yMax = Math.max(yMax, p[1]);
       }
     }
-    if (xMax == xMin) {
-      xMin -= 1;
-      xMax += 1;
-    }
+    // a little room either side so that the first and last points do not sit on the frame
+    double xPad = xMax == xMin ? 1 : (xMax - xMin) * 0.04;
+    xMin -= xPad;
+    xMax += xPad;
     double[] yt = ticks(yMin, yMax, 5);
     double y0 = yt[0];
     double y1 = yt[yt.length - 1];
@@ -228,14 +228,14 @@ public final class HtmlReport {
 
   // ---- resources --------------------------------------------------------------------------------
 
-  private static void resources(StringBuilder h, JsonNode res) {
+  private static void resources(StringBuilder h, JsonNode res, String currency) {
     h.append("<h2>Resources</h2>\n<p class=\"note\">Capacity used by the plan, each bar scaled to its own capacity."
         + " The shadow price is what one more unit of capacity would add to the objective;"
         + " binding resources are used to the full and drawn in amber.</p>\n");
     int rowH = 44;
     int w = 760;
     int labelW = 150;
-    int barW = 380;
+    int barW = 300;
     int ht = Math.max(1, res.size()) * rowH + 16;
     h.append(svgOpen(w, ht, "Resource use against capacity"));
     int i = 0;
@@ -251,7 +251,8 @@ public final class HtmlReport {
       h.append(text(labelW + barW + 10, y + 12, "start",
           qty(used) + " / " + qty(cap) + (cap > 0 ? String.format(Locale.ROOT, " (%.0f%%)", 100 * used / cap) : "")));
       h.append(text(labelW + barW + 10, y + 28, "start",
-          "shadow price " + money(r.path("shadowPrice").asDouble()) + (binding ? " · binding" : "")));
+          "shadow price " + money(r.path("shadowPrice").asDouble()) + (currency.isEmpty() ? "" : " " + currency)
+              + " a unit" + (binding ? " · binding" : "")));
       i++;
     }
     h.append("</svg>\n");
