@@ -1,0 +1,50 @@
+package dev.mixwright.cli;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import dev.mixwright.report.HtmlReport;
+import dev.mixwright.report.RunFolder;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(
+    name = "report",
+    mixinStandardHelpOptions = true,
+    description = "Writes one self-contained HTML page for a finished run: headline figures, convergence,"
+        + " resource use, the plan by segment and the integer portfolio. Nothing in it is fetched from a network.")
+final class ReportCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
+  Path runDir;
+
+  @Option(names = "--out", paramLabel = "FILE", description = "where to write the page (default RUN_DIR/report.html)")
+  Path out;
+
+  @Override
+  public Integer call() throws IOException {
+    Path result = new RunFolder(runDir).result();
+    if (!Files.isRegularFile(result)) {
+      throw new UserError("no result.json in " + runDir + " — give a folder written by 'mixwright solve --out'"
+          + " after the run has finished");
+    }
+    Path target = out != null ? out : runDir.resolve(HtmlReport.FILE);
+    if (Files.isDirectory(target)) {
+      throw new UserError("--out " + target + " is a folder — give a file name such as " + target.resolve(HtmlReport.FILE));
+    }
+    try {
+      HtmlReport.write(runDir, target);
+    } catch (JsonProcessingException e) {
+      throw new UserError(result + " is not valid JSON (" + e.getOriginalMessage()
+          + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
+    }
+    spec.commandLine().getOut().println("report written to " + target);
+    return ExitCodes.OK;
+  }
+}

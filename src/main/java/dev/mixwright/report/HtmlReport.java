@@ -1,0 +1,476 @@
+package dev.mixwright.report;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Iterator;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+
+/**
+ * One self-contained HTML page for a finished run, drawn from its result.json alone: inline CSS and
+ * inline SVG, no script and nothing fetched, so that the file can be mailed or archived as it is.
+ * Every string taken from the run passes through {@link #escape} before it reaches the page.
+ */
+public final class HtmlReport {
+  /** The file name written into the run folder when no other target is given. */
+  public static final String FILE = "report.html";
+
+  private static final String INK = "#1f2a37";
+  private static final String MUTED = "#64748b";
+  private static final String GRID = "#e2e8f0";
+  private static final String TEAL = "#0f8b8d";
+  private static final String AMBER = "#d98e04";
+  private static final String TRACK = "#edf1f5";
+
+  private HtmlReport() {}
+
+  /** Reads RUN_DIR/result.json, renders it and writes the page atomically to {@code target}. */
+  public static void write(Path runDir, Path target) throws IOException {
+    JsonNode result = RunReader.readResult(runDir);
+    AtomicFiles.write(target, render(result));
+  }
+
+  /** The page for one result.json tree. Missing optional parts (bound, portfolio) are left out, not invented. */
+  public static String render(JsonNode r) {
+    StringBuilder h = new StringBuilder(32_768);
+    JsonNode cat = r.path("catalog");
+    String name = cat.path("name").asText("unnamed catalog");
+    String currency = cat.path("currency").asText("");
+    h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+        .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
+        .append("<title>").append(escape(name)).append(" — mixwright run</title>\n")
+        .append("<style>\n").append(css()).append("</style>\n</head>\n<body>\n<main>\n");
+    header(h, r, name, currency);
+    convergence(h, r.path("rounds"));
+    resources(h, r.path("resources"), currency);
+    segments(h, r, currency);
+    if (r.path("portfolio").isObject()) {
+      portfolio(h, r.path("portfolio"), r.path("segments"), currency);
+    }
+    h.append("</main>\n</body>\n</html>\n");
+    return h.toString();
+  }
+
+  private static String css() {
+    return "body{margin:0;background:#f8fafc;color:" + INK + ";font:15px/1.45 system-ui,-apple-system,'Segoe UI',sans-serif}\n"
+        + "main{max-width:980px;margin:0 auto;padding:24px 28px 48px}\n"
+        + "h1{font-size:24px;margin:0 0 4px}h2{font-size:18px;margin:32px 0 10px;border-bottom:2px solid " + TEAL + ";padding-bottom:4px}\n"
+        + "h3{font-size:15px;margin:18px 0 6px}\n"
+        + ".note{color:" + MUTED + ";font-size:13px;margin:4px 0 14px}\n"
+        + ".facts{display:flex;flex-wrap:wrap;gap:10px;margin:12px 0}\n"
+        + ".fact{background:#fff;border:1px solid " + GRID + ";border-radius:6px;padding:8px 12px;min-width:120px}\n"
+        + ".fact b{display:block;font-size:12px;font-weight:600;color:" + MUTED + ";text-transform:uppercase;letter-spacing:.04em}\n"
+        + ".fact span{font-size:17px;font-variant-numeric:tabular-nums}\n"
+        + "table{border-collapse:collapse;background:#fff;width:100%;font-size:14px;margin:4px 0 8px}\n"
+        + "th,td{border-bottom:1px solid " + GRID + ";padding:5px 8px;text-align:left;vertical-align:top}\n"
+        + "th{background:#f1f5f9;font-weight:600}td.n,th.n{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}\n"
+        + "code{font:13px ui-monospace,Menlo,Consolas,monospace}\n"
+        + "svg{display:block;background:#fff;border:1px solid " + GRID + ";border-radius:6px;max-width:100%;height:auto}\n"
+        + "svg text{font:12px system-ui,sans-serif;fill:" + INK + "}\n"
+        + ".tag{display:inline-block;background:" + AMBER + ";color:#fff;border-radius:4px;padding:0 6px;font-size:12px}\n";
+  }
+
+  private static void header(StringBuilder h, JsonNode r, String name, String currency) {
+    h.append("<h1>").append(escape(name)).append("</h1>\n");
+    h.append("<p class=\"note\">Planning estimates only: these figures are as good as the margins, demands"
+        + " and capacities written in the catalog, and no better.</p>\n");
+    h.append("<div class=\"facts\">\n");
+    fact(h, "status", escape(r.path("status").asText("unknown")));
+    fact(h, "objective", money(r.path("objective")) + unit(currency));
+    fact(h, "bound", money(r.path("bound")) + unit(currency));
+    fact(h, "gap", percent(r.path("gap")));
+    fact(h, "rounds", escape(r.path("iterations").asText(String.valueOf(r.path("rounds").size()))));
+    fact(h, "buildable variants", escape(r.path("buildableVariants").asText("—")));
+    h.append("</div>\n");
+  }
+
+  private static void fact(StringBuilder h, String label, String html) {
+    h.append("<div class=\"fact\"><b>").append(label).append("</b><span>").append(html).append("</span></div>\n");
+  }
+
+  private static String unit(String currency) {
+    return currency.isEmpty() ? "" : " " + escape(currency);
+  }
+
+  // ---- convergence ------------------------------------------------------------------------------
+
+  private static void convergence(StringBuilder h, JsonNode rounds) {
+    h.append("<h2>Convergence</h2>\n");
+    List<double[]> obj = new ArrayList<>();
+    List<double[]> bnd = new ArrayList<>();
+    for (JsonNode n : rounds) {
+      double it = n.path("iteration").asDouble();
+      if (n.path("objective").isNumber()) {
+        obj.add(new double[] {it, n.path("objective").asDouble()});
+      }
+      // early rounds may have no valid bound yet: those points are skipped, not drawn at zero
+      if (n.path("bound").isNumber()) {
+        bnd.add(new double[] {it, n.path("bound").asDouble()});
+      }
+    }
+    h.append("<p class=\"note\">Master LP objective (a plan that can be carried out) and the bound on the"
+        + " best possible objective, after each round of column generation.</p>\n");
+    int w = 760;
+    int ht = 300;
+    int left = 110;
+    int right = 20;
+    int top = 20;
+    int bottom = 46;
+    h.append(svgOpen(w, ht, "Objective and bound per round"));
+    if (obj.isEmpty() && bnd.isEmpty()) {
+      h.append(text(w / 2.0, ht / 2.0, "middle", "no rounds recorded")).append("</svg>\n");
+      return;
+    }
+    double xMin = Double.POSITIVE_INFINITY;
+    double xMax = Double.NEGATIVE_INFINITY;
+    double yMin = Double.POSITIVE_INFINITY;
+    double yMax = Double.NEGATIVE_INFINITY;
+    for (List<double[]> s : List.of(obj, bnd)) {
+      for (double[] p : s) {
+        xMin = Math.min(xMin, p[0]);
+        xMax = Math.max(xMax, p[0]);
+        yMin = Math.min(yMin, p[1]);
+        yMax = Math.max(yMax, p[1]);
+      }
+    }
+    // a little room either side so that the first and last points do not sit on the frame
+    double xPad = xMax == xMin ? 1 : (xMax - xMin) * 0.04;
+    xMin -= xPad;
+    xMax += xPad;
+    double[] yt = ticks(yMin, yMax, 5);
+    double y0 = yt[0];
+    double y1 = yt[yt.length - 1];
+    double pw = w - left - right;
+    double ph = ht - top - bottom;
+    double fx0 = xMin;
+    double fx1 = xMax;
+    java.util.function.DoubleUnaryOperator sx = x -> left + (x - fx0) / (fx1 - fx0) * pw;
+    java.util.function.DoubleUnaryOperator sy = y -> top + ph - (y - y0) / (y1 - y0) * ph;
+    for (double t : yt) {
+      double y = sy.applyAsDouble(t);
+      h.append(line(left, y, left + pw, y, GRID, 1));
+      h.append(text(left - 8, y + 4, "end", compact(t)));
+    }
+    int[] xt = intTicks(xMin, xMax, 10);
+    for (int t : xt) {
+      double x = sx.applyAsDouble(t);
+      h.append(line(x, top + ph, x, top + ph + 5, MUTED, 1));
+      h.append(text(x, top + ph + 18, "middle", String.valueOf(t)));
+    }
+    h.append(line(left, top, left, top + ph, MUTED, 1)).append(line(left, top + ph, left + pw, top + ph, MUTED, 1));
+    h.append(text(left + pw / 2, ht - 8, "middle", "round"));
+    series(h, bnd, sx, sy, AMBER, true);
+    series(h, obj, sx, sy, TEAL, false);
+    double lx = left + pw - 230;
+    h.append(line(lx, top + 10, lx + 24, top + 10, TEAL, 2.5)).append(text(lx + 30, top + 14, "start", "objective"));
+    h.append("<line x1=\"").append(f(lx + 110)).append("\" y1=\"").append(f(top + 10)).append("\" x2=\"")
+        .append(f(lx + 134)).append("\" y2=\"").append(f(top + 10)).append("\" stroke=\"").append(AMBER)
+        .append("\" stroke-width=\"2.5\" stroke-dasharray=\"6 4\"/>\n");
+    h.append(text(lx + 140, top + 14, "start", "bound"));
+    h.append("</svg>\n");
+  }
+
+  private static void series(StringBuilder h, List<double[]> pts, java.util.function.DoubleUnaryOperator sx,
+      java.util.function.DoubleUnaryOperator sy, String colour, boolean dashed) {
+    if (pts.isEmpty()) {
+      return;
+    }
+    StringBuilder d = new StringBuilder();
+    for (double[] p : pts) {
+      d.append(d.length() == 0 ? "" : " ").append(f(sx.applyAsDouble(p[0]))).append(',').append(f(sy.applyAsDouble(p[1])));
+    }
+    h.append("<polyline fill=\"none\" stroke=\"").append(colour).append("\" stroke-width=\"2.5\"")
+        .append(dashed ? " stroke-dasharray=\"6 4\"" : "").append(" points=\"").append(d).append("\"/>\n");
+    for (double[] p : pts) {
+      h.append("<circle cx=\"").append(f(sx.applyAsDouble(p[0]))).append("\" cy=\"").append(f(sy.applyAsDouble(p[1])))
+          .append("\" r=\"3.5\" fill=\"").append(colour).append("\"><title>round ").append((long) p[0]).append(": ")
+          .append(money(p[1])).append("</title></circle>\n");
+    }
+  }
+
+  /**
+   * Axis ticks at 1, 2 or 5 times a power of ten that cover [lo, hi] in about {@code want} steps
+   * (common practice for chart axes).
+   */
+  static double[] ticks(double lo, double hi, int want) {
+    if (!(hi > lo)) {
+      double pad = lo == 0 ? 1 : Math.abs(lo) * 0.05;
+      lo -= pad;
+      hi += pad;
+    }
+    double raw = (hi - lo) / want;
+    double mag = Math.pow(10, Math.floor(Math.log10(raw)));
+    double step = raw / mag <= 1 ? mag : raw / mag <= 2 ? 2 * mag : raw / mag <= 5 ? 5 * mag : 10 * mag;
+    double start = Math.floor(lo / step) * step;
+    double end = Math.ceil(hi / step) * step;
+    int n = (int) Math.round((end - start) / step) + 1;
+    double[] t = new double[n];
+    for (int i = 0; i < n; i++) {
+      t[i] = start + i * step;
+    }
+    return t;
+  }
+
+  private static int[] intTicks(double lo, double hi, int max) {
+    int a = (int) Math.ceil(lo);
+    int b = (int) Math.floor(hi);
+    int step = Math.max(1, (int) Math.ceil((b - a + 1) / (double) max));
+    List<Integer> t = new ArrayList<>();
+    for (int i = a; i <= b; i += step) {
+      t.add(i);
+    }
+    return t.stream().mapToInt(Integer::intValue).toArray();
+  }
+
+  // ---- resources --------------------------------------------------------------------------------
+
+  private static void resources(StringBuilder h, JsonNode res, String currency) {
+    h.append("<h2>Resources</h2>\n<p class=\"note\">Capacity used by the plan, each bar scaled to its own capacity."
+        + " The shadow price is what one more unit of capacity would add to the objective;"
+        + " binding resources are used to the full and drawn in amber.</p>\n");
+    int rowH = 44;
+    int w = 760;
+    int labelW = 150;
+    int barW = 300;
+    int ht = Math.max(1, res.size()) * rowH + 16;
+    h.append(svgOpen(w, ht, "Resource use against capacity"));
+    int i = 0;
+    for (JsonNode r : res) {
+      double y = 12 + i * rowH;
+      double cap = r.path("capacity").asDouble();
+      double used = r.path("used").asDouble();
+      boolean binding = r.path("binding").asBoolean(false);
+      double frac = cap > 0 ? Math.max(0, Math.min(1, used / cap)) : 0;
+      h.append(text(labelW - 10, y + 17, "end", r.path("id").asText()));
+      h.append(rect(labelW, y + 4, barW, 18, TRACK));
+      h.append(rect(labelW, y + 4, barW * frac, 18, binding ? AMBER : TEAL));
+      h.append(text(labelW + barW + 10, y + 12, "start",
+          qty(used) + " / " + qty(cap) + (cap > 0 ? String.format(Locale.ROOT, " (%.0f%%)", 100 * used / cap) : "")));
+      h.append(text(labelW + barW + 10, y + 28, "start",
+          "shadow price " + money(r.path("shadowPrice").asDouble()) + (currency.isEmpty() ? "" : " " + currency)
+              + " a unit" + (binding ? " · binding" : "")));
+      i++;
+    }
+    h.append("</svg>\n");
+  }
+
+  // ---- segments ---------------------------------------------------------------------------------
+
+  private static void segments(StringBuilder h, JsonNode r, String currency) {
+    JsonNode segs = r.path("segments");
+    h.append("<h2>The plan by segment</h2>\n<p class=\"note\">Units sold against demand in each segment;"
+        + " the pale part of a bar is demand the plan leaves unserved.</p>\n");
+    double maxDemand = 0;
+    for (JsonNode s : segs) {
+      maxDemand = Math.max(maxDemand, Math.max(s.path("demand").asDouble(), s.path("sold").asDouble()));
+    }
+    int rowH = 40;
+    int w = 760;
+    int labelW = 150;
+    int barW = 420;
+    int ht = Math.max(1, segs.size()) * rowH + 40;
+    h.append(svgOpen(w, ht, "Units sold against demand per segment"));
+    int i = 0;
+    for (JsonNode s : segs) {
+      double y = 12 + i * rowH;
+      double demand = s.path("demand").asDouble();
+      double sold = s.path("sold").asDouble();
+      double scale = maxDemand > 0 ? barW / maxDemand : 0;
+      double soldW = Math.max(0, sold) * scale;
+      double restW = Math.max(0, demand - sold) * scale;
+      h.append(text(labelW - 10, y + 17, "end", s.path("id").asText()));
+      h.append(rect(labelW, y + 4, soldW, 20, TEAL));
+      h.append("<rect x=\"").append(f(labelW + soldW)).append("\" y=\"").append(f(y + 4)).append("\" width=\"")
+          .append(f(restW)).append("\" height=\"20\" fill=\"").append(TRACK).append("\" stroke=\"").append(TEAL)
+          .append("\" stroke-dasharray=\"3 2\"/>\n");
+      h.append(text(labelW + soldW + restW + 10, y + 18, "start", qty(sold) + " of " + qty(demand) + " sold"));
+      i++;
+    }
+    double ly = ht - 16;
+    h.append(rect(labelW, ly - 10, 14, 12, TEAL)).append(text(labelW + 20, ly, "start", "sold"));
+    h.append(rect(labelW + 80, ly - 10, 14, 12, TRACK)).append(text(labelW + 100, ly, "start", "unserved demand"));
+    h.append("</svg>\n");
+
+    Map<String, List<JsonNode>> bySegment = new LinkedHashMap<>();
+    for (JsonNode s : segs) {
+      bySegment.put(s.path("id").asText(), new ArrayList<>());
+    }
+    for (JsonNode o : r.path("offers")) {
+      bySegment.computeIfAbsent(o.path("segment").asText(), k -> new ArrayList<>()).add(o);
+    }
+    for (JsonNode s : segs) {
+      String id = s.path("id").asText();
+      h.append("<h3>Segment ").append(escape(id)).append("</h3>\n");
+      h.append("<p class=\"note\">demand ").append(qty(s.path("demand").asDouble())).append(", sold ")
+          .append(qty(s.path("sold").asDouble())).append(", shadow price ").append(money(s.path("shadowPrice").asDouble()))
+          .append(unit(currency)).append("</p>\n");
+      List<JsonNode> offers = bySegment.get(id);
+      if (offers.isEmpty()) {
+        h.append("<p>No variant is offered in this segment.</p>\n");
+        continue;
+      }
+      h.append("<table>\n<tr><th>variant</th><th class=\"n\">quantity</th><th class=\"n\">unit margin</th></tr>\n");
+      for (JsonNode o : offers) {
+        h.append("<tr><td><code>").append(escape(variant(o.path("options")))).append("</code></td><td class=\"n\">")
+            .append(qty(o.path("quantity").asDouble())).append("</td><td class=\"n\">")
+            .append(money(o.path("unitMargin").asDouble())).append("</td></tr>\n");
+      }
+      h.append("</table>\n");
+    }
+  }
+
+  // ---- portfolio --------------------------------------------------------------------------------
+
+  private static void portfolio(StringBuilder h, JsonNode p, JsonNode segs, String currency) {
+    h.append("<h2>Integer portfolio</h2>\n<p class=\"note\">Whole variants with their introduction costs and"
+        + " minimum lots, chosen from the columns of the LP stage.</p>\n<div class=\"facts\">\n");
+    fact(h, "status", escape(p.path("status").asText("unknown")));
+    fact(h, "value", money(p.path("value")) + unit(currency));
+    fact(h, "bound", money(p.path("bound")) + unit(currency));
+    fact(h, "gap", percent(p.path("gap")));
+    if (p.path("introductionCosts").isNumber()) {
+      fact(h, "introduction costs", money(p.path("introductionCosts")) + unit(currency));
+    }
+    h.append("</div>\n");
+    List<String> segIds = new ArrayList<>();
+    for (JsonNode s : segs) {
+      segIds.add(s.path("id").asText());
+    }
+    for (JsonNode v : p.path("variants")) {
+      v.path("sales").fieldNames().forEachRemaining(k -> {
+        if (!segIds.contains(k)) {
+          segIds.add(k);
+        }
+      });
+    }
+    if (p.path("variants").isEmpty()) {
+      h.append("<p>No variant is introduced.</p>\n");
+      return;
+    }
+    h.append("<table>\n<tr><th>variant</th>");
+    for (String s : segIds) {
+      h.append("<th class=\"n\">").append(escape(s)).append("</th>");
+    }
+    h.append("</tr>\n");
+    for (JsonNode v : p.path("variants")) {
+      h.append("<tr><td><code>").append(escape(variant(v.path("options")))).append("</code></td>");
+      for (String s : segIds) {
+        JsonNode q = v.path("sales").path(s);
+        h.append("<td class=\"n\">").append(q.isNumber() && q.asDouble() != 0 ? qty(q.asDouble()) : "").append("</td>");
+      }
+      h.append("</tr>\n");
+    }
+    h.append("</table>\n");
+  }
+
+  // ---- small pieces -----------------------------------------------------------------------------
+
+  /** A variant as group=choice pairs, optional groups left at none omitted (as the log command shows it). */
+  static String variant(JsonNode options) {
+    StringBuilder sb = new StringBuilder();
+    Iterator<Map.Entry<String, JsonNode>> it = options.fields();
+    while (it.hasNext()) {
+      Map.Entry<String, JsonNode> e = it.next();
+      if (e.getValue().asText().equals("none")) {
+        continue;
+      }
+      sb.append(sb.length() == 0 ? "" : ", ").append(e.getKey()).append('=').append(e.getValue().asText());
+    }
+    return sb.length() == 0 ? "(every optional group at none)" : sb.toString();
+  }
+
+  /** Text made safe for HTML element content and quoted attribute values. */
+  public static String escape(String s) {
+    StringBuilder sb = new StringBuilder(s.length() + 16);
+    for (int i = 0; i < s.length(); i++) {
+      char c = s.charAt(i);
+      switch (c) {
+        case '&' -> sb.append("&amp;");
+        case '<' -> sb.append("&lt;");
+        case '>' -> sb.append("&gt;");
+        case '"' -> sb.append("&quot;");
+        case '\'' -> sb.append("&#39;");
+        default -> sb.append(c);
+      }
+    }
+    return sb.toString();
+  }
+
+  private static String svgOpen(int w, int h, String label) {
+    return "<svg viewBox=\"0 0 " + w + " " + h + "\" width=\"" + w + "\" height=\"" + h
+        + "\" role=\"img\" aria-label=\"" + escape(label) + "\">\n";
+  }
+
+  private static String text(double x, double y, String anchor, String s) {
+    return "<text x=\"" + f(x) + "\" y=\"" + f(y) + "\" text-anchor=\"" + anchor + "\">" + escape(s) + "</text>\n";
+  }
+
+  private static String line(double x1, double y1, double x2, double y2, String colour, double width) {
+    return "<line x1=\"" + f(x1) + "\" y1=\"" + f(y1) + "\" x2=\"" + f(x2) + "\" y2=\"" + f(y2) + "\" stroke=\""
+        + colour + "\" stroke-width=\"" + f(width) + "\"/>\n";
+  }
+
+  private static String rect(double x, double y, double w, double h, String fill) {
+    return "<rect x=\"" + f(x) + "\" y=\"" + f(y) + "\" width=\"" + f(Math.max(0, w)) + "\" height=\"" + f(h)
+        + "\" fill=\"" + fill + "\"/>\n";
+  }
+
+  private static String f(double v) {
+    return String.format(Locale.ROOT, "%.1f", v);
+  }
+
+  /** Money with thousands separators and cents; the same text a reader finds in the terminal summary. */
+  public static String money(double v) {
+    return Double.isFinite(v) ? String.format(Locale.ROOT, "%,.2f", v) : "—";
+  }
+
+  private static String money(JsonNode n) {
+    return n.isNumber() ? money(n.asDouble()) : "—";
+  }
+
+  private static String qty(double v) {
+    if (Math.abs(v - Math.rint(v)) < 1e-6) {
+      return String.format(Locale.ROOT, "%,.0f", v);
+    }
+    return String.format(Locale.ROOT, "%,.2f", v);
+  }
+
+  private static String percent(JsonNode n) {
+    if (!n.isNumber() || !Double.isFinite(n.asDouble())) {
+      return "—";
+    }
+    double g = n.asDouble();
+    if (g == 0) {
+      return "0%";
+    }
+    if (Math.abs(g) < 1e-4) {
+      return String.format(Locale.ROOT, "%.1e", g);
+    }
+    return String.format(Locale.ROOT, "%.3f%%", g * 100);
+  }
+
+  /** Axis labels short enough to fit: 29.9M rather than 29,900,000. */
+  private static String compact(double v) {
+    double a = Math.abs(v);
+    if (a >= 1e9) {
+      return trim(v / 1e9) + "G";
+    }
+    if (a >= 1e6) {
+      return trim(v / 1e6) + "M";
+    }
+    if (a >= 1e4) {
+      return trim(v / 1e3) + "k";
+    }
+    return trim(v);
+  }
+
+  private static String trim(double v) {
+    String s = String.format(Locale.ROOT, "%.3f", v);
+    s = s.replaceAll("0+$", "");
+    return s.endsWith(".") ? s.substring(0, s.length() - 1) : s;
+  }
+}
