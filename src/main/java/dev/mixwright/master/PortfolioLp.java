@@ -27,7 +27,7 @@ import java.util.List;
  * a fixed portfolio. Not thread-safe; close it to free the native solver.
  */
 public final class PortfolioLp implements AutoCloseable {
-  private static final double FEASIBILITY_TOLERANCE = 1e-6;
+  private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
   private final MPSolver solver;
   private final MPObjective objective;
@@ -191,17 +191,7 @@ public final class PortfolioLp implements AutoCloseable {
     if (limitRow != null && ys > limit + FEASIBILITY_TOLERANCE * Math.max(1.0, limit)) {
       return false;
     }
-    for (int r = 0; r < rowUse.length; r++) {
-      if (rowUse[r] > capacity[r] + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(capacity[r]))) {
-        return false;
-      }
-    }
-    for (int s = 0; s < segUse.length; s++) {
-      if (segUse[s] > demand[s] + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(demand[s]))) {
-        return false;
-      }
-    }
-    return true;
+    return Rows.within(rowUse, capacity) && Rows.within(segUse, demand);
   }
 
   @Override

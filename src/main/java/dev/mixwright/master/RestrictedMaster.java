@@ -23,7 +23,7 @@ import java.util.List;
  * native solver.
  */
 public final class RestrictedMaster implements AutoCloseable {
-  private static final double FEASIBILITY_TOLERANCE = 1e-6;
+  private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
   private final MPSolver solver;
   private final MPObjective objective;
@@ -183,17 +183,7 @@ public final class RestrictedMaster implements AutoCloseable {
         segUse[s] += x[j];
       }
     }
-    for (int r = 0; r < rowUse.length; r++) {
-      if (rowUse[r] > capacity[r] + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(capacity[r]))) {
-        return false;
-      }
-    }
-    for (int s = 0; s < segUse.length; s++) {
-      if (segUse[s] > demand[s] + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(demand[s]))) {
-        return false;
-      }
-    }
-    return true;
+    return Rows.within(rowUse, capacity) && Rows.within(segUse, demand);
   }
 
   @Override
