@@ -33,24 +33,14 @@ public final class FullLp implements AutoCloseable {
    *     default
    */
   public FullLp(double[] capacity, double[] demand, boolean dualSimplex) {
-    Natives.load();
-    solver = MPSolver.createSolver("GLOP");
-    if (solver == null) {
-      throw new IllegalStateException("OR-Tools has no GLOP solver in this build");
-    }
+    solver = Rows.solver("GLOP");
     if (dualSimplex) {
       solver.setSolverSpecificParametersAsString("use_dual_simplex:true");
     }
     objective = solver.objective();
     objective.setMaximization();
-    resourceRows = new MPConstraint[capacity.length];
-    for (int r = 0; r < capacity.length; r++) {
-      resourceRows[r] = solver.makeConstraint(Double.NEGATIVE_INFINITY, capacity[r], "r" + r);
-    }
-    segmentRows = new MPConstraint[demand.length];
-    for (int s = 0; s < demand.length; s++) {
-      segmentRows[s] = solver.makeConstraint(Double.NEGATIVE_INFINITY, demand[s], "s" + s);
-    }
+    resourceRows = Rows.atMost(solver, capacity, "r");
+    segmentRows = Rows.atMost(solver, demand, "s");
   }
 
   /** Adds column j = (variant, segment) with margin m_j, use a_j and bound u_j. */

@@ -45,25 +45,15 @@ public final class PortfolioLp implements AutoCloseable {
 
   /** @param variantLimit K, {@code Integer.MAX_VALUE} for none */
   public PortfolioLp(double[] capacity, double[] demand, int variantLimit) {
-    Natives.load();
     this.capacity = capacity.clone();
     this.demand = demand.clone();
     this.limit = variantLimit;
-    solver = MPSolver.createSolver("GLOP");
-    if (solver == null) {
-      throw new IllegalStateException("OR-Tools has no GLOP solver in this build");
-    }
+    solver = Rows.solver("GLOP");
     solver.setSolverSpecificParametersAsString("use_preprocessing:false");
     objective = solver.objective();
     objective.setMaximization();
-    resourceRows = new MPConstraint[capacity.length];
-    for (int r = 0; r < capacity.length; r++) {
-      resourceRows[r] = solver.makeConstraint(Double.NEGATIVE_INFINITY, capacity[r], "r" + r);
-    }
-    segmentRows = new MPConstraint[demand.length];
-    for (int s = 0; s < demand.length; s++) {
-      segmentRows[s] = solver.makeConstraint(Double.NEGATIVE_INFINITY, demand[s], "s" + s);
-    }
+    resourceRows = Rows.atMost(solver, capacity, "r");
+    segmentRows = Rows.atMost(solver, demand, "s");
     limitRow = variantLimit == Integer.MAX_VALUE ? null
         : solver.makeConstraint(Double.NEGATIVE_INFINITY, variantLimit, "limit");
   }

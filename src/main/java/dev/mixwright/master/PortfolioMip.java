@@ -76,13 +76,9 @@ public final class PortfolioMip implements AutoCloseable {
    * @param toolCost tooling cost per tool id (for the catalog: per flat choice)
    */
   public PortfolioMip(Engine engine, double[] capacity, double[] demand, int variantLimit, double[] toolCost) {
-    Natives.load();
     this.engine = engine;
     this.toolCost = toolCost.clone();
-    solver = MPSolver.createSolver(engine.solverId);
-    if (solver == null) {
-      throw new IllegalStateException("OR-Tools has no " + engine.solverId + " solver in this build");
-    }
+    solver = Rows.solver(engine.solverId);
     solver.setNumThreads(1);
     if (engine == Engine.SCIP) {
       // SCIP catches Ctrl-C by default and swallows it; leave it to the JVM, whose handler stops the
@@ -91,14 +87,8 @@ public final class PortfolioMip implements AutoCloseable {
     }
     objective = solver.objective();
     objective.setMaximization();
-    resourceRows = new MPConstraint[capacity.length];
-    for (int r = 0; r < capacity.length; r++) {
-      resourceRows[r] = solver.makeConstraint(Double.NEGATIVE_INFINITY, capacity[r], "r" + r);
-    }
-    segmentRows = new MPConstraint[demand.length];
-    for (int s = 0; s < demand.length; s++) {
-      segmentRows[s] = solver.makeConstraint(Double.NEGATIVE_INFINITY, demand[s], "s" + s);
-    }
+    resourceRows = Rows.atMost(solver, capacity, "r");
+    segmentRows = Rows.atMost(solver, demand, "s");
     limitRow = variantLimit == Integer.MAX_VALUE ? null
         : solver.makeConstraint(Double.NEGATIVE_INFINITY, variantLimit, "limit");
   }

@@ -42,25 +42,15 @@ public final class RestrictedMaster implements AutoCloseable {
    * @param demand right-hand side of each segment row (may be empty for a plain product-mix LP)
    */
   public RestrictedMaster(double[] capacity, double[] demand) {
-    Natives.load();
     this.capacity = capacity.clone();
     this.demand = demand.clone();
-    solver = MPSolver.createSolver("GLOP");
-    if (solver == null) {
-      throw new IllegalStateException("OR-Tools has no GLOP solver in this build");
-    }
+    solver = Rows.solver("GLOP");
     // Without presolve GLOP re-solves incrementally from the previous basis.
     solver.setSolverSpecificParametersAsString("use_preprocessing:false");
     objective = solver.objective();
     objective.setMaximization();
-    resourceRows = new MPConstraint[capacity.length];
-    for (int r = 0; r < capacity.length; r++) {
-      resourceRows[r] = solver.makeConstraint(Double.NEGATIVE_INFINITY, capacity[r], "r" + r);
-    }
-    segmentRows = new MPConstraint[demand.length];
-    for (int s = 0; s < demand.length; s++) {
-      segmentRows[s] = solver.makeConstraint(Double.NEGATIVE_INFINITY, demand[s], "s" + s);
-    }
+    resourceRows = Rows.atMost(solver, capacity, "r");
+    segmentRows = Rows.atMost(solver, demand, "s");
   }
 
   /**
