@@ -76,17 +76,20 @@ public final class Explainer {
     return out.stream().distinct().toList();
   }
 
+  /**
+   * The rules that remove this choice from every variant. The space folds such rules into its
+   * allowed choices, so each rule is compiled on its own to see which ones do it (explain runs once,
+   * and compiling one rule costs little).
+   */
   private String singleGroupRules(int g, int k) {
     Catalog cat = space.catalog();
-    String gid = cat.groups().get(g).id();
-    String cid = cat.groups().get(g).choiceId(k);
+    int f = space.offset(g) + k;
     List<String> hits = new ArrayList<>();
     for (int r = 0; r < cat.rules().size(); r++) {
       Rule rule = cat.rules().get(r);
-      boolean names = rule.forbid().getOrDefault(gid, List.of()).contains(cid)
-          || (rule.when().isEmpty() && rule.require().containsKey(gid) && !rule.require().get(gid).contains(cid))
-          || (rule.require().containsKey(gid) && rule.when().containsKey(gid));
-      if (names) {
+      Catalog alone = new Catalog(cat.format(), cat.name(), cat.currency(), cat.period(), cat.resources(),
+          cat.groups(), List.of(rule), cat.segments(), cat.portfolio());
+      if (!new VariantSpace(alone).allowed(f)) {
         hits.add("rules[" + r + "]" + (rule.id() == null ? "" : " (" + rule.id() + ")"));
       }
     }
