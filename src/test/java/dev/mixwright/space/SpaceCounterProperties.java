@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Rule;
+import dev.mixwright.testing.Cases;
 import dev.mixwright.testing.RandomCatalogs;
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -13,11 +14,12 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
-import net.jqwik.api.ForAll;
-import net.jqwik.api.Property;
-import net.jqwik.api.constraints.IntRange;
+import org.junit.jupiter.api.Test;
 
-/** SpaceCounter against brute force (odometer over every combination of choices). */
+/**
+ * SpaceCounter against brute force (odometer over every combination of choices), on seeded cases
+ * ({@link Cases}); a failure names its seed.
+ */
 class SpaceCounterProperties {
   static final long MAX_BRUTE = 100_000;
 
@@ -78,12 +80,17 @@ class SpaceCounterProperties {
     return out;
   }
 
-  @Property(tries = 100)
-  void exactCountEqualsBruteForce(
-      @ForAll long seed,
-      @ForAll @IntRange(min = 1, max = 12) int groups,
-      @ForAll @IntRange(min = 1, max = 7) int maxOptions,
-      @ForAll @IntRange(min = 0, max = 30) int rules) {
+  @Test
+  void exactCountEqualsBruteForce() {
+    Cases.each(100, (seed, rnd) -> exactCountEqualsBruteForce(rnd));
+  }
+
+  private static void exactCountEqualsBruteForce(Random rnd) {
+    int groups = Cases.between(rnd, 1, 12);
+    int maxOptions = Cases.between(rnd, 1, 7);
+    int rules = Cases.between(rnd, 0, 30);
+    // the catalog's own stream, apart from the draws above
+    long seed = rnd.nextLong();
     VariantSpace space = new VariantSpace(sized(seed, groups, maxOptions, rules, 3));
     SpaceCounter counter = new SpaceCounter(space);
     SpaceCount all = counter.count();
@@ -96,13 +103,18 @@ class SpaceCounterProperties {
     }
   }
 
-  @Property(tries = 80)
-  void exactCountEqualsBruteForceWithWideRules(
-      @ForAll long seed,
-      @ForAll @IntRange(min = 3, max = 12) int groups,
-      @ForAll @IntRange(min = 2, max = 6) int maxOptions,
-      @ForAll @IntRange(min = 0, max = 12) int rules,
-      @ForAll @IntRange(min = 1, max = 12) int wide) {
+  @Test
+  void exactCountEqualsBruteForceWithWideRules() {
+    Cases.each(80, (seed, rnd) -> exactCountEqualsBruteForceWithWideRules(rnd));
+  }
+
+  private static void exactCountEqualsBruteForceWithWideRules(Random rnd) {
+    int groups = Cases.between(rnd, 3, 12);
+    int maxOptions = Cases.between(rnd, 2, 6);
+    int rules = Cases.between(rnd, 0, 12);
+    int wide = Cases.between(rnd, 1, 12);
+    // the catalog's own stream, apart from the draws above
+    long seed = rnd.nextLong();
     VariantSpace space =
         new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 2), seed, wide));
     SpaceCounter counter = new SpaceCounter(space);
@@ -114,13 +126,18 @@ class SpaceCounterProperties {
   }
 
   /** With tiny tables the count may only be a bound, but never below the truth. */
-  @Property(tries = 80)
-  void boundNeverBelowTruth(
-      @ForAll long seed,
-      @ForAll @IntRange(min = 3, max = 12) int groups,
-      @ForAll @IntRange(min = 2, max = 6) int maxOptions,
-      @ForAll @IntRange(min = 5, max = 40) int rules,
-      @ForAll @IntRange(min = 1, max = 64) int limit) {
+  @Test
+  void boundNeverBelowTruth() {
+    Cases.each(500, (seed, rnd) -> boundNeverBelowTruth(rnd));
+  }
+
+  private static void boundNeverBelowTruth(Random rnd) {
+    int groups = Cases.between(rnd, 3, 12);
+    int maxOptions = Cases.between(rnd, 2, 6);
+    int rules = Cases.between(rnd, 5, 40);
+    int limit = Cases.between(rnd, 1, 64);
+    // the catalog's own stream, apart from the draws above
+    long seed = rnd.nextLong();
     VariantSpace space =
         new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 1), seed, 4));
     SpaceCount c = new SpaceCounter(space, limit).count();
@@ -134,15 +151,19 @@ class SpaceCounterProperties {
   }
 
   /** count(domain) and the feasibility search agree with brute force on random restrictions. */
-  @Property(tries = 80)
-  void restrictedCountAndSearchEqualBruteForce(
-      @ForAll long seed,
-      @ForAll @IntRange(min = 2, max = 10) int groups,
-      @ForAll @IntRange(min = 2, max = 6) int maxOptions,
-      @ForAll @IntRange(min = 0, max = 30) int rules) {
+  @Test
+  void restrictedCountAndSearchEqualBruteForce() {
+    Cases.each(1000, (seed, rnd) -> restrictedCountAndSearchEqualBruteForce(rnd));
+  }
+
+  private static void restrictedCountAndSearchEqualBruteForce(Random rnd) {
+    int groups = Cases.between(rnd, 2, 10);
+    int maxOptions = Cases.between(rnd, 2, 6);
+    int rules = Cases.between(rnd, 0, 30);
+    // the catalog's own stream, apart from the draws above
+    long seed = rnd.nextLong();
     VariantSpace space =
         new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 1), seed, 3));
-    Random rnd = new Random(seed);
     boolean[] domain = new boolean[space.totalChoices()];
     for (int f = 0; f < domain.length; f++) {
       domain[f] = rnd.nextDouble() < 0.75;
@@ -172,12 +193,17 @@ class SpaceCounterProperties {
   }
 
   /** The compiled space (allowed + nogoods) says what the catalog's rules say, read directly. */
-  @Property(tries = 60)
-  void compiledRulesAgreeWithCatalogRules(
-      @ForAll long seed,
-      @ForAll @IntRange(min = 2, max = 10) int groups,
-      @ForAll @IntRange(min = 1, max = 6) int maxOptions,
-      @ForAll @IntRange(min = 0, max = 25) int rules) {
+  @Test
+  void compiledRulesAgreeWithCatalogRules() {
+    Cases.each(60, (seed, rnd) -> compiledRulesAgreeWithCatalogRules(rnd));
+  }
+
+  private static void compiledRulesAgreeWithCatalogRules(Random rnd) {
+    int groups = Cases.between(rnd, 2, 10);
+    int maxOptions = Cases.between(rnd, 1, 6);
+    int rules = Cases.between(rnd, 0, 25);
+    // the catalog's own stream, apart from the draws above
+    long seed = rnd.nextLong();
     Catalog c = withWideRules(sized(seed, groups, maxOptions, rules, 3), seed, 3);
     VariantSpace space = new VariantSpace(c);
     long mismatches =
