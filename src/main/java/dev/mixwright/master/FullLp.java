@@ -1,7 +1,5 @@
 package dev.mixwright.master;
 
-import com.google.ortools.linearsolver.MPConstraint;
-import com.google.ortools.linearsolver.MPObjective;
 import com.google.ortools.linearsolver.MPSolver;
 import com.google.ortools.linearsolver.MPVariable;
 
@@ -17,12 +15,9 @@ import com.google.ortools.linearsolver.MPVariable;
  * thread-safe; close it to free the native solver.
  */
 public final class FullLp implements AutoCloseable {
-  private final MPSolver solver;
-  private final MPObjective objective;
-  private final MPConstraint[] resourceRows;
-  private final MPConstraint[] segmentRows;
+  private final Rows rows;
   private int columns;
-  private boolean closed;
+  private LpStatus lastStatus;
 
   /** The outcome of the solve: status, objective, simplex iterations and the row duals. */
   public record Result(LpStatus status, double objective, long simplexIterations, double[] resourceDual,
@@ -33,29 +28,15 @@ public final class FullLp implements AutoCloseable {
    *     default
    */
   public FullLp(double[] capacity, double[] demand, boolean dualSimplex) {
-    solver = Rows.solver("GLOP");
+    rows = new Rows("GLOP", capacity, demand);
     if (dualSimplex) {
-      solver.setSolverSpecificParametersAsString("use_dual_simplex:true");
+      rows.solver.setSolverSpecificParametersAsString("use_dual_simplex:true");
     }
-    objective = solver.objective();
-    objective.setMaximization();
-    resourceRows = Rows.atMost(solver, capacity, "r");
-    segmentRows = Rows.atMost(solver, demand, "s");
   }
 
   /** Adds column j = (variant, segment) with margin m_j, use a_j and bound u_j. */
   public void addColumn(int segment, double margin, double[] use, double upper) {
-    if (use.length != resourceRows.length) {
-      throw new IllegalArgumentException("use has " + use.length + " entries, rows " + resourceRows.length);
-    }
-    MPVariable x = solver.makeNumVar(0.0, upper, "");
-    objective.setCoefficient(x, margin);
-    for (int r = 0; r < use.length; r++) {
-      if (use[r] != 0.0) {
-        resourceRows[r].setCoefficient(x, use[r]);
-      }
-    }
-    segmentRows[segment].setCoefficient(x, 1.0);
+    rows.addSales("", upper, segment, margin, use);
     columns++;
   }
 
@@ -64,35 +45,37 @@ public final class FullLp implements AutoCloseable {
   }
 
   public Result solve() {
-    MPSolver.ResultStatus rs = solver.solve();
-    long iters = solver.iterations();
-    if (rs != MPSolver.ResultStatus.OPTIMAL) {
-      LpStatus st = switch (rs) {
-        case INFEASIBLE -> LpStatus.INFEASIBLE;
-        case UNBOUNDED -> LpStatus.UNBOUNDED;
-        default -> LpStatus.FAILED;
-      };
-      return new Result(st, Double.NaN, iters, new double[0], new double[0]);
+    MPSolver.ResultStatus rs = rows.solver.solve();
+    long iters = rows.solver.iterations();
+    lastStatus = Rows.lpStatus(rs);
+    if (lastStatus.isOptimal() && !rows.solver.verifySolution(1e-6, false)) {
+      lastStatus = LpStatus.FAILED;
     }
-    if (!solver.verifySolution(1e-6, false)) {
-      return new Result(LpStatus.FAILED, Double.NaN, iters, new double[0], new double[0]);
+    if (!lastStatus.isOptimal()) {
+      return new Result(lastStatus, Double.NaN, iters, new double[0], new double[0]);
     }
-    double[] pi = new double[resourceRows.length];
-    for (int r = 0; r < pi.length; r++) {
-      pi[r] = Math.max(0.0, resourceRows[r].dualValue());
+    return new Result(LpStatus.OPTIMAL, rows.objective.value(), iters, rows.resourceDuals(),
+        rows.segmentDuals());
+  }
+
+  /**
+   * x_j per column in the order added, read from the solver on request (nothing per column is kept
+   * here); only after a solve that ended optimal.
+   */
+  public double[] columnValues() {
+    if (lastStatus == null || !lastStatus.isOptimal()) {
+      throw new IllegalStateException("no optimal solution to read (last solve: " + lastStatus + ")");
     }
-    double[] mu = new double[segmentRows.length];
-    for (int s = 0; s < mu.length; s++) {
-      mu[s] = Math.max(0.0, segmentRows[s].dualValue());
+    MPVariable[] vars = rows.solver.variables();
+    double[] x = new double[vars.length];
+    for (int j = 0; j < x.length; j++) {
+      x[j] = vars[j].solutionValue();
     }
-    return new Result(LpStatus.OPTIMAL, objective.value(), iters, pi, mu);
+    return x;
   }
 
   @Override
   public void close() {
-    if (!closed) {
-      closed = true;
-      solver.delete();
-    }
+    rows.close();
   }
 }

@@ -1,8 +1,5 @@
 package dev.mixwright.master;
 
-import com.google.ortools.linearsolver.MPConstraint;
-import com.google.ortools.linearsolver.MPObjective;
-import com.google.ortools.linearsolver.MPSolver;
 import com.google.ortools.linearsolver.MPVariable;
 import java.util.ArrayList;
 import java.util.List;
@@ -29,16 +26,11 @@ import java.util.List;
 public final class PortfolioLp implements AutoCloseable {
   private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
-  private final MPSolver solver;
-  private final MPObjective objective;
-  private final MPConstraint[] resourceRows;
-  private final MPConstraint[] segmentRows;
-  private final MPConstraint limitRow;
+  private final Rows rows;
   private final double[] capacity;
   private final double[] demand;
   private final int limit;
   private final List<Block> blocks = new ArrayList<>();
-  private boolean closed;
 
   private record Block(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
       double minLot, MPVariable y, MPVariable[] x) {}
@@ -48,14 +40,8 @@ public final class PortfolioLp implements AutoCloseable {
     this.capacity = capacity.clone();
     this.demand = demand.clone();
     this.limit = variantLimit;
-    solver = Rows.solver("GLOP");
-    solver.setSolverSpecificParametersAsString("use_preprocessing:false");
-    objective = solver.objective();
-    objective.setMaximization();
-    resourceRows = Rows.atMost(solver, capacity, "r");
-    segmentRows = Rows.atMost(solver, demand, "s");
-    limitRow = variantLimit == Integer.MAX_VALUE ? null
-        : solver.makeConstraint(Double.NEGATIVE_INFINITY, variantLimit, "limit");
+    rows = new Rows("GLOP", capacity, demand, variantLimit);
+    rows.solver.setSolverSpecificParametersAsString("use_preprocessing:false");
   }
 
   /**
@@ -71,32 +57,8 @@ public final class PortfolioLp implements AutoCloseable {
   public int addVariant(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
       double minLot) {
     int i = blocks.size();
-    MPVariable y = solver.makeNumVar(0.0, 1.0, "y" + i);
-    objective.setCoefficient(y, -fixedCost);
-    if (limitRow != null) {
-      limitRow.setCoefficient(y, 1.0);
-    }
-    MPConstraint lot = minLot > 0 ? solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "lot" + i) : null;
-    if (lot != null) {
-      lot.setCoefficient(y, minLot);
-    }
-    MPVariable[] x = new MPVariable[segments.length];
-    for (int k = 0; k < segments.length; k++) {
-      x[k] = solver.makeNumVar(0.0, upper[k], "x" + i + "_" + segments[k]);
-      objective.setCoefficient(x[k], margin[k]);
-      for (int r = 0; r < use.length; r++) {
-        if (use[r] != 0.0) {
-          resourceRows[r].setCoefficient(x[k], use[r]);
-        }
-      }
-      segmentRows[segments[k]].setCoefficient(x[k], 1.0);
-      MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "link" + i + "_" + segments[k]);
-      link.setCoefficient(x[k], 1.0);
-      link.setCoefficient(y, -upper[k]);
-      if (lot != null) {
-        lot.setCoefficient(x[k], -1.0);
-      }
-    }
+    MPVariable y = rows.solver.makeNumVar(0.0, 1.0, "y" + i);
+    MPVariable[] x = rows.addBlock(i, y, segments, margin, use, upper, fixedCost, minLot);
     blocks.add(new Block(segments.clone(), margin.clone(), use.clone(), upper.clone(), fixedCost, minLot, y, x));
     return i;
   }
@@ -112,14 +74,7 @@ public final class PortfolioLp implements AutoCloseable {
 
   /** Solves and verifies the point against every row; duals only when optimal. */
   public PortfolioLpSolution solve() {
-    MPSolver.ResultStatus rs = solver.solve();
-    LpStatus status =
-        switch (rs) {
-          case OPTIMAL -> LpStatus.OPTIMAL;
-          case INFEASIBLE -> LpStatus.INFEASIBLE;
-          case UNBOUNDED -> LpStatus.UNBOUNDED;
-          default -> LpStatus.FAILED;
-        };
+    LpStatus status = Rows.lpStatus(rows.solver.solve());
     if (!status.isOptimal()) {
       return PortfolioLpSolution.failed(status);
     }
@@ -140,16 +95,8 @@ public final class PortfolioLp implements AutoCloseable {
     if (!feasible(y, x)) {
       return PortfolioLpSolution.failed(LpStatus.FAILED);
     }
-    double[] pi = new double[resourceRows.length];
-    for (int r = 0; r < pi.length; r++) {
-      pi[r] = Math.max(0.0, resourceRows[r].dualValue());
-    }
-    double[] mu = new double[segmentRows.length];
-    for (int s = 0; s < mu.length; s++) {
-      mu[s] = Math.max(0.0, segmentRows[s].dualValue());
-    }
-    double lambda = limitRow == null ? 0.0 : Math.max(0.0, limitRow.dualValue());
-    return new PortfolioLpSolution(LpStatus.OPTIMAL, z, y, x, pi, mu, lambda);
+    return new PortfolioLpSolution(LpStatus.OPTIMAL, z, y, x, rows.resourceDuals(), rows.segmentDuals(),
+        rows.limitDual());
   }
 
   private boolean feasible(double[] y, double[][] x) {
@@ -178,7 +125,7 @@ public final class PortfolioLp implements AutoCloseable {
         return false;
       }
     }
-    if (limitRow != null && ys > limit + FEASIBILITY_TOLERANCE * Math.max(1.0, limit)) {
+    if (rows.hasLimit() && ys > limit + FEASIBILITY_TOLERANCE * Math.max(1.0, limit)) {
       return false;
     }
     return Rows.within(rowUse, capacity) && Rows.within(segUse, demand);
@@ -186,9 +133,6 @@ public final class PortfolioLp implements AutoCloseable {
 
   @Override
   public void close() {
-    if (!closed) {
-      closed = true;
-      solver.delete();
-    }
+    rows.close();
   }
 }

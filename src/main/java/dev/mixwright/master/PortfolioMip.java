@@ -22,7 +22,7 @@ import java.util.function.BooleanSupplier;
  * with an unknown status in a measurement here. Build, optionally hint, solve once; not thread-safe.
  */
 public final class PortfolioMip implements AutoCloseable {
-  private static final double FEASIBILITY_TOLERANCE = 1e-6;
+  private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
   /** The MIP engine. */
   public enum Engine {
@@ -60,16 +60,13 @@ public final class PortfolioMip implements AutoCloseable {
   }
 
   private final Engine engine;
+  private final Rows rows;
   private final MPSolver solver;
   private final MPObjective objective;
-  private final MPConstraint[] resourceRows;
-  private final MPConstraint[] segmentRows;
-  private final MPConstraint limitRow;
   private final double[] toolCost;
   private final Map<Integer, MPVariable> tools = new HashMap<>();
   private final List<MPVariable> ys = new ArrayList<>();
   private final List<MPVariable[]> xs = new ArrayList<>();
-  private boolean closed;
 
   /**
    * @param variantLimit K, {@code Integer.MAX_VALUE} for none
@@ -78,19 +75,15 @@ public final class PortfolioMip implements AutoCloseable {
   public PortfolioMip(Engine engine, double[] capacity, double[] demand, int variantLimit, double[] toolCost) {
     this.engine = engine;
     this.toolCost = toolCost.clone();
-    solver = Rows.solver(engine.solverId);
+    rows = new Rows(engine.solverId, capacity, demand, variantLimit);
+    solver = rows.solver;
+    objective = rows.objective;
     solver.setNumThreads(1);
     if (engine == Engine.SCIP) {
       // SCIP catches Ctrl-C by default and swallows it; leave it to the JVM, whose handler stops the
       // run (and this solve through interruptSolve) in the product's own way
       solver.setSolverSpecificParametersAsString("misc/catchctrlc = FALSE");
     }
-    objective = solver.objective();
-    objective.setMaximization();
-    resourceRows = Rows.atMost(solver, capacity, "r");
-    segmentRows = Rows.atMost(solver, demand, "s");
-    limitRow = variantLimit == Integer.MAX_VALUE ? null
-        : solver.makeConstraint(Double.NEGATIVE_INFINITY, variantLimit, "limit");
   }
 
   /**
@@ -101,31 +94,7 @@ public final class PortfolioMip implements AutoCloseable {
       double minLot, int[] toolIds) {
     int i = ys.size();
     MPVariable y = solver.makeBoolVar("y" + i);
-    objective.setCoefficient(y, -fixedCost);
-    if (limitRow != null) {
-      limitRow.setCoefficient(y, 1.0);
-    }
-    MPConstraint lot = minLot > 0 ? solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "lot" + i) : null;
-    if (lot != null) {
-      lot.setCoefficient(y, minLot);
-    }
-    MPVariable[] x = new MPVariable[segments.length];
-    for (int k = 0; k < segments.length; k++) {
-      x[k] = solver.makeNumVar(0.0, upper[k], "x" + i + "_" + segments[k]);
-      objective.setCoefficient(x[k], margin[k]);
-      for (int r = 0; r < use.length; r++) {
-        if (use[r] != 0.0) {
-          resourceRows[r].setCoefficient(x[k], use[r]);
-        }
-      }
-      segmentRows[segments[k]].setCoefficient(x[k], 1.0);
-      MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "link" + i + "_" + k);
-      link.setCoefficient(x[k], 1.0);
-      link.setCoefficient(y, -upper[k]);
-      if (lot != null) {
-        lot.setCoefficient(x[k], -1.0);
-      }
-    }
+    MPVariable[] x = rows.addBlock(i, y, segments, margin, use, upper, fixedCost, minLot);
     for (int t : toolIds) {
       if (toolCost[t] <= 0) {
         continue;
@@ -253,9 +222,6 @@ public final class PortfolioMip implements AutoCloseable {
 
   @Override
   public void close() {
-    if (!closed) {
-      closed = true;
-      solver.delete();
-    }
+    rows.close();
   }
 }

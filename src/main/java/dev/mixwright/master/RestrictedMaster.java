@@ -1,7 +1,5 @@
 package dev.mixwright.master;
 
-import com.google.ortools.linearsolver.MPConstraint;
-import com.google.ortools.linearsolver.MPObjective;
 import com.google.ortools.linearsolver.MPSolver;
 import com.google.ortools.linearsolver.MPVariable;
 import java.util.ArrayList;
@@ -25,17 +23,13 @@ import java.util.List;
 public final class RestrictedMaster implements AutoCloseable {
   private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
-  private final MPSolver solver;
-  private final MPObjective objective;
-  private final MPConstraint[] resourceRows;
-  private final MPConstraint[] segmentRows;
+  private final Rows rows;
   private final double[] capacity;
   private final double[] demand;
   private final List<MPVariable> vars = new ArrayList<>();
   private final List<double[]> columnUse = new ArrayList<>();
   private final List<Integer> columnSegment = new ArrayList<>();
   private final List<Double> columnObjective = new ArrayList<>();
-  private boolean closed;
 
   /**
    * @param capacity right-hand side of each resource row
@@ -44,13 +38,9 @@ public final class RestrictedMaster implements AutoCloseable {
   public RestrictedMaster(double[] capacity, double[] demand) {
     this.capacity = capacity.clone();
     this.demand = demand.clone();
-    solver = Rows.solver("GLOP");
+    rows = new Rows("GLOP", capacity, demand);
     // Without presolve GLOP re-solves incrementally from the previous basis.
-    solver.setSolverSpecificParametersAsString("use_preprocessing:false");
-    objective = solver.objective();
-    objective.setMaximization();
-    resourceRows = Rows.atMost(solver, capacity, "r");
-    segmentRows = Rows.atMost(solver, demand, "s");
+    rows.solver.setSolverSpecificParametersAsString("use_preprocessing:false");
   }
 
   /**
@@ -62,20 +52,8 @@ public final class RestrictedMaster implements AutoCloseable {
    * @param upper upper bound u_j ({@code Double.POSITIVE_INFINITY} for none)
    */
   public int addColumn(int segment, double margin, double[] use, double upper) {
-    if (use.length != resourceRows.length) {
-      throw new IllegalArgumentException("use has " + use.length + " entries, rows " + resourceRows.length);
-    }
     int j = vars.size();
-    MPVariable x = solver.makeNumVar(0.0, upper, "x" + j);
-    objective.setCoefficient(x, margin);
-    for (int r = 0; r < use.length; r++) {
-      if (use[r] != 0.0) {
-        resourceRows[r].setCoefficient(x, use[r]);
-      }
-    }
-    if (segment >= 0) {
-      segmentRows[segment].setCoefficient(x, 1.0);
-    }
+    MPVariable x = rows.addSales("x" + j, upper, segment, margin, use);
     vars.add(x);
     columnUse.add(use.clone());
     columnSegment.add(segment);
@@ -91,7 +69,7 @@ public final class RestrictedMaster implements AutoCloseable {
   /** Changes a resource row's capacity. */
   public void setCapacity(int r, double value) {
     capacity[r] = value;
-    resourceRows[r].setUb(value);
+    rows.setCapacity(r, value);
   }
 
   public int columnCount() {
@@ -105,23 +83,17 @@ public final class RestrictedMaster implements AutoCloseable {
       // Measured: GLOP's incremental re-solve without presolve can end ABNORMAL after some sequences
       // of added columns (seen with smoothed duals on a generated catalog); a cold start from
       // scratch then solves the same LP. reset() drops the basis, not the model.
-      solver.reset();
+      rows.solver.reset();
       sol = solveOnce();
     }
     return sol;
   }
 
   private MasterSolution solveOnce() {
-    MPSolver.ResultStatus rs = solver.solve();
-    long iters = solver.iterations();
+    MPSolver.ResultStatus rs = rows.solver.solve();
+    long iters = rows.solver.iterations();
     int n = vars.size();
-    LpStatus status =
-        switch (rs) {
-          case OPTIMAL -> LpStatus.OPTIMAL;
-          case INFEASIBLE -> LpStatus.INFEASIBLE;
-          case UNBOUNDED -> LpStatus.UNBOUNDED;
-          default -> LpStatus.FAILED;
-        };
+    LpStatus status = Rows.lpStatus(rs);
     if (!status.isOptimal()) {
       return new MasterSolution(status, Double.NaN, new double[0], new double[0], new boolean[0],
           new double[0], new double[0], iters);
@@ -139,14 +111,8 @@ public final class RestrictedMaster implements AutoCloseable {
       return new MasterSolution(LpStatus.FAILED, Double.NaN, new double[0], new double[0],
           new boolean[0], new double[0], new double[0], iters);
     }
-    double[] pi = new double[resourceRows.length];
-    for (int r = 0; r < pi.length; r++) {
-      pi[r] = Math.max(0.0, resourceRows[r].dualValue());
-    }
-    double[] mu = new double[segmentRows.length];
-    for (int s = 0; s < mu.length; s++) {
-      mu[s] = Math.max(0.0, segmentRows[s].dualValue());
-    }
+    double[] pi = rows.resourceDuals();
+    double[] mu = rows.segmentDuals();
     double z = 0;
     for (int j = 0; j < n; j++) {
       z += columnObjective.get(j) * x[j];
@@ -156,8 +122,8 @@ public final class RestrictedMaster implements AutoCloseable {
 
   /** Checks the returned point against rows and bounds, scaled by the row's size. */
   private boolean verify(double[] x) {
-    double[] rowUse = new double[resourceRows.length];
-    double[] segUse = new double[segmentRows.length];
+    double[] rowUse = new double[capacity.length];
+    double[] segUse = new double[demand.length];
     for (int j = 0; j < x.length; j++) {
       MPVariable v = vars.get(j);
       double tol = FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(v.ub() == Double.POSITIVE_INFINITY ? x[j] : v.ub()));
@@ -178,9 +144,6 @@ public final class RestrictedMaster implements AutoCloseable {
 
   @Override
   public void close() {
-    if (!closed) {
-      closed = true;
-      solver.delete();
-    }
+    rows.close();
   }
 }

@@ -1,18 +1,46 @@
 package dev.mixwright.master;
 
 import com.google.ortools.linearsolver.MPConstraint;
+import com.google.ortools.linearsolver.MPObjective;
 import com.google.ortools.linearsolver.MPSolver;
+import com.google.ortools.linearsolver.MPVariable;
 
 /**
- * What every solver wrapper here shares: the solver itself, the "use ≤ capacity" and "sold ≤
- * demand" rows of the product-mix LP, and the check run on a returned point before anything reads
- * its duals.
+ * What every solver wrapper here shares: the solver itself, a maximised objective, the "use ≤
+ * capacity" and "sold ≤ demand" rows of the product-mix LP (and the variant limit of the
+ * portfolio), how a sales column or a variant block enters them, their duals, and the check run on
+ * a returned point before anything reads its duals. Each wrapper owns one and closes it.
  */
-final class Rows {
+final class Rows implements AutoCloseable {
   /** Slack allowed on a row, relative to the size of its right-hand side (at least 1). */
   static final double FEASIBILITY_TOLERANCE = 1e-6;
 
-  private Rows() {}
+  final MPSolver solver;
+  final MPObjective objective;
+  private final MPConstraint[] resourceRows;
+  private final MPConstraint[] segmentRows;
+  /** Σ_v y_v ≤ K, or null when there is no limit. */
+  private final MPConstraint limitRow;
+  private boolean closed;
+
+  /** The rows of the product-mix LP, without a variant limit. */
+  Rows(String solverId, double[] capacity, double[] demand) {
+    this(solverId, capacity, demand, Integer.MAX_VALUE);
+  }
+
+  /**
+   * @param solverId an OR-Tools solver ({@code GLOP}, {@code SCIP}, {@code CP_SAT}, ...)
+   * @param variantLimit K of the portfolio, {@code Integer.MAX_VALUE} for none
+   */
+  Rows(String solverId, double[] capacity, double[] demand, int variantLimit) {
+    solver = solver(solverId);
+    objective = solver.objective();
+    objective.setMaximization();
+    resourceRows = atMost(solver, capacity, "r");
+    segmentRows = atMost(solver, demand, "s");
+    limitRow = variantLimit == Integer.MAX_VALUE ? null
+        : solver.makeConstraint(Double.NEGATIVE_INFINITY, variantLimit, "limit");
+  }
 
   /** A fresh OR-Tools solver ({@code GLOP}, {@code SCIP}, {@code CP_SAT}, ...), natives loaded. */
   static MPSolver solver(String id) {
@@ -41,5 +69,111 @@ final class Rows {
       }
     }
     return true;
+  }
+
+  /** How an LP solve ended, in the product's terms. */
+  static LpStatus lpStatus(MPSolver.ResultStatus rs) {
+    return switch (rs) {
+      case OPTIMAL -> LpStatus.OPTIMAL;
+      case INFEASIBLE -> LpStatus.INFEASIBLE;
+      case UNBOUNDED -> LpStatus.UNBOUNDED;
+      default -> LpStatus.FAILED;
+    };
+  }
+
+  /**
+   * A new sales column 0 ≤ x_j ≤ u_j entered in the rows: margin m_j in the objective, use a_j in
+   * the resource rows, 1 in the row of its segment ({@code segment} −1 for none).
+   */
+  MPVariable addSales(String name, double upper, int segment, double margin, double[] use) {
+    checkUse(use);
+    MPVariable x = solver.makeNumVar(0.0, upper, name);
+    objective.setCoefficient(x, margin);
+    for (int r = 0; r < use.length; r++) {
+      if (use[r] != 0.0) {
+        resourceRows[r].setCoefficient(x, use[r]);
+      }
+    }
+    if (segment >= 0) {
+      segmentRows[segment].setCoefficient(x, 1.0);
+    }
+    return x;
+  }
+
+  /**
+   * Enters variant block i around its introduction variable y (continuous for the relaxation,
+   * binary for the MIP): − F_v y in the objective, y in the limit row, the minimum lot row
+   * {@code L_v y − Σ_s x_s ≤ 0} when L_v &gt; 0, and per listed segment a sales column
+   * 0 ≤ x_s ≤ u_s with its link row {@code x_s − u_s y ≤ 0}. Returns the sales columns in the order
+   * of {@code segments}.
+   */
+  MPVariable[] addBlock(int i, MPVariable y, int[] segments, double[] margin, double[] use, double[] upper,
+      double fixedCost, double minLot) {
+    checkUse(use);
+    objective.setCoefficient(y, -fixedCost);
+    if (limitRow != null) {
+      limitRow.setCoefficient(y, 1.0);
+    }
+    MPConstraint lot = minLot > 0 ? solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "lot" + i) : null;
+    if (lot != null) {
+      lot.setCoefficient(y, minLot);
+    }
+    MPVariable[] x = new MPVariable[segments.length];
+    for (int k = 0; k < segments.length; k++) {
+      x[k] = addSales("x" + i + "_" + segments[k], upper[k], segments[k], margin[k], use);
+      MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "link" + i + "_" + segments[k]);
+      link.setCoefficient(x[k], 1.0);
+      link.setCoefficient(y, -upper[k]);
+      if (lot != null) {
+        lot.setCoefficient(x[k], -1.0);
+      }
+    }
+    return x;
+  }
+
+  /** Moves the right-hand side of resource row r. */
+  void setCapacity(int r, double value) {
+    resourceRows[r].setUb(value);
+  }
+
+  private void checkUse(double[] use) {
+    if (use.length != resourceRows.length) {
+      throw new IllegalArgumentException("use has " + use.length + " entries, rows " + resourceRows.length);
+    }
+  }
+
+  boolean hasLimit() {
+    return limitRow != null;
+  }
+
+  /** π_r ≥ 0 per resource row, after an optimal LP solve (a negative zero from the solver reads 0). */
+  double[] resourceDuals() {
+    return duals(resourceRows);
+  }
+
+  /** μ_s ≥ 0 per segment row, after an optimal LP solve. */
+  double[] segmentDuals() {
+    return duals(segmentRows);
+  }
+
+  /** λ ≥ 0 of the variant limit, 0 when there is none. */
+  double limitDual() {
+    return limitRow == null ? 0.0 : Math.max(0.0, limitRow.dualValue());
+  }
+
+  private static double[] duals(MPConstraint[] rows) {
+    double[] out = new double[rows.length];
+    for (int i = 0; i < out.length; i++) {
+      out[i] = Math.max(0.0, rows[i].dualValue());
+    }
+    return out;
+  }
+
+  @Override
+  public void close() {
+    if (!closed) {
+      closed = true;
+      solver.delete();
+    }
   }
 }
