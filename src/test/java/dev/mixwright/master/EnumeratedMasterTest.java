@@ -3,9 +3,9 @@ package dev.mixwright.master;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.mixwright.catalog.Catalog;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
+import dev.mixwright.testing.Cases;
 import dev.mixwright.testing.EnumeratedLp;
 import dev.mixwright.testing.RandomCatalogs;
 import java.util.List;
@@ -38,25 +38,9 @@ class EnumeratedMasterTest {
     return LongStream.rangeClosed(1, 60);
   }
 
-  /**
-   * 2 to 5 groups of up to 5 options, 1 to 4 resources, 1 to 3 segments, up to 9 rules; redrawn
-   * from the same stream until the full master has at most {@link #MAX_TEST_COLUMNS} columns.
-   */
+  /** {@link RandomCatalogs#enumerable} from the stream of {@link Cases#seed}. */
   static VariantSpace varied(long seed) {
-    // Spread consecutive seeds: the first draws of java.util.Random from nearby seeds are alike.
-    Random rnd = new Random(seed * 0x9E3779B97F4A7C15L);
-    while (true) {
-      Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(4), 5, 1 + rnd.nextInt(4),
-          1 + rnd.nextInt(3), rnd.nextInt(10), false);
-      VariantSpace space = new VariantSpace(c);
-      try {
-        if (EnumeratedLp.columns(space).size() <= MAX_TEST_COLUMNS) {
-          return space;
-        }
-      } catch (IllegalArgumentException tooLarge) {
-        // draw again
-      }
-    }
+    return new VariantSpace(RandomCatalogs.enumerable(new Random(Cases.seed((int) seed)), MAX_TEST_COLUMNS));
   }
 
   private static double[] capacities(VariantSpace space) {

@@ -7,6 +7,7 @@ import dev.mixwright.catalog.PortfolioSpec;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Rule;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -24,6 +25,25 @@ public final class RandomCatalogs {
 
   public static Catalog small(long seed) {
     return random(new Random(seed), 2 + new Random(seed).nextInt(4), 4, 3, 3, 5, false);
+  }
+
+  /**
+   * 2 to 5 groups of up to 5 options, 1 to 4 resources, 1 to 3 segments, up to 9 rules; drawn again
+   * from the same stream until the full master has at most {@code maxColumns} columns, so
+   * {@link EnumeratedLp} can solve it.
+   */
+  public static Catalog enumerable(Random rnd, int maxColumns) {
+    while (true) {
+      Catalog c = random(rnd, 2 + rnd.nextInt(4), 5, 1 + rnd.nextInt(4), 1 + rnd.nextInt(3),
+          rnd.nextInt(10), false);
+      try {
+        if (EnumeratedLp.columns(new VariantSpace(c)).size() <= maxColumns) {
+          return c;
+        }
+      } catch (IllegalArgumentException tooLarge) {
+        // draw again
+      }
+    }
   }
 
   /**
