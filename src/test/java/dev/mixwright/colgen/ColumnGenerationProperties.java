@@ -43,76 +43,72 @@ class ColumnGenerationProperties {
 
   @Test
   void objectiveEqualsFullyEnumeratedLp() {
-    Cases.checked(120, (seed, rnd) -> objectiveEqualsFullyEnumeratedLp(rnd));
-  }
+    Cases.checked(120, (seed, rnd) -> {
+      int groups = Cases.between(rnd, 1, 5);
+      int segments = Cases.between(rnd, 1, 3);
+      int perRound = Cases.between(rnd, 1, 6);
+      boolean bnb = rnd.nextBoolean();
+      VariantSpace space = new VariantSpace(draw(rnd, groups, segments));
+      List<EnumeratedLp.Column> all = enumerable(space);
+      if (all == null) {
+        return false;
+      }
+      EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
 
-  private static boolean objectiveEqualsFullyEnumeratedLp(Random rnd) {
-    int groups = Cases.between(rnd, 1, 5);
-    int segments = Cases.between(rnd, 1, 3);
-    int perRound = Cases.between(rnd, 1, 6);
-    boolean bnb = rnd.nextBoolean();
-    VariantSpace space = new VariantSpace(draw(rnd, groups, segments));
-    List<EnumeratedLp.Column> all = enumerable(space);
-    if (all == null) {
-      return false;
-    }
-    EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
+      Pricer pricer = bnb ? new BranchAndBoundPricer(space) : new BruteForcePricer(space);
+      SolveOutcome out =
+          new ColumnGeneration(space, pricer, SolveSettings.defaults().withPerRound(perRound)).run();
 
-    Pricer pricer = bnb ? new BranchAndBoundPricer(space) : new BruteForcePricer(space);
-    SolveOutcome out =
-        new ColumnGeneration(space, pricer, SolveSettings.defaults().withPerRound(perRound)).run();
+      assertEquals(RunStatus.OPTIMAL, out.status());
+      double scale = Math.max(1.0, Math.abs(ref.objective()));
+      assertEquals(ref.objective(), out.objective(), 1e-6 * scale, "objective vs Commons Math");
+      assertTrue(out.bound() >= ref.objective() - 1e-6 * scale, "the bound must hold");
+      assertTrue(out.gap() <= 1e-6);
 
-    assertEquals(RunStatus.OPTIMAL, out.status());
-    double scale = Math.max(1.0, Math.abs(ref.objective()));
-    assertEquals(ref.objective(), out.objective(), 1e-6 * scale, "objective vs Commons Math");
-    assertTrue(out.bound() >= ref.objective() - 1e-6 * scale, "the bound must hold");
-    assertTrue(out.gap() <= 1e-6);
-
-    // The final duals leave no enumerated column with a positive reduced cost, unless it is in the
-    // master (a master column at its upper bound keeps d > 0 legitimately).
-    List<Set<VariantKey>> inMaster = new ArrayList<>();
-    for (int s = 0; s < space.segmentCount(); s++) {
-      inMaster.add(new HashSet<>());
-    }
-    for (Column c : out.columns()) {
-      inMaster.get(c.segment()).add(space.key(c.choices()));
-    }
-    double[] best = ref.maxReducedCost(out.resourceDual(), out.segmentDual(), inMaster);
-    double tol = 1e-7 * Math.max(1.0, maxAbsMargin(all));
-    for (int s = 0; s < best.length; s++) {
-      assertTrue(best[s] <= tol, "segment " + s + " has an outside column with d = " + best[s]);
-    }
-    // And the reference confirms the final duals are optimal for the whole space.
-    assertEquals(ref.objective(), ref.dualBound(out.resourceDual(), out.segmentDual()), 1e-6 * scale);
-    return true;
+      // The final duals leave no enumerated column with a positive reduced cost, unless it is in the
+      // master (a master column at its upper bound keeps d > 0 legitimately).
+      List<Set<VariantKey>> inMaster = new ArrayList<>();
+      for (int s = 0; s < space.segmentCount(); s++) {
+        inMaster.add(new HashSet<>());
+      }
+      for (Column c : out.columns()) {
+        inMaster.get(c.segment()).add(space.key(c.choices()));
+      }
+      double[] best = ref.maxReducedCost(out.resourceDual(), out.segmentDual(), inMaster);
+      double tol = 1e-7 * Math.max(1.0, maxAbsMargin(all));
+      for (int s = 0; s < best.length; s++) {
+        assertTrue(best[s] <= tol, "segment " + s + " has an outside column with d = " + best[s]);
+      }
+      // And the reference confirms the final duals are optimal for the whole space.
+      assertEquals(ref.objective(), ref.dualBound(out.resourceDual(), out.segmentDual()), 1e-6 * scale);
+      return true;
+    });
   }
 
   @Test
   void boundHoldsEveryRound() {
-    Cases.checked(60, (seed, rnd) -> boundHoldsEveryRound(rnd));
-  }
-
-  private static boolean boundHoldsEveryRound(Random rnd) {
-    VariantSpace space = new VariantSpace(draw(rnd, Cases.between(rnd, 2, 5), 2));
-    if (enumerable(space) == null) {
-      return false;
-    }
-    EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
-    double scale = Math.max(1.0, Math.abs(ref.objective()));
-    List<IterationRecord> rounds = new ArrayList<>();
-    new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults().withPerRound(1))
-        .addListener(new ColGenListener() {
-          @Override
-          public void iteration(IterationRecord r) {
-            rounds.add(r);
-          }
-        })
-        .run();
-    for (IterationRecord r : rounds) {
-      assertTrue(r.objective() <= ref.objective() + 1e-6 * scale, "master above the LP optimum");
-      assertTrue(r.bound() >= ref.objective() - 1e-6 * scale, "round " + r.iteration() + " bound below z_LP");
-    }
-    return !rounds.isEmpty();
+    Cases.checked(60, (seed, rnd) -> {
+      VariantSpace space = new VariantSpace(draw(rnd, Cases.between(rnd, 2, 5), 2));
+      if (enumerable(space) == null) {
+        return false;
+      }
+      EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
+      double scale = Math.max(1.0, Math.abs(ref.objective()));
+      List<IterationRecord> rounds = new ArrayList<>();
+      new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults().withPerRound(1))
+          .addListener(new ColGenListener() {
+            @Override
+            public void iteration(IterationRecord r) {
+              rounds.add(r);
+            }
+          })
+          .run();
+      for (IterationRecord r : rounds) {
+        assertTrue(r.objective() <= ref.objective() + 1e-6 * scale, "master above the LP optimum");
+        assertTrue(r.bound() >= ref.objective() - 1e-6 * scale, "round " + r.iteration() + " bound below z_LP");
+      }
+      return !rounds.isEmpty();
+    });
   }
 
   /** Choice combinations times segments: what enumeration would visit. */

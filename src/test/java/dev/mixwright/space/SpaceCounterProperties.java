@@ -33,6 +33,20 @@ class SpaceCounterProperties {
     }
   }
 
+  /**
+   * A catalog for one case: {@link #sized} with the group count, options per group and rule count
+   * each drawn from a {@code {min, max}} range, and {@code wide} rules of {@link #withWideRules} on
+   * top; the catalog draws from a stream of its own, apart from the case's.
+   */
+  static Catalog draw(Random rnd, int[] groups, int[] options, int[] rules, int segments, int wide) {
+    int g = Cases.between(rnd, groups[0], groups[1]);
+    int o = Cases.between(rnd, options[0], options[1]);
+    int r = Cases.between(rnd, rules[0], rules[1]);
+    long seed = rnd.nextLong();
+    Catalog c = sized(seed, g, o, r, segments);
+    return wide > 0 ? withWideRules(c, seed, wide) : c;
+  }
+
   /** Adds rules over three groups (forbid) and two-group when with require on a third. */
   static Catalog withWideRules(Catalog c, long seed, int extra) {
     int n = c.groups().size();
@@ -82,143 +96,109 @@ class SpaceCounterProperties {
 
   @Test
   void exactCountEqualsBruteForce() {
-    Cases.each(100, (seed, rnd) -> exactCountEqualsBruteForce(rnd));
-  }
-
-  private static void exactCountEqualsBruteForce(Random rnd) {
-    int groups = Cases.between(rnd, 1, 12);
-    int maxOptions = Cases.between(rnd, 1, 7);
-    int rules = Cases.between(rnd, 0, 30);
-    // the catalog's own stream, apart from the draws above
-    long seed = rnd.nextLong();
-    VariantSpace space = new VariantSpace(sized(seed, groups, maxOptions, rules, 3));
-    SpaceCounter counter = new SpaceCounter(space);
-    SpaceCount all = counter.count();
-    assertTrue(all.exact());
-    assertEquals(BigInteger.valueOf(BruteForce.buildable(space)), all.value()); // brute force
-    List<SpaceCount> per = counter.perSegment();
-    for (int s = 0; s < space.segmentCount(); s++) {
-      assertTrue(per.get(s).exact());
-      assertEquals(BigInteger.valueOf(BruteForce.columns(space, s)), per.get(s).value(), "segment " + s);
-    }
+    Cases.each(100, (seed, rnd) -> {
+      VariantSpace space =
+          new VariantSpace(draw(rnd, new int[] {1, 12}, new int[] {1, 7}, new int[] {0, 30}, 3, 0));
+      SpaceCounter counter = new SpaceCounter(space);
+      SpaceCount all = counter.count();
+      assertTrue(all.exact());
+      assertEquals(BigInteger.valueOf(BruteForce.buildable(space)), all.value()); // brute force
+      List<SpaceCount> per = counter.perSegment();
+      for (int s = 0; s < space.segmentCount(); s++) {
+        assertTrue(per.get(s).exact());
+        assertEquals(BigInteger.valueOf(BruteForce.columns(space, s)), per.get(s).value(), "segment " + s);
+      }
+    });
   }
 
   @Test
   void exactCountEqualsBruteForceWithWideRules() {
-    Cases.each(80, (seed, rnd) -> exactCountEqualsBruteForceWithWideRules(rnd));
-  }
-
-  private static void exactCountEqualsBruteForceWithWideRules(Random rnd) {
-    int groups = Cases.between(rnd, 3, 12);
-    int maxOptions = Cases.between(rnd, 2, 6);
-    int rules = Cases.between(rnd, 0, 12);
-    int wide = Cases.between(rnd, 1, 12);
-    // the catalog's own stream, apart from the draws above
-    long seed = rnd.nextLong();
-    VariantSpace space =
-        new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 2), seed, wide));
-    SpaceCounter counter = new SpaceCounter(space);
-    assertEquals(new SpaceCount(BigInteger.valueOf(BruteForce.buildable(space)), true), counter.count());
-    for (int s = 0; s < space.segmentCount(); s++) {
-      assertEquals(
-          new SpaceCount(BigInteger.valueOf(BruteForce.columns(space, s)), true), counter.count(s));
-    }
+    Cases.each(80, (seed, rnd) -> {
+      int wide = Cases.between(rnd, 1, 12);
+      VariantSpace space =
+          new VariantSpace(draw(rnd, new int[] {3, 12}, new int[] {2, 6}, new int[] {0, 12}, 2, wide));
+      SpaceCounter counter = new SpaceCounter(space);
+      assertEquals(new SpaceCount(BigInteger.valueOf(BruteForce.buildable(space)), true), counter.count());
+      for (int s = 0; s < space.segmentCount(); s++) {
+        assertEquals(
+            new SpaceCount(BigInteger.valueOf(BruteForce.columns(space, s)), true), counter.count(s));
+      }
+    });
   }
 
   /** With tiny tables the count may only be a bound, but never below the truth. */
   @Test
   void boundNeverBelowTruth() {
-    Cases.each(500, (seed, rnd) -> boundNeverBelowTruth(rnd));
-  }
-
-  private static void boundNeverBelowTruth(Random rnd) {
-    int groups = Cases.between(rnd, 3, 12);
-    int maxOptions = Cases.between(rnd, 2, 6);
-    int rules = Cases.between(rnd, 5, 40);
-    int limit = Cases.between(rnd, 1, 64);
-    // the catalog's own stream, apart from the draws above
-    long seed = rnd.nextLong();
-    VariantSpace space =
-        new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 1), seed, 4));
-    SpaceCount c = new SpaceCounter(space, limit).count();
-    BigInteger truth = BigInteger.valueOf(BruteForce.buildable(space)); // brute force
-    if (c.exact()) {
-      assertEquals(truth, c.value());
-    } else {
-      assertTrue(c.value().compareTo(truth) >= 0, c.value() + " < " + truth);
-    }
-    assertTrue(c.value().compareTo(BigInteger.valueOf(BruteForce.combinations(space.catalog()))) <= 0);
+    Cases.each(500, (seed, rnd) -> {
+      VariantSpace space =
+          new VariantSpace(draw(rnd, new int[] {3, 12}, new int[] {2, 6}, new int[] {5, 40}, 1, 4));
+      int limit = Cases.between(rnd, 1, 64);
+      SpaceCount c = new SpaceCounter(space, limit).count();
+      BigInteger truth = BigInteger.valueOf(BruteForce.buildable(space)); // brute force
+      if (c.exact()) {
+        assertEquals(truth, c.value());
+      } else {
+        assertTrue(c.value().compareTo(truth) >= 0, c.value() + " < " + truth);
+      }
+      assertTrue(c.value().compareTo(BigInteger.valueOf(BruteForce.combinations(space.catalog()))) <= 0);
+    });
   }
 
   /** count(domain) and the feasibility search agree with brute force on random restrictions. */
   @Test
   void restrictedCountAndSearchEqualBruteForce() {
-    Cases.each(1000, (seed, rnd) -> restrictedCountAndSearchEqualBruteForce(rnd));
-  }
-
-  private static void restrictedCountAndSearchEqualBruteForce(Random rnd) {
-    int groups = Cases.between(rnd, 2, 10);
-    int maxOptions = Cases.between(rnd, 2, 6);
-    int rules = Cases.between(rnd, 0, 30);
-    // the catalog's own stream, apart from the draws above
-    long seed = rnd.nextLong();
-    VariantSpace space =
-        new VariantSpace(withWideRules(sized(seed, groups, maxOptions, rules, 1), seed, 3));
-    boolean[] domain = new boolean[space.totalChoices()];
-    for (int f = 0; f < domain.length; f++) {
-      domain[f] = rnd.nextDouble() < 0.75;
-    }
-    int[] off = space.offsets();
-    long truth =
-        BruteForce.count(
-            space.catalog(),
-            v -> {
-              for (int g = 0; g < v.length; g++) {
-                if (!domain[off[g] + v[g]]) {
-                  return false;
+    Cases.each(1000, (seed, rnd) -> {
+      VariantSpace space =
+          new VariantSpace(draw(rnd, new int[] {2, 10}, new int[] {2, 6}, new int[] {0, 30}, 1, 3));
+      boolean[] domain = new boolean[space.totalChoices()];
+      for (int f = 0; f < domain.length; f++) {
+        domain[f] = rnd.nextDouble() < 0.75;
+      }
+      int[] off = space.offsets();
+      long truth =
+          BruteForce.count(
+              space.catalog(),
+              v -> {
+                for (int g = 0; g < v.length; g++) {
+                  if (!domain[off[g] + v[g]]) {
+                    return false;
+                  }
                 }
-              }
-              return space.isBuildable(v);
-            });
-    assertEquals(new SpaceCount(BigInteger.valueOf(truth), true), new SpaceCounter(space).count(domain));
-    boolean[] within = domain.clone();
-    for (int f = 0; f < within.length; f++) {
-      within[f] &= space.allowed(f);
-    }
-    assertEquals(truth > 0, SpaceDiagnosis.anyBuildable(space, within));
-    Feasibility.Answer quick = Feasibility.search(space, within, 1 + rnd.nextInt(20));
-    if (quick != Feasibility.Answer.UNKNOWN) {
-      assertEquals(truth > 0, quick == Feasibility.Answer.FOUND);
-    }
+                return space.isBuildable(v);
+              });
+      assertEquals(new SpaceCount(BigInteger.valueOf(truth), true), new SpaceCounter(space).count(domain));
+      boolean[] within = domain.clone();
+      for (int f = 0; f < within.length; f++) {
+        within[f] &= space.allowed(f);
+      }
+      assertEquals(truth > 0, SpaceDiagnosis.anyBuildable(space, within));
+      Feasibility.Answer quick = Feasibility.search(space, within, 1 + rnd.nextInt(20));
+      if (quick != Feasibility.Answer.UNKNOWN) {
+        assertEquals(truth > 0, quick == Feasibility.Answer.FOUND);
+      }
+    });
   }
 
   /** The compiled space (allowed + nogoods) says what the catalog's rules say, read directly. */
   @Test
   void compiledRulesAgreeWithCatalogRules() {
-    Cases.each(60, (seed, rnd) -> compiledRulesAgreeWithCatalogRules(rnd));
-  }
-
-  private static void compiledRulesAgreeWithCatalogRules(Random rnd) {
-    int groups = Cases.between(rnd, 2, 10);
-    int maxOptions = Cases.between(rnd, 1, 6);
-    int rules = Cases.between(rnd, 0, 25);
-    // the catalog's own stream, apart from the draws above
-    long seed = rnd.nextLong();
-    Catalog c = withWideRules(sized(seed, groups, maxOptions, rules, 3), seed, 3);
-    VariantSpace space = new VariantSpace(c);
-    long mismatches =
-        BruteForce.count(c, v -> space.isBuildable(v) != BruteForce.rulesHold(c, c.rules(), v));
-    assertEquals(0, mismatches);
-    for (int s = 0; s < space.segmentCount(); s++) {
-      int seg = s;
-      long segMismatches =
-          BruteForce.count(
-              c,
-              v ->
-                  space.isColumn(v, seg)
-                      != (BruteForce.rulesHold(c, c.rules(), v)
-                          && BruteForce.accepts(c, c.segments().get(seg), v)));
-      assertEquals(0, segMismatches, "segment " + s);
-    }
+    Cases.each(60, (seed, rnd) -> {
+      Catalog c = draw(rnd, new int[] {2, 10}, new int[] {1, 6}, new int[] {0, 25}, 3, 3);
+      VariantSpace space = new VariantSpace(c);
+      long mismatches =
+          BruteForce.count(c, v -> space.isBuildable(v) != BruteForce.rulesHold(c, c.rules(), v));
+      assertEquals(0, mismatches);
+      for (int s = 0; s < space.segmentCount(); s++) {
+        int seg = s;
+        long segMismatches =
+            BruteForce.count(
+                c,
+                v ->
+                    space.isColumn(v, seg)
+                        != (BruteForce.rulesHold(c, c.rules(), v)
+                            && BruteForce.accepts(c, c.segments().get(seg), v)));
+        assertEquals(0, segMismatches, "segment " + s);
+      }
+    });
   }
 }
