@@ -1,5 +1,6 @@
 package dev.mixwright.master;
 
+import dev.mixwright.testing.Cases;
 import dev.mixwright.testing.EnumeratedLp;
 import org.junit.jupiter.api.Test;
 
@@ -27,7 +28,7 @@ class FullLpContractTest extends EnumeratedLpContract {
 
   @Test
   void primalSimplexSolvesItToo() {
-    dev.mixwright.testing.Cases.each(cases() / 2, (seed, rnd) -> {
+    Cases.each(cases() / 2, (seed, rnd) -> {
       Fixture f = fixture(seed);
       check(f, solve(f, false));
     });
