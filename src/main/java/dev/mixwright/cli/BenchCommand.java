@@ -326,7 +326,7 @@ final class BenchCommand implements Callable<Integer> {
     o.columns().forEach(c -> inMaster.get(c.segment()).add(space.key(c.choices())));
     List<PricingQuery> round = new ArrayList<>();
     for (int s = 0; s < space.segmentCount(); s++) {
-      round.add(ReducedCosts.query(space, s, o.resourceDual(), o.segmentDual()[s], SolveSettings.DEFAULT_PER_ROUND,
+      round.add(ReducedCosts.query(space, s, o.duals().resource(), o.duals().segment()[s], SolveSettings.DEFAULT_PER_ROUND,
           threshold, inMaster.get(s)));
     }
     Pricer bnb = new BranchAndBoundPricer(space);

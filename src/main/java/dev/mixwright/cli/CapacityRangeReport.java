@@ -23,7 +23,7 @@ import java.util.Locale;
 /** {@code explain --capacity-ranges}: each resource's shadow price and the capacities over which it holds. */
 final class CapacityRangeReport {
   /** Re-solves aim this close, so that their error stays well under the tolerance that tells pieces apart. */
-  static final SolveSettings RESOLVE = new SolveSettings(1e-9, SolveSettings.DEFAULT_PER_ROUND, 0, 0, false);
+  static final SolveSettings RESOLVE = SolveSettings.defaults().withGapTolerance(1e-9);
 
   private CapacityRangeReport() {}
 

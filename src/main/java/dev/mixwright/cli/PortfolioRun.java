@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.portfolio.IntegerStage;
 import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.portfolio.PortfolioSettings;
@@ -44,13 +45,13 @@ final class PortfolioRun {
     }
     ResultWriter.write(runDir, result);
     PortfolioSettings settings = options.settings();
-    IntegerStage stage = new IntegerStage(space, settings).stopWhen(stop);
+    IntegerStage stage = new IntegerStage(space, settings).stopWhen(StopCriterion.signal(stop));
     try (PortfolioLog log = new PortfolioLog(runDir)) {
       stage.addListener(log);
       if (progress != null) {
         stage.addListener(e -> {
           progress.println(String.format(Locale.ROOT, "portfolio %-10s value %s  bound %s  pool %d  %s  %s",
-              e.kind(), Numbers.money(e.value()), Numbers.money(e.bound()), e.pool(), e.note(),
+              e.kind().word(), Numbers.money(e.value()), Numbers.money(e.bound()), e.pool(), e.note(),
               Durations.format(e.elapsedMs())));
           progress.flush();
         });

@@ -112,7 +112,7 @@ final class SweepCommand implements Callable<Integer> {
     if (points.isEmpty()) {
       throw new UserError("nothing to sweep: give --grid PATH=VALUES, a --sweep file, or --scenario files");
     }
-    SolveSettings settings = new SolveSettings(gap, perRound, 0, 0, false);
+    SolveSettings settings = SolveSettings.defaults().withGapTolerance(gap).withPerRound(perRound);
     ObjectNode header = Json.pretty().createObjectNode();
     header.put("format", 1);
     header.put("sweep", plan.name());

@@ -7,4 +7,4 @@ package dev.mixwright.colgen;
  */
 public record IterationRecord(
     int iteration, double objective, double bound, double gap, int columns, int added,
-    boolean exactPricing, long elapsedMs) {}
+    boolean exactPricing, long elapsedMs) implements Progress {}

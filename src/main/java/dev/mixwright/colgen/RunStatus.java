@@ -23,4 +23,18 @@ public enum RunStatus {
   public boolean isOptimal() {
     return this == OPTIMAL;
   }
+
+  /** A limit or a signal ended the run; resuming it can go on from where it stopped. */
+  public boolean isStopped() {
+    return this == STOPPED;
+  }
+
+  public boolean isInfeasible() {
+    return this == INFEASIBLE;
+  }
+
+  /** Nothing is left to do: the optimum is proven, or there is nothing to sell. */
+  public boolean isFinished() {
+    return this != STOPPED;
+  }
 }

@@ -46,15 +46,12 @@ public record SolveSettings(
     }
   }
 
-  /** The settings of the first releases; the newer switches take their defaults. */
-  public SolveSettings(
-      double gapTolerance, int perRound, long timeLimitMs, int maxIterations, boolean heuristicFirst) {
-    this(gapTolerance, perRound, timeLimitMs, maxIterations, heuristicFirst, DEFAULT_SMOOTHING,
-        DEFAULT_RETIRE_AFTER);
+  public static SolveSettings defaults() {
+    return new SolveSettings(DEFAULT_GAP, DEFAULT_PER_ROUND, 0, 0, false, DEFAULT_SMOOTHING, DEFAULT_RETIRE_AFTER);
   }
 
-  public static SolveSettings defaults() {
-    return new SolveSettings(DEFAULT_GAP, DEFAULT_PER_ROUND, 0, 0, false);
+  public SolveSettings withGapTolerance(double gap) {
+    return new SolveSettings(gap, perRound, timeLimitMs, maxIterations, heuristicFirst, smoothing, retireAfter);
   }
 
   public SolveSettings withPerRound(int k) {

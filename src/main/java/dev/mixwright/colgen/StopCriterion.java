@@ -2,14 +2,19 @@ package dev.mixwright.colgen;
 
 import java.util.Optional;
 import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.function.BooleanSupplier;
 
 /**
- * Ends a run early. Returns the reason in words, or empty to go on. Criteria compose with
- * {@link #anyOf}.
+ * Ends a run early: the one stopping vocabulary of the LP stage and the integer stage. Returns the
+ * reason in words, or empty to go on. Criteria compose with {@link #anyOf}.
  */
 @FunctionalInterface
 public interface StopCriterion {
-  Optional<String> check(IterationRecord last);
+  Optional<String> check(Progress now);
+
+  default boolean fired(Progress now) {
+    return check(now).isPresent();
+  }
 
   static StopCriterion never() {
     return r -> Optional.empty();
@@ -29,7 +34,12 @@ public interface StopCriterion {
 
   /** Stops once {@code flag} is set, e.g. by a shutdown hook on Ctrl-C. */
   static StopCriterion signal(AtomicBoolean flag) {
-    return r -> flag.get() ? Optional.of("interrupted by a signal") : Optional.empty();
+    return signal(flag::get);
+  }
+
+  /** Stops once {@code raised} answers true. */
+  static StopCriterion signal(BooleanSupplier raised) {
+    return r -> raised.getAsBoolean() ? Optional.of("interrupted by a signal") : Optional.empty();
   }
 
   static StopCriterion anyOf(StopCriterion... criteria) {

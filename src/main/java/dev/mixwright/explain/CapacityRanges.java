@@ -7,6 +7,7 @@ import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.pricing.Pricers;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
@@ -215,13 +216,14 @@ public final class CapacityRanges {
       Catalog c = new Catalog(catalog.format(), catalog.name(), catalog.currency(), catalog.period(), res,
           catalog.groups(), catalog.rules(), catalog.segments(), catalog.portfolio());
       VariantSpace space = new VariantSpace(c);
-      SolveOutcome out = new ColumnGeneration(space, Pricers.byName(pricer, space), settings).run(pool);
+      SolveOutcome out = new ColumnGeneration(space, Pricers.byName(pricer, space), null, settings,
+          StopCriterion.never(), System.nanoTime()).run(pool);
       if (out.status() != RunStatus.OPTIMAL) {
         throw new IllegalStateException("the re-solve at capacity " + capacity + " ended " + out.status().word()
             + " (" + out.stopReason() + ")");
       }
       addAll(out.columns());
-      return new Point(capacity, out.objective(), out.resourceDual()[resource]);
+      return new Point(capacity, out.objective(), out.duals().resource()[resource]);
     }
   }
 }

@@ -5,6 +5,7 @@ import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.pricing.Pricers;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
@@ -100,7 +101,8 @@ public final class PriceRange {
     List<Column> warm = new ArrayList<>();
     warm.add(changed); // first, so that it wins over the unchanged copy in the pool
     warm.addAll(pool);
-    SolveOutcome out = new ColumnGeneration(space, Pricers.byName(pricer, space), settings).run(warm);
+    SolveOutcome out = new ColumnGeneration(space, Pricers.byName(pricer, space), null, settings,
+        StopCriterion.never(), System.nanoTime()).run(warm);
     if (out.status() != RunStatus.OPTIMAL) {
       throw new IllegalStateException("a re-solve ended " + out.status().word() + " (" + out.stopReason() + ")");
     }

@@ -1,15 +1,17 @@
 package dev.mixwright.portfolio;
 
 import dev.mixwright.colgen.Column;
-import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.colgen.StopCriterion;
+import dev.mixwright.colgen.ValueBound;
 import dev.mixwright.master.MipSolution;
 import dev.mixwright.master.MipStatus;
 import dev.mixwright.master.PortfolioMip;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.function.BooleanSupplier;
+import java.util.Locale;
+import java.util.Optional;
 
 /**
  * The integer stage after the LP stage: a portfolio of whole variants with an introduction cost F
@@ -27,7 +29,7 @@ import java.util.function.BooleanSupplier;
  *   <li>Incumbent: {@link Rounding} of the relaxation, then the MIP over the pool ({@link PortfolioMip},
  *       warm-started from it).
  *   <li>Proof (price-and-branch turned exact, in the spirit of the reduced-cost argument of Barnhart
- *       et al. 1998, "Branch-and-price", Operations Research 46(3)): by {@link LagrangianBound}, a
+ *       et al. 1998, "Branch-and-price", Operations Research 46(3)): by {@link LagrangianPortfolioBound}, a
  *       portfolio holding w is worth at most B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w); so only variants with
  *       ψ(w) − tooling(w) &gt; θ = value − B(λ̂) + λ̂ can be part of a better portfolio. The exact
  *       variant pricer enumerates them outside the pool (threshold θ, up to the survivor limit); once
@@ -46,9 +48,9 @@ public final class IntegerStage {
   private final PortfolioTerms terms;
   private final PortfolioSettings settings;
   private final List<PortfolioListener> listeners = new ArrayList<>();
-  private long startNanos;
+  private StageClock clock;
   private int mipSolves;
-  private BooleanSupplier stop = () -> false;
+  private StopCriterion stop = StopCriterion.never();
 
   public IntegerStage(VariantSpace space, PortfolioSettings settings) {
     this.space = space;
@@ -57,11 +59,12 @@ public final class IntegerStage {
   }
 
   /**
-   * A signal (e.g. Ctrl-C): once true the stage ends within about a tenth of a second with the best
-   * portfolio so far, marked heuristic.
+   * An outer criterion, e.g. {@link StopCriterion#signal} for Ctrl-C: once it fires the stage ends
+   * within about a tenth of a second with the best portfolio so far, marked heuristic. The settings'
+   * time limit applies besides it.
    */
-  public IntegerStage stopWhen(BooleanSupplier signal) {
-    this.stop = signal;
+  public IntegerStage stopWhen(StopCriterion criterion) {
+    this.stop = criterion;
     return this;
   }
 
@@ -70,145 +73,190 @@ public final class IntegerStage {
     return this;
   }
 
-  private long elapsedMs() {
-    return (System.nanoTime() - startNanos) / 1_000_000;
-  }
-
-  private void emit(String kind, double value, double bound, int pool, int count, String note) {
-    PortfolioEvent e = new PortfolioEvent(kind, elapsedMs(), value, bound, pool, count, note);
+  private void emit(PortfolioEvent.Kind kind, double value, double bound, int pool, int count, String note) {
+    PortfolioEvent e = new PortfolioEvent(kind, clock.elapsedMs(), value, bound, pool, count, note);
     listeners.forEach(l -> l.event(e));
   }
 
-  private long deadlineAt(double share) {
-    if (settings.timeLimitMs() == 0) {
-      return 0;
-    }
-    long left = settings.timeLimitMs() * 1_000_000L - (System.nanoTime() - startNanos);
-    return System.nanoTime() + (long) (Math.max(0, left) * share);
-  }
+  /**
+   * The search for a proven portfolio as it goes: the incumbent, the bound proven before the proof,
+   * what the last MIP over the pool proved, and the survivor enumeration's threshold and result.
+   */
+  private static final class Search {
+    final double bound;
+    Plan incumbent;
+    boolean mipOptimal;
+    double mipBound = Double.POSITIVE_INFINITY;
+    boolean complete;
+    double theta = Double.NaN;
+    int added;
+    String reason = "";
 
-  private long msLeft() {
-    if (settings.timeLimitMs() == 0) {
-      return 0;
+    Search(double bound) {
+      this.bound = bound;
     }
-    return Math.max(1, settings.timeLimitMs() - elapsedMs());
   }
 
   public PortfolioOutcome run(SolveOutcome lp) {
-    startNanos = System.nanoTime();
+    clock = new StageClock(settings.timeLimitMs(), stop);
     mipSolves = 0;
     Pool pool = new Pool(space, terms);
-    if (lp.status() != RunStatus.INFEASIBLE) {
+    if (!lp.status().isInfeasible()) {
       for (Column c : lp.columns()) {
         pool.add(c.choices());
       }
     }
     if (pool.size() == 0 || terms.variantCap() == 0) {
-      // no segment takes any buildable variant, or no lot fits the demand: every portfolio that can
-      // be offered is empty
-      emit("end", 0, 0, 0, 0, pool.size() == 0 ? "nothing can be sold: the empty portfolio is optimal"
-          : "the minimum lot exceeds all demand together: the empty portfolio is optimal");
-      return new PortfolioOutcome(PortfolioStatus.PROVEN, "", 0, 0, 0, List.of(), 0, 0, 0,
-          null, Double.NaN, 0, true, settings.engine().word(), 0, true, 0, elapsedMs());
+      return nothingToOffer(pool);
     }
     double lpBound = Double.isFinite(lp.bound()) ? lp.bound() : Double.POSITIVE_INFINITY;
-    VariantPricer pricer = new VariantPricer(space, terms).stopWhen(stop);
+    VariantPricer pricer = new VariantPricer(space, terms).stopWhen(clock.signalFlag());
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
-    RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, this::elapsedMs, deadlineAt(0.3), stop)
-        .run(pool, lp.resourceDual(), lp.segmentDual());
-    LagrangianBound b = rx.bound();
-    double bound = Math.min(lpBound, b.value());
+    // Columns came from the LP stage, so its duals are known: they are the relaxation's first prices.
+    RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, clock, clock.phase(0.3))
+        .run(pool, lp.duals().resource(), lp.duals().segment());
+    Search search = new Search(Math.min(lpBound, rx.bound().value()));
+    firstIncumbent(pool, rx, search);
+    prove(pool, pricer, rx.bound(), search);
+    return outcome(pool, lpBound, rx, search);
+  }
 
+  /**
+   * No segment takes any buildable variant, or no lot fits the demand: every portfolio that can be
+   * offered is empty.
+   */
+  private PortfolioOutcome nothingToOffer(Pool pool) {
+    emit(PortfolioEvent.Kind.END, 0, 0, 0, 0, pool.size() == 0
+        ? "nothing can be sold: the empty portfolio is optimal"
+        : "the minimum lot exceeds all demand together: the empty portfolio is optimal");
+    return new PortfolioOutcome(PortfolioStatus.PROVEN, "", new ValueBound(0, 0),
+        new PortfolioOutcome.Offer(List.of(), 0, 0), 0, null,
+        new PortfolioOutcome.SurvivorProof(Double.NaN, 0, true, 0),
+        new PortfolioOutcome.MipRuns(settings.engine(), 0, true), clock.elapsedMs());
+  }
+
+  /** Rounding of the relaxation, then a MIP over the pool warm-started from it. */
+  private void firstIncumbent(Pool pool, RelaxationResult rx, Search s) {
+    LagrangianPortfolioBound b = rx.bound();
     double[] score = new double[pool.size()];
     VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), terms.introductionCost(), null,
         Double.NEGATIVE_INFINITY, 1, null, 0);
     for (int i = 0; i < score.length; i++) {
       score[i] = VariantPricer.value(space, terms, pool.get(i).choices(), at);
     }
-    Plan inc = Rounding.greedy(pool, terms, rx.y(), score, deadlineAt(0.2), stop);
-    emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "rounding of the relaxation");
-
-    MipRun mip = mip(pool, inc, Math.max(1, (long) (msLeft() * 0.5)));
+    Plan inc = Rounding.greedy(pool, terms, rx.y(), score, clock, clock.phase(0.2));
+    emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
+        "rounding of the relaxation");
+    MipRun mip = mip(pool, inc, Math.max(1, (long) (clock.msLeft() * 0.5)));
     if (mip.plan() != null && mip.plan().value() > inc.value()) {
       inc = mip.plan();
-      emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "MIP over the pool");
+      emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
+          "MIP over the pool");
     }
-
     boolean proves = settings.engine().provesContinuous();
-    boolean complete = false;
-    boolean mipOptimal = proves && mip.status() == MipStatus.OPTIMAL;
-    double mipBound = proves ? mip.bound() : Double.POSITIVE_INFINITY;
-    double theta = Double.NaN;
-    int added = 0;
-    String reason = "";
+    s.incumbent = inc;
+    s.mipOptimal = proves && mip.status() == MipStatus.OPTIMAL;
+    s.mipBound = proves ? mip.bound() : Double.POSITIVE_INFINITY;
+  }
+
+  /** Up to {@link #PROOF_PASSES} rounds of survivor enumeration and MIP over the grown pool. */
+  private void prove(Pool pool, VariantPricer pricer, LagrangianPortfolioBound b, Search s) {
     double[] tooling = terms.hasTooling() ? terms.choiceCost() : null;
-    int cap = settings.survivorLimit();
     for (int pass = 0; pass < PROOF_PASSES; pass++) {
-      if (stop.getAsBoolean()) {
-        reason = "stopped by a signal";
-        break;
+      Optional<String> signalled = clock.signalled();
+      if (signalled.isPresent()) {
+        s.reason = signalled.get();
+        return;
       }
       if (!b.isFinite()) {
-        reason = "the relaxation gave no finite bound to rule variants out with";
-        break;
+        s.reason = "the relaxation gave no finite bound to rule variants out with";
+        return;
       }
-      theta = inc.value() - b.valueAtLambda() + b.lambda();
-      double slack = 1e-7 * (1 + Math.abs(inc.value()));
-      VariantPricing out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
-          terms.introductionCost(), tooling, theta - slack, cap + 1, pool.keys(), deadlineAt(0.5)));
-      complete = out.exact() && out.found().size() <= cap;
-      // Too many to prove with: add only the best few, so that the MIP can still finish and improve.
-      int n = complete ? out.found().size() : Math.min(out.found().size(), heuristicShare());
-      int before = pool.size();
-      for (int i = 0; i < n; i++) {
-        pool.add(out.found().get(i).choices());
-      }
-      added += pool.size() - before;
-      if (!complete) {
-        reason = out.exact()
-            ? "more than " + cap + " variants could still be part of a better portfolio (the best "
-                + added + " were added to the pool)"
-            : "the time limit stopped the enumeration of the variants that could be part of a better portfolio";
-      }
-      emit("survivors", theta, bound, pool.size(), n, complete
-          ? "every variant that could be part of a better portfolio is in the pool" : reason);
-      if (pool.size() == before && (mipOptimal || !complete)) {
-        break;
-      }
-      MipRun again = mip(pool, inc, msLeft());
-      mipOptimal = proves && again.status() == MipStatus.OPTIMAL;
-      mipBound = proves ? again.bound() : Double.POSITIVE_INFINITY;
-      boolean improved = again.plan() != null && again.plan().value() > inc.value() + 1e-9 * (1 + Math.abs(inc.value()));
-      if (improved) {
-        inc = again.plan();
-        emit("incumbent", inc.value(), bound, pool.size(), inc.members().length, "MIP over the pool with survivors");
-      }
-      if (complete || !improved || (settings.timeLimitMs() > 0 && elapsedMs() >= settings.timeLimitMs())) {
-        break;
+      if (!provePass(pool, pricer, b, tooling, s)) {
+        return;
       }
     }
-    boolean proven = complete && mipOptimal;
-    if (complete && Double.isFinite(mipBound)) {
+  }
+
+  /** One pass of the proof; false when another pass cannot help. */
+  private boolean provePass(Pool pool, VariantPricer pricer, LagrangianPortfolioBound b, double[] tooling, Search s) {
+    s.theta = s.incumbent.value() - b.valueAtLambda() + b.lambda();
+    double slack = 1e-7 * (1 + Math.abs(s.incumbent.value()));
+    VariantPricing out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
+        terms.introductionCost(), tooling, s.theta - slack, settings.survivorLimit() + 1, pool.keys(),
+        clock.phase(0.5).deadlineNanos()));
+    int before = pool.size();
+    addSurvivors(pool, out, s);
+    if (pool.size() == before && (s.mipOptimal || !s.complete)) {
+      return false;
+    }
+    boolean proves = settings.engine().provesContinuous();
+    MipRun again = mip(pool, s.incumbent, clock.msLeft());
+    s.mipOptimal = proves && again.status() == MipStatus.OPTIMAL;
+    s.mipBound = proves ? again.bound() : Double.POSITIVE_INFINITY;
+    double value = s.incumbent.value();
+    boolean improved = again.plan() != null && again.plan().value() > value + 1e-9 * (1 + Math.abs(value));
+    if (improved) {
+      s.incumbent = again.plan();
+      emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(),
+          s.incumbent.members().length, "MIP over the pool with survivors");
+    }
+    return !s.complete && improved && !clock.pastLimit();
+  }
+
+  /** Adds the survivors found; when they are too many to prove with, only the best few. */
+  private void addSurvivors(Pool pool, VariantPricing out, Search s) {
+    int cap = settings.survivorLimit();
+    s.complete = out.exact() && out.found().size() <= cap;
+    // Too many to prove with: add only the best few, so that the MIP can still finish and improve.
+    int n = s.complete ? out.found().size() : Math.min(out.found().size(), heuristicShare());
+    int before = pool.size();
+    for (int i = 0; i < n; i++) {
+      pool.add(out.found().get(i).choices());
+    }
+    s.added += pool.size() - before;
+    if (!s.complete) {
+      s.reason = out.exact()
+          ? "more than " + cap + " variants could still be part of a better portfolio (the best "
+              + s.added + " were added to the pool)"
+          : "the time limit stopped the enumeration of the variants that could be part of a better portfolio";
+    }
+    emit(PortfolioEvent.Kind.SURVIVORS, s.theta, s.bound, pool.size(), n, s.complete
+        ? "every variant that could be part of a better portfolio is in the pool" : s.reason);
+  }
+
+  private PortfolioOutcome outcome(Pool pool, double lpBound, RelaxationResult rx, Search s) {
+    Plan inc = s.incumbent;
+    boolean proven = s.complete && s.mipOptimal;
+    double bound = s.bound;
+    if (s.complete && Double.isFinite(s.mipBound)) {
       // every portfolio better than the incumbent lies in the pool, where the MIP bounds it
-      bound = Math.min(bound, Math.max(inc.value(), mipBound));
+      bound = Math.min(bound, Math.max(inc.value(), s.mipBound));
     }
     bound = Math.max(bound, inc.value());
-    if (proven) {
-      reason = "";
-    } else if (stop.getAsBoolean()) {
-      reason = "stopped by a signal";
-    } else if (reason.isEmpty()) {
-      reason = proves
-          ? "the MIP over the pool was not solved to optimality in the time limit"
-          : settings.engine().word() + " solves continuous sales in a scaled integer form, so it proves nothing here";
-    }
-    double gap = Relaxation.gap(inc.value(), bound);
+    String reason = proven ? "" : whyHeuristic(s.reason);
     PortfolioOutcome o = new PortfolioOutcome(proven ? PortfolioStatus.PROVEN : PortfolioStatus.HEURISTIC, reason,
-        inc.value(), bound, gap, offered(pool, inc), inc.introduction() + inc.tooling(), inc.tooling(), lpBound,
-        rx, theta, added, complete, settings.engine().word(), mipSolves, mipOptimal, pool.size(), elapsedMs());
-    emit("end", o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
+        new ValueBound(inc.value(), bound),
+        new PortfolioOutcome.Offer(offered(pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
+        lpBound, rx, new PortfolioOutcome.SurvivorProof(s.theta, s.added, s.complete, pool.size()),
+        new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal), clock.elapsedMs());
+    emit(PortfolioEvent.Kind.END, o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
         + (reason.isEmpty() ? "" : ": " + reason));
     return o;
+  }
+
+  /** The reason a portfolio stays heuristic: a signal first, else what the proof said, else the MIP. */
+  private String whyHeuristic(String proofReason) {
+    Optional<String> signalled = clock.signalled();
+    if (signalled.isPresent()) {
+      return signalled.get();
+    }
+    if (!proofReason.isEmpty()) {
+      return proofReason;
+    }
+    return settings.engine().provesContinuous()
+        ? "the MIP over the pool was not solved to optimality in the time limit"
+        : settings.engine().word() + " solves continuous sales in a scaled integer form, so it proves nothing here";
   }
 
   /** Survivors tried when they are too many to prove with: enough for a better incumbent, few enough to solve. */
@@ -236,7 +284,7 @@ public final class IntegerStage {
         x[hint.members()[j]] = hint.sales().get(j);
       }
       m.hint(y, x);
-      MipSolution sol = m.solve(timeMs, settings.gap(), stop);
+      MipSolution sol = m.solve(timeMs, settings.gap(), clock.signalFlag());
       Plan plan = null;
       if (sol.status().hasSolution()) {
         List<Integer> members = new ArrayList<>();
@@ -253,8 +301,8 @@ public final class IntegerStage {
         status = MipStatus.FAILED;
       }
       double mb = status.hasSolution() ? sol.bound() : Double.POSITIVE_INFINITY;
-      emit("mip", plan == null ? Double.NaN : plan.value(), mb, pool.size(), sol.y().length,
-          settings.engine().word() + " " + sol.status().name().toLowerCase(java.util.Locale.ROOT) + " in " + sol.wallMs() + " ms, "
+      emit(PortfolioEvent.Kind.MIP, plan == null ? Double.NaN : plan.value(), mb, pool.size(), sol.y().length,
+          settings.engine().word() + " " + sol.status().name().toLowerCase(Locale.ROOT) + " in " + sol.wallMs() + " ms, "
               + sol.nodes() + " nodes (bound over the pool only)");
       return new MipRun(status, plan, mb);
     }

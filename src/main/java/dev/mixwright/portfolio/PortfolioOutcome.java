@@ -1,47 +1,104 @@
 package dev.mixwright.portfolio;
 
+import dev.mixwright.colgen.ValueBound;
+import dev.mixwright.master.PortfolioMip;
 import java.util.List;
 
 /**
  * The end of the integer stage.
  *
  * <ul>
- *   <li>{@code value}: the portfolio's profit, Σ margin · sales − introduction costs − tooling;
- *       {@code bound}: an upper bound on the best portfolio over the whole space; {@code gap}:
- *       (bound − value) / max(1, |value|).
- *   <li>{@code variants}: what is offered; {@code introductionCosts}: introduction cost × their number
- *       plus {@code toolingCosts}, the tooling of the options they use, each paid once.
+ *   <li>{@code result}: the portfolio's profit, Σ margin · sales − introduction costs − tooling, and
+ *       an upper bound on the best portfolio over the whole space.
+ *   <li>{@code offer}: what is offered and what offering it costs.
  *   <li>{@code lpBound}: the LP stage's bound; {@code relaxation}: the relaxed portfolio master's
- *       column generation, whose {@link LagrangianBound} (prices included) also proves which variants
- *       cannot be part of a better portfolio.
- *   <li>{@code survivorThreshold}: variants of ψ − tooling at or below it (at the bound's prices)
- *       cannot be part of a portfolio better than {@code value}; {@code survivorsAdded}: how many
- *       above it the proof enumerated into the pool; {@code survivorsComplete}: all of them were.
- *   <li>{@code engine}, {@code mipSolves}, {@code mipOptimal}: the MIP runs over the pool, the last of
- *       them solved to optimality; {@code poolSize}: variants in the final pool.
+ *       column generation, whose {@link LagrangianPortfolioBound} (prices included) also proves which
+ *       variants cannot be part of a better portfolio; null when there was nothing to relax.
+ *   <li>{@code proof}: the enumeration of the variants that could be part of a better portfolio.
+ *   <li>{@code solver}: the MIP runs over the pool.
  * </ul>
  */
 public record PortfolioOutcome(
     PortfolioStatus status,
     String reason,
-    double value,
-    double bound,
-    double gap,
-    List<OfferedVariant> variants,
-    double introductionCosts,
-    double toolingCosts,
+    ValueBound result,
+    Offer offer,
     double lpBound,
     RelaxationResult relaxation,
-    double survivorThreshold,
-    int survivorsAdded,
-    boolean survivorsComplete,
-    String engine,
-    int mipSolves,
-    boolean mipOptimal,
-    int poolSize,
+    SurvivorProof proof,
+    MipRuns solver,
     long elapsedMs) {
 
-  public PortfolioOutcome {
-    variants = List.copyOf(variants);
+  /**
+   * The variants offered; {@code introductionCosts}: introduction cost × their number plus
+   * {@code toolingCosts}, the tooling of the options they use, each paid once.
+   */
+  public record Offer(List<OfferedVariant> variants, double introductionCosts, double toolingCosts) {
+    public Offer {
+      variants = List.copyOf(variants);
+    }
+  }
+
+  /**
+   * Variants of ψ − tooling at or below {@code threshold} (at the bound's prices) cannot be part of a
+   * portfolio better than the value; {@code added}: how many above it the proof enumerated into the
+   * pool; {@code complete}: all of them were; {@code poolSize}: variants in the final pool.
+   */
+  public record SurvivorProof(double threshold, int added, boolean complete, int poolSize) {}
+
+  /** The MIP solves over the pool: how many, and whether the last was solved to optimality. */
+  public record MipRuns(PortfolioMip.Engine engine, int solves, boolean lastOptimal) {}
+
+  public double value() {
+    return result.value();
+  }
+
+  public double bound() {
+    return result.bound();
+  }
+
+  public double gap() {
+    return result.gap();
+  }
+
+  public List<OfferedVariant> variants() {
+    return offer.variants();
+  }
+
+  public double introductionCosts() {
+    return offer.introductionCosts();
+  }
+
+  public double toolingCosts() {
+    return offer.toolingCosts();
+  }
+
+  public double survivorThreshold() {
+    return proof.threshold();
+  }
+
+  public int survivorsAdded() {
+    return proof.added();
+  }
+
+  public boolean survivorsComplete() {
+    return proof.complete();
+  }
+
+  public int poolSize() {
+    return proof.poolSize();
+  }
+
+  /** The MIP engine's word, as written to result.json. */
+  public String engine() {
+    return solver.engine().word();
+  }
+
+  public int mipSolves() {
+    return solver.solves();
+  }
+
+  public boolean mipOptimal() {
+    return solver.lastOptimal();
   }
 }

@@ -1,12 +1,12 @@
 package dev.mixwright.portfolio;
 
+import dev.mixwright.colgen.StopCriterion;
+import dev.mixwright.colgen.ValueBound;
 import dev.mixwright.master.PortfolioLp;
 import dev.mixwright.master.PortfolioLpSolution;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.function.BooleanSupplier;
-import java.util.function.LongSupplier;
 
 /**
  * Column generation on the relaxed portfolio master ({@link PortfolioLp}: introductions 0 ≤ y_v ≤ 1
@@ -20,7 +20,7 @@ import java.util.function.LongSupplier;
  *   to {1} × P_v, P_v = {0 ≤ x ≤ u, Σ x ≥ L}, so the maximum is max(0, ψ(v) − λ) with
  *     ψ(v) = g(d(v)) − F,   g(d) = max_{x ∈ P_v} Σ_s d_s x_s          ({@link LotValue})
  *   and the pricing problem is max_v ψ(v) over the whole space ({@link VariantPricer}, exact).
- * Bound (valid for any π, μ ≥ 0, so for every round): {@link LagrangianBound}.
+ * Bound (valid for any π, μ ≥ 0, so for every round): {@link LagrangianPortfolioBound}.
  * </pre>
  *
  * The Lagrangian subproblem (per variant, over conv({0} ∪ {1} × P_v)) has the integrality property,
@@ -35,29 +35,30 @@ final class Relaxation {
   private final VariantPricer pricer;
   private final PortfolioSettings settings;
   private final PortfolioListener listener;
-  private final LongSupplier elapsedMs;
+  private final StageClock clock;
   private final long deadlineNanos;
   private final int cap;
-  private final BooleanSupplier stop;
+  private final StopCriterion stop;
 
+  /** Runs within {@code phase}, and at most the settings' relaxation rounds. */
   Relaxation(VariantSpace space, PortfolioTerms terms, VariantPricer pricer, PortfolioSettings settings,
-      PortfolioListener listener, LongSupplier elapsedMs, long deadlineNanos, BooleanSupplier stop) {
+      PortfolioListener listener, StageClock clock, StageClock.Phase phase) {
     this.space = space;
     this.terms = terms;
     this.pricer = pricer;
     this.settings = settings;
     this.listener = listener;
-    this.elapsedMs = elapsedMs;
-    this.deadlineNanos = deadlineNanos;
+    this.clock = clock;
+    this.deadlineNanos = phase.deadlineNanos();
     this.cap = terms.variantCap();
-    this.stop = stop;
+    this.stop = StopCriterion.anyOf(phase.stop(), StopCriterion.iterationLimit(settings.relaxationRounds()));
   }
 
   /** Bounds are exact top-K sums up to this many listed values; beyond it the λ-form keeps them valid. */
   private static final int BOUND_DEPTH = 64;
 
   /** A bound and the pricing behind it. */
-  record Probe(LagrangianBound bound, List<ValuedVariant> found, boolean exact) {}
+  record Probe(LagrangianPortfolioBound bound, List<ValuedVariant> found, boolean exact) {}
 
   /** The bound at prices (π, μ): one pricing call for the k best outside the pool. */
   Probe bound(Pool pool, double[] pi, double[] mu, int k) {
@@ -77,14 +78,14 @@ final class Relaxation {
     for (int s = 0; s < mu.length; s++) {
       constant += mu[s] * terms.demand()[s];
     }
-    return new Probe(LagrangianBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone()),
+    return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone()),
         out.found(), out.exact());
   }
 
   RelaxationResult run(Pool pool, double[] lpPi, double[] lpMu) {
-    long t0 = elapsedMs.getAsLong();
+    long t0 = clock.elapsedMs();
     int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
-    LagrangianBound best = bound(pool, lpPi, lpMu, k).bound();
+    LagrangianPortfolioBound best = bound(pool, lpPi, lpMu, k).bound();
     double lpPriceBound = best.value();
     try (PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap)) {
       for (PoolVariant v : pool.all()) {
@@ -114,15 +115,14 @@ final class Relaxation {
           }
         }
         boolean exact = probe.exact();
-        double gap = gap(z, best.value());
-        listener.event(new PortfolioEvent("relaxation", elapsedMs.getAsLong(), z, best.value(), pool.size(),
+        double gap = ValueBound.gap(z, best.value());
+        listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z, best.value(), pool.size(),
             entering.size(), "round " + round));
         if (entering.isEmpty() && exact) {
           converged = true;
           break;
         }
-        if (gap <= settings.gap() || round >= settings.relaxationRounds()
-            || (deadlineNanos != 0 && System.nanoTime() > deadlineNanos) || stop.getAsBoolean()) {
+        if (gap <= settings.gap() || stop.fired(clock.now(round))) {
           break;
         }
         for (ValuedVariant f : entering) {
@@ -133,18 +133,11 @@ final class Relaxation {
       }
       double[] y = sol.y().clone();
       return new RelaxationResult(sol.objective(), best, converged, round, y, lpPriceBound,
-          elapsedMs.getAsLong() - t0);
+          clock.elapsedMs() - t0);
     }
   }
 
   private void add(PortfolioLp lp, PoolVariant v) {
     lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
-  }
-
-  static double gap(double value, double bound) {
-    if (!Double.isFinite(bound)) {
-      return Double.POSITIVE_INFINITY;
-    }
-    return Math.max(0.0, bound - value) / Math.max(1.0, Math.abs(value));
   }
 }

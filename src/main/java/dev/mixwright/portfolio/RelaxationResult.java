@@ -2,7 +2,7 @@ package dev.mixwright.portfolio;
 
 /**
  * The end of the relaxation's column generation. {@code objective}: the relaxed master's optimum over
- * the final pool. {@code bound}: the best {@link LagrangianBound} found (valid for the integer
+ * the final pool. {@code bound}: the best {@link LagrangianPortfolioBound} found (valid for the integer
  * portfolio over the whole space), with its prices. {@code converged}: exact pricing found no variant
  * that would improve the relaxed master, so {@code objective} is the relaxation's optimum over the
  * whole space. {@code y}: the relaxed introductions per pool variant (pool order) at the end.
@@ -10,7 +10,7 @@ package dev.mixwright.portfolio;
  */
 public record RelaxationResult(
     double objective,
-    LagrangianBound bound,
+    LagrangianPortfolioBound bound,
     boolean converged,
     int rounds,
     double[] y,

@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
-import java.util.function.BooleanSupplier;
 
 /**
  * A first feasible portfolio from the relaxation, greedily: pool variants in order of their relaxed
@@ -16,8 +15,9 @@ import java.util.function.BooleanSupplier;
 final class Rounding {
   private Rounding() {}
 
-  static Plan greedy(Pool pool, PortfolioTerms terms, double[] y, double[] score, long deadlineNanos,
-      BooleanSupplier stop) {
+  /** Stops early, with the best plan so far, once {@code phase} ends. */
+  static Plan greedy(Pool pool, PortfolioTerms terms, double[] y, double[] score, StageClock clock,
+      StageClock.Phase phase) {
     Integer[] order = new Integer[pool.size()];
     for (int i = 0; i < order.length; i++) {
       order[i] = i;
@@ -27,7 +27,7 @@ final class Rounding {
     Plan best = Plan.empty();
     List<Integer> chosen = new ArrayList<>();
     for (int i : order) {
-      if (chosen.size() >= terms.maxVariants() || past(deadlineNanos) || stop.getAsBoolean()) {
+      if (chosen.size() >= terms.maxVariants() || phase.stop().fired(clock.now(chosen.size()))) {
         break;
       }
       if ((i < y.length ? y[i] : 0) <= 1e-9 && score[i] <= 0) {
@@ -42,7 +42,7 @@ final class Rounding {
       }
     }
     boolean improved = true;
-    while (improved && !past(deadlineNanos) && !stop.getAsBoolean()) {
+    while (improved && !phase.stop().fired(clock.now(chosen.size()))) {
       improved = false;
       for (int j = 0; j < chosen.size(); j++) {
         List<Integer> fewer = new ArrayList<>(chosen);
@@ -57,10 +57,6 @@ final class Rounding {
       }
     }
     return best;
-  }
-
-  private static boolean past(long deadline) {
-    return deadline != 0 && System.nanoTime() > deadline;
   }
 
   private static int[] toArray(List<Integer> l) {

@@ -30,7 +30,7 @@ public final class PortfolioLog implements PortfolioListener, AutoCloseable {
   @Override
   public void event(PortfolioEvent e) {
     ObjectNode n = Json.compact().createObjectNode();
-    n.put("kind", e.kind());
+    n.put("kind", e.kind().word());
     n.put("elapsedMs", e.elapsedMs());
     ResultWriter.putNum(n, "value", e.value());
     ResultWriter.putNum(n, "bound", e.bound());

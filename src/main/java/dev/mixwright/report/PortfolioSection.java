@@ -3,7 +3,7 @@ package dev.mixwright.report;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.portfolio.LagrangianBound;
+import dev.mixwright.portfolio.LagrangianPortfolioBound;
 import dev.mixwright.portfolio.OfferedVariant;
 import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.portfolio.PortfolioTerms;
@@ -84,7 +84,7 @@ public final class PortfolioSection {
     if (rx != null) {
       ObjectNode r = n.putObject("relaxation");
       r.put("objective", rx.objective());
-      LagrangianBound b = rx.bound();
+      LagrangianPortfolioBound b = rx.bound();
       ResultWriter.putNum(r, "bound", b.value());
       r.put("converged", rx.converged());
       r.put("rounds", rx.rounds());

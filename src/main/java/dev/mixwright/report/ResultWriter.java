@@ -93,7 +93,7 @@ public final class ResultWriter {
       o.put("id", rr.id());
       o.put("capacity", rr.capacity());
       o.put("used", used[r]);
-      o.put("shadowPrice", out.resourceDual().length > r ? out.resourceDual()[r] : 0.0);
+      putNum(o, "shadowPrice", out.duals().resource(r).orElse(Double.NaN));
       o.put("binding", used[r] >= rr.capacity() * (1 - 1e-7) - 1e-9);
     }
     ArrayNode segs = n.putArray("segments");
@@ -103,7 +103,7 @@ public final class ResultWriter {
       o.put("id", ss.id());
       o.put("demand", ss.demand());
       o.put("sold", segSold[s]);
-      o.put("shadowPrice", out.segmentDual().length > s ? out.segmentDual()[s] : 0.0);
+      putNum(o, "shadowPrice", out.duals().segment(s).orElse(Double.NaN));
     }
     ArrayNode rounds = n.putArray("rounds");
     for (IterationRecord r : out.history()) {

@@ -88,14 +88,14 @@ public final class SweepTable {
       ObjectNode x = res.putObject(rr.id());
       x.put("capacity", rr.capacity());
       x.put("used", r.used()[i]);
-      x.put("shadowPrice", o.resourceDual().length > i ? o.resourceDual()[i] : 0.0);
+      ResultWriter.putNum(x, "shadowPrice", o.duals().resource(i).orElse(Double.NaN));
     }
     ObjectNode segs = n.putObject("segments");
     for (int s = 0; s < c.segments().size(); s++) {
       Segment ss = c.segments().get(s);
       ObjectNode x = segs.putObject(ss.id());
       x.put("demand", ss.demand());
-      x.put("shadowPrice", o.segmentDual().length > s ? o.segmentDual()[s] : 0.0);
+      ResultWriter.putNum(x, "shadowPrice", o.duals().segment(s).orElse(Double.NaN));
     }
     rows.put(p.index(), n);
     return n;

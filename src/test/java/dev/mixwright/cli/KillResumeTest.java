@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.colgen.ColumnGeneration;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.Pricers;
 import dev.mixwright.report.ColumnLogReader;
@@ -35,7 +36,7 @@ class KillResumeTest {
   @BeforeAll
   static void solveUninterrupted() throws Exception {
     VariantSpace space = new VariantSpace(CatalogLoader.load(RANGE));
-    uninterrupted = new ColumnGeneration(space, Pricers.byName("bnb", space), SolveSettings.defaults())
+    uninterrupted = new ColumnGeneration(space, Pricers.byName("bnb", space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
         .run().objective();
   }
 

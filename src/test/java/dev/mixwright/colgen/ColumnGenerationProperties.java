@@ -57,7 +57,8 @@ class ColumnGenerationProperties {
 
       Pricer pricer = bnb ? new BranchAndBoundPricer(space) : new BruteForcePricer(space);
       SolveOutcome out =
-          new ColumnGeneration(space, pricer, SolveSettings.defaults().withPerRound(perRound)).run();
+          new ColumnGeneration(space, pricer, null, SolveSettings.defaults().withPerRound(perRound),
+              StopCriterion.never(), System.nanoTime()).run();
 
       assertEquals(RunStatus.OPTIMAL, out.status());
       double scale = Math.max(1.0, Math.abs(ref.objective()));
@@ -74,13 +75,13 @@ class ColumnGenerationProperties {
       for (Column c : out.columns()) {
         inMaster.get(c.segment()).add(space.key(c.choices()));
       }
-      double[] best = ref.maxReducedCost(out.resourceDual(), out.segmentDual(), inMaster);
+      double[] best = ref.maxReducedCost(out.duals().resource(), out.duals().segment(), inMaster);
       double tol = 1e-7 * Math.max(1.0, maxAbsMargin(all));
       for (int s = 0; s < best.length; s++) {
         assertTrue(best[s] <= tol, "segment " + s + " has an outside column with d = " + best[s]);
       }
       // And the reference confirms the final duals are optimal for the whole space.
-      assertEquals(ref.objective(), ref.dualBound(out.resourceDual(), out.segmentDual()), 1e-6 * scale);
+      assertEquals(ref.objective(), ref.dualBound(out.duals().resource(), out.duals().segment()), 1e-6 * scale);
       return true;
     });
   }
@@ -95,7 +96,8 @@ class ColumnGenerationProperties {
       EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
       double scale = Math.max(1.0, Math.abs(ref.objective()));
       List<IterationRecord> rounds = new ArrayList<>();
-      new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults().withPerRound(1))
+      new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults().withPerRound(1),
+              StopCriterion.never(), System.nanoTime())
           .addListener(new ColGenListener() {
             @Override
             public void iteration(IterationRecord r) {

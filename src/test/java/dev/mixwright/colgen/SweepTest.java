@@ -35,7 +35,7 @@ class SweepTest {
     starter = CatalogLoader.load(Path.of("catalogs/heatpump-starter.yaml"));
   }
 
-  private static final SolveSettings TIGHT = new SolveSettings(1e-9, 5, 0, 0, false);
+  private static final SolveSettings TIGHT = SolveSettings.defaults().withGapTolerance(1e-9).withPerRound(5);
 
   private static List<Sweep.Row> sweep(Catalog c, SweepPlan plan, boolean warm) {
     List<Sweep.Row> rows = new ArrayList<>(new Sweep(c, plan, "bnb", TIGHT, warm).run(Set.of(), () -> false,
@@ -75,8 +75,8 @@ class SweepTest {
       double zb = b.outcome().objective();
       double db = b.catalog().resources().get(r).capacity() - a.catalog().resources().get(r).capacity();
       double slope = (zb - za) / db;
-      double pa = a.outcome().resourceDual()[r];
-      double pb = b.outcome().resourceDual()[r];
+      double pa = a.outcome().duals().resource()[r];
+      double pb = b.outcome().duals().resource()[r];
       double tol = 1e-6 * Math.max(1, pa) + 4e-9 * zb / db;
       assertTrue(zb >= za - 1e-9 * zb, "more capacity never hurts: " + a.point().name() + " -> " + b.point().name());
       assertTrue(slope <= pa + tol && slope >= pb - tol,

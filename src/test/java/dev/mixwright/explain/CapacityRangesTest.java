@@ -7,6 +7,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.colgen.ColumnGeneration;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.Pricers;
@@ -110,7 +111,7 @@ class CapacityRangesTest {
   @Test
   void onTheStarterCatalogIndependentSolvesConfirmEachRangeAndThatItCannotBeWidened() throws Exception {
     Catalog cat = CatalogLoader.load(Path.of("catalogs/heatpump-starter.yaml"));
-    SolveSettings tight = new SolveSettings(1e-9, 5, 0, 0, false);
+    SolveSettings tight = SolveSettings.defaults().withGapTolerance(1e-9).withPerRound(5);
     CapacityRanges search = new CapacityRanges(1e-6, 1e-7);
     VariantSpace space = new VariantSpace(cat);
     int checked = 0;
@@ -161,6 +162,6 @@ class CapacityRangesTest {
     Catalog c = new Catalog(cat.format(), cat.name(), cat.currency(), cat.period(), res, cat.groups(),
         cat.rules(), cat.segments(), cat.portfolio());
     VariantSpace space = new VariantSpace(c);
-    return new ColumnGeneration(space, Pricers.byName("bnb", space), s).run();
+    return new ColumnGeneration(space, Pricers.byName("bnb", space), null, s, StopCriterion.never(), System.nanoTime()).run();
   }
 }

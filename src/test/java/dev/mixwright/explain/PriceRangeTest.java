@@ -7,6 +7,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.colgen.ColumnGeneration;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.BranchAndBoundPricer;
@@ -28,7 +29,7 @@ class PriceRangeTest {
   void dakotaDesksAndChairsLeaveWhereTheFullLpSaysSo() {
     Catalog book = TextbookCatalogs.dakota(30, false);
     VariantSpace space = new VariantSpace(book);
-    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults()).run();
+    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
     int others = book.segmentIndex("others");
     for (String product : List.of("desk", "chair")) {
       int[] v = space.parse(Map.of("product", product));
@@ -46,7 +47,7 @@ class PriceRangeTest {
   void aColumnNotSoldIsRefused() {
     Catalog book = TextbookCatalogs.dakota(30, false);
     VariantSpace space = new VariantSpace(book);
-    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults()).run();
+    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
     int[] table = space.parse(Map.of("product", "table"));
     PriceRange r = new PriceRange(space, "bnb", SolveSettings.defaults(), run.columns());
     try {

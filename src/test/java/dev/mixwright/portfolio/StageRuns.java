@@ -8,6 +8,7 @@ import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.PortfolioSpec;
 import dev.mixwright.colgen.ColumnGeneration;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.BranchAndBoundPricer;
@@ -22,7 +23,7 @@ final class StageRuns {
   private StageRuns() {}
 
   static SolveOutcome lp(VariantSpace space) {
-    return new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults()).run();
+    return new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
   }
 
   static PortfolioOutcome stage(VariantSpace space, PortfolioSettings settings) {

@@ -12,24 +12,24 @@ import java.util.Random;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
 
-class LagrangianBoundTest {
+class LagrangianPortfolioBoundTest {
 
   @Test
   void handComputedTopK() {
     // constant 100, values 50, 30, 20, -5, K = 2, everything else at most 10:
     // λ = max(10, third largest 20) = 20, L = 100 + 2·20 + (50−20) + (30−20) = 180 = 100 + 50 + 30
-    LagrangianBound b = LagrangianBound.of(100, new double[] {20, 50, -5, 30}, 10, 2, new double[0], new double[0]);
+    LagrangianPortfolioBound b = LagrangianPortfolioBound.of(100, new double[] {20, 50, -5, 30}, 10, 2, new double[0], new double[0]);
     assertEquals(180, b.value(), 1e-12);
     // λ̂ = the K-th largest, 30: a portfolio holding a variant of value 12 is worth at most 180 − (30 − 12)
     assertEquals(30, b.lambda(), 1e-12);
     assertEquals(162, b.withVariant(12), 1e-12);
     // what is not listed may be worth up to 40: then λ ≥ 40 and L = 100 + 2·40 + (50 − 40) = 190
-    assertEquals(190, LagrangianBound.of(100, new double[] {20, 50, -5, 30}, 40, 2, new double[0], new double[0])
+    assertEquals(190, LagrangianPortfolioBound.of(100, new double[] {20, 50, -5, 30}, 40, 2, new double[0], new double[0])
         .value(), 1e-12);
     // no limit: all positive values count, and only when nothing unlisted is positive
-    assertEquals(200, LagrangianBound.of(100, new double[] {20, 50, -5, 30}, 0, PortfolioTerms.UNLIMITED,
+    assertEquals(200, LagrangianPortfolioBound.of(100, new double[] {20, 50, -5, 30}, 0, PortfolioTerms.UNLIMITED,
         new double[0], new double[0]).value(), 1e-12);
-    assertEquals(Double.POSITIVE_INFINITY, LagrangianBound.of(100, new double[] {20}, 1, PortfolioTerms.UNLIMITED,
+    assertEquals(Double.POSITIVE_INFINITY, LagrangianPortfolioBound.of(100, new double[] {20}, 1, PortfolioTerms.UNLIMITED,
         new double[0], new double[0]).value());
   }
 
@@ -68,7 +68,7 @@ class LagrangianBoundTest {
         for (int s = 0; s < mu.length; s++) {
           constant += mu[s] * t.demand()[s];
         }
-        LagrangianBound b = LagrangianBound.of(constant, listed, out.restBound(), t.variantCap(), pi, mu);
+        LagrangianPortfolioBound b = LagrangianPortfolioBound.of(constant, listed, out.restBound(), t.variantCap(), pi, mu);
         assertTrue(opt <= b.value() + 1e-6 * (1 + Math.abs(opt)), "case " + i + ": " + b.value() + " < " + opt);
       }
     }

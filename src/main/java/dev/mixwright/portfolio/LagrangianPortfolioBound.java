@@ -3,7 +3,7 @@ package dev.mixwright.portfolio;
 import java.util.Arrays;
 
 /**
- * The bound on the integer portfolio over the whole space at given prices π, μ ≥ 0 (any, not only
+ * The Lagrangian bound on the value of the integer portfolio over the whole space at given prices π, μ ≥ 0 (any, not only
  * optimal ones). For a feasible portfolio S (|S| ≤ K, variants v with sales x_v), subtracting π·(b −
  * used) ≥ 0 and μ·(D − sold) ≥ 0 from its value,
  *
@@ -21,7 +21,7 @@ import java.util.Arrays;
  * (λ − ψ(w))⁺; with λ̂ = the K-th largest listed value (clamped) L(λ̂) is still the least L and the
  * excluded set is largest. Cost: one sort of the listed values.
  */
-public record LagrangianBound(
+public record LagrangianPortfolioBound(
     double value, double lambda, double valueAtLambda, double[] resourcePrice, double[] segmentPrice) {
 
   /**
@@ -30,20 +30,20 @@ public record LagrangianBound(
    * @param rest an upper bound on ψ of every variant not listed
    * @param cap K, {@link PortfolioTerms#UNLIMITED} for none
    */
-  public static LagrangianBound of(double constant, double[] listed, double rest, int cap, double[] pi, double[] mu) {
+  public static LagrangianPortfolioBound of(double constant, double[] listed, double rest, int cap, double[] pi, double[] mu) {
     double lambdaMin = Math.max(0.0, rest);
     double[] sorted = listed.clone();
     Arrays.sort(sorted);
     int n = sorted.length;
     if (cap == PortfolioTerms.UNLIMITED) {
       if (lambdaMin > 0) {
-        return new LagrangianBound(Double.POSITIVE_INFINITY, 0, Double.POSITIVE_INFINITY, pi, mu);
+        return new LagrangianPortfolioBound(Double.POSITIVE_INFINITY, 0, Double.POSITIVE_INFINITY, pi, mu);
       }
       double sum = constant;
       for (double x : sorted) {
         sum += Math.max(0.0, x);
       }
-      return new LagrangianBound(sum, 0, sum, pi, mu);
+      return new LagrangianPortfolioBound(sum, 0, sum, pi, mu);
     }
     // values from the largest: sorted[n - 1 - i] is the (i+1)-th largest; with K = 0 nothing can be
     // offered and λ may rise to the largest value, which leaves L = π·b + μ·D
@@ -53,7 +53,7 @@ public record LagrangianBound(
     double lamHat = Math.max(lambdaMin, kth);
     double atL = at(constant, sorted, lamL, cap);
     double atHat = at(constant, sorted, lamHat, cap);
-    return new LagrangianBound(Math.min(atL, atHat), lamHat, atHat, pi, mu);
+    return new LagrangianPortfolioBound(Math.min(atL, atHat), lamHat, atHat, pi, mu);
   }
 
   private static double at(double constant, double[] values, double lambda, int cap) {

@@ -17,9 +17,9 @@ import org.junit.jupiter.api.Test;
  * solved by Apache Commons Math SimplexSolver; its {@code lagrangianBound} fills each segment's
  * knapsack from the whole list).
  */
-class LagrangianBoundTest {
+class LagrangianLpBoundTest {
 
-  /** The enumerated columns as the arrays {@link LagrangianBound#bound} takes, the first n of them. */
+  /** The enumerated columns as the arrays {@link LagrangianLpBound#bound} takes, the first n of them. */
   private static double bound(EnumeratedLp.Reference ref, double[] y, boolean[] inMaster) {
     List<EnumeratedLp.Column> cols = ref.columns();
     int n = cols.size();
@@ -46,7 +46,7 @@ class LagrangianBoundTest {
         outside[c.segment()] = Math.max(outside[c.segment()], e);
       }
     }
-    return new LagrangianBound(ref.capacity(), ref.demand()).bound(y, seg, m, a, u, k, outside);
+    return new LagrangianLpBound(ref.capacity(), ref.demand()).bound(y, seg, m, a, u, k, outside);
   }
 
   private static double[] randomPrices(Random rnd, int n) {

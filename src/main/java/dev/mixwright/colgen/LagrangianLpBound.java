@@ -21,11 +21,11 @@ import java.util.Arrays;
  * the item of value t0_s without a bound, which is why t0_s may be any upper bound on their e. At
  * optimal duals of the full LP the bound equals its optimum. O(n log n) for n master columns.
  */
-public final class LagrangianBound {
+public final class LagrangianLpBound {
   private final double[] capacity;
   private final double[] demand;
 
-  public LagrangianBound(double[] capacity, double[] demand) {
+  public LagrangianLpBound(double[] capacity, double[] demand) {
     this.capacity = capacity.clone();
     this.demand = demand.clone();
   }
