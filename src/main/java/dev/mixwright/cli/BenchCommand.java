@@ -329,7 +329,7 @@ final class BenchCommand implements Callable<Integer> {
       round.add(ReducedCosts.query(space, s, o.resourceDual(), o.segmentDual()[s], SolveSettings.DEFAULT_PER_ROUND,
           threshold, inMaster.get(s)));
     }
-    Pricer bnb = new BranchAndBoundPricer(space);
+    Pricer bnb = new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
     Pricer cpsat = new CpSatPricer(space);
     List<PricingOutcome> fromBnb = priceRound(bnb, round);
     List<PricingOutcome> fromCpsat = priceRound(cpsat, round);

@@ -46,7 +46,7 @@ class ColumnGenerationProperties {
     Assume.that(!all.isEmpty() && all.size() <= 400);
     EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
 
-    Pricer pricer = bnb ? new BranchAndBoundPricer(space) : new BruteForcePricer(space);
+    Pricer pricer = bnb ? new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT) : new BruteForcePricer(space);
     SolveOutcome out =
         new ColumnGeneration(space, pricer, SolveSettings.defaults().withPerRound(perRound)).run();
 
@@ -83,7 +83,7 @@ class ColumnGenerationProperties {
     EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
     double scale = Math.max(1.0, Math.abs(ref.objective()));
     List<IterationRecord> rounds = new ArrayList<>();
-    new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults().withPerRound(1))
+    new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), SolveSettings.defaults().withPerRound(1))
         .addListener(new ColGenListener() {
           @Override
           public void iteration(IterationRecord r) {

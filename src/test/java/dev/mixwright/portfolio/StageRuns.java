@@ -22,7 +22,7 @@ final class StageRuns {
   private StageRuns() {}
 
   static SolveOutcome lp(VariantSpace space) {
-    return new ColumnGeneration(space, new BranchAndBoundPricer(space), SolveSettings.defaults()).run();
+    return new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), SolveSettings.defaults()).run();
   }
 
   static PortfolioOutcome stage(VariantSpace space, PortfolioSettings settings) {

@@ -6,10 +6,12 @@ import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Optional;
 import java.util.Set;
 
 /**
- * Branch-and-bound whose bound is exact: the cost-to-go tables of bucket elimination.
+ * Exact k-best pricing by branch-and-bound whose bound is exact: the cost-to-go tables of bucket
+ * elimination.
  *
  * <p>Per query, groups are eliminated in a min-fill order of the rule graph (groups as vertices, each
  * nogood a clique): eliminating group x turns its weight, the nogoods whose first eliminated group it
@@ -25,9 +27,10 @@ import java.util.Set;
  *
  * <p>Time per query O(Σ_x d_x · |table_x| · (messages + nogoods of x)) for the tables, i.e.
  * O(G · d^(w+1)) for induced width w, plus the search; memory Σ_x |table_x|. Usable only when the
- * tables fit the limit given; {@link BranchAndBoundPricer} falls back to forward checking otherwise.
+ * tables fit the limit given ({@link #fitting}); {@link BranchAndBoundPricer} uses
+ * {@link ForwardCheckingPricer} where they do not.
  */
-final class BucketSearch {
+public final class BucketEliminationPricer implements Pricer {
   private final VariantSpace space;
   private final int groups;
   private final int[] offset;
@@ -63,11 +66,18 @@ final class BucketSearch {
   private Set<VariantKey> excluded;
   private TopK top;
   private long nodes;
-  private long nodeLimit;
+  private long budget;
   private double openBound;
 
-  private BucketSearch(VariantSpace space, int[] elimination, int[][] scope, long entries) {
+  private final long nodeLimit;
+
+  private BucketEliminationPricer(
+      VariantSpace space, long nodeLimit, int[] elimination, int[][] scope, long entries) {
+    if (nodeLimit < 1) {
+      throw new IllegalArgumentException("nodeLimit must be >= 1");
+    }
     this.space = space;
+    this.nodeLimit = nodeLimit;
     this.groups = space.groupCount();
     this.offset = space.offsets();
     this.nogoods = space.nogoods();
@@ -242,13 +252,16 @@ final class BucketSearch {
   }
 
   /**
-   * The search for this space, or null when the tables of a min-fill elimination order would hold
+   * The pricer for this space, or empty when the tables of a min-fill elimination order would hold
    * more than {@code maxEntries} doubles in all.
+   *
+   * @param nodeLimit most search nodes per query; when reached the outcome is not exact but keeps a
+   *     valid upper bound. {@code Long.MAX_VALUE} for none.
    */
-  static BucketSearch plan(VariantSpace space, long maxEntries) {
+  public static Optional<BucketEliminationPricer> fitting(VariantSpace space, long nodeLimit, long maxEntries) {
     int groups = space.groupCount();
     if (groups == 0) {
-      return null;
+      return Optional.empty();
     }
     boolean[][] adj = new boolean[groups][groups];
     for (Nogood n : space.nogoods()) {
@@ -302,14 +315,14 @@ final class BucketSearch {
           s[n++] = a;
           size = Math.multiplyHigh(size, space.choiceCount(a)) != 0 ? Long.MAX_VALUE : size * space.choiceCount(a);
           if (size > maxEntries) {
-            return null;
+            return Optional.empty();
           }
         }
       }
       scope[x] = Arrays.copyOf(s, n);
       entries += size;
       if (entries > maxEntries) {
-        return null;
+        return Optional.empty();
       }
       for (int p = 0; p < n; p++) {
         for (int q = 0; q < n; q++) {
@@ -320,17 +333,31 @@ final class BucketSearch {
       }
       gone[x] = true;
     }
-    return new BucketSearch(space, elimination, scope, entries);
+    return Optional.of(new BucketEliminationPricer(space, nodeLimit, elimination, scope, entries));
   }
 
-  long tableEntries() {
+  @Override
+  public String name() {
+    return "bucket-elimination";
+  }
+
+  /** Doubles the tables hold in all: their filling is the fixed cost of a query. */
+  public long tableEntries() {
     return tableEntries;
   }
 
-  int[] order() {
+  /** The group order of the search (a copy), the reverse of the elimination order. */
+  public int[] groupOrder() {
     return order.clone();
   }
 
+  @Override
+  public PricingOutcome price(PricingQuery q) {
+    QueryChecks.check(space, q);
+    return price(q, nodeLimit);
+  }
+
+  /** {@link #price(PricingQuery)} on a node budget of its own (a checked query). */
   PricingOutcome price(PricingQuery q, long limit) {
     w = q.weight();
     constant = q.constant();
@@ -338,7 +365,7 @@ final class BucketSearch {
     excluded = q.excluded();
     top = new TopK(q.k(), groups);
     nodes = 0;
-    nodeLimit = limit;
+    budget = limit;
     openBound = Double.NEGATIVE_INFINITY;
     for (int x : elimination) {
       eliminate(x);
@@ -518,7 +545,7 @@ final class BucketSearch {
       if (!(b + slack(b) > top.cutoff(threshold))) {
         break;
       }
-      if (nodes >= nodeLimit) {
+      if (nodes >= budget) {
         openBound = Math.max(openBound, b);
         return false;
       }
