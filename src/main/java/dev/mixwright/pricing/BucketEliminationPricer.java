@@ -1,5 +1,6 @@
 package dev.mixwright.pricing;
 
+import dev.mixwright.space.EliminationOrder;
 import dev.mixwright.space.Nogood;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
@@ -13,9 +14,8 @@ import java.util.Set;
  * Exact k-best pricing by branch-and-bound whose bound is exact: the cost-to-go tables of bucket
  * elimination.
  *
- * <p>Per query, groups are eliminated in a min-fill order of the rule graph (groups as vertices, each
- * nogood a clique): eliminating group x turns its weight, the nogoods whose first eliminated group it
- * is and the messages sent to it into one table m_x over its neighbours at that time, the maximum
+ * <p>Per query, groups are eliminated in the min-fill order of {@link EliminationOrder}: eliminating
+ * group x turns its weight, the nogoods whose first eliminated group it is and the messages sent to it into one table m_x over its neighbours at that time, the maximum
  * over x's choices (Bertelè &amp; Brioschi 1972, <i>Nonserial Dynamic Programming</i>; Dechter 1999,
  * "Bucket elimination", Artificial Intelligence 113). The search then assigns groups in the reverse
  * order. After the groups above depth d are set, the messages that cross from depth ≥ d to the set
@@ -263,75 +263,29 @@ public final class BucketEliminationPricer implements Pricer {
     if (groups == 0) {
       return Optional.empty();
     }
-    boolean[][] adj = new boolean[groups][groups];
+    EliminationOrder graph = new EliminationOrder(groups);
     for (Nogood n : space.nogoods()) {
-      for (int a : n.groups()) {
-        for (int b : n.groups()) {
-          if (a != b) {
-            adj[a][b] = true;
-          }
-        }
-      }
+      graph.connect(n.groups());
     }
-    boolean[] gone = new boolean[groups];
     int[] elimination = new int[groups];
     int[][] scope = new int[groups][];
     long entries = 0;
     for (int i = 0; i < groups; i++) {
-      // greedy min-fill, ties by fewest neighbours, then by index (deterministic)
-      int best = -1;
-      long bestFill = Long.MAX_VALUE;
-      int bestDeg = Integer.MAX_VALUE;
-      for (int g = 0; g < groups; g++) {
-        if (gone[g]) {
-          continue;
-        }
-        int deg = 0;
-        long fill = 0;
-        for (int a = 0; a < groups; a++) {
-          if (gone[a] || !adj[g][a]) {
-            continue;
-          }
-          deg++;
-          for (int b = a + 1; b < groups; b++) {
-            if (!gone[b] && adj[g][b] && !adj[a][b]) {
-              fill++;
-            }
-          }
-        }
-        if (fill < bestFill || fill == bestFill && deg < bestDeg) {
-          best = g;
-          bestFill = fill;
-          bestDeg = deg;
-        }
-      }
-      int x = best;
+      int x = graph.next();
       elimination[i] = x;
-      int[] s = new int[groups];
-      int n = 0;
+      scope[x] = graph.neighbours(x);
       long size = 1;
-      for (int a = 0; a < groups; a++) {
-        if (!gone[a] && adj[x][a]) {
-          s[n++] = a;
-          size = Math.multiplyHigh(size, space.choiceCount(a)) != 0 ? Long.MAX_VALUE : size * space.choiceCount(a);
-          if (size > maxEntries) {
-            return Optional.empty();
-          }
+      for (int a : scope[x]) {
+        size = Math.multiplyHigh(size, space.choiceCount(a)) != 0 ? Long.MAX_VALUE : size * space.choiceCount(a);
+        if (size > maxEntries) {
+          return Optional.empty();
         }
       }
-      scope[x] = Arrays.copyOf(s, n);
       entries += size;
       if (entries > maxEntries) {
         return Optional.empty();
       }
-      for (int p = 0; p < n; p++) {
-        for (int q = 0; q < n; q++) {
-          if (p != q) {
-            adj[s[p]][s[q]] = true;
-          }
-        }
-      }
-      gone[x] = true;
+      graph.eliminate(x);
     }
     return Optional.of(new BucketEliminationPricer(space, nodeLimit, elimination, scope, entries));
   }
