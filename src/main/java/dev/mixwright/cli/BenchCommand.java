@@ -330,7 +330,7 @@ final class BenchCommand implements Callable<Integer> {
           threshold, inMaster.get(s)));
     }
     Pricer bnb = new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
-    Pricer cpsat = new CpSatPricer(space);
+    Pricer cpsat = new CpSatPricer(space, 0, 1);
     List<PricingOutcome> fromBnb = priceRound(bnb, round);
     List<PricingOutcome> fromCpsat = priceRound(cpsat, round);
     long tb = medianRound(bnb, round);

@@ -28,7 +28,7 @@ public final class Pricers {
     return switch (n) {
       case "bnb" -> new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
       case "brute" -> new BruteForcePricer(space);
-      case "cpsat" -> new CpSatPricer(space);
+      case "cpsat" -> new CpSatPricer(space, 0, 1);
       case "heuristic" -> new HeuristicPricer(space);
       default -> throw new IllegalArgumentException(
           "unknown pricer '" + name + "'; choose one of " + String.join(", ", NAMES));
