@@ -6,6 +6,7 @@ import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.master.MipSolution;
 import dev.mixwright.master.MipStatus;
 import dev.mixwright.master.PortfolioMip;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
@@ -154,7 +155,7 @@ public final class IntegerStage {
       }
       theta = inc.value() - b.valueAtLambda() + b.lambda();
       double slack = 1e-7 * (1 + Math.abs(inc.value()));
-      VariantPricing out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
+      PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
           terms.introductionCost(), tooling, theta - slack, cap + 1, pool.keys(), deadlineAt(0.5)));
       complete = out.exact() && out.found().size() <= cap;
       // Too many to prove with: add only the best few, so that the MIP can still finish and improve.

@@ -1,5 +1,7 @@
 package dev.mixwright.portfolio;
 
+import dev.mixwright.pricing.PricedVariant;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.pricing.ReducedCosts;
 import dev.mixwright.space.ForwardChecker;
 import dev.mixwright.space.VariantKey;
@@ -65,7 +67,7 @@ public final class VariantPricer {
   private double threshold;
   private int k;
   private Set<VariantKey> excluded;
-  private PriorityQueue<ValuedVariant> top;
+  private PriorityQueue<PricedVariant> top;
   private long nodes;
   private long deadline;
   private BooleanSupplier stop = () -> false;
@@ -132,7 +134,11 @@ public final class VariantPricer {
     return this;
   }
 
-  public VariantPricing price(VariantQuery q) {
+  /**
+   * The k best variants by ψ; each {@link PricedVariant#reducedCost()} is ψ(v), and
+   * {@link PricingOutcome#restBound()} bounds ψ of every variant neither excluded nor found.
+   */
+  public PricingOutcome price(VariantQuery q) {
     if (q.resourcePrice().length != space.resourceCount() || q.segmentPrice().length != segments) {
       throw new IllegalArgumentException("prices do not match the catalog's resources and segments");
     }
@@ -169,13 +175,9 @@ public final class VariantPricer {
       penPartial[0] = 0;
       complete = search(0);
     }
-    List<ValuedVariant> found = new ArrayList<>(top);
+    List<PricedVariant> found = new ArrayList<>(top);
     found.sort((a, b) -> -worseFirst(a, b));
-    double restBound = cutoff();
-    if (!complete) {
-      restBound = Math.max(restBound, openBound);
-    }
-    VariantPricing out = new VariantPricing(found, restBound, complete, nodes);
+    PricingOutcome out = PricingOutcome.of(found, k, threshold, complete, openBound, nodes);
     w = null;
     pen = null;
     excluded = null;
@@ -184,13 +186,13 @@ public final class VariantPricer {
   }
 
   /** Lower value first; equal values: the lexicographically larger choices first (so they leave first). */
-  private static int worseFirst(ValuedVariant a, ValuedVariant b) {
-    int c = Double.compare(a.value(), b.value());
+  private static int worseFirst(PricedVariant a, PricedVariant b) {
+    int c = Double.compare(a.reducedCost(), b.reducedCost());
     return c != 0 ? c : Arrays.compare(b.choices(), a.choices());
   }
 
   private double cutoff() {
-    return top.size() < k ? threshold : Math.max(threshold, top.peek().value());
+    return top.size() < k ? threshold : Math.max(threshold, top.peek().reducedCost());
   }
 
   /** Prune slack: bounds and leaf values are summed in different orders. */
@@ -303,7 +305,7 @@ public final class VariantPricer {
     }
     double val = LotValue.best(d, terms.columnBound(), terms.minLot(), scratch) - charge - p;
     if (val > cutoff() && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
-      top.add(new ValuedVariant(v.clone(), val));
+      top.add(new PricedVariant(v.clone(), val));
       if (top.size() > k) {
         top.poll();
       }
