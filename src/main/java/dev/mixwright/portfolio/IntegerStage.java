@@ -113,7 +113,7 @@ public final class IntegerStage {
           null, Double.NaN, 0, true, settings.engine().word(), 0, true, 0, elapsedMs());
     }
     double lpBound = Double.isFinite(lp.bound()) ? lp.bound() : Double.POSITIVE_INFINITY;
-    VariantPricer pricer = new VariantPricer(space, terms).stopWhen(stop);
+    VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(stop);
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
     RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, this::elapsedMs, deadlineAt(0.3), stop)
         .run(pool, lp.resourceDual(), lp.segmentDual());

@@ -3,6 +3,7 @@ package dev.mixwright.portfolio;
 import dev.mixwright.pricing.PricedVariant;
 import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.pricing.ReducedCosts;
+import dev.mixwright.space.BestFirst;
 import dev.mixwright.space.ForwardChecker;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.SearchOrder;
@@ -73,11 +74,10 @@ public final class VariantPricer {
   private BooleanSupplier stop = () -> false;
   private double openBound;
 
-  public VariantPricer(VariantSpace space, PortfolioTerms terms) {
-    this(space, terms, Long.MAX_VALUE);
-  }
-
-  /** @param nodeLimit most nodes per query; past it the outcome is not exact but keeps a valid bound */
+  /**
+   * @param nodeLimit most nodes per query, {@code Long.MAX_VALUE} for none; past it the outcome is not
+   *     exact but keeps a valid bound
+   */
   public VariantPricer(VariantSpace space, PortfolioTerms terms, long nodeLimit) {
     if (nodeLimit < 1) {
       throw new IllegalArgumentException("nodeLimit must be >= 1");
@@ -243,14 +243,7 @@ public final class VariantPricer {
       }
       double b = LotValue.best(ub, terms.columnBound(), terms.minLot(), scratch)
           - charge - (penPartial[d] + pen[f] + penRest);
-      int p = n++;
-      while (p > 0 && cb[p - 1] < b) {
-        cb[p] = cb[p - 1];
-        cs[p] = cs[p - 1];
-        p--;
-      }
-      cb[p] = b;
-      cs[p] = f;
+      n = BestFirst.insert(cb, cs, n, b, f);
     }
     for (int i = 0; i < n; i++) {
       double cut = cutoff();

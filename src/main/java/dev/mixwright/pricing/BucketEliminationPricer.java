@@ -1,14 +1,13 @@
 package dev.mixwright.pricing;
 
+import dev.mixwright.space.BestFirst;
 import dev.mixwright.space.EliminationOrder;
 import dev.mixwright.space.Nogood;
-import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
-import java.util.Set;
 
 /**
  * Exact k-best pricing by branch-and-bound whose bound is exact: the cost-to-go tables of bucket
@@ -30,8 +29,7 @@ import java.util.Set;
  * tables fit the limit given ({@link #fitting}); {@link BranchAndBoundPricer} uses
  * {@link ForwardCheckingPricer} where they do not.
  */
-public final class BucketEliminationPricer implements Pricer {
-  private final VariantSpace space;
+public final class BucketEliminationPricer extends NodeLimitedPricer {
   private final int groups;
   private final int[] offset;
   private final int[] order; // depth -> group
@@ -61,23 +59,12 @@ public final class BucketEliminationPricer implements Pricer {
   private final int[][] candChoice;
   private final double[][] candBound;
   private double[] w;
-  private double constant;
-  private double threshold;
-  private Set<VariantKey> excluded;
-  private TopK top;
-  private long nodes;
+  private QueryRun run;
   private long budget;
-  private double openBound;
-
-  private final long nodeLimit;
 
   private BucketEliminationPricer(
       VariantSpace space, long nodeLimit, int[] elimination, int[][] scope, long entries) {
-    if (nodeLimit < 1) {
-      throw new IllegalArgumentException("nodeLimit must be >= 1");
-    }
-    this.space = space;
-    this.nodeLimit = nodeLimit;
+    super(space, nodeLimit);
     this.groups = space.groupCount();
     this.offset = space.offsets();
     this.nogoods = space.nogoods();
@@ -300,39 +287,22 @@ public final class BucketEliminationPricer implements Pricer {
     return tableEntries;
   }
 
-  /** The group order of the search (a copy), the reverse of the elimination order. */
-  public int[] groupOrder() {
-    return order.clone();
-  }
-
   @Override
-  public PricingOutcome price(PricingQuery q) {
-    QueryChecks.check(space, q);
-    return price(q, nodeLimit);
-  }
-
-  /** {@link #price(PricingQuery)} on a node budget of its own (a checked query). */
   PricingOutcome price(PricingQuery q, long limit) {
-    w = q.weight();
-    constant = q.constant();
-    threshold = q.threshold();
-    excluded = q.excluded();
-    top = new TopK(q.k(), groups);
-    nodes = 0;
+    run = new QueryRun(space, q);
+    w = run.w;
     budget = limit;
-    openBound = Double.NEGATIVE_INFINITY;
     for (int x : elimination) {
       eliminate(x);
     }
     boolean complete = true;
-    double root = constant + crossingSum(0);
-    if (root > threshold) {
-      complete = search(0, constant);
+    double root = run.constant + crossingSum(0);
+    if (root > run.threshold) {
+      complete = search(0, run.constant);
     }
-    PricingOutcome out = QueryChecks.outcome(top, threshold, complete, openBound, nodes);
+    PricingOutcome out = run.outcome(complete);
     w = null;
-    excluded = null;
-    top = null;
+    run = null;
     return out;
   }
 
@@ -456,7 +426,7 @@ public final class BucketEliminationPricer implements Pricer {
     int[] cc = candChoice[x];
     double[] cb = candBound[x];
     int n = 0;
-    double cutoff = top.cutoff(threshold);
+    double cutoff = run.cutoff();
     // Messages that do not see x add the same to every child; the others differ by a stride of x.
     double fixed = partial;
     for (int y : crossWithout[d]) {
@@ -483,32 +453,24 @@ public final class BucketEliminationPricer implements Pricer {
         b += table[with[k]][wb[k] + withStride[k] * c];
       }
       if (b + slack(b) > cutoff) {
-        // insertion by bound, best first
-        int p = n++;
-        while (p > 0 && cb[p - 1] < b) {
-          cb[p] = cb[p - 1];
-          cc[p] = cc[p - 1];
-          p--;
-        }
-        cb[p] = b;
-        cc[p] = c;
+        n = BestFirst.insert(cb, cc, n, b, c);
       }
     }
     for (int i = 0; i < n; i++) {
       double b = cb[i];
-      if (!(b + slack(b) > top.cutoff(threshold))) {
+      if (!(b + slack(b) > run.cutoff())) {
         break;
       }
-      if (nodes >= budget) {
-        openBound = Math.max(openBound, b);
+      if (run.nodes >= budget) {
+        run.leaveOpen(b);
         return false;
       }
-      nodes++;
+      run.nodes++;
       int c = cc[i];
       v[x] = c;
       if (!search(d + 1, partial + w[base + c])) {
         if (i + 1 < n) {
-          openBound = Math.max(openBound, cb[i + 1]);
+          run.leaveOpen(cb[i + 1]);
         }
         return false;
       }
@@ -523,9 +485,6 @@ public final class BucketEliminationPricer implements Pricer {
 
   private void leaf() {
     assert space.isBuildable(v) : "a rule violation reached a leaf";
-    double s = QueryChecks.score(offset, w, constant, v);
-    if (s > top.cutoff(threshold) && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
-      top.offer(v, s);
-    }
+    run.leaf(v);
   }
 }

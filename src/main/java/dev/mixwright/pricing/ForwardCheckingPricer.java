@@ -2,10 +2,8 @@ package dev.mixwright.pricing;
 
 import dev.mixwright.space.ForwardChecker;
 import dev.mixwright.space.SearchOrder;
-import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import java.util.Arrays;
-import java.util.Set;
 
 /**
  * Exact k-best pricing by depth-first branch-and-bound with forward checking; needs no memory beyond
@@ -45,9 +43,7 @@ import java.util.Set;
  *
  * <p>All search state lives in primitive arrays allocated once per pricer; a node allocates nothing.
  */
-public final class ForwardCheckingPricer implements Pricer {
-  private final VariantSpace space;
-  private final long nodeLimit;
+public final class ForwardCheckingPricer extends NodeLimitedPricer {
   private final int groups;
   private final int[] offset;
   private final int[] order;
@@ -65,12 +61,7 @@ public final class ForwardCheckingPricer implements Pricer {
   private final int[] tailPos;
   private final int[] v;
   private double[] w;
-  private double constant;
-  private double threshold;
-  private Set<VariantKey> excluded;
-  private TopK top;
-  private long nodes;
-  private double openBound;
+  private QueryRun run;
 
   private final int[] tailSol; // choices (by group) of the best tail found, for the next tail's start
   private final double[] tailFound;
@@ -80,11 +71,7 @@ public final class ForwardCheckingPricer implements Pricer {
    *     the outcome is not exact but keeps a valid upper bound. {@code Long.MAX_VALUE} for none.
    */
   public ForwardCheckingPricer(VariantSpace space, long nodeLimit) {
-    if (nodeLimit < 1) {
-      throw new IllegalArgumentException("nodeLimit must be >= 1");
-    }
-    this.space = space;
-    this.nodeLimit = nodeLimit;
+    super(space, nodeLimit);
     this.groups = space.groupCount();
     this.offset = space.offsets();
     int total = space.totalChoices();
@@ -119,20 +106,9 @@ public final class ForwardCheckingPricer implements Pricer {
   }
 
   @Override
-  public PricingOutcome price(PricingQuery q) {
-    QueryChecks.check(space, q);
-    return price(q, nodeLimit);
-  }
-
-  /** {@link #price(PricingQuery)} on a node budget of its own (a checked query). */
   PricingOutcome price(PricingQuery q, long nodeBudget) {
-    w = q.weight();
-    constant = q.constant();
-    threshold = q.threshold();
-    excluded = q.excluded();
-    top = new TopK(q.k(), groups);
-    nodes = 0;
-    openBound = Double.NEGATIVE_INFINITY;
+    run = new QueryRun(space, q);
+    w = run.w;
     Arrays.fill(tail, Double.POSITIVE_INFINITY); // no tail bound until a tail search sets one
     for (int g = 0; g < groups; g++) {
       prepareGroup(g);
@@ -142,15 +118,14 @@ public final class ForwardCheckingPricer implements Pricer {
       if (groups > 1) {
         solveTails(nodeBudget == Long.MAX_VALUE ? Long.MAX_VALUE : nodeBudget / 2);
       }
-      openBound = Double.NEGATIVE_INFINITY; // a stopped tail search bounds only its tail
-      if (constant + bound(0) > threshold) {
-        complete = new KBest(nodeBudget).search(0, constant);
+      run.openBound = Double.NEGATIVE_INFINITY; // a stopped tail search bounds only its tail
+      if (run.constant + bound(0) > run.threshold) {
+        complete = new KBest(nodeBudget).search(0, run.constant);
       }
     }
-    PricingOutcome out = QueryChecks.outcome(top, threshold, complete, openBound, nodes);
+    PricingOutcome out = run.outcome(complete);
     w = null;
-    excluded = null;
-    top = null;
+    run = null;
     return out;
   }
 
@@ -305,11 +280,11 @@ public final class ForwardCheckingPricer implements Pricer {
         if (head + restBefore <= cutoff) {
           break; // later choices weigh no more
         }
-        if (nodes >= limit) {
-          openBound = Math.max(openBound, head + restBefore); // covers the later siblings too
+        if (run.nodes >= limit) {
+          run.leaveOpen(head + restBefore); // covers the later siblings too
           return false;
         }
-        nodes++;
+        run.nodes++;
         v[g] = f - base;
         int mark = rules.mark();
         int fired = rules.propagate(d, v, from);
@@ -319,7 +294,7 @@ public final class ForwardCheckingPricer implements Pricer {
             rules.undo(mark);
             for (int q = p + 1; q < end; q++) {
               if (!rules.blocked(sorted[q])) {
-                openBound = Math.max(openBound, partial + w[sorted[q]] + restBefore);
+                run.leaveOpen(partial + w[sorted[q]] + restBefore);
                 break;
               }
             }
@@ -340,16 +315,13 @@ public final class ForwardCheckingPricer implements Pricer {
 
     @Override
     double cutoff() {
-      return top.cutoff(threshold);
+      return run.cutoff();
     }
 
     @Override
     void leaf(double partial) {
       assert space.isBuildable(v) : "forward checking let a rule violation through";
-      double s = QueryChecks.score(offset, w, constant, v);
-      if (s > top.cutoff(threshold) && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
-        top.offer(v, s);
-      }
+      run.leaf(v);
     }
   }
 

@@ -36,6 +36,19 @@ final class QueryChecks {
     return w[flat] != Double.NEGATIVE_INFINITY && space.allowed(flat);
   }
 
+  /** The usable choices (indices within the group) of group g, ascending. */
+  static int[] usableChoices(VariantSpace space, double[] w, int g) {
+    int base = space.offset(g);
+    int[] list = new int[space.choiceCount(g)];
+    int n = 0;
+    for (int c = 0; c < list.length; c++) {
+      if (usable(space, w, base + c)) {
+        list[n++] = c;
+      }
+    }
+    return java.util.Arrays.copyOf(list, n);
+  }
+
   /** The score in group order: every pricer reports it this way, whatever order it searched in. */
   static double score(int[] offset, double[] w, double constant, int[] v) {
     double s = constant;

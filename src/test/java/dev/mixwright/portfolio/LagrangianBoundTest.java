@@ -59,7 +59,7 @@ class LagrangianBoundTest {
           mu[s] = rnd.nextDouble() < 0.5 ? 0 : rnd.nextDouble() * 30;
         }
         int k = 1 + rnd.nextInt(3);
-        PricingOutcome out = new VariantPricer(space, t).price(
+        PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
             new VariantQuery(pi, mu, t.introductionCost(), null, 0, k, Set.of(), 0));
         List<PricedVariant> f = out.found();
         double[] listed = f.stream().mapToDouble(PricedVariant::reducedCost).toArray();

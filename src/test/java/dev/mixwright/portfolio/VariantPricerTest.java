@@ -65,7 +65,7 @@ class VariantPricerTest {
       int k = 1 + rnd.nextInt(6);
       double threshold = rnd.nextBoolean() ? Double.NEGATIVE_INFINITY
           : all.isEmpty() ? 0 : all.get(rnd.nextInt(all.size())).value() - 1;
-      PricingOutcome out = new VariantPricer(space, t).price(
+      PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
           new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0));
       assertTrue(out.exact());
       List<Scored> want = all.stream()
