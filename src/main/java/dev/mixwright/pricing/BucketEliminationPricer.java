@@ -13,16 +13,17 @@ import java.util.Optional;
  * Exact k-best pricing by branch-and-bound whose bound is exact: the cost-to-go tables of bucket
  * elimination.
  *
- * <p>Per query, groups are eliminated in the min-fill order of {@link EliminationOrder}: eliminating
- * group x turns its weight, the nogoods whose first eliminated group it is and the messages sent to it into one table m_x over its neighbours at that time, the maximum
- * over x's choices (Bertelè &amp; Brioschi 1972, <i>Nonserial Dynamic Programming</i>; Dechter 1999,
- * "Bucket elimination", Artificial Intelligence 113). The search then assigns groups in the reverse
- * order. After the groups above depth d are set, the messages that cross from depth ≥ d to the set
- * groups add up to the best completion exactly, so the bound of a choice is the best score below it
- * (the use of bucket-elimination tables as search heuristics follows Kask &amp; Dechter 2001, "A
- * general scheme for automatic generation of search heuristics from specification dependencies",
- * Artificial Intelligence 129). The search walks children best bound first; the first leaf is the
- * optimum, and k best outside an excluded set cost about (k + excluded met) · G · d node expansions.
+ * <p>Per query, groups are eliminated in the min-fill order of {@link EliminationOrder}:
+ * eliminating group x turns its weight, the nogoods whose first eliminated group it is and the
+ * messages sent to it into one table m_x over its neighbours at that time, the maximum over x's
+ * choices (Bertelè &amp; Brioschi 1972, <i>Nonserial Dynamic Programming</i>; Dechter 1999, "Bucket
+ * elimination", Artificial Intelligence 113). The search then assigns groups in the reverse order.
+ * After the groups above depth d are set, the messages that cross from depth ≥ d to the set groups
+ * add up to the best completion exactly, so the bound of a choice is the best score below it (the
+ * use of bucket-elimination tables as search heuristics follows Kask &amp; Dechter 2001, "A general
+ * scheme for automatic generation of search heuristics from specification dependencies", Artificial
+ * Intelligence 129). The search walks children best bound first; the first leaf is the optimum, and
+ * k best outside an excluded set cost about (k + excluded met) · G · d node expansions.
  *
  * <p>Time per query O(Σ_x d_x · |table_x| · (messages + nogoods of x)) for the tables, i.e.
  * O(G · d^(w+1)) for induced width w, plus the search; memory Σ_x |table_x|. Usable only when the

@@ -12,9 +12,10 @@ import java.util.Arrays;
  * <p>Groups are assigned in one order fixed per space ({@link SearchOrder}: groups in many rules
  * first), and the rules are propagated by {@link ForwardChecker}: once every group of a nogood but its
  * last is assigned and holds a member choice, that last group's member choices leave its domain; an
- * emptied domain cuts the branch. Choices are tried best weight first, so the first whose bound fails ends the loop. The
- * k best are kept in a min-heap whose k-th score is the pruning level. Excluded variants are skipped
- * only at leaves, so every bound stays a bound on the non-excluded variants below its node.
+ * emptied domain cuts the branch. Choices are tried best weight first, so the first whose bound
+ * fails ends the loop. The k best are kept in a min-heap whose k-th score is the pruning level.
+ * Excluded variants are skipped only at leaves, so every bound stays a bound on the non-excluded
+ * variants below its node.
  *
  * <p>Bound of a partial variant: its score plus a bound on the unassigned groups, the smaller of
  * <ul>
