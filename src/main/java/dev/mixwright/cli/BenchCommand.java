@@ -329,8 +329,8 @@ final class BenchCommand implements Callable<Integer> {
       round.add(ReducedCosts.query(space, s, o.duals().resource(), o.duals().segment()[s], SolveSettings.DEFAULT_PER_ROUND,
           threshold, inMaster.get(s)));
     }
-    Pricer bnb = new BranchAndBoundPricer(space);
-    Pricer cpsat = new CpSatPricer(space);
+    Pricer bnb = new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
+    Pricer cpsat = new CpSatPricer(space, 0, 1);
     List<PricingOutcome> fromBnb = priceRound(bnb, round);
     List<PricingOutcome> fromCpsat = priceRound(cpsat, round);
     long tb = medianRound(bnb, round);

@@ -7,6 +7,7 @@ import dev.mixwright.colgen.ValueBound;
 import dev.mixwright.master.MipSolution;
 import dev.mixwright.master.MipStatus;
 import dev.mixwright.master.PortfolioMip;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
@@ -110,7 +111,7 @@ public final class IntegerStage {
       return nothingToOffer(pool);
     }
     double lpBound = Double.isFinite(lp.bound()) ? lp.bound() : Double.POSITIVE_INFINITY;
-    VariantPricer pricer = new VariantPricer(space, terms).stopWhen(clock.signalFlag());
+    VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
     // Columns came from the LP stage, so its duals are known: they are the relaxation's first prices.
     RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, clock, clock.phase(0.3))
@@ -182,7 +183,7 @@ public final class IntegerStage {
   private boolean provePass(Pool pool, VariantPricer pricer, LagrangianPortfolioBound b, double[] tooling, Search s) {
     s.theta = s.incumbent.value() - b.valueAtLambda() + b.lambda();
     double slack = 1e-7 * (1 + Math.abs(s.incumbent.value()));
-    VariantPricing out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
+    PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
         terms.introductionCost(), tooling, s.theta - slack, settings.survivorLimit() + 1, pool.keys(),
         clock.phase(0.5).deadlineNanos()));
     int before = pool.size();
@@ -205,7 +206,7 @@ public final class IntegerStage {
   }
 
   /** Adds the survivors found; when they are too many to prove with, only the best few. */
-  private void addSurvivors(Pool pool, VariantPricing out, Search s) {
+  private void addSurvivors(Pool pool, PricingOutcome out, Search s) {
     int cap = settings.survivorLimit();
     s.complete = out.exact() && out.found().size() <= cap;
     // Too many to prove with: add only the best few, so that the MIP can still finish and improve.

@@ -4,6 +4,8 @@ import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.ValueBound;
 import dev.mixwright.master.PortfolioLp;
 import dev.mixwright.master.PortfolioLpSolution;
+import dev.mixwright.pricing.PricedVariant;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
@@ -58,18 +60,18 @@ final class Relaxation {
   private static final int BOUND_DEPTH = 64;
 
   /** A bound and the pricing behind it. */
-  record Probe(LagrangianPortfolioBound bound, List<ValuedVariant> found, boolean exact) {}
+  record Probe(LagrangianPortfolioBound bound, List<PricedVariant> found, boolean exact) {}
 
   /** The bound at prices (π, μ): one pricing call for the k best outside the pool. */
   Probe bound(Pool pool, double[] pi, double[] mu, int k) {
     VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost(), null, 0.0, k, pool.keys(), deadlineNanos);
-    VariantPricing out = pricer.price(q);
+    PricingOutcome out = pricer.price(q);
     double[] listed = new double[pool.size() + out.found().size()];
     for (int i = 0; i < pool.size(); i++) {
       listed[i] = VariantPricer.value(space, terms, pool.get(i).choices(), q);
     }
     for (int i = 0; i < out.found().size(); i++) {
-      listed[pool.size() + i] = out.found().get(i).value();
+      listed[pool.size() + i] = out.found().get(i).reducedCost();
     }
     double constant = 0;
     for (int r = 0; r < pi.length; r++) {
@@ -108,9 +110,9 @@ final class Relaxation {
         }
         double z = sol.objective();
         double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(z));
-        List<ValuedVariant> entering = new ArrayList<>();
-        for (ValuedVariant f : probe.found()) {
-          if (f.value() > entry && entering.size() < settings.perRound()) {
+        List<PricedVariant> entering = new ArrayList<>();
+        for (PricedVariant f : probe.found()) {
+          if (f.reducedCost() > entry && entering.size() < settings.perRound()) {
             entering.add(f);
           }
         }
@@ -125,7 +127,7 @@ final class Relaxation {
         if (gap <= settings.gap() || stop.fired(clock.now(round))) {
           break;
         }
-        for (ValuedVariant f : entering) {
+        for (PricedVariant f : entering) {
           if (pool.add(f.choices())) {
             add(lp, pool.get(pool.size() - 1));
           }

@@ -1,7 +1,10 @@
 package dev.mixwright.portfolio;
 
+import dev.mixwright.pricing.PricedVariant;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.pricing.ReducedCosts;
-import dev.mixwright.space.Nogood;
+import dev.mixwright.space.BestFirst;
+import dev.mixwright.space.ForwardChecker;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.SearchOrder;
 import dev.mixwright.space.VariantSpace;
@@ -16,9 +19,10 @@ import java.util.function.BooleanSupplier;
  * Exact k-best pricing of whole variants for the portfolio relaxation: maximise ψ(v) of
  * {@link VariantQuery} over every buildable variant, all segments at once.
  *
- * <p>Depth-first branch-and-bound over the groups in one order fixed per space, with forward checking
- * of the rules (as in {@link dev.mixwright.pricing.BranchAndBoundPricer}: once all groups of a nogood
- * but its last are assigned to member choices, the last group's member choices leave its domain).
+ * <p>Depth-first branch-and-bound over the groups in the order of {@link SearchOrder}, with the rules
+ * propagated by {@link ForwardChecker} as in {@link dev.mixwright.pricing.ForwardCheckingPricer}: once
+ * all groups of a nogood but its last are assigned to member choices, the last group's member choices
+ * leave its domain.
  * Bound of a partial variant: per segment s an optimistic reduced cost ub_s = (assigned part of d_s)
  * + Σ over unassigned groups of their best remaining weight in s (−∞ once an assigned choice is not
  * accepted by s, or some unassigned group has nothing left that s accepts); then g(ub) − charge −
@@ -43,19 +47,8 @@ public final class VariantPricer {
   private final int segments;
   private final int[] offset;
   private final int[] order;
-  private final int[] groupOf;
-
-  private final int[] trigStart;
-  private final boolean[][] trigMember;
-  private final int[][] trigCheck;
-  private final int[] trigTarget;
-  private final int[][] trigBlock;
-
+  private final ForwardChecker rules;
   private final boolean[] usable;
-  private final int[] blocked;
-  private final int[] live;
-  private final int[] trail;
-  private int trailTop;
 
   private final double[][] partial; // [depth][segment]: Σ of the assigned weights (finite ones)
   private final boolean[][] dead; // [depth][segment]: an assigned choice is not accepted there
@@ -75,17 +68,16 @@ public final class VariantPricer {
   private double threshold;
   private int k;
   private Set<VariantKey> excluded;
-  private PriorityQueue<ValuedVariant> top;
+  private PriorityQueue<PricedVariant> top;
   private long nodes;
   private long deadline;
   private BooleanSupplier stop = () -> false;
   private double openBound;
 
-  public VariantPricer(VariantSpace space, PortfolioTerms terms) {
-    this(space, terms, Long.MAX_VALUE);
-  }
-
-  /** @param nodeLimit most nodes per query; past it the outcome is not exact but keeps a valid bound */
+  /**
+   * @param nodeLimit most nodes per query, {@code Long.MAX_VALUE} for none; past it the outcome is not
+   *     exact but keeps a valid bound
+   */
   public VariantPricer(VariantSpace space, PortfolioTerms terms, long nodeLimit) {
     if (nodeLimit < 1) {
       throw new IllegalArgumentException("nodeLimit must be >= 1");
@@ -96,59 +88,13 @@ public final class VariantPricer {
     groups = space.groupCount();
     segments = space.segmentCount();
     offset = space.offsets();
-    int total = space.totalChoices();
-    groupOf = new int[total];
     int widest = 1;
     for (int g = 0; g < groups; g++) {
-      Arrays.fill(groupOf, offset[g], offset[g + 1], g);
       widest = Math.max(widest, space.choiceCount(g));
     }
     order = SearchOrder.of(space);
-    int[] depthOf = new int[groups];
-    for (int d = 0; d < groups; d++) {
-      depthOf[order[d]] = d;
-    }
-    // Nogood t fires at the depth of its second-to-last group (in the search order).
-    Nogood[] nogoods = space.nogoods();
-    trigStart = new int[groups + 1];
-    trigMember = new boolean[nogoods.length][];
-    trigCheck = new int[nogoods.length][];
-    trigTarget = new int[nogoods.length];
-    trigBlock = new int[nogoods.length][];
-    int t = 0;
-    long trailNeed = 0;
-    List<int[]> sortedGroups = new ArrayList<>();
-    for (Nogood ng : nogoods) {
-      sortedGroups.add(SearchOrder.byDepth(ng.groups(), depthOf));
-    }
-    for (int d = 0; d < groups; d++) {
-      trigStart[d] = t;
-      for (int n = 0; n < nogoods.length; n++) {
-        int[] gs = sortedGroups.get(n);
-        if (depthOf[gs[gs.length - 2]] != d) {
-          continue;
-        }
-        int target = gs[gs.length - 1];
-        trigMember[t] = nogoods[n].member();
-        trigCheck[t] = Arrays.copyOf(gs, gs.length - 1);
-        trigTarget[t] = target;
-        int[] block = new int[space.choiceCount(target)];
-        int nb = 0;
-        for (int c = 0; c < block.length; c++) {
-          if (nogoods[n].member()[offset[target] + c]) {
-            block[nb++] = offset[target] + c;
-          }
-        }
-        trigBlock[t] = Arrays.copyOf(block, nb);
-        trailNeed += nb;
-        t++;
-      }
-    }
-    trigStart[groups] = t;
-    usable = new boolean[total];
-    blocked = new int[total];
-    live = new int[groups];
-    trail = new int[(int) Math.min(Integer.MAX_VALUE - 8, Math.max(1, trailNeed))];
+    rules = new ForwardChecker(space, order, ForwardChecker.NO_WATCH);
+    usable = new boolean[space.totalChoices()];
     partial = new double[groups + 1][segments];
     dead = new boolean[groups + 1][segments];
     penPartial = new double[groups + 1];
@@ -188,7 +134,11 @@ public final class VariantPricer {
     return this;
   }
 
-  public VariantPricing price(VariantQuery q) {
+  /**
+   * The k best variants by ψ; each {@link PricedVariant#reducedCost()} is ψ(v), and
+   * {@link PricingOutcome#restBound()} bounds ψ of every variant neither excluded nor found.
+   */
+  public PricingOutcome price(VariantQuery q) {
     if (q.resourcePrice().length != space.resourceCount() || q.segmentPrice().length != segments) {
       throw new IllegalArgumentException("prices do not match the catalog's resources and segments");
     }
@@ -211,37 +161,23 @@ public final class VariantPricer {
     nodes = 0;
     deadline = q.deadlineNanos();
     openBound = Double.NEGATIVE_INFINITY;
-    trailTop = 0;
-    Arrays.fill(blocked, 0);
     boolean complete = true;
-    boolean empty = false;
-    for (int g = 0; g < groups; g++) {
-      live[g] = 0;
-      for (int f = offset[g]; f < offset[g + 1]; f++) {
-        boolean any = false;
-        for (int s = 0; s < segments && !any; s++) {
-          any = w[s][f] != Double.NEGATIVE_INFINITY;
-        }
-        usable[f] = any && space.allowed(f);
-        if (usable[f]) {
-          live[g]++;
-        }
+    for (int f = 0; f < usable.length; f++) {
+      boolean any = false;
+      for (int s = 0; s < segments && !any; s++) {
+        any = w[s][f] != Double.NEGATIVE_INFINITY;
       }
-      empty |= live[g] == 0;
+      usable[f] = any && space.allowed(f);
     }
-    if (!empty) {
+    if (rules.start(usable)) {
       Arrays.fill(partial[0], 0.0);
       Arrays.fill(dead[0], false);
       penPartial[0] = 0;
       complete = search(0);
     }
-    List<ValuedVariant> found = new ArrayList<>(top);
+    List<PricedVariant> found = new ArrayList<>(top);
     found.sort((a, b) -> -worseFirst(a, b));
-    double restBound = cutoff();
-    if (!complete) {
-      restBound = Math.max(restBound, openBound);
-    }
-    VariantPricing out = new VariantPricing(found, restBound, complete, nodes);
+    PricingOutcome out = PricingOutcome.of(found, k, threshold, complete, openBound, nodes);
     w = null;
     pen = null;
     excluded = null;
@@ -250,13 +186,13 @@ public final class VariantPricer {
   }
 
   /** Lower value first; equal values: the lexicographically larger choices first (so they leave first). */
-  private static int worseFirst(ValuedVariant a, ValuedVariant b) {
-    int c = Double.compare(a.value(), b.value());
+  private static int worseFirst(PricedVariant a, PricedVariant b) {
+    int c = Double.compare(a.reducedCost(), b.reducedCost());
     return c != 0 ? c : Arrays.compare(b.choices(), a.choices());
   }
 
   private double cutoff() {
-    return top.size() < k ? threshold : Math.max(threshold, top.peek().value());
+    return top.size() < k ? threshold : Math.max(threshold, top.peek().reducedCost());
   }
 
   /** Prune slack: bounds and leaf values are summed in different orders. */
@@ -279,14 +215,14 @@ public final class VariantPricer {
       for (int s = 0; s < segments; s++) {
         double best = Double.NEGATIVE_INFINITY;
         for (int f = offset[h]; f < offset[h + 1]; f++) {
-          if (usable[f] && blocked[f] == 0 && w[s][f] > best) {
+          if (usable[f] && !rules.blocked(f) && w[s][f] > best) {
             best = w[s][f];
           }
         }
         rest[s] += best;
       }
       for (int f = offset[h]; f < offset[h + 1]; f++) {
-        if (usable[f] && blocked[f] == 0 && pen[f] < minPen) {
+        if (usable[f] && !rules.blocked(f) && pen[f] < minPen) {
           minPen = pen[f];
         }
       }
@@ -296,7 +232,7 @@ public final class VariantPricer {
     int[] cs = cand[d];
     double[] cb = candBound[d];
     for (int f = offset[g]; f < offset[g + 1]; f++) {
-      if (!usable[f] || blocked[f] > 0) {
+      if (!usable[f] || rules.blocked(f)) {
         continue;
       }
       for (int s = 0; s < segments; s++) {
@@ -307,14 +243,7 @@ public final class VariantPricer {
       }
       double b = LotValue.best(ub, terms.columnBound(), terms.minLot(), scratch)
           - charge - (penPartial[d] + pen[f] + penRest);
-      int p = n++;
-      while (p > 0 && cb[p - 1] < b) {
-        cb[p] = cb[p - 1];
-        cs[p] = cs[p - 1];
-        p--;
-      }
-      cb[p] = b;
-      cs[p] = f;
+      n = BestFirst.insert(cb, cs, n, b, f);
     }
     for (int i = 0; i < n; i++) {
       double cut = cutoff();
@@ -335,54 +264,17 @@ public final class VariantPricer {
         partial[d + 1][s] = dead[d + 1][s] ? 0.0 : partial[d][s] + x;
       }
       penPartial[d + 1] = penPartial[d] + pen[f];
-      int mark = trailTop;
-      if (propagate(d) && !search(d + 1)) {
-        undo(mark);
+      int mark = rules.mark();
+      if (rules.propagate(d, v, 0) >= 0 && !search(d + 1)) {
+        rules.undo(mark);
         if (i + 1 < n) {
           openBound = Math.max(openBound, cb[i + 1]);
         }
         return false;
       }
-      undo(mark);
+      rules.undo(mark);
     }
     return true;
-  }
-
-  /** Fires the triggers of depth d; false when a domain empties. */
-  private boolean propagate(int d) {
-    for (int t = trigStart[d]; t < trigStart[d + 1]; t++) {
-      boolean[] member = trigMember[t];
-      boolean match = true;
-      for (int cg : trigCheck[t]) {
-        if (!member[offset[cg] + v[cg]]) {
-          match = false;
-          break;
-        }
-      }
-      if (!match) {
-        continue;
-      }
-      int tg = trigTarget[t];
-      for (int f : trigBlock[t]) {
-        trail[trailTop++] = f;
-        if (++blocked[f] == 1 && usable[f]) {
-          live[tg]--;
-        }
-      }
-      if (live[tg] == 0) {
-        return false;
-      }
-    }
-    return true;
-  }
-
-  private void undo(int mark) {
-    while (trailTop > mark) {
-      int f = trail[--trailTop];
-      if (--blocked[f] == 0 && usable[f]) {
-        live[groupOf[f]]++;
-      }
-    }
   }
 
   private void leaf() {
@@ -406,7 +298,7 @@ public final class VariantPricer {
     }
     double val = LotValue.best(d, terms.columnBound(), terms.minLot(), scratch) - charge - p;
     if (val > cutoff() && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
-      top.add(new ValuedVariant(v.clone(), val));
+      top.add(new PricedVariant(v.clone(), val));
       if (top.size() > k) {
         top.poll();
       }

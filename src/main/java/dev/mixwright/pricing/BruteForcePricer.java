@@ -13,7 +13,6 @@ public final class BruteForcePricer implements Pricer {
 
   private final VariantSpace space;
   private final long maxCombinations;
-  private final int[] offset;
 
   public BruteForcePricer(VariantSpace space) {
     this(space, DEFAULT_MAX_COMBINATIONS);
@@ -26,7 +25,6 @@ public final class BruteForcePricer implements Pricer {
     }
     this.space = space;
     this.maxCombinations = maxCombinations;
-    this.offset = space.offsets();
   }
 
   @Override
@@ -42,16 +40,10 @@ public final class BruteForcePricer implements Pricer {
     int[][] usable = new int[groups][];
     long combinations = 1;
     for (int g = 0; g < groups; g++) {
-      int n = 0;
-      int[] list = new int[space.choiceCount(g)];
-      for (int c = 0; c < list.length; c++) {
-        if (QueryChecks.usable(space, w, offset[g] + c)) {
-          list[n++] = c;
-        }
-      }
-      usable[g] = java.util.Arrays.copyOf(list, n);
+      usable[g] = QueryChecks.usableChoices(space, w, g);
+      int n = usable[g].length;
       if (n == 0) {
-        return QueryChecks.outcome(new TopK(1, groups), q.threshold(), true, Double.NEGATIVE_INFINITY, 0);
+        return new QueryRun(space, q).outcome(true);
       }
       combinations = combinations > Long.MAX_VALUE / n ? Long.MAX_VALUE : combinations * n;
     }
@@ -63,20 +55,16 @@ public final class BruteForcePricer implements Pricer {
               + maxCombinations
               + "; use the bnb pricer for spaces this large");
     }
-    TopK top = new TopK(q.k(), groups);
+    QueryRun run = new QueryRun(space, q);
     int[] digit = new int[groups];
     int[] v = new int[groups];
     for (int g = 0; g < groups; g++) {
       v[g] = usable[g][0];
     }
-    long seen = 0;
     while (true) {
-      seen++;
+      run.nodes++;
       if (space.isBuildable(v)) {
-        double s = QueryChecks.score(offset, w, q.constant(), v);
-        if (s > top.cutoff(q.threshold()) && !q.excluded().contains(space.key(v))) {
-          top.offer(v, s);
-        }
+        run.leaf(v);
       }
       int g = groups - 1;
       while (g >= 0 && ++digit[g] == usable[g].length) {
@@ -89,6 +77,6 @@ public final class BruteForcePricer implements Pricer {
       }
       v[g] = usable[g][digit[g]];
     }
-    return QueryChecks.outcome(top, q.threshold(), true, Double.NEGATIVE_INFINITY, seen);
+    return run.outcome(true);
   }
 }

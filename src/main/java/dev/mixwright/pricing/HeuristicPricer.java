@@ -96,14 +96,7 @@ public final class HeuristicPricer implements Pricer {
       this.pref = w.clone();
       this.choices = new int[groups][];
       for (int g = 0; g < groups; g++) {
-        int[] list = new int[space.choiceCount(g)];
-        int n = 0;
-        for (int c = 0; c < list.length; c++) {
-          if (QueryChecks.usable(space, w, offset[g] + c)) {
-            list[n++] = c;
-          }
-        }
-        choices[g] = java.util.Arrays.copyOf(list, n);
+        choices[g] = QueryChecks.usableChoices(space, w, g);
       }
     }
 

@@ -26,9 +26,9 @@ public final class Pricers {
   public static Pricer byName(String name, VariantSpace space) {
     String n = name == null || name.isBlank() ? DEFAULT : name.trim().toLowerCase(Locale.ROOT);
     return switch (n) {
-      case "bnb" -> new BranchAndBoundPricer(space);
+      case "bnb" -> new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
       case "brute" -> new BruteForcePricer(space);
-      case "cpsat" -> new CpSatPricer(space);
+      case "cpsat" -> new CpSatPricer(space, 0, 1);
       case "heuristic" -> new HeuristicPricer(space);
       default -> throw new IllegalArgumentException(
           "unknown pricer '" + name + "'; choose one of " + String.join(", ", NAMES));

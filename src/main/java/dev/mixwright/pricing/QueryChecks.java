@@ -36,6 +36,19 @@ final class QueryChecks {
     return w[flat] != Double.NEGATIVE_INFINITY && space.allowed(flat);
   }
 
+  /** The usable choices (indices within the group) of group g, ascending. */
+  static int[] usableChoices(VariantSpace space, double[] w, int g) {
+    int base = space.offset(g);
+    int[] list = new int[space.choiceCount(g)];
+    int n = 0;
+    for (int c = 0; c < list.length; c++) {
+      if (usable(space, w, base + c)) {
+        list[n++] = c;
+      }
+    }
+    return java.util.Arrays.copyOf(list, n);
+  }
+
   /** The score in group order: every pricer reports it this way, whatever order it searched in. */
   static double score(int[] offset, double[] w, double constant, int[] v) {
     double s = constant;
@@ -45,21 +58,8 @@ final class QueryChecks {
     return s;
   }
 
-  /**
-   * The outcome as PricingOutcome documents it. A complete search proves the best found (or, when
-   * nothing beats the threshold, the threshold). An incomplete one proves the largest of the
-   * threshold, the best found and the bound of what it left unexplored, because every pruned part
-   * was pruned at or below the threshold or the k-th best found.
-   */
+  /** The outcome of a search that kept its k best in {@code top}: see {@link PricingOutcome#of}. */
   static PricingOutcome outcome(TopK top, double threshold, boolean exact, double openBound, long nodes) {
-    var found = top.sorted();
-    double best = found.isEmpty() ? Double.NEGATIVE_INFINITY : found.get(0).reducedCost();
-    double ub;
-    if (exact) {
-      ub = found.isEmpty() ? threshold : best;
-    } else {
-      ub = Math.max(threshold, Math.max(best, openBound));
-    }
-    return new PricingOutcome(found, ub, exact, nodes);
+    return PricingOutcome.of(top.sorted(), top.k(), threshold, exact, openBound, nodes);
   }
 }

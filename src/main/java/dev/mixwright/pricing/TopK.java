@@ -24,6 +24,10 @@ final class TopK {
     choice = new int[cap][];
   }
 
+  int k() {
+    return k;
+  }
+
   int size() {
     return size;
   }

@@ -18,8 +18,8 @@ import java.util.List;
  * choices and each nogood a 0/1 factor over its groups; the count is the sum over all assignments of
  * the product of the factors. The groups are split into the connected components of the nogood
  * hypergraph, whose counts multiply; a group in no nogood contributes its number of allowed choices.
- * Inside a component groups are eliminated in greedy min-fill order (min-degree above
- * {@value #MIN_FILL_MAX_GROUPS} groups, where min-fill itself gets slow): eliminating a group
+ * Inside a component groups are eliminated in the greedy min-fill order of {@link EliminationOrder}
+ * (min-degree on large components, where min-fill itself gets slow): eliminating a group
  * multiplies the factors that mention it and sums it out, leaving one dense table over its
  * neighbours at that point. Time O(n · d^(w+1)) and table size O(d^w) for n groups, d choices per
  * group and induced width w of the order.
@@ -46,8 +46,6 @@ public final class SpaceCounter {
 
   /** Largest table limit accepted: Java arrays are int-indexed. */
   public static final long MAX_TABLE_LIMIT = 1L << 30;
-
-  static final int MIN_FILL_MAX_GROUPS = 300;
 
   private final VariantSpace space;
   private final long tableLimit;
@@ -402,33 +400,23 @@ public final class SpaceCounter {
     if (tooWide >= 0) {
       return new Plan(null, comp.get(tooWide));
     }
-    BitSet[] adj = new BitSet[c];
-    for (int v = 0; v < c; v++) {
-      adj[v] = new BitSet(c);
-    }
+    EliminationOrder graph = new EliminationOrder(c);
     List<BitSet> fScope = new ArrayList<>();
     List<BitSet> fProv = new ArrayList<>();
     for (int i = 0; i < q; i++) {
+      graph.connect(scopes[i]);
       BitSet s = new BitSet(c);
       for (int a : scopes[i]) {
         s.set(a);
-        for (int b : scopes[i]) {
-          if (a != b) {
-            adj[a].set(b);
-          }
-        }
       }
       BitSet p = new BitSet(q);
       p.set(i);
       fScope.add(s);
       fProv.add(p);
     }
-    BitSet remaining = new BitSet(c);
-    remaining.set(0, c);
-    boolean minDegree = c > MIN_FILL_MAX_GROUPS;
     int[] order = new int[c];
     for (int step = 0; step < c; step++) {
-      int v = pick(remaining, adj, dim, minDegree);
+      int v = graph.next();
       BitSet newScope = new BitSet(c);
       BitSet prov = new BitSet(q);
       for (int i = fScope.size() - 1; i >= 0; i--) {
@@ -455,13 +443,7 @@ public final class SpaceCounter {
         fScope.add(newScope);
         fProv.add(prov);
       }
-      for (int a = adj[v].nextSetBit(0); a >= 0; a = adj[v].nextSetBit(a + 1)) {
-        adj[a].or(adj[v]);
-        adj[a].clear(a);
-        adj[a].clear(v);
-      }
-      adj[v].clear();
-      remaining.clear(v);
+      graph.eliminate(v);
       order[step] = v;
     }
     return new Plan(order, null);
@@ -474,40 +456,6 @@ public final class SpaceCounter {
       where[groups[v]] = v;
     }
     return where;
-  }
-
-  /** Greedy min-fill (or min-degree); ties go to the smaller table, then the lower index. */
-  private int pick(BitSet remaining, BitSet[] adj, int[] dim, boolean minDegree) {
-    int best = -1;
-    long bestScore = Long.MAX_VALUE;
-    long bestSize = Long.MAX_VALUE;
-    BitSet tmp = new BitSet();
-    for (int v = remaining.nextSetBit(0); v >= 0; v = remaining.nextSetBit(v + 1)) {
-      long score;
-      if (minDegree) {
-        score = adj[v].cardinality();
-      } else {
-        long fill = 0;
-        for (int a = adj[v].nextSetBit(0); a >= 0; a = adj[v].nextSetBit(a + 1)) {
-          tmp.clear();
-          tmp.or(adj[v]);
-          tmp.andNot(adj[a]);
-          tmp.clear(a);
-          fill += tmp.cardinality();
-        }
-        score = fill / 2;
-      }
-      if (score > bestScore) {
-        continue;
-      }
-      long size = tableSize(adj[v], dim);
-      if (score < bestScore || size < bestSize) {
-        best = v;
-        bestScore = score;
-        bestSize = size;
-      }
-    }
-    return best;
   }
 
   /** Arithmetic of one elimination pass. */

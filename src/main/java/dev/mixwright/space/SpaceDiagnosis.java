@@ -91,18 +91,9 @@ public final class SpaceDiagnosis {
               + " together leave nothing buildable, and dropping any one of them makes some variant"
               + " buildable";
     }
-    if (!sure[0]) {
-      message += notIrreducible();
-    }
-    List<RuleNote> notes = new ArrayList<>();
-    for (int r : core) {
-      String role =
-          core.size() == 1
-              ? "leaves nothing buildable by itself"
-              : "one of " + core.size() + " rules that together leave nothing buildable";
-      notes.add(new RuleNote(r, RuleNote.Kind.IN_CONFLICT, ref(r) + ": " + summary(r) + " — " + role));
-    }
-    return Optional.of(new RuleConflict(OptionalInt.empty(), core, sure[0], message, notes));
+    return Optional.of(conflict(OptionalInt.empty(), core, sure[0], message,
+        "leaves nothing buildable by itself",
+        "one of " + core.size() + " rules that together leave nothing buildable"));
   }
 
   /**
@@ -139,19 +130,20 @@ public final class SpaceDiagnosis {
               + andList(core.stream().map(this::ref).toList())
               + " together leave nothing, and dropping any one of them makes a variant acceptable";
     }
-    if (!sure[0]) {
-      message += notIrreducible();
-    }
+    return Optional.of(conflict(OptionalInt.of(s), core, sure[0], message,
+        "with the accepts of segment " + seg.id() + " it leaves nothing by itself",
+        "one of " + core.size() + " rules that with the accepts of segment " + seg.id() + " leave nothing"));
+  }
+
+  /** The conflict of {@code core}, each rule noted with its role: alone, or one of several. */
+  private RuleConflict conflict(
+      OptionalInt segment, List<Integer> core, boolean sure, String message, String alone, String shared) {
     List<RuleNote> notes = new ArrayList<>();
     for (int r : core) {
-      String role =
-          core.size() == 1
-              ? "with the accepts of segment " + seg.id() + " it leaves nothing by itself"
-              : "one of " + core.size() + " rules that with the accepts of segment " + seg.id()
-                  + " leave nothing";
+      String role = core.size() == 1 ? alone : shared;
       notes.add(new RuleNote(r, RuleNote.Kind.IN_CONFLICT, ref(r) + ": " + summary(r) + " — " + role));
     }
-    return Optional.of(new RuleConflict(OptionalInt.of(s), core, sure[0], message, notes));
+    return new RuleConflict(segment, core, sure, sure ? message : message + notIrreducible(), notes);
   }
 
   /** {@link #segmentConflict} for every segment that has no acceptable variant, in catalog order. */

@@ -4,10 +4,12 @@ package dev.mixwright.space;
  * Lists the buildable variants a segment accepts, one by one — the thing column generation exists
  * to avoid, kept for the benchmark's full LP and for checks on small catalogs.
  *
- * <p>Depth-first over the groups in catalog order, on each group's choices accepted by the segment;
- * a nogood is tested as soon as its last group (in catalog order) is set, so a forbidden prefix is
- * cut at once and only buildable variants reach the visitor. O(N · (G + rule work)) for N variants
- * listed, plus the dead ends, which the early tests keep few when rules are local.
+ * <p>Depth-first over the groups in catalog order, on each group's choices accepted by the segment,
+ * with the rules propagated by {@link ForwardChecker}: once every group of a nogood but its last is
+ * set to member choices, the last group's member choices leave its domain, so a forbidden prefix is
+ * cut before its last group is tried and only buildable variants reach the visitor. O(N · (G + rule
+ * work)) for N variants listed, plus the dead ends, which forward checking keeps few when rules are
+ * local.
  */
 public final class VariantEnumerator {
   /** Receives each variant; the array is reused, copy it to keep it. Return false to stop. */
@@ -19,30 +21,17 @@ public final class VariantEnumerator {
   private final VariantSpace space;
   private final int groups;
   private final int[] offset;
-  private final int[][] closing; // per group: nogoods whose last group it is
+  private final ForwardChecker rules;
 
   public VariantEnumerator(VariantSpace space) {
     this.space = space;
     this.groups = space.groupCount();
     this.offset = space.offsets();
-    int[] count = new int[groups];
-    int[] last = new int[space.nogoodCount()];
-    for (int n = 0; n < last.length; n++) {
-      int m = -1;
-      for (int g : space.nogood(n).groups()) {
-        m = Math.max(m, g);
-      }
-      last[n] = m;
-      count[m]++;
-    }
-    closing = new int[groups][];
+    int[] catalogOrder = new int[groups];
     for (int g = 0; g < groups; g++) {
-      closing[g] = new int[count[g]];
-      count[g] = 0;
+      catalogOrder[g] = g;
     }
-    for (int n = 0; n < last.length; n++) {
-      closing[last[n]][count[last[n]]++] = n;
-    }
+    this.rules = new ForwardChecker(space, catalogOrder, ForwardChecker.NO_WATCH);
   }
 
   /**
@@ -53,19 +42,35 @@ public final class VariantEnumerator {
     if (groups == 0) {
       return 0;
     }
+    boolean[] usable = new boolean[space.totalChoices()];
+    for (int f = 0; f < usable.length; f++) {
+      usable[f] = segment < 0 ? space.allowed(f) : space.allowedIn(segment, f);
+    }
+    if (!rules.start(usable)) {
+      return 0;
+    }
     int[] v = new int[groups];
+    int[] mark = new int[groups]; // trail position before the choice at each depth was propagated
     long visited = 0;
     int d = 0;
     v[0] = -1;
     while (d >= 0) {
-      int next = nextChoice(segment, d, v[d] + 1, v);
+      if (v[d] >= 0) {
+        rules.undo(mark[d]);
+      }
+      int next = nextChoice(d, v[d] + 1, usable);
       if (next < 0) {
         d--;
         continue;
       }
       v[d] = next;
+      mark[d] = rules.mark();
+      if (rules.propagate(d, v, 0) < 0) {
+        continue; // a later group has nothing left: try the next choice here
+      }
       if (d == groups - 1) {
         visited++;
+        assert space.isBuildable(v) : "forward checking let a rule violation through";
         if (!visitor.visit(v)) {
           return visited;
         }
@@ -77,22 +82,11 @@ public final class VariantEnumerator {
     return visited;
   }
 
-  /** The first choice ≥ from of group g that is usable and closes no nogood, or -1. */
-  private int nextChoice(int segment, int g, int from, int[] v) {
+  /** The first choice ≥ from of group g still in its domain, or -1. */
+  private int nextChoice(int g, int from, boolean[] usable) {
     for (int c = from; c < space.choiceCount(g); c++) {
       int f = offset[g] + c;
-      if (!(segment < 0 ? space.allowed(f) : space.allowedIn(segment, f))) {
-        continue;
-      }
-      v[g] = c;
-      boolean ok = true;
-      for (int n : closing[g]) {
-        if (space.nogood(n).violatedBy(v, offset)) {
-          ok = false;
-          break;
-        }
-      }
-      if (ok) {
+      if (usable[f] && !rules.blocked(f)) {
         return c;
       }
     }

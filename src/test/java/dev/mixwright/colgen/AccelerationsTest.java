@@ -36,7 +36,7 @@ class AccelerationsTest {
   }
 
   private static SolveOutcome solve(VariantSpace space, SolveSettings s) {
-    return new ColumnGeneration(space, new BranchAndBoundPricer(space), new HeuristicPricer(space), s, null,
+    return new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), new HeuristicPricer(space), s, null,
         System.nanoTime()).run(List.of());
   }
 

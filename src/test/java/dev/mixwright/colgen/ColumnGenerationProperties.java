@@ -55,7 +55,7 @@ class ColumnGenerationProperties {
       }
       EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
 
-      Pricer pricer = bnb ? new BranchAndBoundPricer(space) : new BruteForcePricer(space);
+      Pricer pricer = bnb ? new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT) : new BruteForcePricer(space);
       SolveOutcome out =
           new ColumnGeneration(space, pricer, null, SolveSettings.defaults().withPerRound(perRound),
               StopCriterion.never(), System.nanoTime()).run();
@@ -96,7 +96,7 @@ class ColumnGenerationProperties {
       EnumeratedLp.Reference ref = EnumeratedLp.solve(space);
       double scale = Math.max(1.0, Math.abs(ref.objective()));
       List<IterationRecord> rounds = new ArrayList<>();
-      new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults().withPerRound(1),
+      new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), null, SolveSettings.defaults().withPerRound(1),
               StopCriterion.never(), System.nanoTime())
           .addListener(new ColGenListener() {
             @Override

@@ -29,7 +29,7 @@ class PriceRangeTest {
   void dakotaDesksAndChairsLeaveWhereTheFullLpSaysSo() {
     Catalog book = TextbookCatalogs.dakota(30, false);
     VariantSpace space = new VariantSpace(book);
-    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
+    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
     int others = book.segmentIndex("others");
     for (String product : List.of("desk", "chair")) {
       int[] v = space.parse(Map.of("product", product));
@@ -47,7 +47,7 @@ class PriceRangeTest {
   void aColumnNotSoldIsRefused() {
     Catalog book = TextbookCatalogs.dakota(30, false);
     VariantSpace space = new VariantSpace(book);
-    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
+    SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
     int[] table = space.parse(Map.of("product", "table"));
     PriceRange r = new PriceRange(space, "bnb", SolveSettings.defaults(), run.columns());
     try {

@@ -4,6 +4,8 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.pricing.PricedVariant;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.EnumeratedMip;
 import dev.mixwright.testing.RandomCatalogs;
@@ -57,10 +59,10 @@ class LagrangianPortfolioBoundTest {
           mu[s] = rnd.nextDouble() < 0.5 ? 0 : rnd.nextDouble() * 30;
         }
         int k = 1 + rnd.nextInt(3);
-        VariantPricing out = new VariantPricer(space, t).price(
+        PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
             new VariantQuery(pi, mu, t.introductionCost(), null, 0, k, Set.of(), 0));
-        List<ValuedVariant> f = out.found();
-        double[] listed = f.stream().mapToDouble(ValuedVariant::value).toArray();
+        List<PricedVariant> f = out.found();
+        double[] listed = f.stream().mapToDouble(PricedVariant::reducedCost).toArray();
         double constant = 0;
         for (int r = 0; r < pi.length; r++) {
           constant += pi[r] * t.capacity()[r];

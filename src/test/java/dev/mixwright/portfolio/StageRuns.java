@@ -23,7 +23,7 @@ final class StageRuns {
   private StageRuns() {}
 
   static SolveOutcome lp(VariantSpace space) {
-    return new ColumnGeneration(space, new BranchAndBoundPricer(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
+    return new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
   }
 
   static PortfolioOutcome stage(VariantSpace space, PortfolioSettings settings) {

@@ -5,6 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.pricing.PricedVariant;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.RandomCatalogs;
@@ -63,7 +65,7 @@ class VariantPricerTest {
       int k = 1 + rnd.nextInt(6);
       double threshold = rnd.nextBoolean() ? Double.NEGATIVE_INFINITY
           : all.isEmpty() ? 0 : all.get(rnd.nextInt(all.size())).value() - 1;
-      VariantPricing out = new VariantPricer(space, t).price(
+      PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
           new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0));
       assertTrue(out.exact());
       List<Scored> want = all.stream()
@@ -73,10 +75,10 @@ class VariantPricerTest {
       assertEquals(want.size(), out.found().size(), where);
       Set<VariantKey> seen = new HashSet<>();
       for (int j = 0; j < want.size(); j++) {
-        ValuedVariant got = out.found().get(j);
-        assertEquals(want.get(j).value(), got.value(), tol(got.value()), where);
+        PricedVariant got = out.found().get(j);
+        assertEquals(want.get(j).value(), got.reducedCost(), tol(got.reducedCost()), where);
         double direct = BruteVariants.value(space, t, got.choices(), pi, mu, charge, penalty);
-        assertEquals(direct, got.value(), tol(direct), where);
+        assertEquals(direct, got.reducedCost(), tol(direct), where);
         assertTrue(space.isBuildable(got.choices()), where);
         assertFalse(excluded.contains(space.key(got.choices())), where);
         assertTrue(seen.add(space.key(got.choices())), where);
@@ -103,7 +105,7 @@ class VariantPricerTest {
         pi[r] = rnd.nextDouble() * 5;
       }
       double[] mu = new double[space.segmentCount()];
-      VariantPricing out = new VariantPricer(space, t, 1 + rnd.nextInt(12)).price(
+      PricingOutcome out = new VariantPricer(space, t, 1 + rnd.nextInt(12)).price(
           new VariantQuery(pi, mu, 0, null, Double.NEGATIVE_INFINITY, 3, Set.of(), 0));
       if (!out.exact()) {
         stopped++;

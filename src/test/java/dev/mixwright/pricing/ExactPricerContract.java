@@ -74,12 +74,23 @@ abstract class ExactPricerContract {
     checkBound(c, q, out);
   }
 
-  /** The upper bound covers the best column outside the excluded set. */
+  /**
+   * The upper bound covers the best column outside the excluded set, and the rest bound every column
+   * neither excluded nor found.
+   */
   static void checkBound(Case c, PricingQuery q, PricingOutcome out) {
     List<Scored> outside = c.outside(q.excluded());
     if (!outside.isEmpty()) {
       double best = outside.get(0).d();
       assertTrue(out.upperBound() >= best - PricingCases.tol(best), "bound " + out.upperBound() + " below best " + best);
+    }
+    Set<VariantKey> found = new HashSet<>();
+    out.found().forEach(p -> found.add(c.space().key(p.choices())));
+    for (Scored s : outside) {
+      if (!found.contains(c.space().key(s.v()))) {
+        assertTrue(out.restBound() >= s.d() - PricingCases.tol(s.d()),
+            "rest bound " + out.restBound() + " below " + s.d() + ", which was not found");
+      }
     }
   }
 

@@ -16,7 +16,7 @@ import org.junit.jupiter.api.Test;
 class ExactPricersAgreeTest {
 
   private static List<Pricer> exact(VariantSpace space) {
-    return List.of(new BruteForcePricer(space), new BranchAndBoundPricer(space), new CpSatPricer(space));
+    return List.of(new BruteForcePricer(space), new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), new CpSatPricer(space, 0, 1));
   }
 
   @Test
@@ -78,8 +78,8 @@ class ExactPricersAgreeTest {
   void branchAndBoundAndCpSatAgreeOnALargeSpace() {
     VariantSpace space = new VariantSpace(PricingCases.large(2027, 40, 5, 100));
     assertTrue(space.nogoodCount() >= 90, "rules compiled: " + space.nogoodCount());
-    Pricer bnb = new BranchAndBoundPricer(space);
-    Pricer cpsat = new CpSatPricer(space);
+    Pricer bnb = new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
+    Pricer cpsat = new CpSatPricer(space, 0, 1);
     Random rnd = new Random(5);
     for (int round = 0; round < 6; round++) {
       int s = round % 2;

@@ -1,11 +1,33 @@
 package dev.mixwright.pricing;
 
-import dev.mixwright.space.VariantSpace;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 
-/** The branch-and-bound pricer with its exact tables switched off: the forward-checking bound alone. */
+import dev.mixwright.space.VariantSpace;
+import org.junit.jupiter.api.Test;
+
+/** The forward-checking search alone, on any space. */
 class ForwardCheckingPricerTest extends ExactPricerContract {
   @Override
   protected Pricer create(VariantSpace space) {
-    return new BranchAndBoundPricer(space, Long.MAX_VALUE, 0);
+    return new ForwardCheckingPricer(space, Long.MAX_VALUE);
+  }
+
+  @Test
+  void nodeLimitKeepsAValidBound() {
+    NodeLimits.keepValidBounds(ForwardCheckingPricer::new);
+  }
+
+  @Test
+  void constrainedGroupsComeFirstInTheOrder() {
+    VariantSpace space = new VariantSpace(PricingCases.large(3, 12, 4, 10));
+    int[] order = new ForwardCheckingPricer(space, Long.MAX_VALUE).groupOrder();
+    boolean free = false;
+    for (int g : order) {
+      if (space.nogoodsOf(g).length == 0) {
+        free = true;
+      } else {
+        assertFalse(free, "a group with rules after one without");
+      }
+    }
   }
 }

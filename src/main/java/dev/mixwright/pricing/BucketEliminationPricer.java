@@ -1,34 +1,36 @@
 package dev.mixwright.pricing;
 
+import dev.mixwright.space.BestFirst;
+import dev.mixwright.space.EliminationOrder;
 import dev.mixwright.space.Nogood;
-import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import java.util.Set;
+import java.util.Optional;
 
 /**
- * Branch-and-bound whose bound is exact: the cost-to-go tables of bucket elimination.
+ * Exact k-best pricing by branch-and-bound whose bound is exact: the cost-to-go tables of bucket
+ * elimination.
  *
- * <p>Per query, groups are eliminated in a min-fill order of the rule graph (groups as vertices, each
- * nogood a clique): eliminating group x turns its weight, the nogoods whose first eliminated group it
- * is and the messages sent to it into one table m_x over its neighbours at that time, the maximum
- * over x's choices (Bertelè &amp; Brioschi 1972, <i>Nonserial Dynamic Programming</i>; Dechter 1999,
- * "Bucket elimination", Artificial Intelligence 113). The search then assigns groups in the reverse
- * order. After the groups above depth d are set, the messages that cross from depth ≥ d to the set
- * groups add up to the best completion exactly, so the bound of a choice is the best score below it
- * (the use of bucket-elimination tables as search heuristics follows Kask &amp; Dechter 2001, "A
- * general scheme for automatic generation of search heuristics from specification dependencies",
- * Artificial Intelligence 129). The search walks children best bound first; the first leaf is the
- * optimum, and k best outside an excluded set cost about (k + excluded met) · G · d node expansions.
+ * <p>Per query, groups are eliminated in the min-fill order of {@link EliminationOrder}:
+ * eliminating group x turns its weight, the nogoods whose first eliminated group it is and the
+ * messages sent to it into one table m_x over its neighbours at that time, the maximum over x's
+ * choices (Bertelè &amp; Brioschi 1972, <i>Nonserial Dynamic Programming</i>; Dechter 1999, "Bucket
+ * elimination", Artificial Intelligence 113). The search then assigns groups in the reverse order.
+ * After the groups above depth d are set, the messages that cross from depth ≥ d to the set groups
+ * add up to the best completion exactly, so the bound of a choice is the best score below it (the
+ * use of bucket-elimination tables as search heuristics follows Kask &amp; Dechter 2001, "A general
+ * scheme for automatic generation of search heuristics from specification dependencies", Artificial
+ * Intelligence 129). The search walks children best bound first; the first leaf is the optimum, and
+ * k best outside an excluded set cost about (k + excluded met) · G · d node expansions.
  *
  * <p>Time per query O(Σ_x d_x · |table_x| · (messages + nogoods of x)) for the tables, i.e.
  * O(G · d^(w+1)) for induced width w, plus the search; memory Σ_x |table_x|. Usable only when the
- * tables fit the limit given; {@link BranchAndBoundPricer} falls back to forward checking otherwise.
+ * tables fit the limit given ({@link #fitting}); {@link BranchAndBoundPricer} uses
+ * {@link ForwardCheckingPricer} where they do not.
  */
-final class BucketSearch {
-  private final VariantSpace space;
+public final class BucketEliminationPricer extends NodeLimitedPricer {
   private final int groups;
   private final int[] offset;
   private final int[] order; // depth -> group
@@ -58,16 +60,12 @@ final class BucketSearch {
   private final int[][] candChoice;
   private final double[][] candBound;
   private double[] w;
-  private double constant;
-  private double threshold;
-  private Set<VariantKey> excluded;
-  private TopK top;
-  private long nodes;
-  private long nodeLimit;
-  private double openBound;
+  private QueryRun run;
+  private long budget;
 
-  private BucketSearch(VariantSpace space, int[] elimination, int[][] scope, long entries) {
-    this.space = space;
+  private BucketEliminationPricer(
+      VariantSpace space, long nodeLimit, int[] elimination, int[][] scope, long entries) {
+    super(space, nodeLimit);
     this.groups = space.groupCount();
     this.offset = space.offsets();
     this.nogoods = space.nogoods();
@@ -242,116 +240,70 @@ final class BucketSearch {
   }
 
   /**
-   * The search for this space, or null when the tables of a min-fill elimination order would hold
+   * The pricer for this space, or empty when the tables of a min-fill elimination order would hold
    * more than {@code maxEntries} doubles in all.
+   *
+   * @param nodeLimit most search nodes per query; when reached the outcome is not exact but keeps a
+   *     valid upper bound. {@code Long.MAX_VALUE} for none.
    */
-  static BucketSearch plan(VariantSpace space, long maxEntries) {
+  public static Optional<BucketEliminationPricer> fitting(VariantSpace space, long nodeLimit, long maxEntries) {
     int groups = space.groupCount();
     if (groups == 0) {
-      return null;
+      return Optional.empty();
     }
-    boolean[][] adj = new boolean[groups][groups];
+    EliminationOrder graph = new EliminationOrder(groups);
     for (Nogood n : space.nogoods()) {
-      for (int a : n.groups()) {
-        for (int b : n.groups()) {
-          if (a != b) {
-            adj[a][b] = true;
-          }
-        }
-      }
+      graph.connect(n.groups());
     }
-    boolean[] gone = new boolean[groups];
     int[] elimination = new int[groups];
     int[][] scope = new int[groups][];
     long entries = 0;
     for (int i = 0; i < groups; i++) {
-      // greedy min-fill, ties by fewest neighbours, then by index (deterministic)
-      int best = -1;
-      long bestFill = Long.MAX_VALUE;
-      int bestDeg = Integer.MAX_VALUE;
-      for (int g = 0; g < groups; g++) {
-        if (gone[g]) {
-          continue;
-        }
-        int deg = 0;
-        long fill = 0;
-        for (int a = 0; a < groups; a++) {
-          if (gone[a] || !adj[g][a]) {
-            continue;
-          }
-          deg++;
-          for (int b = a + 1; b < groups; b++) {
-            if (!gone[b] && adj[g][b] && !adj[a][b]) {
-              fill++;
-            }
-          }
-        }
-        if (fill < bestFill || fill == bestFill && deg < bestDeg) {
-          best = g;
-          bestFill = fill;
-          bestDeg = deg;
-        }
-      }
-      int x = best;
+      int x = graph.next();
       elimination[i] = x;
-      int[] s = new int[groups];
-      int n = 0;
+      scope[x] = graph.neighbours(x);
       long size = 1;
-      for (int a = 0; a < groups; a++) {
-        if (!gone[a] && adj[x][a]) {
-          s[n++] = a;
-          size = Math.multiplyHigh(size, space.choiceCount(a)) != 0 ? Long.MAX_VALUE : size * space.choiceCount(a);
-          if (size > maxEntries) {
-            return null;
-          }
+      for (int a : scope[x]) {
+        size = Math.multiplyHigh(size, space.choiceCount(a)) != 0 ? Long.MAX_VALUE : size * space.choiceCount(a);
+        if (size > maxEntries) {
+          return Optional.empty();
         }
       }
-      scope[x] = Arrays.copyOf(s, n);
       entries += size;
       if (entries > maxEntries) {
-        return null;
+        return Optional.empty();
       }
-      for (int p = 0; p < n; p++) {
-        for (int q = 0; q < n; q++) {
-          if (p != q) {
-            adj[s[p]][s[q]] = true;
-          }
-        }
-      }
-      gone[x] = true;
+      graph.eliminate(x);
     }
-    return new BucketSearch(space, elimination, scope, entries);
+    return Optional.of(new BucketEliminationPricer(space, nodeLimit, elimination, scope, entries));
   }
 
-  long tableEntries() {
+  @Override
+  public String name() {
+    return "bucket-elimination";
+  }
+
+  /** Doubles the tables hold in all: their filling is the fixed cost of a query. */
+  public long tableEntries() {
     return tableEntries;
   }
 
-  int[] order() {
-    return order.clone();
-  }
-
+  @Override
   PricingOutcome price(PricingQuery q, long limit) {
-    w = q.weight();
-    constant = q.constant();
-    threshold = q.threshold();
-    excluded = q.excluded();
-    top = new TopK(q.k(), groups);
-    nodes = 0;
-    nodeLimit = limit;
-    openBound = Double.NEGATIVE_INFINITY;
+    run = new QueryRun(space, q);
+    w = run.w;
+    budget = limit;
     for (int x : elimination) {
       eliminate(x);
     }
     boolean complete = true;
-    double root = constant + crossingSum(0);
-    if (root > threshold) {
-      complete = search(0, constant);
+    double root = run.constant + crossingSum(0);
+    if (root > run.threshold) {
+      complete = search(0, run.constant);
     }
-    PricingOutcome out = QueryChecks.outcome(top, threshold, complete, openBound, nodes);
+    PricingOutcome out = run.outcome(complete);
     w = null;
-    excluded = null;
-    top = null;
+    run = null;
     return out;
   }
 
@@ -475,7 +427,7 @@ final class BucketSearch {
     int[] cc = candChoice[x];
     double[] cb = candBound[x];
     int n = 0;
-    double cutoff = top.cutoff(threshold);
+    double cutoff = run.cutoff();
     // Messages that do not see x add the same to every child; the others differ by a stride of x.
     double fixed = partial;
     for (int y : crossWithout[d]) {
@@ -502,32 +454,24 @@ final class BucketSearch {
         b += table[with[k]][wb[k] + withStride[k] * c];
       }
       if (b + slack(b) > cutoff) {
-        // insertion by bound, best first
-        int p = n++;
-        while (p > 0 && cb[p - 1] < b) {
-          cb[p] = cb[p - 1];
-          cc[p] = cc[p - 1];
-          p--;
-        }
-        cb[p] = b;
-        cc[p] = c;
+        n = BestFirst.insert(cb, cc, n, b, c);
       }
     }
     for (int i = 0; i < n; i++) {
       double b = cb[i];
-      if (!(b + slack(b) > top.cutoff(threshold))) {
+      if (!(b + slack(b) > run.cutoff())) {
         break;
       }
-      if (nodes >= nodeLimit) {
-        openBound = Math.max(openBound, b);
+      if (run.nodes >= budget) {
+        run.leaveOpen(b);
         return false;
       }
-      nodes++;
+      run.nodes++;
       int c = cc[i];
       v[x] = c;
       if (!search(d + 1, partial + w[base + c])) {
         if (i + 1 < n) {
-          openBound = Math.max(openBound, cb[i + 1]);
+          run.leaveOpen(cb[i + 1]);
         }
         return false;
       }
@@ -542,9 +486,6 @@ final class BucketSearch {
 
   private void leaf() {
     assert space.isBuildable(v) : "a rule violation reached a leaf";
-    double s = QueryChecks.score(offset, w, constant, v);
-    if (s > top.cutoff(threshold) && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
-      top.offer(v, s);
-    }
+    run.leaf(v);
   }
 }
