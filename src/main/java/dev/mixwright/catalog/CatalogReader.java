@@ -633,7 +633,7 @@ final class CatalogReader {
     }
     unknownFields(ch, at, CHOICE_FIELDS, "a choice section");
     Double buyers =
-        requiredNumber(ch, at, "buyers", "the potential buyers per period, e.g. buyers: 60000");
+        requiredNumber(ch, at, "buyers", "the potential buyers per period, e.g. buyers: 60000", false);
     if (buyers != null && buyers <= 0) {
       problem(
           Where.field(at, "buyers"),
@@ -655,22 +655,17 @@ final class CatalogReader {
     }
     String weightHint =
         "the utility per currency unit of the price the segment pays, e.g. priceWeight: -0.0045";
-    Double priceWeight = null;
-    JsonNode pw = value(ch, "priceWeight");
-    String pwAt = Where.field(at, "priceWeight");
-    if (pw == null) {
-      problem(pwAt, "missing — give " + weightHint + " (0 if price does not matter to it)");
-    } else {
-      priceWeight = number(pw, pwAt, weightHint, false);
-      if (priceWeight != null && priceWeight > 0) {
-        problem(
-            pwAt,
-            "is positive ("
-                + Where.num(priceWeight)
-                + "), so buyers would prefer dearer variants — this is almost always a sign error;"
-                + " write it negative, e.g. priceWeight: -"
-                + Where.num(priceWeight));
-      }
+    Double priceWeight =
+        requiredNumber(
+            ch, at, "priceWeight", weightHint + " (0 if price does not matter to it)", false);
+    if (priceWeight != null && priceWeight > 0) {
+      problem(
+          Where.field(at, "priceWeight"),
+          "is positive ("
+              + Where.num(priceWeight)
+              + "), so buyers would prefer dearer variants — this is almost always a sign error;"
+              + " write it negative, e.g. priceWeight: -"
+              + Where.num(priceWeight));
     }
     Map<String, Double> utility = new LinkedHashMap<>();
     Map<String, String> utilityAt = new LinkedHashMap<>();
@@ -1086,13 +1081,18 @@ final class CatalogReader {
   }
 
   private Double requiredNumber(JsonNode o, String path, String field, String hint) {
+    return requiredNumber(o, path, field, hint, true);
+  }
+
+  private Double requiredNumber(
+      JsonNode o, String path, String field, String hint, boolean nonNegative) {
     String at = Where.field(path, field);
     JsonNode v = o.get(field);
     if (v == null || v.isNull()) {
       problem(at, (v == null ? "missing" : "is empty") + " — give " + hint);
       return null;
     }
-    return number(v, at, hint, true);
+    return number(v, at, hint, nonNegative);
   }
 
   private double optionalNumber(JsonNode o, String path, String field, double absent, String hint) {
