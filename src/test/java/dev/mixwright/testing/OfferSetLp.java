@@ -24,7 +24,7 @@ import java.util.List;
  * segment with n columns, so this is for tiny spaces only: at most {@link #MAX_COLUMNS_PER_SEGMENT}.
  */
 public final class OfferSetLp {
-  public static final int MAX_COLUMNS_PER_SEGMENT = 10;
+  public static final int MAX_COLUMNS_PER_SEGMENT = 8;
 
   private OfferSetLp() {}
 
