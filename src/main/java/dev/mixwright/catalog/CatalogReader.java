@@ -35,7 +35,7 @@ final class CatalogReader {
   private static final List<String> RESOURCE_FIELDS = List.of("id", "label", "unit", "capacity");
   private static final List<String> GROUP_FIELDS =
       List.of("id", "label", "required", "options", "optionsFile");
-  private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "prices", "cost", "uses", "tooling");
+  private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "cost", "uses", "tooling", "prices");
   private static final List<String> RULE_FIELDS =
       List.of("id", "note", "when", "require", "forbid");
   private static final List<String> SEGMENT_FIELDS =
