@@ -120,7 +120,7 @@ final class SolveCommand implements Callable<Integer> {
     if (scenarioFile != null) {
       catalog = Inputs.withScenario(catalog, scenarioFile);
     }
-    NotSolvedYet.refuseChoosingSegments(catalog);
+    NotSolvedYet.refuseChoiceFeatures(catalog);
     VariantSpace space = new VariantSpace(catalog);
     Pricer pricer;
     try {

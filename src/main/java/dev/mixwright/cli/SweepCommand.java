@@ -103,7 +103,7 @@ final class SweepCommand implements Callable<Integer> {
     }
     Catalog catalog = Inputs.catalog(catalogFile);
     String sha = Inputs.sha256(catalogFile);
-    NotSolvedYet.refuseChoosingSegments(catalog);
+    NotSolvedYet.refuseChoiceFeatures(catalog);
     SweepPlan plan;
     try {
       plan = plan(catalog);
