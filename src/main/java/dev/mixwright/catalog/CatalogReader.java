@@ -523,36 +523,27 @@ final class CatalogReader {
       }
       String label = optionalText(s, path, "label");
       JsonNode ch = value(s, "choice");
-      if (ch != null) {
-        Choice choice = readChoice(s, ch, path);
-        JsonNode a = value(s, "accepts");
-        Map<String, List<String>> accepts =
-            a == null ? Map.of() : clause(a, Where.field(path, "accepts"), Clause.ACCEPTS);
-        JsonNode val = value(s, "value");
-        Map<String, Double> valueMap =
-            val == null ? Map.of() : readValue(val, Where.field(path, "value"));
-        if (problems.size() == before) {
-          out.add(Segment.choosing(id, label, accepts, valueMap, choice));
-        }
-        continue;
-      }
-      Double demand =
-          requiredNumber(
-              s,
-              path,
-              "demand",
-              "the units per period this segment buys at most, e.g. demand: 9000");
+      Choice choice = ch == null ? null : readChoice(s, ch, path);
+      Double demand = null;
       double maxShare = 1;
-      JsonNode ms = value(s, "maxShare");
-      if (ms != null) {
-        String at = Where.field(path, "maxShare");
-        Double x = number(ms, at, "a share of demand, e.g. maxShare: 0.35", true);
-        if (x != null) {
-          String p = Checks.shareProblem(x);
-          if (p != null) {
-            problem(at, p);
-          } else {
-            maxShare = x;
+      if (ch == null) {
+        demand =
+            requiredNumber(
+                s,
+                path,
+                "demand",
+                "the units per period this segment buys at most, e.g. demand: 9000");
+        JsonNode ms = value(s, "maxShare");
+        if (ms != null) {
+          String at = Where.field(path, "maxShare");
+          Double x = number(ms, at, "a share of demand, e.g. maxShare: 0.35", true);
+          if (x != null) {
+            String p = Checks.shareProblem(x);
+            if (p != null) {
+              problem(at, p);
+            } else {
+              maxShare = x;
+            }
           }
         }
       }
@@ -563,7 +554,10 @@ final class CatalogReader {
       Map<String, Double> valueMap =
           val == null ? Map.of() : readValue(val, Where.field(path, "value"));
       if (problems.size() == before) {
-        out.add(new Segment(id, label, demand, maxShare, accepts, valueMap));
+        out.add(
+            choice != null
+                ? Segment.choosing(id, label, accepts, valueMap, choice)
+                : new Segment(id, label, demand, maxShare, accepts, valueMap));
       }
     }
     return out;

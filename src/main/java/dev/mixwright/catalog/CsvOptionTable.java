@@ -115,13 +115,7 @@ final class CsvOptionTable {
     for (Row row : rows.subList(1, rows.size())) {
       String lineAt = at + " line " + row.line();
       if (row.cells().size() != width) {
-        reader.problem(
-            lineAt,
-            "has "
-                + row.cells().size()
-                + " cells, the header has "
-                + width
-                + " — check for a missing or extra comma (quote cells that contain commas)");
+        reader.problem(lineAt, cellCountProblem(row, width));
         int idColumn = column.get("id");
         if (idColumn < row.cells().size() && !row.cells().get(idColumn).isEmpty()) {
           reader.registerOption(ref, row.cells().get(idColumn), lineAt + " column id");
@@ -270,6 +264,15 @@ final class CsvOptionTable {
       return null;
     }
     return x;
+  }
+
+  /** The message for a row whose number of cells differs from the header's. */
+  static String cellCountProblem(Row row, int width) {
+    return "has "
+        + row.cells().size()
+        + " cells, the header has "
+        + width
+        + " — check for a missing or extra comma (quote cells that contain commas)";
   }
 
   /** The rows of CSV text (a leading byte-order mark dropped), or null and a problem at {@code at}. */

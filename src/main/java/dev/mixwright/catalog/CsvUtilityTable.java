@@ -74,18 +74,12 @@ final class CsvUtilityTable {
     for (CsvOptionTable.Row row : rows.subList(1, rows.size())) {
       String lineAt = at + " line " + row.line();
       if (row.cells().size() != width) {
-        reader.problem(
-            lineAt,
-            "has "
-                + row.cells().size()
-                + " cells, the header has "
-                + width
-                + " — check for a missing or extra comma");
+        reader.problem(lineAt, CsvOptionTable.cellCountProblem(row, width));
         continue;
       }
       String group = row.cells().get(column.get("group"));
       String option = row.cells().get(column.get("option"));
-      String text2 = row.cells().get(column.get("utility"));
+      String utilityText = row.cells().get(column.get("utility"));
       boolean rowOk = true;
       if (group.isEmpty()) {
         reader.problem(lineAt + " column group", "empty — give the group id, e.g. deck");
@@ -100,11 +94,11 @@ final class CsvUtilityTable {
         rowOk = reader.checkChoiceOf(group, option, lineAt + " column group", lineAt + " column option");
       }
       String uAt = lineAt + " column utility";
-      Double u = text2.isEmpty() ? null : Checks.decimal(text2);
+      Double u = utilityText.isEmpty() ? null : Checks.decimal(utilityText);
       if (u == null) {
         reader.problem(
             uAt,
-            (text2.isEmpty() ? "empty" : "not a number: " + Where.quote(text2))
+            (utilityText.isEmpty() ? "empty" : "not a number: " + Where.quote(utilityText))
                 + " — write the part-worth as a plain number with a dot for decimals, e.g. 0.7 or -0.4");
         rowOk = false;
       } else if (!Double.isFinite(u)) {

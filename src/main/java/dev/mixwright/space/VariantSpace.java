@@ -593,21 +593,23 @@ public final class VariantSpace {
           }
         }
       }
-      List<String> ids = new ArrayList<>();
-      for (int f : points) {
-        ids.add(choiceId(g, f - offset[g]));
-      }
+      List<String> ids = choiceIds(g, points);
       throw new IllegalArgumentException(
           option.hasPricePoints()
               ? "option '" + optionId + "' of group '" + group.id() + "' has price points; choose one of " + ids
               : "option '" + optionId + "' of group '" + group.id() + "' has one price; write it as " + ids.get(0));
     }
-    List<String> ids = new ArrayList<>();
-    for (int k = 0; k < choiceCount[g]; k++) {
-      ids.add(choiceId(g, k));
-    }
+    List<String> ids = choiceIds(g, java.util.stream.IntStream.range(offset[g], offset[g + 1]).toArray());
     throw new IllegalArgumentException(
         "group '" + group.id() + "' has no option '" + id + "'; choose one of " + ids);
+  }
+
+  private List<String> choiceIds(int g, int[] flats) {
+    List<String> ids = new ArrayList<>();
+    for (int f : flats) {
+      ids.add(choiceId(g, f - offset[g]));
+    }
+    return ids;
   }
 
   private List<String> groupIds() {
