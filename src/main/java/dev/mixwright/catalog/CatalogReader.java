@@ -523,6 +523,9 @@ final class CatalogReader {
       }
       String label = optionalText(s, path, "label");
       JsonNode ch = value(s, "choice");
+      if (ch == null && s.has("choice")) {
+        ch = s.get("choice"); // written but empty: read as a choice section, so its fields are named
+      }
       Choice choice = ch == null ? null : readChoice(s, ch, path);
       Double demand = null;
       double maxShare = 1;

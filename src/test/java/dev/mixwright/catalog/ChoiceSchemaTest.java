@@ -212,6 +212,15 @@ class ChoiceSchemaTest {
   }
 
   @Test
+  void anEmptyChoiceSectionIsNamed() {
+    says(
+        onlyProblem(
+            CatalogTesting.BASE.replace("  - id: families\n    demand: 2500\n", "  - id: families\n    choice:\n"),
+            "segments[1].choice"),
+        "must be a mapping");
+  }
+
+  @Test
   void choiceSectionFieldsAreChecked() {
     says(
         onlyProblem(CHOOSING.replace("      priceWeight: -0.0045\n", ""), "segments[1].choice.priceWeight"),
