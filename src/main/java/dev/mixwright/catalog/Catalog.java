@@ -52,6 +52,16 @@ public record Catalog(
     return -1;
   }
 
+  /** True when some segment chooses by multinomial logit (has a {@code choice} section). */
+  public boolean hasChoosingSegments() {
+    return segments.stream().anyMatch(Segment::chooses);
+  }
+
+  /** True when some option lists several price points. */
+  public boolean hasPricePoints() {
+    return groups.stream().flatMap(g -> g.options().stream()).anyMatch(Option::hasPricePoints);
+  }
+
   static Map<String, List<String>> orderedCopy(Map<String, List<String>> m) {
     if (m == null || m.isEmpty()) {
       return Map.of();

@@ -35,15 +35,20 @@ final class CatalogReader {
   private static final List<String> RESOURCE_FIELDS = List.of("id", "label", "unit", "capacity");
   private static final List<String> GROUP_FIELDS =
       List.of("id", "label", "required", "options", "optionsFile");
-  private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "cost", "uses", "tooling");
+  private static final List<String> OPTION_FIELDS = List.of("id", "label", "price", "cost", "uses", "tooling", "prices");
   private static final List<String> RULE_FIELDS =
       List.of("id", "note", "when", "require", "forbid");
   private static final List<String> SEGMENT_FIELDS =
-      List.of("id", "label", "demand", "maxShare", "accepts", "value");
+      List.of("id", "label", "demand", "maxShare", "accepts", "value", "choice");
+  private static final List<String> CHOICE_FIELDS =
+      List.of("buyers", "stayOut", "priceWeight", "utility", "utilityFile");
   private static final List<String> PORTFOLIO_FIELDS =
       List.of("introductionCost", "maxVariants", "minLot");
 
   static final String PRICE_HINT = "the list price this option adds, e.g. price: 520";
+  static final String PRICES_HINT =
+      "the price points to choose from, e.g. prices: [760, 820, 880] (each becomes a choice of its"
+          + " own, written option@price in a variant)";
   static final String COST_HINT = "the variable cost this option adds, e.g. cost: 210";
   static final String TOOLING_HINT =
       "the one-off cost of offering this option at all (paid once by the portfolio, whatever the"
@@ -318,16 +323,68 @@ final class CatalogReader {
     unknownFields(o, path, OPTION_FIELDS, "an option");
     String id = requiredId(o, path, IdKind.OPTION);
     String label = optionalText(o, path, "label");
-    Double price = requiredNumber(o, path, "price", PRICE_HINT);
+    List<Double> prices = readPrices(o, path);
     Double cost = requiredNumber(o, path, "cost", COST_HINT);
     Map<String, Double> uses = readUses(value(o, "uses"), Where.field(path, "uses"));
     double tooling = optionalNumber(o, path, "tooling", 0, TOOLING_HINT);
     if (id != null) {
       registerOption(ref, id, Where.field(path, "id"));
     }
-    return id != null && price != null && cost != null && uses != null
-        ? new Option(id, label, price, cost, uses, tooling)
+    return id != null && prices != null && cost != null && uses != null
+        ? new Option(id, label, prices, cost, uses, tooling)
         : null;
+  }
+
+  /** The option's price points: its {@code price}, or its {@code prices} list; null when wrong. */
+  private List<Double> readPrices(JsonNode o, String path) {
+    JsonNode list = value(o, "prices");
+    String at = Where.field(path, "prices");
+    if (list == null) {
+      if (o.has("prices")) {
+        problem(at, "is empty — give " + PRICES_HINT + ", or give a single price: 520 instead");
+        return null;
+      }
+      Double price = requiredNumber(o, path, "price", PRICE_HINT);
+      return price == null ? null : List.of(price);
+    }
+    if (value(o, "price") != null) {
+      problem(
+          at,
+          "given together with price — an option has either one price (price: 520) or price points"
+              + " (prices: [760, 820, 880]); drop one of them");
+      return null;
+    }
+    if (!list.isArray()) {
+      String fix =
+          list.isNumber() ? " — write it as a list, [" + Where.num(list.doubleValue()) + "], or use price" : "";
+      problem(at, "must be a list of prices, got " + Where.describe(list) + fix + " — give " + PRICES_HINT);
+      return null;
+    }
+    if (list.isEmpty()) {
+      problem(at, "empty list — give at least one price point, e.g. prices: [760, 820, 880]");
+      return null;
+    }
+    List<Double> out = new ArrayList<>();
+    Map<Double, String> firstAt = new LinkedHashMap<>();
+    boolean ok = true;
+    for (int k = 0; k < list.size(); k++) {
+      String kAt = Where.index(at, k);
+      Double x = number(list.get(k), kAt, "a price point of this option, e.g. 820", true);
+      if (x == null) {
+        ok = false;
+        continue;
+      }
+      String first = firstAt.putIfAbsent(x + 0.0, kAt);
+      if (first != null) {
+        problem(
+            kAt,
+            "repeats the price point " + Where.num(x) + " (first at " + first + ") — list each price once");
+        ok = false;
+        continue;
+      }
+      out.add(x);
+    }
+    return ok ? out : null;
   }
 
   private Map<String, Double> readUses(JsonNode v, String path) {
@@ -465,23 +522,31 @@ final class CatalogReader {
         unique(segmentIdAt, id, Where.field(path, "id"), IdKind.SEGMENT);
       }
       String label = optionalText(s, path, "label");
-      Double demand =
-          requiredNumber(
-              s,
-              path,
-              "demand",
-              "the units per period this segment buys at most, e.g. demand: 9000");
+      JsonNode ch = value(s, "choice");
+      if (ch == null && s.has("choice")) {
+        ch = s.get("choice"); // written but empty: read as a choice section, so its fields are named
+      }
+      Choice choice = ch == null ? null : readChoice(s, ch, path);
+      Double demand = null;
       double maxShare = 1;
-      JsonNode ms = value(s, "maxShare");
-      if (ms != null) {
-        String at = Where.field(path, "maxShare");
-        Double x = number(ms, at, "a share of demand, e.g. maxShare: 0.35", true);
-        if (x != null) {
-          String p = Checks.shareProblem(x);
-          if (p != null) {
-            problem(at, p);
-          } else {
-            maxShare = x;
+      if (ch == null) {
+        demand =
+            requiredNumber(
+                s,
+                path,
+                "demand",
+                "the units per period this segment buys at most, e.g. demand: 9000");
+        JsonNode ms = value(s, "maxShare");
+        if (ms != null) {
+          String at = Where.field(path, "maxShare");
+          Double x = number(ms, at, "a share of demand, e.g. maxShare: 0.35", true);
+          if (x != null) {
+            String p = Checks.shareProblem(x);
+            if (p != null) {
+              problem(at, p);
+            } else {
+              maxShare = x;
+            }
           }
         }
       }
@@ -492,31 +557,35 @@ final class CatalogReader {
       Map<String, Double> valueMap =
           val == null ? Map.of() : readValue(val, Where.field(path, "value"));
       if (problems.size() == before) {
-        out.add(new Segment(id, label, demand, maxShare, accepts, valueMap));
+        out.add(
+            choice != null
+                ? Segment.choosing(id, label, accepts, valueMap, choice)
+                : new Segment(id, label, demand, maxShare, accepts, valueMap));
       }
     }
     return out;
   }
 
   private Map<String, Double> readValue(JsonNode v, String path) {
+    return readPerChoice(
+        v,
+        path,
+        "must be a mapping of group.option to the extra value per unit, e.g. value:"
+            + " {\"battery.b750\": 90}, got ",
+        "what this segment pays extra per unit for the choice (negative: pays less), e.g. 90");
+  }
+
+  /** A mapping of {@code group.option} to a finite number, every key checked. */
+  private Map<String, Double> readPerChoice(JsonNode v, String path, String notMapping, String hint) {
     Map<String, Double> out = new LinkedHashMap<>();
     if (!v.isObject()) {
-      problem(
-          path,
-          "must be a mapping of group.option to the extra value per unit, e.g. value:"
-              + " {\"battery.b750\": 90}, got "
-              + Where.describe(v));
+      problem(path, notMapping + Where.describe(v));
       return out;
     }
     for (Map.Entry<String, JsonNode> e : v.properties()) {
       String key = e.getKey();
       String at = Where.field(path, key);
-      Double x =
-          number(
-              e.getValue(),
-              at,
-              "what this segment pays extra per unit for the choice (negative: pays less), e.g. 90",
-              false);
+      Double x = number(e.getValue(), at, hint, false);
       int dot = key.indexOf('.');
       if (dot <= 0 || dot == key.length() - 1) {
         problem(at, "write the key as group.option, " + valueKeyExample(key));
@@ -534,6 +603,132 @@ final class CatalogReader {
       }
     }
     return out;
+  }
+
+  private static final String CHOICE_EXAMPLE =
+      "{buyers: 60000, stayOut: 1.2, priceWeight: -0.0045, utility: {\"deck.d28\": 0.7}}";
+
+  /** The {@code choice} section of a segment; null when it is wrong (the problems are recorded). */
+  private Choice readChoice(JsonNode segment, JsonNode ch, String path) {
+    int before = problems.size();
+    String at = Where.field(path, "choice");
+    if (value(segment, "demand") != null) {
+      problem(
+          Where.field(path, "demand"),
+          "given together with choice — a segment that chooses has no fixed demand: its sales"
+              + " follow from its buyers and what is offered to it; drop demand and give the"
+              + " potential buyers as choice.buyers (or drop choice to keep a fixed demand)");
+    }
+    if (value(segment, "maxShare") != null) {
+      problem(
+          Where.field(path, "maxShare"),
+          "given together with choice — in a segment that chooses the multinomial logit decides"
+              + " each variant's share; drop maxShare (or drop choice to keep a fixed demand)");
+    }
+    if (!isMapping(ch, at, CHOICE_EXAMPLE)) {
+      return null;
+    }
+    unknownFields(ch, at, CHOICE_FIELDS, "a choice section");
+    Double buyers =
+        requiredNumber(ch, at, "buyers", "the potential buyers per period, e.g. buyers: 60000", false);
+    if (buyers != null && buyers <= 0) {
+      problem(
+          Where.field(at, "buyers"),
+          "must be > 0, got "
+              + Where.num(buyers)
+              + " — the number of potential buyers per period, e.g. buyers: 60000 (to leave the"
+              + " segment out, delete it)");
+    }
+    double stayOut = 0;
+    JsonNode so = value(ch, "stayOut");
+    if (so != null) {
+      Double x =
+          number(
+              so,
+              Where.field(at, "stayOut"),
+              "the utility of buying none of the offered variants, e.g. stayOut: 1.2",
+              false);
+      stayOut = x == null ? 0 : x;
+    }
+    String weightHint =
+        "the utility per currency unit of the price the segment pays, e.g. priceWeight: -0.0045";
+    Double priceWeight =
+        requiredNumber(
+            ch, at, "priceWeight", weightHint + " (0 if price does not matter to it)", false);
+    if (priceWeight != null && priceWeight > 0) {
+      problem(
+          Where.field(at, "priceWeight"),
+          "is positive ("
+              + Where.num(priceWeight)
+              + "), so buyers would prefer dearer variants — this is almost always a sign error;"
+              + " write it negative, e.g. priceWeight: -"
+              + Where.num(priceWeight));
+    }
+    Map<String, Double> utility = new LinkedHashMap<>();
+    Map<String, String> utilityAt = new LinkedHashMap<>();
+    JsonNode u = value(ch, "utility");
+    String uPath = Where.field(at, "utility");
+    if (u != null) {
+      readPerChoice(
+              u,
+              uPath,
+              "must be a mapping of group.option to the part-worth, e.g. utility: {\"deck.d28\": 0.7,"
+                  + " \"app.none\": -0.4}, got ",
+              "the part-worth of the choice for this segment, e.g. 0.7")
+          .forEach(
+              (k, x) -> {
+                utility.put(k, x);
+                utilityAt.put(k, Where.field(uPath, k));
+              });
+    }
+    JsonNode file = value(ch, "utilityFile");
+    String filePath = Where.field(at, "utilityFile");
+    if (file != null) {
+      if (!file.isTextual() || file.textValue().isBlank()) {
+        problem(
+            filePath,
+            "must be the name of a CSV file next to the catalog, e.g. utilityFile: homeowners.csv,"
+                + " got "
+                + Where.describe(file));
+      } else {
+        List<CsvUtilityTable.Entry> rows =
+            CsvUtilityTable.read(this, filePath, file.textValue(), baseDir);
+        for (CsvUtilityTable.Entry e : rows == null ? List.<CsvUtilityTable.Entry>of() : rows) {
+          String first = utilityAt.putIfAbsent(e.key(), e.at());
+          if (first != null) {
+            problem(
+                e.at(),
+                "gives a part-worth for "
+                    + e.key()
+                    + " again (first at "
+                    + first
+                    + ") — inline utility and utilityFile are merged and each part-worth may be"
+                    + " given once; keep one");
+          } else {
+            utility.put(e.key(), e.utility());
+          }
+        }
+      }
+    }
+    if (problems.size() != before || buyers == null || priceWeight == null) {
+      return null;
+    }
+    return new Choice(buyers, stayOut, priceWeight, utility);
+  }
+
+  /**
+   * Checks a group id and a choice id given in separate places (a CSV row); false when either is
+   * wrong (the problem is recorded).
+   */
+  boolean checkChoiceOf(String gid, String choice, String groupAt, String choiceAt) {
+    GroupRef g = groupsById.get(gid);
+    if (g == null) {
+      unknownGroup(gid, groupAt);
+      return false;
+    }
+    int before = problems.size();
+    checkChoice(g, choice, choiceAt);
+    return problems.size() == before;
   }
 
   /** An example key for a value entry, built from the catalog when the intended option is clear. */
@@ -692,6 +887,18 @@ final class CatalogReader {
                 + g.id
                 + "' here, or make the group optional");
       }
+      return;
+    }
+    int mark = choice.indexOf(Option.PRICE_MARK);
+    if (mark > 0 && g.optionIdAt.containsKey(choice.substring(0, mark))) {
+      problem(
+          path,
+          "names a price point ('"
+              + choice
+              + "') — rules, accepts, value and utility name the option without a price and apply to"
+              + " every price point of it; write '"
+              + choice.substring(0, mark)
+              + "'");
       return;
     }
     if (g.complete && !g.optionIdAt.containsKey(choice)) {
@@ -871,13 +1078,18 @@ final class CatalogReader {
   }
 
   private Double requiredNumber(JsonNode o, String path, String field, String hint) {
+    return requiredNumber(o, path, field, hint, true);
+  }
+
+  private Double requiredNumber(
+      JsonNode o, String path, String field, String hint, boolean nonNegative) {
     String at = Where.field(path, field);
     JsonNode v = o.get(field);
     if (v == null || v.isNull()) {
       problem(at, (v == null ? "missing" : "is empty") + " — give " + hint);
       return null;
     }
-    return number(v, at, hint, true);
+    return number(v, at, hint, nonNegative);
   }
 
   private double optionalNumber(JsonNode o, String path, String field, double absent, String hint) {

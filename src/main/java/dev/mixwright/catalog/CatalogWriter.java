@@ -21,7 +21,9 @@ import java.util.TreeMap;
  * Writes a catalog in the schema {@link CatalogLoader} reads, in one canonical form: fields in a
  * fixed order, options inline (never as CSV tables), defaults written out ({@code required}, {@code
  * maxShare}, {@code uses}, {@code accepts}, {@code value}, {@code introductionCost}, {@code
- * minLot}); absent labels and names are left out, and so is {@code maxVariants} when there is no
+ * minLot}, a choosing segment's {@code stayOut} and {@code utility}); an option with one price
+ * point is written with {@code price}, one with several with {@code prices}; a choosing segment's
+ * part-worths are all written inline (never as a {@code utilityFile}); absent labels and names are left out, and so is {@code maxVariants} when there is no
  * limit, and an option's {@code tooling} when it is 0. Whole numbers are written without a fraction; other numbers in Java's shortest round-trip
  * form, so {@code CatalogLoader.parse(toJson(c), "x.json", null)} equals {@code c} for any catalog
  * the loader accepts.
@@ -99,7 +101,12 @@ public final class CatalogWriter {
         ObjectNode on = options.addObject();
         on.put("id", o.id());
         putText(on, "label", o.label());
-        putNumber(on, "price", o.price());
+        if (o.hasPricePoints()) {
+          ArrayNode prices = on.putArray("prices");
+          o.prices().forEach(x -> addNumber(prices, x));
+        } else {
+          putNumber(on, "price", o.price());
+        }
         putNumber(on, "cost", o.cost());
         ObjectNode uses = on.putObject("uses");
         for (String key : inResourceOrder(c, o.uses())) {
@@ -123,14 +130,28 @@ public final class CatalogWriter {
       ObjectNode n = segments.addObject();
       n.put("id", s.id());
       putText(n, "label", s.label());
-      putNumber(n, "demand", s.demand());
-      putNumber(n, "maxShare", s.maxShare());
+      if (!s.chooses()) {
+        putNumber(n, "demand", s.demand());
+        putNumber(n, "maxShare", s.maxShare());
+      }
       ObjectNode accepts = n.putObject("accepts");
       s.accepts().forEach((g, choices) -> choices.forEach(accepts.putArray(g)::add));
       ObjectNode value = n.putObject("value");
       for (String key : inChoiceOrder(c, s.value())) {
         putNumber(value, key, s.value().get(key));
       }
+      s.choice()
+          .ifPresent(
+              ch -> {
+                ObjectNode cn = n.putObject("choice");
+                putNumber(cn, "buyers", ch.buyers());
+                putNumber(cn, "stayOut", ch.stayOut());
+                putNumber(cn, "priceWeight", ch.priceWeight());
+                ObjectNode utility = cn.putObject("utility");
+                for (String key : inChoiceOrder(c, ch.utility())) {
+                  putNumber(utility, key, ch.utility().get(key));
+                }
+              });
     }
     c.portfolio()
         .ifPresent(
@@ -160,12 +181,24 @@ public final class CatalogWriter {
 
   /** 520 rather than 520.0; -0.0 keeps its sign so that it reads back equal. */
   private static void putNumber(ObjectNode n, String field, double x) {
-    boolean negativeZero = x == 0 && Double.doubleToRawLongBits(x) != 0;
-    if (x == Math.rint(x) && Math.abs(x) <= EXACT_LONG && !negativeZero) {
+    if (asLong(x)) {
       n.put(field, (long) x);
     } else {
       n.put(field, x);
     }
+  }
+
+  private static void addNumber(ArrayNode a, double x) {
+    if (asLong(x)) {
+      a.add((long) x);
+    } else {
+      a.add(x);
+    }
+  }
+
+  private static boolean asLong(double x) {
+    boolean negativeZero = x == 0 && Double.doubleToRawLongBits(x) != 0;
+    return x == Math.rint(x) && Math.abs(x) <= EXACT_LONG && !negativeZero;
   }
 
   /** Keys of a uses map in the catalog's resource order; unknown keys after, sorted. */

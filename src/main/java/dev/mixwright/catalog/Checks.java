@@ -42,6 +42,12 @@ final class Checks {
           + Where.quote(id)
           + ") — they separate choices in group=option,group=option; use '-' or '_' instead";
     }
+    if (kind == IdKind.OPTION && id.indexOf(Option.PRICE_MARK) >= 0) {
+      return "must not contain '@' ("
+          + Where.quote(id)
+          + ") — it separates an option from its price point in group=option@price; use '-' or '_'"
+          + " instead";
+    }
     if (kind == IdKind.GROUP && id.indexOf('.') >= 0) {
       return "must not contain '.' ("
           + Where.quote(id)

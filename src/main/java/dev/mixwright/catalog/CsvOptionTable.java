@@ -29,7 +29,7 @@ final class CsvOptionTable {
 
   private CsvOptionTable() {}
 
-  private record Row(int line, List<String> cells) {}
+  record Row(int line, List<String> cells) {}
 
   /**
    * Reads the table into {@code out}, registering each option id with {@code ref}. Returns the
@@ -42,44 +42,13 @@ final class CsvOptionTable {
       String fileName,
       Path baseDir,
       List<Option> out) {
-    if (baseDir == null) {
-      reader.problem(
-          fieldPath,
-          "cannot read '"
-              + fileName
-              + "': the catalog was not read from a file, so there is no folder to look in — list"
-              + " the options inline, or load the catalog from its file");
-      return -1;
-    }
-    Path file = baseDir.resolve(fileName);
-    String text;
-    try {
-      text = Files.readString(file, StandardCharsets.UTF_8);
-    } catch (NoSuchFileException e) {
-      reader.problem(
-          fieldPath,
-          "cannot read '"
-              + fileName
-              + "': no such file (looked for "
-              + file
-              + ") — option tables are found relative to the catalog file's folder");
-      return -1;
-    } catch (MalformedInputException e) {
-      reader.problem(fieldPath, "'" + fileName + "' is not UTF-8 text — save it as CSV in UTF-8");
-      return -1;
-    } catch (IOException e) {
-      String why = Files.isDirectory(file) ? "it is a folder" : String.valueOf(e.getMessage());
-      reader.problem(fieldPath, "cannot read '" + fileName + "': " + why);
+    String text = readFile(reader, fieldPath, fileName, baseDir, "option tables", "list the options inline");
+    if (text == null) {
       return -1;
     }
     String at = fieldPath + " " + fileName;
-    List<Row> rows;
-    try {
-      rows = rows(text.startsWith("\uFEFF") ? text.substring(1) : text);
-    } catch (JsonProcessingException e) {
-      int line = e.getLocation() == null ? -1 : e.getLocation().getLineNr();
-      reader.problem(
-          line > 0 ? at + " line " + line : at, "not valid CSV: " + e.getOriginalMessage());
+    List<Row> rows = rows(reader, at, text);
+    if (rows == null) {
       return -1;
     }
     if (rows.isEmpty()) {
@@ -146,13 +115,7 @@ final class CsvOptionTable {
     for (Row row : rows.subList(1, rows.size())) {
       String lineAt = at + " line " + row.line();
       if (row.cells().size() != width) {
-        reader.problem(
-            lineAt,
-            "has "
-                + row.cells().size()
-                + " cells, the header has "
-                + width
-                + " — check for a missing or extra comma (quote cells that contain commas)");
+        reader.problem(lineAt, cellCountProblem(row, width));
         int idColumn = column.get("id");
         if (idColumn < row.cells().size() && !row.cells().get(idColumn).isEmpty()) {
           reader.registerOption(ref, row.cells().get(idColumn), lineAt + " column id");
@@ -165,6 +128,47 @@ final class CsvOptionTable {
       }
     }
     return rows.size() - 1;
+  }
+
+  /**
+   * The text of a CSV file next to the catalog, or null (and a problem at {@code fieldPath}) when
+   * it cannot be read. {@code kind} names such files in messages ("option tables"), {@code inline}
+   * says how to do without one.
+   */
+  static String readFile(
+      CatalogReader reader, String fieldPath, String fileName, Path baseDir, String kind, String inline) {
+    if (baseDir == null) {
+      reader.problem(
+          fieldPath,
+          "cannot read '"
+              + fileName
+              + "': the catalog was not read from a file, so there is no folder to look in — "
+              + inline
+              + ", or load the catalog from its file");
+      return null;
+    }
+    Path file = baseDir.resolve(fileName);
+    try {
+      return Files.readString(file, StandardCharsets.UTF_8);
+    } catch (NoSuchFileException e) {
+      reader.problem(
+          fieldPath,
+          "cannot read '"
+              + fileName
+              + "': no such file (looked for "
+              + file
+              + ") — "
+              + kind
+              + " are found relative to the catalog file's folder");
+      return null;
+    } catch (MalformedInputException e) {
+      reader.problem(fieldPath, "'" + fileName + "' is not UTF-8 text — save it as CSV in UTF-8");
+      return null;
+    } catch (IOException e) {
+      String why = Files.isDirectory(file) ? "it is a folder" : String.valueOf(e.getMessage());
+      reader.problem(fieldPath, "cannot read '" + fileName + "': " + why);
+      return null;
+    }
   }
 
   private static Option readRow(
@@ -260,6 +264,27 @@ final class CsvOptionTable {
       return null;
     }
     return x;
+  }
+
+  /** The message for a row whose number of cells differs from the header's. */
+  static String cellCountProblem(Row row, int width) {
+    return "has "
+        + row.cells().size()
+        + " cells, the header has "
+        + width
+        + " — check for a missing or extra comma (quote cells that contain commas)";
+  }
+
+  /** The rows of CSV text (a leading byte-order mark dropped), or null and a problem at {@code at}. */
+  static List<Row> rows(CatalogReader reader, String at, String text) {
+    try {
+      return rows(text.startsWith("\uFEFF") ? text.substring(1) : text);
+    } catch (JsonProcessingException e) {
+      int line = e.getLocation() == null ? -1 : e.getLocation().getLineNr();
+      reader.problem(
+          line > 0 ? at + " line " + line : at, "not valid CSV: " + e.getOriginalMessage());
+      return null;
+    }
   }
 
   /** Rows with the line each starts on; rows whose cells are all blank are left out. */

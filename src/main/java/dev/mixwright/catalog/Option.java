@@ -1,24 +1,73 @@
 package dev.mixwright.catalog;
 
+import java.util.List;
 import java.util.Map;
 
 /**
- * One choice of an option group: what it adds to list price and variable cost, and how much of each
+ * One option of an option group: what it adds to list price and variable cost, and how much of each
  * shared resource one unit with this option uses (resource id to amount; absent means zero).
  * {@code tooling}: a one-off cost of the integer stage, paid once if any offered variant uses this
  * option (0 when the catalog gives none).
+ *
+ * <p>{@code prices} holds the option's price points in the order of the file: one entry when the
+ * file gives {@code price}, several when it gives {@code prices: [760, 820, 880]}. Each point is a
+ * choice of its own in the variant space (written {@code option@price}); the file form {@code price:
+ * 760} and {@code prices: [760]} are the same option.
  */
 public record Option(
-    String id, String label, double price, double cost, Map<String, Double> uses, double tooling) {
+    String id,
+    String label,
+    List<Double> prices,
+    double cost,
+    Map<String, Double> uses,
+    double tooling) {
+
   public Option {
+    prices = List.copyOf(prices);
+    if (prices.isEmpty()) {
+      throw new IllegalArgumentException("option '" + id + "' needs at least one price");
+    }
     uses = Map.copyOf(uses);
   }
 
-  public Option(String id, String label, double price, double cost, Map<String, Double> uses) {
-    this(id, label, price, cost, uses, 0.0);
+  public Option(String id, String label, double price, double cost, Map<String, Double> uses, double tooling) {
+    this(id, label, List.of(price), cost, uses, tooling);
   }
 
-  public double margin() {
-    return price - cost;
+  public Option(String id, String label, double price, double cost, Map<String, Double> uses) {
+    this(id, label, List.of(price), cost, uses, 0.0);
   }
+
+  /**
+   * The option's price; with several price points, the first listed. Code that handles variants
+   * should take the price of the chosen point from {@code VariantSpace.choicePrice}.
+   */
+  public double price() {
+    return prices.get(0);
+  }
+
+  /** Number of price points (1 for an option with a single {@code price}). */
+  public int pricePointCount() {
+    return prices.size();
+  }
+
+  public boolean hasPricePoints() {
+    return prices.size() > 1;
+  }
+
+  /** Price minus cost at the first (or only) price point. */
+  public double margin() {
+    return price() - cost;
+  }
+
+  /**
+   * How point k is written in a variant: {@code d28@820} for an option with several price points,
+   * the bare id otherwise.
+   */
+  public String pointId(int k) {
+    return hasPricePoints() ? id + PRICE_MARK + Where.num(prices.get(k)) : id;
+  }
+
+  /** Separates an option id from its price point in a variant: {@code deck=d28@820}. */
+  public static final char PRICE_MARK = '@';
 }

@@ -6,6 +6,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.choice.ChoiceDescription;
 import dev.mixwright.report.Json;
 import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.VariantSpace;
@@ -44,10 +45,12 @@ final class CheckCommand implements Callable<Integer> {
     VariantSpace space = new VariantSpace(catalog);
     SpaceFacts facts = SpaceFacts.of(space);
     List<String> notes = notes(space, facts);
+    ChoiceDescription choices = ChoiceDescription.of(space);
+    notes.addAll(choices.warnings());
     if (json) {
-      out.println(Json.pretty().writeValueAsString(toJson(catalog, space, facts, notes)));
+      out.println(Json.pretty().writeValueAsString(toJson(catalog, space, facts, notes).set("choice", choices.json())));
     } else {
-      print(out, catalog, space, facts, notes);
+      print(out, catalog, space, facts, notes, choices.lines());
     }
     return facts.nothingSellable() ? ExitCodes.STOPPED : ExitCodes.OK;
   }
@@ -94,7 +97,8 @@ final class CheckCommand implements Callable<Integer> {
     }
   }
 
-  private static void print(PrintWriter out, Catalog c, VariantSpace space, SpaceFacts facts, List<String> notes) {
+  private static void print(PrintWriter out, Catalog c, VariantSpace space, SpaceFacts facts, List<String> notes,
+      List<String> choiceLines) {
     out.println(c.name() + " — valid");
     out.println(String.format(Locale.ROOT, "  %d option groups, %d choices in all", c.groups().size(), space.totalChoices()));
     for (Group g : c.groups()) {
@@ -112,13 +116,15 @@ final class CheckCommand implements Callable<Integer> {
     out.println("  " + c.segments().size() + " segments");
     for (int s = 0; s < c.segments().size(); s++) {
       Segment seg = c.segments().get(s);
-      out.println(String.format(Locale.ROOT, "    %-16s demand %s, max share %s, accepts %s variants",
-          seg.id(), Numbers.qty(seg.demand()), Numbers.qty(seg.maxShare()), facts.perSegment().get(s).text()));
+      out.println(String.format(Locale.ROOT, "    %-16s %s, accepts %s variants", seg.id(), seg.chooses()
+          ? "chooses (see below)" : "demand " + Numbers.qty(seg.demand()) + ", max share " + Numbers.qty(seg.maxShare()),
+          facts.perSegment().get(s).text()));
     }
     c.portfolio().ifPresent(p -> out.println(String.format(Locale.ROOT,
         "  portfolio: introduction cost %s per variant, at most %s variants, minimum lot %s",
         Numbers.money(p.introductionCost()), p.maxVariants() == Integer.MAX_VALUE ? "unlimited" : p.maxVariants(),
         Numbers.qty(p.minLot()))));
+    choiceLines.forEach(out::println);
     for (String note : notes) {
       out.println("  note: " + note);
     }

@@ -2,6 +2,7 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.choice.NotSolvedYet;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.SolveOutcome;
@@ -119,6 +120,7 @@ final class SolveCommand implements Callable<Integer> {
     if (scenarioFile != null) {
       catalog = Inputs.withScenario(catalog, scenarioFile);
     }
+    NotSolvedYet.refuseChoiceFeatures(catalog);
     VariantSpace space = new VariantSpace(catalog);
     Pricer pricer;
     try {

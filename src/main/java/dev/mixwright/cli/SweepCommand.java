@@ -3,6 +3,7 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.choice.NotSolvedYet;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.catalog.Scenario;
@@ -102,6 +103,7 @@ final class SweepCommand implements Callable<Integer> {
     }
     Catalog catalog = Inputs.catalog(catalogFile);
     String sha = Inputs.sha256(catalogFile);
+    NotSolvedYet.refuseChoiceFeatures(catalog);
     SweepPlan plan;
     try {
       plan = plan(catalog);

@@ -1,6 +1,7 @@
 package dev.mixwright.space;
 
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Choice;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.Rule;
@@ -18,8 +19,16 @@ import java.util.StringJoiner;
  * is an {@code int[]} of one choice index per group. Rules become {@link Nogood}s; a rule that names a
  * single group becomes a restriction of that group's choices ({@link #allowed(int)}) instead.
  *
+ * <p>Each price point of an option is a choice of its own: an option with {@code prices: [760, 820]}
+ * gives two consecutive choices, written {@code d28@760} and {@code d28@820}, so a group's choice
+ * count is the number of its price points (plus {@code none}). Rules, {@code accepts}, {@code value}
+ * and part-worths name the option and are compiled onto every price point of it; counting the space
+ * counts each price point as a distinct variant. {@link #optionOf} and {@link #pricePointOf} map a
+ * choice back to the catalog.
+ *
  * <p>All per-choice data lives in flat {@code double[]}/{@code boolean[]} arrays; nothing here lists
- * the space.
+ * the space. For a segment that chooses, {@link #choiceUtilities(int)} holds each choice's share of
+ * the utility, so that u_s(v) = Σ_g util_s[offset(g) + v_g] (see {@link #utility}).
  */
 public final class VariantSpace {
   private final Catalog catalog;
@@ -28,11 +37,17 @@ public final class VariantSpace {
   private final int segmentCount;
   private final int[] choiceCount;
   private final int[] offset;
+  private final int[] optionOf;
+  private final int[] pointOf;
+  private final double[] price;
+  private final double[] cost;
   private final double[] margin;
   private final double[] use;
   private final boolean[] allowed;
   private final double[][] segmentValue;
   private final boolean[][] segmentAllowed;
+  private final double[][] partWorth;
+  private final double[][] choiceUtility;
   private final Nogood[] nogoods;
   private final int[][] nogoodsOfGroup;
   private final int[] bitsOfGroup;
@@ -48,20 +63,39 @@ public final class VariantSpace {
     choiceCount = new int[groupCount];
     offset = new int[groupCount + 1];
     for (int g = 0; g < groupCount; g++) {
-      choiceCount[g] = groups.get(g).choiceCount();
-      offset[g + 1] = offset[g] + choiceCount[g];
+      Group group = groups.get(g);
+      int n = group.required() ? 0 : 1;
+      for (Option o : group.options()) {
+        n += o.pricePointCount();
+      }
+      choiceCount[g] = n;
+      offset[g + 1] = offset[g] + n;
     }
     int total = offset[groupCount];
+    optionOf = new int[total];
+    pointOf = new int[total];
+    price = new double[total];
+    cost = new double[total];
     margin = new double[total];
     use = new double[total * resourceCount];
     for (int g = 0; g < groupCount; g++) {
       List<Option> options = groups.get(g).options();
+      int f = offset[g];
       for (int k = 0; k < options.size(); k++) {
         Option o = options.get(k);
-        margin[offset[g] + k] = o.margin();
-        for (Map.Entry<String, Double> u : o.uses().entrySet()) {
-          use[(offset[g] + k) * resourceCount + catalog.resourceIndex(u.getKey())] = u.getValue();
+        for (int p = 0; p < o.pricePointCount(); p++, f++) {
+          optionOf[f] = k;
+          pointOf[f] = p;
+          price[f] = o.prices().get(p);
+          cost[f] = o.cost();
+          margin[f] = price[f] - cost[f];
+          for (Map.Entry<String, Double> u : o.uses().entrySet()) {
+            use[f * resourceCount + catalog.resourceIndex(u.getKey())] = u.getValue();
+          }
         }
+      }
+      if (f < offset[g + 1]) {
+        optionOf[f] = options.size(); // none
       }
     }
     allowed = new boolean[total];
@@ -81,10 +115,14 @@ public final class VariantSpace {
     }
     segmentValue = new double[segmentCount][total];
     segmentAllowed = new boolean[segmentCount][];
+    partWorth = new double[segmentCount][total];
+    choiceUtility = new double[segmentCount][];
     for (int s = 0; s < segmentCount; s++) {
       Segment seg = catalog.segments().get(s);
       for (Map.Entry<String, Double> v : seg.value().entrySet()) {
-        segmentValue[s][flatOf(v.getKey())] = v.getValue();
+        for (int f : flatsOf(v.getKey())) {
+          segmentValue[s][f] = v.getValue();
+        }
       }
       boolean[] ok = allowed.clone();
       for (Map.Entry<String, List<String>> a : seg.accepts().entrySet()) {
@@ -95,6 +133,19 @@ public final class VariantSpace {
         }
       }
       segmentAllowed[s] = ok;
+      if (seg.chooses()) {
+        Choice ch = seg.choice().orElseThrow();
+        for (Map.Entry<String, Double> u : ch.utility().entrySet()) {
+          for (int f : flatsOf(u.getKey())) {
+            partWorth[s][f] = u.getValue();
+          }
+        }
+        double[] util = new double[total];
+        for (int f = 0; f < total; f++) {
+          util[f] = partWorth[s][f] + ch.priceWeight() * (price[f] + segmentValue[s][f]);
+        }
+        choiceUtility[s] = util;
+      }
     }
     bitsOfGroup = new int[groupCount];
     int bits = 0;
@@ -105,10 +156,21 @@ public final class VariantSpace {
     keyWords = Math.max(1, (bits + 63) / 64);
   }
 
-  private int flatOf(String groupDotOption) {
+  /** The flat choices of {@code "group.option"}: every price point of the option. */
+  private int[] flatsOf(String groupDotOption) {
     int dot = groupDotOption.indexOf('.');
     int g = catalog.groupIndex(groupDotOption.substring(0, dot));
-    return offset[g] + catalog.groups().get(g).indexOf(groupDotOption.substring(dot + 1));
+    return choicesOfOption(g, catalog.groups().get(g).indexOf(groupDotOption.substring(dot + 1)));
+  }
+
+  /**
+   * Flat indices of the choices of option k of group g (all its price points), or of {@code none}
+   * when k is the group's option count.
+   */
+  public int[] choicesOfOption(int g, int k) {
+    return java.util.stream.IntStream.range(offset[g], offset[g + 1])
+        .filter(f -> optionOf[f] == k)
+        .toArray();
   }
 
   /** Flat membership array with the listed choices of group g set. */
@@ -116,7 +178,9 @@ public final class VariantSpace {
     boolean[] m = new boolean[offset[groupCount]];
     Group group = catalog.groups().get(g);
     for (String id : choiceIds) {
-      m[offset[g] + group.indexOf(id)] = true;
+      for (int f : choicesOfOption(g, group.indexOf(id))) {
+        m[f] = true;
+      }
     }
     return m;
   }
@@ -216,6 +280,140 @@ public final class VariantSpace {
   /** Price minus cost of a flat choice ({@code none} is 0). */
   public double choiceMargin(int flat) {
     return margin[flat];
+  }
+
+  /** List price of a flat choice: the price point it stands for ({@code none} is 0). */
+  public double choicePrice(int flat) {
+    return price[flat];
+  }
+
+  /** Variable cost of a flat choice ({@code none} is 0). */
+  public double choiceCost(int flat) {
+    return cost[flat];
+  }
+
+  /** The group of a flat choice. */
+  public int groupOf(int flat) {
+    // Offsets rise strictly: every group has at least one choice.
+    int g = Arrays.binarySearch(offset, flat);
+    return g >= 0 ? g : -g - 2;
+  }
+
+  /**
+   * Index in {@code Group.options()} of the option a flat choice stands for; the group's option
+   * count for {@code none}.
+   */
+  public int optionOf(int flat) {
+    return optionOf[flat];
+  }
+
+  /** Index of a flat choice's price point in {@code Option.prices()} (0 for {@code none}). */
+  public int pricePointOf(int flat) {
+    return pointOf[flat];
+  }
+
+  /** True for the {@code none} choice of an optional group. */
+  public boolean isNone(int flat) {
+    return optionOf[flat] == catalog.groups().get(groupOf(flat)).options().size();
+  }
+
+  /**
+   * How choice k of group g is written in a variant: the option id, {@code option@price} for a price
+   * point of an option with several, or {@code none}.
+   */
+  public String choiceId(int g, int k) {
+    int f = offset[g] + k;
+    Group group = catalog.groups().get(g);
+    return optionOf[f] == group.options().size()
+        ? Group.NONE
+        : group.options().get(optionOf[f]).pointId(pointOf[f]);
+  }
+
+  /** The option id of choice k of group g without its price point ({@code none} for none). */
+  public String optionId(int g, int k) {
+    return catalog.groups().get(g).choiceId(optionOf[offset[g] + k]);
+  }
+
+  /** True when segment s chooses by multinomial logit. */
+  public boolean chooses(int s) {
+    return choiceUtility[s] != null;
+  }
+
+  /** Potential buyers of a choosing segment s (its demand cap, as for any segment). */
+  public double buyers(int s) {
+    return catalog.segments().get(s).demand();
+  }
+
+  /** Utility of staying out for a choosing segment s. */
+  public double stayOut(int s) {
+    return choiceOf(s).stayOut();
+  }
+
+  /** Utility per currency unit of price for a choosing segment s. */
+  public double priceWeight(int s) {
+    return choiceOf(s).priceWeight();
+  }
+
+  private Choice choiceOf(int s) {
+    return catalog
+        .segments()
+        .get(s)
+        .choice()
+        .orElseThrow(() -> new IllegalStateException("segment " + s + " does not choose"));
+  }
+
+  /** Part-worth of a flat choice in segment s (0 when not given, and in fixed segments). */
+  public double partWorth(int s, int flat) {
+    return partWorth[s][flat];
+  }
+
+  /** Part-worths of segment s over all flat choices (a copy). */
+  public double[] partWorths(int s) {
+    return partWorth[s].clone();
+  }
+
+  /**
+   * A flat choice's contribution to the utility of a choosing segment s: part-worth + priceWeight ×
+   * (price + value_s). Throws for a segment that does not choose.
+   */
+  public double choiceUtility(int s, int flat) {
+    return utilitiesOf(s)[flat];
+  }
+
+  /** {@link #choiceUtility} of every flat choice of a choosing segment s (a copy). */
+  public double[] choiceUtilities(int s) {
+    return utilitiesOf(s).clone();
+  }
+
+  private double[] utilitiesOf(int s) {
+    if (choiceUtility[s] == null) {
+      throw new IllegalStateException(
+          "segment '" + catalog.segments().get(s).id() + "' does not choose; it has no utilities");
+    }
+    return choiceUtility[s];
+  }
+
+  /**
+   * u_s(v) = Σ part-worths + priceWeight · price_s(v) of PRODUCT.md, for a choosing segment s;
+   * additive over the groups.
+   */
+  public double utility(int[] v, int s) {
+    double[] util = utilitiesOf(s);
+    double u = 0;
+    for (int g = 0; g < groupCount; g++) {
+      u += util[offset[g] + v[g]];
+    }
+    return u;
+  }
+
+  /** price_s(v): the chosen price points plus segment s's value of the chosen options. */
+  public double price(int[] v, int s) {
+    double p = 0;
+    for (int g = 0; g < groupCount; g++) {
+      int f = offset[g] + v[g];
+      p += price[f] + segmentValue[s][f];
+    }
+    return p;
   }
 
   /** Use of resource r by a flat choice. */
@@ -322,17 +520,19 @@ public final class VariantSpace {
     return new VariantKey(words);
   }
 
-  /** Group id to choice id, in group order (includes {@code none} for an absent optional group). */
+  /**
+   * Group id to choice id ({@link #choiceId}: {@code d28@820} for a price point), in group order;
+   * includes {@code none} for an absent optional group. {@link #parse} reads it back.
+   */
   public Map<String, String> describe(int[] v) {
     LinkedHashMap<String, String> m = new LinkedHashMap<>();
     for (int g = 0; g < groupCount; g++) {
-      Group group = catalog.groups().get(g);
-      m.put(group.id(), group.choiceId(v[g]));
+      m.put(catalog.groups().get(g).id(), choiceId(g, v[g]));
     }
     return m;
   }
 
-  /** {@code group=option,group=option,...}, the form {@code explain --variant} takes. */
+  /** {@code group=option,group=option@price,...}, the form {@code explain --variant} takes. */
   public String label(int[] v) {
     StringJoiner j = new StringJoiner(",");
     describe(v).forEach((g, o) -> j.add(g + "=" + o));
@@ -340,7 +540,8 @@ public final class VariantSpace {
   }
 
   /**
-   * Parses group id to choice id into a variant. Groups left out of an optional group mean
+   * Parses group id to choice id into a variant; a price point is written {@code option@price}
+   * (the price as in the catalog, e.g. {@code d28@820}). Groups left out of an optional group mean
    * {@code none}. Throws {@link IllegalArgumentException} naming the group or option that is wrong.
    */
   public int[] parse(Map<String, String> choices) {
@@ -358,21 +559,57 @@ public final class VariantSpace {
           throw new IllegalArgumentException(
               "group '" + group.id() + "' is required: give " + group.id() + "=<option>");
         }
-        v[g] = group.options().size();
+        v[g] = choiceCount[g] - 1;
         continue;
       }
-      int k = group.indexOf(id);
-      if (k < 0) {
-        List<String> ids = new ArrayList<>();
-        for (int i = 0; i < group.choiceCount(); i++) {
-          ids.add(group.choiceId(i));
-        }
-        throw new IllegalArgumentException(
-            "group '" + group.id() + "' has no option '" + id + "'; choose one of " + ids);
-      }
-      v[g] = k;
+      v[g] = parseChoice(g, id);
     }
     return v;
+  }
+
+  private int parseChoice(int g, String id) {
+    for (int k = 0; k < choiceCount[g]; k++) {
+      if (choiceId(g, k).equals(id)) {
+        return k;
+      }
+    }
+    Group group = catalog.groups().get(g);
+    int mark = id.indexOf(Option.PRICE_MARK);
+    String optionId = mark < 0 ? id : id.substring(0, mark);
+    int o = group.indexOf(optionId);
+    if (o >= 0 && o < group.options().size()) {
+      Option option = group.options().get(o);
+      int[] points = choicesOfOption(g, o);
+      if (mark >= 0) {
+        double wanted;
+        try {
+          wanted = Double.parseDouble(id.substring(mark + 1));
+        } catch (NumberFormatException e) {
+          wanted = Double.NaN;
+        }
+        for (int f : points) {
+          if (price[f] == wanted) {
+            return f - offset[g];
+          }
+        }
+      }
+      List<String> ids = choiceIds(g, points);
+      throw new IllegalArgumentException(
+          option.hasPricePoints()
+              ? "option '" + optionId + "' of group '" + group.id() + "' has price points; choose one of " + ids
+              : "option '" + optionId + "' of group '" + group.id() + "' has one price; write it as " + ids.get(0));
+    }
+    List<String> ids = choiceIds(g, java.util.stream.IntStream.range(offset[g], offset[g + 1]).toArray());
+    throw new IllegalArgumentException(
+        "group '" + group.id() + "' has no option '" + id + "'; choose one of " + ids);
+  }
+
+  private List<String> choiceIds(int g, int[] flats) {
+    List<String> ids = new ArrayList<>();
+    for (int f : flats) {
+      ids.add(choiceId(g, f - offset[g]));
+    }
+    return ids;
   }
 
   private List<String> groupIds() {
