@@ -257,9 +257,8 @@ public final class SpaceDiagnosis {
     }
     for (Map.Entry<String, List<String>> e : match.entrySet()) {
       int g = catalog.groupIndex(e.getKey());
-      Group group = catalog.groups().get(g);
-      for (int k = 0; k < group.choiceCount(); k++) {
-        if (!e.getValue().contains(group.choiceId(k))) {
+      for (int k = 0; k < vs.choiceCount(g); k++) {
+        if (!e.getValue().contains(vs.optionId(g, k))) {
           domain[vs.offset(g) + k] = false;
         }
       }
