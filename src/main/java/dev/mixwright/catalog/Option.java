@@ -18,6 +18,14 @@ public record Option(
     this(id, label, price, cost, uses, 0.0);
   }
 
+  /**
+   * This option with another price and cost and every other field kept. Scenarios change options
+   * only through here, so a field added to this record is carried over in one place.
+   */
+  public Option withPriceAndCost(double newPrice, double newCost) {
+    return new Option(id, label, newPrice, newCost, uses, tooling);
+  }
+
   public double margin() {
     return price - cost;
   }

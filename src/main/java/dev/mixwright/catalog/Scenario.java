@@ -213,7 +213,7 @@ public record Scenario(String name, List<Change> changes) {
           double v = a.apply(base);
           problem = nonNegative(v, a, base, "a " + t.field().word);
           List<Option> opts = new ArrayList<>(old.options());
-          opts.set(k, new Option(o.id(), o.label(), price ? v : o.price(), price ? o.cost() : v, o.uses()));
+          opts.set(k, price ? o.withPriceAndCost(v, o.cost()) : o.withPriceAndCost(o.price(), v));
           groups.set(g, new Group(old.id(), old.label(), old.required(), opts));
         }
         case DEMAND, MAX_SHARE -> {

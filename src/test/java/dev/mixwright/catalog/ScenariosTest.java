@@ -66,6 +66,33 @@ class ScenariosTest {
   }
 
   @Test
+  void changingAPriceOrCostKeepsEveryOtherFieldOfTheOption() throws Exception {
+    // A price or cost change once rebuilt the option without its tooling, so a scenario's
+    // portfolio paid no tooling and looked better than it is.
+    Catalog tooled = CatalogLoader.parse("""
+        format: 1
+        resources: [{id: hours, capacity: 100}]
+        groups:
+          - id: body
+            options:
+              - {id: steel, label: Steel body, price: 50, cost: 20, uses: {hours: 2}, tooling: 4000}
+              - {id: alloy, price: 70, cost: 30, tooling: 9000}
+        segments: [{id: all, demand: 40}]
+        """, "tooled.yaml", null);
+    Catalog c = Scenarios.load(file("s.yaml", """
+        options:
+          body.steel: {price: "+5"}
+          body.alloy: {cost: "x2"}
+        """), tooled).applyTo(tooled);
+    Option steel = option(c, "body", "steel");
+    Option alloy = option(c, "body", "alloy");
+    assertEquals(4000, steel.tooling());
+    assertEquals(9000, alloy.tooling());
+    assertEquals(new Option("steel", "Steel body", 55, 20, java.util.Map.of("hours", 2.0), 4000), steel);
+    assertEquals(60, alloy.cost());
+  }
+
+  @Test
   void everyProblemIsReportedAtItsPathInOnePass() throws Exception {
     CatalogException e = assertThrows(CatalogException.class, () -> Scenarios.load(file("bad.yaml", """
         resources:
