@@ -241,7 +241,7 @@ final class ResumeCommand implements Callable<Integer> {
         Double.isFinite(priorBound) ? ", bound " + Numbers.money(priorBound) : ""));
     out.flush();
 
-    SolveSettings settings = new SolveSettings(gap != null ? gap : s.gap(), s.perRound(), 0, 0, s.heuristicFirst());
+    SolveSettings settings = s.forSession(gap);
     long priorElapsed = st.elapsedMs();
     int priorIterations = st.iteration();
     StopCriterion limits = sessionLimits(sessionTimeMs, maxIterations, priorElapsed, priorIterations);

@@ -30,8 +30,7 @@ final class RunSessions {
   }
 
   static RunManifest.Settings settings(SolveSettings s, String pricer) {
-    return new RunManifest.Settings(pricer, s.gapTolerance(), s.perRound(), s.heuristicFirst(),
-        s.timeLimitMs(), s.maxIterations());
+    return RunManifest.Settings.of(s, pricer);
   }
 
   /**

@@ -4,6 +4,7 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.colgen.SolveSettings;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -33,9 +34,28 @@ public record RunManifest(
   /** A file the run was made from: its path as given (made absolute) and its SHA-256. */
   public record Source(String path, String sha256) {}
 
-  /** How the loop runs; limits of 0 mean none. */
+  /**
+   * How the loop runs, every switch of {@link SolveSettings} and the pricer; limits of 0 mean none.
+   * A resume rebuilds the loop from these, so a setting missing here is silently lost on resume.
+   */
   public record Settings(
-      String pricer, double gap, int perRound, boolean heuristicFirst, long timeLimitMs, int maxIterations) {}
+      String pricer, double gap, int perRound, boolean heuristicFirst, long timeLimitMs, int maxIterations,
+      double smoothing, int retireAfter) {
+
+    public static Settings of(SolveSettings s, String pricer) {
+      return new Settings(pricer, s.gapTolerance(), s.perRound(), s.heuristicFirst(), s.timeLimitMs(),
+          s.maxIterations(), s.smoothing(), s.retireAfter());
+    }
+
+    /**
+     * The loop's settings for a later session: the run's own, with {@code gap} when given and no
+     * limits (a session's limits count from its own start and are applied apart).
+     */
+    public SolveSettings forSession(Double gapOverride) {
+      return new SolveSettings(gapOverride != null ? gapOverride : gap, perRound, 0, 0, heuristicFirst,
+          smoothing, retireAfter);
+    }
+  }
 
   /** One process working on the run: 1 is the solve, each resume adds one. */
   public record Session(int number, String kind, String startedAt, String note) {}
@@ -84,6 +104,8 @@ public record RunManifest(
     s.put("heuristicFirst", settings.heuristicFirst());
     s.put("timeLimitMs", settings.timeLimitMs());
     s.put("maxIterations", settings.maxIterations());
+    s.put("smoothing", settings.smoothing());
+    s.put("retireAfter", settings.retireAfter());
     ArrayNode a = n.putArray("sessions");
     for (Session x : sessions) {
       ObjectNode o = a.addObject();
@@ -130,7 +152,10 @@ public record RunManifest(
         need(s, "perRound", name + " settings").asInt(),
         s.path("heuristicFirst").asBoolean(false),
         s.path("timeLimitMs").asLong(0),
-        s.path("maxIterations").asInt(0));
+        s.path("maxIterations").asInt(0),
+        // Run folders written before these were recorded ran with the defaults.
+        s.path("smoothing").asDouble(SolveSettings.DEFAULT_SMOOTHING),
+        s.path("retireAfter").asInt(SolveSettings.DEFAULT_RETIRE_AFTER));
     List<Session> sessions = new ArrayList<>();
     for (JsonNode x : n.path("sessions")) {
       sessions.add(new Session(x.path("number").asInt(), x.path("kind").asText(),

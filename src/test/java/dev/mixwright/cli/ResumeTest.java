@@ -74,6 +74,24 @@ class ResumeTest {
   }
 
   @Test
+  void aResumeKeepsEverySettingTheRunWasStartedWith() throws Exception {
+    // Resume once rebuilt the loop without --smoothing and --retire-after (run.json had no field
+    // for them), so the second session ran with the defaults.
+    Path run = dir.resolve("run");
+    CliRun first = CliRun.of("solve", STARTER.toString(), "--out", run.toString(), "--max-iterations", "1",
+        "--smoothing", "0.4", "--retire-after", "3", "--per-round", "4", "--heuristic-first");
+    assertEquals(1, first.code(), first.toString());
+    CliRun again = CliRun.of("resume", run.toString());
+    assertEquals(0, again.code(), again.toString());
+    assertSameObjective(uninterrupted, run);
+    JsonNode settings = Json.pretty().readTree(run.resolve("run.json").toFile()).path("settings");
+    assertEquals(0.4, settings.path("smoothing").asDouble(-1), settings.toString());
+    assertEquals(3, settings.path("retireAfter").asInt(-1), settings.toString());
+    assertEquals(4, settings.path("perRound").asInt(-1), settings.toString());
+    assertTrue(settings.path("heuristicFirst").asBoolean(false), settings.toString());
+  }
+
+  @Test
   void aTornColumnLogAndATruncatedSnapshotStillResumeToTheSameOptimum() throws Exception {
     Path run = dir.resolve("run");
     assertEquals(1, CliRun.of("solve", STARTER.toString(), "--out", run.toString(), "--max-iterations", "2").code());
