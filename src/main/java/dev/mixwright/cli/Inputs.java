@@ -18,10 +18,15 @@ final class Inputs {
   private Inputs() {}
 
   static Catalog catalog(Path file) throws CatalogException {
+    return hashedCatalog(file).catalog();
+  }
+
+  /** The catalog and the SHA-256 of the bytes it was parsed from (the file is read once). */
+  static CatalogLoader.Hashed hashedCatalog(Path file) throws CatalogException {
     if (!Files.isRegularFile(file)) {
       throw new UserError("no catalog file at " + file + " — give the path of a .yaml, .yml or .json catalog");
     }
-    return CatalogLoader.load(file);
+    return CatalogLoader.loadHashed(file);
   }
 
   /**

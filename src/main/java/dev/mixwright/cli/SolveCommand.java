@@ -2,6 +2,7 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.SolveOutcome;
@@ -114,8 +115,9 @@ final class SolveCommand implements Callable<Integer> {
         throw new UserError("--time-limit: " + e.getMessage());
       }
     }
-    Catalog catalog = Inputs.catalog(catalogFile);
-    String sha = Inputs.sha256(catalogFile);
+    CatalogLoader.Hashed read = Inputs.hashedCatalog(catalogFile);
+    Catalog catalog = read.catalog();
+    String sha = read.sha256();
     if (scenarioFile != null) {
       catalog = Inputs.withScenario(catalog, scenarioFile);
     }

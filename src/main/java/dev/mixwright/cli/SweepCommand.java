@@ -3,6 +3,7 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.catalog.Scenario;
@@ -100,8 +101,9 @@ final class SweepCommand implements Callable<Integer> {
     if (sweepFile != null && !grid.isEmpty()) {
       throw new UserError("give the grid either with --grid or in the --sweep file, not both");
     }
-    Catalog catalog = Inputs.catalog(catalogFile);
-    String sha = Inputs.sha256(catalogFile);
+    CatalogLoader.Hashed read = Inputs.hashedCatalog(catalogFile);
+    Catalog catalog = read.catalog();
+    String sha = read.sha256();
     SweepPlan plan;
     try {
       plan = plan(catalog);
