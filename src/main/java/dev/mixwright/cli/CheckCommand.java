@@ -3,6 +3,8 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.run.Inputs;
+import dev.mixwright.run.SpaceFacts;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;

@@ -51,11 +51,51 @@ final class Summary {
       out.println(String.format(Locale.ROOT, "    %-14s %10s x %s", off.get("segment").asText(),
           Numbers.qty(off.get("quantity").asDouble()), v));
     }
-    PortfolioRun.print(out, space, result);
+    printPortfolio(out, space, result);
     out.println("  written to          " + runDir);
     if (o.status() == RunStatus.STOPPED) {
       out.println("  continue with       mixwright resume " + runDir);
     }
     out.flush();
+  }
+
+  /** The summary lines of the integer stage, when result.json has one. */
+  private static void printPortfolio(PrintWriter out, VariantSpace space, JsonNode result) {
+    JsonNode p = result.get("portfolio");
+    if (p == null) {
+      if (result.has("portfolioPending")) {
+        out.println("  integer portfolio   not run: " + result.get("portfolioPending").asText());
+      }
+      return;
+    }
+    String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();
+    out.println("  integer portfolio   " + p.get("status").asText()
+        + (p.has("reason") ? " (" + p.get("reason").asText() + ")" : ""));
+    out.println("    value             " + Numbers.money(p.get("value").asDouble()) + cur
+        + "   after introduction costs " + Numbers.money(p.get("introductionCosts").asDouble()) + cur);
+    out.println("    bound             " + Numbers.money(p.path("bound").asDouble(Double.NaN)) + cur
+        + "   gap " + Numbers.percent(p.path("gap").asDouble(Double.NaN)));
+    JsonNode proof = p.get("proof");
+    out.println(String.format(Locale.ROOT, "    %d variants, MIP %s, pool %d, survivors added %d%s, time %s",
+        p.get("variants").size(), p.get("solver").get("engine").asText(), proof.get("poolVariants").asInt(),
+        proof.get("survivorsAdded").asInt(), proof.get("survivorsComplete").asBoolean() ? " (all)" : "",
+        Durations.format(p.get("elapsedMs").asLong())));
+    int shown = 0;
+    for (JsonNode v : p.get("variants")) {
+      if (shown++ == 8) {
+        out.println("      ... " + (p.get("variants").size() - 8) + " more in result.json");
+        break;
+      }
+      StringBuilder sales = new StringBuilder();
+      v.get("sales").fields().forEachRemaining(e -> sales.append(sales.length() == 0 ? "" : ", ")
+          .append(e.getKey()).append(' ').append(Numbers.qty(e.getValue().asDouble())));
+      StringBuilder opts = new StringBuilder();
+      v.get("options").fields().forEachRemaining(e -> {
+        if (!e.getValue().asText().equals("none")) {
+          opts.append(opts.length() == 0 ? "" : ",").append(e.getKey()).append('=').append(e.getValue().asText());
+        }
+      });
+      out.println("      " + opts + "  [" + sales + "]");
+    }
   }
 }

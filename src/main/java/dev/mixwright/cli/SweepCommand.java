@@ -12,7 +12,8 @@ import dev.mixwright.catalog.SweepPlan;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.Sweep;
-import dev.mixwright.pricing.Pricers;
+import dev.mixwright.run.Inputs;
+import dev.mixwright.run.RunStart;
 import dev.mixwright.report.AtomicFiles;
 import dev.mixwright.report.Checksums;
 import dev.mixwright.report.Json;
@@ -32,6 +33,7 @@ import java.util.Set;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
@@ -63,15 +65,7 @@ final class SweepCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "DIR", description = "folder for sweep.csv and sweep.json")
   Path outDir;
 
-  @Option(names = "--pricer", paramLabel = "NAME", defaultValue = "bnb", description = "exact pricer: bnb (default), cpsat, brute")
-  String pricerName;
-
-  @Option(names = "--gap", paramLabel = "REL", defaultValue = "1e-6", description = "gap target of each solve (default ${DEFAULT-VALUE})")
-  double gap;
-
-  @Option(names = "--per-round", paramLabel = "K", defaultValue = "" + SolveSettings.DEFAULT_PER_ROUND,
-      description = "columns sought per segment per round (default ${DEFAULT-VALUE})")
-  int perRound;
+  @Mixin LoopOptions loop;
 
   @Option(names = "--cold", description = "solve every scenario from scratch (no warm start; for checking)")
   boolean cold;
@@ -82,22 +76,13 @@ final class SweepCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print sweep.json on stdout instead of the table")
   boolean json;
 
-  @Option(names = "--progress", negatable = true, description = "progress on stderr (default: on a terminal)")
-  Boolean progress;
+  @Mixin ProgressOption progressOption;
 
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
-    if (!(gap >= 0)) {
-      throw new UserError("--gap must be >= 0, got " + gap);
-    }
-    if (perRound < 1) {
-      throw new UserError("--per-round must be at least 1, got " + perRound);
-    }
-    if (!List.of("bnb", "cpsat", "brute").contains(pricerName)) {
-      throw new UserError("--pricer: choose bnb, cpsat or brute, got '" + pricerName + "'");
-    }
+    Boolean progress = progressOption.asked;
     if (sweepFile != null && !grid.isEmpty()) {
       throw new UserError("give the grid either with --grid or in the --sweep file, not both");
     }
@@ -114,7 +99,7 @@ final class SweepCommand implements Callable<Integer> {
     if (points.isEmpty()) {
       throw new UserError("nothing to sweep: give --grid PATH=VALUES, a --sweep file, or --scenario files");
     }
-    SolveSettings settings = new SolveSettings(gap, perRound, 0, 0, false);
+    SolveSettings settings = loop.settings();
     ObjectNode header = Json.pretty().createObjectNode();
     header.put("format", 1);
     header.put("sweep", plan.name());
@@ -122,20 +107,20 @@ final class SweepCommand implements Callable<Integer> {
     cat.put("name", catalog.name());
     cat.put("file", catalogFile.toString());
     cat.put("sha256", sha);
-    header.put("pricer", pricerName);
-    header.put("gap", gap);
+    header.put("pricer", loop.pricer.word());
+    header.put("gap", loop.gap);
     header.put("warmStart", !cold);
     header.put("definitionSha256", definition(plan, sha, settings));
     SweepTable table = new SweepTable(plan, catalog, header);
 
     Files.createDirectories(outDir);
     RunFolder folder = new RunFolder(outDir);
-    try (RunLock lock = RunSessions.lock(folder);
+    try (RunLock lock = RunStart.lock(folder);
         StopSignals signals = StopSignals.install(err)) {
       Set<Integer> done = keepEarlierRows(table, header, err);
       AtomicFiles.write(outDir.resolve("catalog.json"), CatalogWriter.toJson(catalog));
       table.write(outDir);
-      Sweep sweep = new Sweep(catalog, plan, pricerName, settings, !cold);
+      Sweep sweep = new Sweep(catalog, plan, loop.pricer::create, settings, !cold);
       List<Sweep.Row> rows = sweep.run(done, () -> signals.flag().get(), new Sweep.Listener() {
         @Override
         public ColGenListener loopListener(SweepPlan.Point p, int nth, int total) {
@@ -231,7 +216,7 @@ final class SweepCommand implements Callable<Integer> {
       throw new UserError(f + " is not a sweep table (" + e.getMessage() + "); add --replace to start afresh");
     }
     if (!old.path("definitionSha256").asText().equals(header.path("definitionSha256").asText())
-        || !old.path("pricer").asText().equals(pricerName)) {
+        || !old.path("pricer").asText().equals(loop.pricer.word())) {
       throw new UserError(outDir + " holds another sweep (other catalog, scenarios or settings); choose another"
           + " --out folder, or add --replace to overwrite it");
     }

@@ -1,4 +1,4 @@
-package dev.mixwright.cli;
+package dev.mixwright.run;
 
 import dev.mixwright.space.RuleConflict;
 import dev.mixwright.space.RuleNote;
@@ -15,9 +15,9 @@ import java.util.Optional;
  * The size of a catalog's space, in total and per segment; when nothing (or a segment) is
  * sellable, which rules cause it.
  */
-record SpaceFacts(SpaceCount total, List<SpaceCount> perSegment, String emptyReason, List<String> segmentNotes) {
+public record SpaceFacts(SpaceCount total, List<SpaceCount> perSegment, String emptyReason, List<String> segmentNotes) {
 
-  static SpaceFacts of(VariantSpace space) {
+  public static SpaceFacts of(VariantSpace space) {
     SpaceCounter counter = new SpaceCounter(space);
     SpaceCount total = counter.count();
     List<SpaceCount> per = counter.perSegment();
@@ -42,7 +42,7 @@ record SpaceFacts(SpaceCount total, List<SpaceCount> perSegment, String emptyRea
   }
 
   /** Rules that can never fire or that forbid their own when; worth a look, not errors. */
-  static List<String> ruleNotes(VariantSpace space) {
+  public static List<String> ruleNotes(VariantSpace space) {
     List<String> out = new ArrayList<>();
     for (RuleNote n : new SpaceDiagnosis(space).ruleNotes()) {
       if (n.kind() != RuleNote.Kind.IN_CONFLICT) {
@@ -52,16 +52,16 @@ record SpaceFacts(SpaceCount total, List<SpaceCount> perSegment, String emptyRea
     return out;
   }
 
-  BigInteger buildable() {
+  public BigInteger buildable() {
     return total.value();
   }
 
-  boolean exact() {
+  public boolean exact() {
     return total.exact();
   }
 
   /** True when nothing at all can be sold. */
-  boolean nothingSellable() {
+  public boolean nothingSellable() {
     return !emptyReason.isEmpty();
   }
 }

@@ -1,4 +1,4 @@
-package dev.mixwright.cli;
+package dev.mixwright.run;
 
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;

@@ -1,4 +1,4 @@
-package dev.mixwright.cli;
+package dev.mixwright.run;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
@@ -59,7 +59,7 @@ final class CatalogSource {
   private static Catalog loadOrNull(Path src, Path scn) {
     try {
       return load(src, scn);
-    } catch (CatalogException | UserError e) {
+    } catch (CatalogException | InputError e) {
       return null;
     }
   }

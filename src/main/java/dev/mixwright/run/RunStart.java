@@ -1,8 +1,7 @@
-package dev.mixwright.cli;
+package dev.mixwright.run;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogWriter;
-import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.report.AtomicFiles;
 import dev.mixwright.report.Checksums;
 import dev.mixwright.report.RunFolder;
@@ -13,24 +12,20 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 
 /** The start of a durable run, shared by the commands that write run folders. */
-final class RunSessions {
-  private RunSessions() {}
+public final class RunStart {
+  private RunStart() {}
 
   /** Locks the folder for this process, or says in words who holds it (exit 2). */
-  static RunLock lock(RunFolder folder) {
+  public static RunLock lock(RunFolder folder) {
     try {
       return RunLock.acquire(folder);
     } catch (IOException e) {
-      throw new UserError(e.getMessage());
+      throw new InputError(e.getMessage());
     }
   }
 
   static RunManifest.Source source(Path file, String sha256) {
     return new RunManifest.Source(file.toAbsolutePath().normalize().toString(), sha256);
-  }
-
-  static RunManifest.Settings settings(SolveSettings s, String pricer) {
-    return RunManifest.Settings.of(s, pricer);
   }
 
   /**

@@ -1,4 +1,4 @@
-package dev.mixwright.cli;
+package dev.mixwright.run;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
@@ -14,17 +14,17 @@ import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
 
 /** Reading what the user names on the command line, with errors for people. */
-final class Inputs {
+public final class Inputs {
   private Inputs() {}
 
-  static Catalog catalog(Path file) throws CatalogException {
+  public static Catalog catalog(Path file) throws CatalogException {
     return hashedCatalog(file).catalog();
   }
 
   /** The catalog and the SHA-256 of the bytes it was parsed from (the file is read once). */
-  static CatalogLoader.Hashed hashedCatalog(Path file) throws CatalogException {
+  public static CatalogLoader.Hashed hashedCatalog(Path file) throws CatalogException {
     if (!Files.isRegularFile(file)) {
-      throw new UserError("no catalog file at " + file + " — give the path of a .yaml, .yml or .json catalog");
+      throw new InputError("no catalog file at " + file + " — give the path of a .yaml, .yml or .json catalog");
     }
     return CatalogLoader.loadHashed(file);
   }
@@ -33,9 +33,9 @@ final class Inputs {
    * A scenario file applied to {@code base}; its problems come as one bad-input error listing each
    * with its path (the catalog's own problems keep their own wording).
    */
-  static Catalog withScenario(Catalog base, Path scenarioFile) {
+  public static Catalog withScenario(Catalog base, Path scenarioFile) {
     if (!Files.isRegularFile(scenarioFile)) {
-      throw new UserError("no scenario file at " + scenarioFile + " — give the path of a .yaml or .json scenario");
+      throw new InputError("no scenario file at " + scenarioFile + " — give the path of a .yaml or .json scenario");
     }
     try {
       return Scenarios.load(scenarioFile, base).applyTo(base);
@@ -45,16 +45,16 @@ final class Inputs {
   }
 
   /** A CatalogException from a file other than the catalog, as a bad-input error naming that file. */
-  static UserError problems(String what, CatalogException e) {
+  public static InputError problems(String what, CatalogException e) {
     StringBuilder sb = new StringBuilder(what + " has " + e.problems().size()
         + (e.problems().size() == 1 ? " problem:" : " problems:"));
     for (CatalogProblem p : e.problems()) {
       sb.append("\n  ").append(p.path()).append(": ").append(p.message());
     }
-    return new UserError(sb.toString());
+    return new InputError(sb.toString());
   }
 
-  static String sha256(Path file) {
+  public static String sha256(Path file) {
     try (InputStream in = Files.newInputStream(file)) {
       MessageDigest md = MessageDigest.getInstance("SHA-256");
       byte[] buf = new byte[1 << 16];
@@ -63,7 +63,7 @@ final class Inputs {
       }
       return HexFormat.of().formatHex(md.digest());
     } catch (IOException e) {
-      throw new UserError("cannot read " + file + ": " + e.getMessage());
+      throw new InputError("cannot read " + file + ": " + e.getMessage());
     } catch (NoSuchAlgorithmException e) {
       throw new IllegalStateException(e);
     }
