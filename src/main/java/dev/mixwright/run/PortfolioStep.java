@@ -1,6 +1,5 @@
 package dev.mixwright.run;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.portfolio.IntegerStage;
@@ -10,6 +9,7 @@ import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.report.PortfolioLog;
 import dev.mixwright.report.PortfolioSection;
 import dev.mixwright.report.ResultWriter;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.nio.file.Path;
@@ -22,23 +22,22 @@ final class PortfolioStep {
 
   /**
    * Runs the stage when the catalog has a portfolio section and the options do not skip it, writing
-   * {@code portfolio.jsonl} and putting {@code portfolio} into {@code result}; {@code result}'s
-   * elapsedMs then covers both stages. {@code watchers} hear the stage's events.
+   * {@code portfolio.jsonl}; returns {@code result} with its {@code portfolio} section (or why there
+   * is none), its elapsedMs then covering both stages. {@code watchers} hear the stage's events.
    * The LP stage's result.json is written first, so a signal during the stage loses nothing of it;
    * {@code stop} ends the stage early with the best portfolio so far.
    */
-  static void attach(VariantSpace space, SolveOutcome lp, PortfolioPlan plan, Path runDir, ObjectNode result,
+  static RunResult attach(VariantSpace space, SolveOutcome lp, PortfolioPlan plan, Path runDir, RunResult result,
       long startNanos, List<PortfolioListener> watchers, BooleanSupplier stop) throws IOException {
     if (space.catalog().portfolio().isEmpty() || !plan.run()) {
-      return;
+      return result;
     }
     if (!lp.status().isOptimal()) {
       // A stopped LP stage means a limit or a signal ended the run: the integer stage, which can
       // take minutes, waits until 'resume' has finished the LP.
-      result.put("portfolioPending", lp.status() == RunStatus.STOPPED
+      return result.withPortfolioPending(lp.status() == RunStatus.STOPPED
           ? "the LP stage stopped before its optimum; 'mixwright resume' finishes it and then runs the integer stage"
           : "nothing can be sold, so there is no portfolio to choose");
-      return;
     }
     ResultWriter.write(runDir, result);
     PortfolioSettings settings = plan.settings();
@@ -47,8 +46,8 @@ final class PortfolioStep {
       stage.addListener(log);
       watchers.forEach(stage::addListener);
       PortfolioOutcome o = stage.run(lp);
-      PortfolioSection.put(result, space, stage.terms(), o);
-      result.put("elapsedMs", (System.nanoTime() - startNanos) / 1_000_000);
+      return result.withPortfolio(PortfolioSection.of(space, stage.terms(), o),
+          (System.nanoTime() - startNanos) / 1_000_000);
     }
   }
 }

@@ -1,7 +1,7 @@
 package dev.mixwright.run;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.nio.file.Path;
 
@@ -11,7 +11,7 @@ public sealed interface RunOutcome {
   Path runDir();
 
   /** The loop ran (or found nothing sellable) and result.json was written. */
-  record Solved(Path runDir, VariantSpace space, SolveOutcome lp, ObjectNode result) implements RunOutcome {}
+  record Solved(Path runDir, VariantSpace space, SolveOutcome lp, RunResult result) implements RunOutcome {}
 
   /** A resume found the run already proven optimal to its gap target: nothing was done. */
   record AlreadyOptimal(Path runDir, double objective) implements RunOutcome {}

@@ -1,7 +1,5 @@
 package dev.mixwright.run;
 
-import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
@@ -25,7 +23,7 @@ import dev.mixwright.report.ResultWriter;
 import dev.mixwright.report.RunFolder;
 import dev.mixwright.report.RunLock;
 import dev.mixwright.report.RunManifest;
-import dev.mixwright.report.RunReader;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.report.SnapshotWriter;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
@@ -191,15 +189,14 @@ public final class RunSession {
     }
 
     if (!repriced && Files.isRegularFile(folder.result())) {
-      JsonNode result = RunReader.readResult(runDir);
-      String status = result.path("status").asText();
+      RunResult result = RunResult.read(runDir);
       double target = r.gap().orElse(m.settings().gap());
-      if (status.equals(RunStatus.OPTIMAL.word())
-          && result.path("gap").asDouble(Double.POSITIVE_INFINITY) <= target) {
-        return Resumed.ended(new RunOutcome.AlreadyOptimal(runDir, result.path("objective").asDouble()));
+      if (result.status().isOptimal() && result.gapOrInfinity() <= target) {
+        return Resumed.ended(new RunOutcome.AlreadyOptimal(runDir, result.objective()));
       }
-      if (status.equals(RunStatus.INFEASIBLE.word())) {
-        return Resumed.ended(new RunOutcome.EndedInfeasible(runDir, result.path("stopReason").asText()));
+      if (result.status() == RunStatus.INFEASIBLE) {
+        return Resumed.ended(new RunOutcome.EndedInfeasible(runDir,
+            result.stopReason() == null ? "" : result.stopReason()));
       }
     }
 
@@ -309,11 +306,11 @@ public final class RunSession {
     long elapsed = lp.priorElapsedMs() + sinceMs(lp.startNanos());
     ResultWriter.RunInfo info = new ResultWriter.RunInfo(lp.catalogFile(), lp.catalogSha256(), lp.pricer().word(),
         new ResultWriter.SpaceSize(facts.buildable(), facts.exact()), elapsed);
-    ObjectNode result = ResultWriter.build(space, outcome, info);
+    RunResult lpResult = ResultWriter.build(space, outcome, info);
     if (resumed) {
-      result.put("sessions", session);
+      lpResult = lpResult.withSessions(session);
     }
-    PortfolioStep.attach(space, outcome, plan, runDir, result,
+    RunResult result = PortfolioStep.attach(space, outcome, plan, runDir, lpResult,
         lp.startNanos() - lp.priorElapsedMs() * 1_000_000L, watcher.portfolio(), stop::get);
     ResultWriter.write(runDir, result);
     return new RunOutcome.Solved(runDir, space, outcome, result);
