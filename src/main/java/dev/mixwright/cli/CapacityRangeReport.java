@@ -1,6 +1,5 @@
 package dev.mixwright.cli;
 
-import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
@@ -11,6 +10,7 @@ import dev.mixwright.report.ColumnLogReader;
 import dev.mixwright.report.ColumnPool;
 import dev.mixwright.report.Json;
 import dev.mixwright.report.RunFolder;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.report.RunManifest;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
@@ -93,7 +93,7 @@ final class CapacityRangeReport {
     }
   }
 
-  static void print(PrintWriter out, List<CapacityRanges.Range> ranges, JsonNode result) {
+  static void print(PrintWriter out, List<CapacityRanges.Range> ranges, RunResult result) {
     int solves = ranges.stream().mapToInt(CapacityRanges.Range::solves).sum() + ranges.size();
     out.println("capacity ranges of the shadow prices (found by re-solving over the whole space, "
         + solves + " solves):");
@@ -106,8 +106,8 @@ final class CapacityRangeReport {
           Numbers.money(r.capacity()), Numbers.money(r.price()), range, Numbers.money(r.priceBelow()),
           Numbers.money(r.priceAbove())));
     }
-    if (result != null && !result.path("status").asText().equals("optimal")) {
-      out.println("  note: the run ended " + result.path("status").asText()
+    if (!result.status().isOptimal()) {
+      out.println("  note: the run ended " + result.status().word()
           + "; the ranges are those of the re-solved optimum, not of its last master");
     }
   }

@@ -9,7 +9,9 @@ import dev.mixwright.explain.Explanation;
 import dev.mixwright.explain.PriceRange;
 import dev.mixwright.report.Json;
 import dev.mixwright.report.RunFolder;
+import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.report.RunReader;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -85,7 +87,7 @@ final class ExplainCommand implements Callable<Integer> {
         n.set("capacityRanges", CapacityRangeReport.toJson(ranges));
         out.println(Json.pretty().writeValueAsString(n));
       } else {
-        CapacityRangeReport.print(out, ranges, RunReader.readResult(runDir));
+        CapacityRangeReport.print(out, ranges, RunResult.read(runDir));
       }
       return ExitCodes.OK;
     }
@@ -101,7 +103,7 @@ final class ExplainCommand implements Callable<Integer> {
     } catch (IllegalArgumentException e) {
       throw new UserError("--variant: " + e.getMessage());
     }
-    RunReader.RunView run = RunReader.view(catalog, RunReader.readResult(runDir));
+    RunReader.RunView run = RunReader.view(catalog, RunResult.read(runDir));
     Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
     double qty = run.quantity(segmentId, space.describe(v));
     var verdict = PortfolioExplainView.verdict(space, v, run.result());
@@ -186,7 +188,7 @@ final class ExplainCommand implements Callable<Integer> {
     n.put("quantity", qty);
     n.put("inPlan", qty > 0);
     n.put("priceRiseToEnter", qty > 0 ? 0.0 : e.priceRiseToEnter());
-    n.put("runStatus", run.status());
+    n.put("runStatus", run.status().word());
     return n;
   }
 
@@ -209,7 +211,7 @@ final class ExplainCommand implements Callable<Integer> {
     }
     out.println(String.format(Locale.ROOT, "  - %-20s %s  (segment shadow price)", "demand of " + seg, fmt(e.segmentCharge())));
     out.println("  = reduced cost         " + fmt(e.reducedCost()));
-    if (run.status().equals("optimal") || run.status().equals("stopped")) {
+    if (run.status() != RunStatus.INFEASIBLE) {
       if (qty > 0) {
         out.println("  in the plan: " + Numbers.qty(qty) + " units"
             + (e.reducedCost() > 1e-7 ? " (at its share limit: it pays more than its resources' worth)" : ""));
@@ -220,8 +222,8 @@ final class ExplainCommand implements Callable<Integer> {
         out.println("  not in the plan, though it pays as much as its resources' worth: an alternative optimum");
       }
     }
-    if (!run.status().equals("optimal")) {
-      out.println("  note: the run ended " + run.status() + "; shadow prices are those of its last master");
+    if (!run.status().isOptimal()) {
+      out.println("  note: the run ended " + run.status().word() + "; shadow prices are those of its last master");
     }
   }
 

@@ -74,7 +74,7 @@ public final class PortfolioSection {
           Json.num(rx.lpPriceBound()), new RunResult.Prices(pr, ps), Json.num(b.lambda()),
           Json.num(b.valueAtLambda()), rx.elapsedMs());
     }
-    return new RunResult.Portfolio(o.status().word(), o.reason(), o.value(), Json.num(o.bound()), Json.num(o.gap()),
+    return new RunResult.Portfolio(o.status(), o.reason(), o.value(), Json.num(o.bound()), Json.num(o.gap()),
         variants, o.introductionCosts(), o.toolingCosts(), toolingPaid, tn, Json.num(o.lpBound()), relaxation,
         new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize()),
         new RunResult.Solver(o.engine(), o.mipSolves(), o.mipOptimal()), o.elapsedMs());

@@ -9,6 +9,7 @@ import com.fasterxml.jackson.databind.ObjectReader;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.json.JsonMapper;
 import dev.mixwright.colgen.RunStatus;
+import dev.mixwright.portfolio.PortfolioStatus;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -58,7 +59,7 @@ public record RunResult(
 
   /** The integer stage's section. */
   public record Portfolio(
-      String status,
+      PortfolioStatus status,
       @JsonInclude(Include.NON_EMPTY) String reason,
       double value,
       Double bound,
@@ -118,7 +119,7 @@ public record RunResult(
     return gap == null ? Double.POSITIVE_INFINITY : gap;
   }
 
-  /** The result.json words of {@link RunStatus}, both ways. */
+  /** The result.json words of {@link RunStatus} and {@link PortfolioStatus}, both ways. */
   abstract static class StatusWords {
     @JsonValue
     public abstract String word();
@@ -126,6 +127,7 @@ public record RunResult(
 
   private static final ObjectMapper MAPPER = JsonMapper.builder()
       .addMixIn(RunStatus.class, StatusWords.class)
+      .addMixIn(PortfolioStatus.class, StatusWords.class)
       .enable(SerializationFeature.INDENT_OUTPUT)
       .disable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
       .build();
