@@ -16,7 +16,7 @@ import dev.mixwright.pricing.Pricer;
 import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.pricing.PricingQuery;
 import dev.mixwright.pricing.ReducedCosts;
-import dev.mixwright.report.AtomicFiles;
+import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.SpaceCounter;
 import dev.mixwright.space.VariantEnumerator;

@@ -2,13 +2,12 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.report.RunResult;
 import dev.mixwright.explain.PortfolioExplainer;
 import dev.mixwright.explain.PortfolioVerdict;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;

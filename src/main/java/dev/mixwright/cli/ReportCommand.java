@@ -2,7 +2,7 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
 import dev.mixwright.report.HtmlReport;
-import dev.mixwright.report.RunFolder;
+import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;

@@ -1,6 +1,7 @@
 package dev.mixwright.report;
 
 import com.fasterxml.jackson.databind.JsonNode;
+import dev.mixwright.runfolder.AtomicFiles;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;

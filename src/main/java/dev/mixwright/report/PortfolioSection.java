@@ -6,6 +6,7 @@ import dev.mixwright.portfolio.OfferedVariant;
 import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.portfolio.PortfolioTerms;
 import dev.mixwright.portfolio.RelaxationResult;
+import dev.mixwright.runfolder.Json;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.HashSet;

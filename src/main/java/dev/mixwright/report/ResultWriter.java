@@ -1,12 +1,13 @@
 package dev.mixwright.report;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.IterationRecord;
 import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.math.BigInteger;
@@ -17,7 +18,7 @@ import java.util.List;
 
 /** Builds {@code result.json} (fields of PRODUCT.md and more) and writes it atomically. */
 public final class ResultWriter {
-  public static final String FILE = "result.json";
+  public static final String FILE = RunFolder.RESULT;
   /** A quantity below this is reported as not sold. */
   static final double QUANTITY_EPS = 1e-7;
 
@@ -77,14 +78,6 @@ public final class ResultWriter {
         exact ? size : null, exact ? null : size, info.elapsedMs(),
         new RunResult.CatalogRef(cat.name(), info.catalogFile(), info.catalogSha256(), cat.currency(), cat.period()),
         info.pricer(), offers, res, segs, rounds, null, null, null);
-  }
-
-  static void putNum(ObjectNode n, String field, double v) {
-    if (Double.isFinite(v)) {
-      n.put(field, v);
-    } else {
-      n.putNull(field);
-    }
   }
 
   public static void write(Path runDir, RunResult result) throws IOException {

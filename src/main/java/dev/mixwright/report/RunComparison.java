@@ -9,6 +9,7 @@ import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Rule;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.runfolder.Json;
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.LinkedHashMap;

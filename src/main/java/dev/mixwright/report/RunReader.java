@@ -3,6 +3,7 @@ package dev.mixwright.report;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.colgen.RunStatus;
+import dev.mixwright.runfolder.Json;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;

@@ -10,6 +10,8 @@ import dev.mixwright.catalog.Segment;
 import dev.mixwright.catalog.SweepPlan;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.Sweep;
+import dev.mixwright.runfolder.AtomicFiles;
+import dev.mixwright.runfolder.Json;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -71,8 +73,8 @@ public final class SweepTable {
       n.put("stopReason", o.stopReason());
     }
     n.put("objective", o.objective());
-    ResultWriter.putNum(n, "bound", o.bound());
-    ResultWriter.putNum(n, "gap", o.gap());
+    Json.putNum(n, "bound", o.bound());
+    Json.putNum(n, "gap", o.gap());
     n.put("iterations", o.iterations());
     n.put("columnsGenerated", o.columnsGenerated());
     n.put("warmStartColumns", r.warmColumns());
@@ -105,7 +107,7 @@ public final class SweepTable {
     if (t.field() == Scenario.Field.RULE) {
       ax.put(t.path(), t.valueIn(c) > 0 ? "on" : "off");
     } else {
-      ResultWriter.putNum(ax, t.path(), t.valueIn(c));
+      Json.putNum(ax, t.path(), t.valueIn(c));
     }
   }
 
@@ -145,7 +147,7 @@ public final class SweepTable {
             slope = (n.path("objective").asDouble() - prev.path("objective").asDouble()) / (b - bp);
           }
         }
-        ResultWriter.putNum(v, t.path(), slope);
+        Json.putNum(v, t.path(), slope);
       }
     }
   }

@@ -2,11 +2,11 @@ package dev.mixwright.run;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogWriter;
-import dev.mixwright.report.AtomicFiles;
-import dev.mixwright.report.Checksums;
-import dev.mixwright.report.RunFolder;
-import dev.mixwright.report.RunLock;
-import dev.mixwright.report.RunManifest;
+import dev.mixwright.runfolder.AtomicFiles;
+import dev.mixwright.runfolder.Checksums;
+import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.runfolder.RunLock;
+import dev.mixwright.runfolder.RunManifest;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;

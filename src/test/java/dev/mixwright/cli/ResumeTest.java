@@ -4,10 +4,10 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import dev.mixwright.report.ColumnLogReader;
-import dev.mixwright.report.Json;
-import dev.mixwright.report.RunFolder;
-import dev.mixwright.report.RunLock;
+import dev.mixwright.runfolder.ColumnLogReader;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.runfolder.RunLock;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Arrays;

@@ -1,4 +1,4 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.portfolio.PortfolioEvent;
@@ -32,8 +32,8 @@ public final class PortfolioLog implements PortfolioListener, AutoCloseable {
     ObjectNode n = Json.compact().createObjectNode();
     n.put("kind", e.kind());
     n.put("elapsedMs", e.elapsedMs());
-    ResultWriter.putNum(n, "value", e.value());
-    ResultWriter.putNum(n, "bound", e.bound());
+    Json.putNum(n, "value", e.value());
+    Json.putNum(n, "bound", e.bound());
     n.put("pool", e.pool());
     n.put("count", e.count());
     n.put("note", e.note());

@@ -1,4 +1,4 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
@@ -37,9 +37,9 @@ public record LoopSnapshot(
     n.put("session", session);
     n.put("status", status);
     n.put("iteration", iteration);
-    ResultWriter.putNum(n, "objective", objective);
-    ResultWriter.putNum(n, "bound", bound);
-    ResultWriter.putNum(n, "gap", gap);
+    Json.putNum(n, "objective", objective);
+    Json.putNum(n, "bound", bound);
+    Json.putNum(n, "gap", gap);
     n.put("columns", columns);
     n.put("elapsedMs", elapsedMs);
     n.put("writtenAt", Instant.now().toString());

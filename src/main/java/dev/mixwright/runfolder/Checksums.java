@@ -1,4 +1,4 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import java.io.IOException;
 import java.io.InputStream;

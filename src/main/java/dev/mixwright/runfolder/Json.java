@@ -1,7 +1,8 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 
 /** The project's JSON settings in one place. */
 public final class Json {
@@ -17,6 +18,15 @@ public final class Json {
 
   public static ObjectMapper compact() {
     return COMPACT;
+  }
+
+  /** Puts a double, or null when it is not finite (JSON has no infinity). */
+  public static void putNum(ObjectNode n, String field, double v) {
+    if (Double.isFinite(v)) {
+      n.put(field, v);
+    } else {
+      n.putNull(field);
+    }
   }
 
   /** A double for JSON: non-finite values become null rather than invalid JSON. */

@@ -1,4 +1,4 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.IterationRecord;

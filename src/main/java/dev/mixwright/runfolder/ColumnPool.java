@@ -1,4 +1,4 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.WarmStart;

@@ -1,4 +1,4 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -94,8 +94,8 @@ public final class ColumnLog implements ColGenListener, AutoCloseable {
     space.describe(c.choices()).forEach(opts::put);
     n.put("reducedCost", c.reducedCostAtEntry());
     n.put("margin", c.margin());
-    ResultWriter.putNum(n, "objectiveAfter", objectiveAfter);
-    ResultWriter.putNum(n, "boundAfter", boundAfter);
+    Json.putNum(n, "objectiveAfter", objectiveAfter);
+    Json.putNum(n, "boundAfter", boundAfter);
     n.put("elapsedMs", elapsedMs);
     return sealed(Json.compact().writeValueAsString(n));
   }

@@ -1,17 +1,18 @@
-package dev.mixwright.report;
+package dev.mixwright.runfolder;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
 
 /** The files of one run and where they live. */
 public record RunFolder(Path dir) {
+  public static final String RESULT = "result.json";
   public static final String CATALOG_COPY = "catalog.json";
   public static final String MANIFEST = "run.json";
   public static final String SNAPSHOT = "state.json";
   public static final String LOCK = ".lock";
 
   public Path result() {
-    return dir.resolve(ResultWriter.FILE);
+    return dir.resolve(RESULT);
   }
 
   public Path columnLog() {
