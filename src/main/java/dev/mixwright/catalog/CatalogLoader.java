@@ -108,7 +108,7 @@ public final class CatalogLoader {
    * YAML or JSON text (picked by the file name's ending) as a tree, for the files that sit beside a
    * catalog (scenarios, sweeps); text that is neither is one problem naming the line and column.
    */
-  static JsonNode parseTree(String text, String fileNameForFormat) throws CatalogException {
+  public static JsonNode parseTree(String text, String fileNameForFormat) throws CatalogException {
     String name = nameOf(fileNameForFormat, null);
     boolean yaml = formatOf(name);
     String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
@@ -120,7 +120,7 @@ public final class CatalogLoader {
   }
 
   /** A file's text, or one problem saying in words why it cannot be read. */
-  static String readText(Path file, String name) throws CatalogException {
+  public static String readText(Path file, String name) throws CatalogException {
     formatOf(name);
     if (Files.isDirectory(file)) {
       throw new CatalogException(
@@ -155,7 +155,7 @@ public final class CatalogLoader {
 
 
   /** The file name problems are reported under. */
-  static String displayName(Path file) {
+  public static String displayName(Path file) {
     return nameOf(file.toString(), file);
   }
 

@@ -2,8 +2,8 @@ package dev.mixwright.colgen;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
-import dev.mixwright.catalog.SweepPlan;
 import dev.mixwright.pricing.Pricer;
+import dev.mixwright.scenario.SweepPlan;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;

@@ -4,7 +4,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogProblem;
-import dev.mixwright.catalog.Scenarios;
+import dev.mixwright.scenario.Scenarios;
 import java.io.IOException;
 import java.io.InputStream;
 import java.nio.file.Files;

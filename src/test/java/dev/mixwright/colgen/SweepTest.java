@@ -1,14 +1,14 @@
 package dev.mixwright.colgen;
 
-import dev.mixwright.pricing.BranchAndBoundPricer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
-import dev.mixwright.catalog.Scenario;
-import dev.mixwright.catalog.Scenarios;
-import dev.mixwright.catalog.SweepPlan;
+import dev.mixwright.pricing.BranchAndBoundPricer;
+import dev.mixwright.scenario.Scenario;
+import dev.mixwright.scenario.Scenarios;
+import dev.mixwright.scenario.SweepPlan;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.EnumeratedLp;
 import dev.mixwright.testing.RandomCatalogs;

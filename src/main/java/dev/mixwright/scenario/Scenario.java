@@ -1,5 +1,15 @@
-package dev.mixwright.catalog;
+package dev.mixwright.scenario;
 
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogException;
+import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.catalog.Group;
+import dev.mixwright.catalog.Option;
+import dev.mixwright.catalog.PortfolioSpec;
+import dev.mixwright.catalog.Resource;
+import dev.mixwright.catalog.Rule;
+import dev.mixwright.catalog.Segment;
+import dev.mixwright.catalog.Where;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;

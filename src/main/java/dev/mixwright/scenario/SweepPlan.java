@@ -1,4 +1,4 @@
-package dev.mixwright.catalog;
+package dev.mixwright.scenario;
 
 import java.util.ArrayList;
 import java.util.List;

@@ -1,9 +1,19 @@
-package dev.mixwright.catalog;
+package dev.mixwright.scenario;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import dev.mixwright.catalog.Scenario.Amount;
-import dev.mixwright.catalog.Scenario.Field;
-import dev.mixwright.catalog.Scenario.Target;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogException;
+import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.catalog.Group;
+import dev.mixwright.catalog.Option;
+import dev.mixwright.catalog.Resource;
+import dev.mixwright.catalog.Rule;
+import dev.mixwright.catalog.Segment;
+import dev.mixwright.catalog.Where;
+import dev.mixwright.scenario.Scenario.Amount;
+import dev.mixwright.scenario.Scenario.Field;
+import dev.mixwright.scenario.Scenario.Target;
 import java.math.BigDecimal;
 import java.nio.file.Path;
 import java.util.ArrayList;

@@ -1,10 +1,17 @@
-package dev.mixwright.catalog;
+package dev.mixwright.scenario;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.mixwright.catalog.Scenario.Amount;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogException;
+import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.catalog.CatalogWriter;
+import dev.mixwright.catalog.Option;
+import dev.mixwright.catalog.Segment;
+import dev.mixwright.scenario.Scenario.Amount;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
