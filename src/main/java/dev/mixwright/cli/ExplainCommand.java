@@ -44,7 +44,7 @@ final class ExplainCommand implements Callable<Integer> {
   String segmentId;
 
   @Option(names = "--variant", paramLabel = "G=O,...",
-      description = "one option per group, e.g. frame=step,motor=mid750 (optional groups left out mean none)")
+      description = "one option per group, e.g. capacity=c9,compressor=scroll,tank=t200 (optional groups left out mean none)")
   String variantText;
 
   @Option(names = "--json", description = "print the explanation as JSON")
@@ -148,7 +148,7 @@ final class ExplainCommand implements Callable<Integer> {
       }
       int eq = p.indexOf('=');
       if (eq <= 0 || eq == p.length() - 1) {
-        throw new UserError("--variant: '" + p + "' is not group=option; write e.g. frame=step,motor=mid750");
+        throw new UserError("--variant: '" + p + "' is not group=option; write e.g. capacity=c9,compressor=scroll");
       }
       String g = p.substring(0, eq).trim();
       if (m.put(g, p.substring(eq + 1).trim()) != null) {

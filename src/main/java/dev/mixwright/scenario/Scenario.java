@@ -59,8 +59,8 @@ public record Scenario(String name, List<Change> changes) {
   /**
    * What is changed: the field and the id it belongs to ({@code option} only for prices and costs;
    * no id for the portfolio terms). {@link #path} is how people write it: {@code
-   * resources.weld.capacity}, {@code options.battery.b750.cost}, {@code segments.commuters.demand},
-   * {@code rules.cargo-needs-big-battery}, {@code portfolio.minLot}.
+   * resources.testbench.capacity}, {@code options.compressor.evi.cost}, {@code segments.retrofit.demand},
+   * {@code rules.propane-clearance}, {@code portfolio.minLot}.
    */
   public record Target(Field field, String id, String option) {
     public String path() {
@@ -164,7 +164,7 @@ public record Scenario(String name, List<Change> changes) {
   /** One change, with {@code where} it was written (a file path or a command-line option) for problems. */
   public record Change(Target target, Amount amount, String where) {}
 
-  /** A short label of the changes, e.g. {@code resources.weld.capacity=16000, rules.x=off}. */
+  /** A short label of the changes, e.g. {@code resources.testbench.capacity=11000, rules.propane-clearance=off}. */
   public String describe() {
     List<String> parts = new ArrayList<>();
     for (Change c : changes) {

@@ -66,7 +66,7 @@ public final class Scenarios {
     Scenarios r = new Scenarios(catalog);
     if (root == null || !root.isObject()) {
       throw new CatalogException(new CatalogProblem(name,
-          "must be a mapping of the figures to change, e.g. resources: {weld: {capacity: 16000}}"));
+          "must be a mapping of the figures to change, e.g. resources: {testbench: {capacity: 11000}}"));
     }
     r.format(root, "format");
     Scenario s = r.scenario(root, "", SCENARIO_FIELDS,
@@ -83,7 +83,7 @@ public final class Scenarios {
     Scenarios r = new Scenarios(catalog);
     if (root == null || !root.isObject()) {
       throw new CatalogException(new CatalogProblem(name,
-          "must be a mapping with grid and/or scenarios, e.g. grid: [{path: resources.weld.capacity,"
+          "must be a mapping with grid and/or scenarios, e.g. grid: [{path: resources.testbench.capacity,"
               + " from: 10000, to: 16000, step: 1000}]"));
     }
     r.unknownFields(root, "", SWEEP_FIELDS, "a sweep file");
@@ -98,7 +98,7 @@ public final class Scenarios {
     JsonNode grid = root.get("grid");
     if (grid != null) {
       if (!grid.isArray()) {
-        r.problem("grid", "must be a list of axes, e.g. [{path: resources.weld.capacity, from: 10000, to: 16000,"
+        r.problem("grid", "must be a list of axes, e.g. [{path: resources.testbench.capacity, from: 10000, to: 16000,"
             + " step: 1000}], got " + Where.describe(grid));
       } else {
         for (int i = 0; i < grid.size(); i++) {
@@ -149,7 +149,7 @@ public final class Scenarios {
       String where = "--grid " + text;
       int eq = text.indexOf('=');
       if (eq <= 0) {
-        r.problem(where, "write PATH=FROM..TO:STEP or PATH=V1,V2,..., e.g. resources.weld.capacity=10000..16000:1000");
+        r.problem(where, "write PATH=FROM..TO:STEP or PATH=V1,V2,..., e.g. resources.testbench.capacity=9000..12000:500");
         continue;
       }
       Target t = r.target(text.substring(0, eq).trim(), where);
@@ -167,7 +167,7 @@ public final class Scenarios {
     return plan;
   }
 
-  /** A path such as {@code resources.weld.capacity}, checked against the catalog; else an IllegalArgumentException saying why. */
+  /** A path such as {@code resources.testbench.capacity}, checked against the catalog; else an IllegalArgumentException saying why. */
   public static Target target(String path, Catalog catalog) {
     Scenarios r = new Scenarios(catalog);
     Target t = r.target(path, path);
@@ -181,7 +181,7 @@ public final class Scenarios {
 
   private Scenario scenario(JsonNode n, String path, List<String> fields, String name) {
     if (n == null || !n.isObject()) {
-      problem(path.isEmpty() ? "(top)" : path, "must be a mapping of figures to change, e.g. {resources: {weld:"
+      problem(path.isEmpty() ? "(top)" : path, "must be a mapping of figures to change, e.g. {resources: {testbench:"
           + " {capacity: 16000}}}, got " + Where.describe(n));
       return null;
     }
@@ -191,31 +191,31 @@ public final class Scenarios {
     if (nm != null && !nm.isTextual()) {
       problem(Where.field(path, "name"), "must be text, got " + Where.describe(nm));
     }
-    eachEntry(n.get("resources"), Where.field(path, "resources"), "{weld: {capacity: 16000}}", (id, v, at) -> {
+    eachEntry(n.get("resources"), Where.field(path, "resources"), "{testbench: {capacity: 11000}}", (id, v, at) -> {
       if (catalog.resourceIndex(id) < 0) {
         problem(at, "the catalog has no resource '" + id + "'" + Where.didYouMean(id, resourceIds()));
         return;
       }
       figures(v, at, List.of(Field.CAPACITY), f -> new Target(f, id, null), changes);
     });
-    eachEntry(n.get("options"), Where.field(path, "options"), "{\"battery.b750\": {cost: \"+10%\"}}", (key, v, at) -> {
+    eachEntry(n.get("options"), Where.field(path, "options"), "{\"compressor.evi\": {cost: \"+10%\"}}", (key, v, at) -> {
       int dot = key.indexOf('.');
       Target probe = dot <= 0 ? null : optionTarget(Field.PRICE, key.substring(0, dot), key.substring(dot + 1), at);
       if (dot <= 0) {
-        problem(at, "an option is named group.option, e.g. battery.b750; got '" + key + "'");
+        problem(at, "an option is named group.option, e.g. compressor.evi; got '" + key + "'");
       }
       if (probe != null) {
         figures(v, at, List.of(Field.PRICE, Field.COST), f -> new Target(f, probe.id(), probe.option()), changes);
       }
     });
-    eachEntry(n.get("segments"), Where.field(path, "segments"), "{commuters: {demand: 9000}}", (id, v, at) -> {
+    eachEntry(n.get("segments"), Where.field(path, "segments"), "{retrofit: {demand: 7000}}", (id, v, at) -> {
       if (catalog.segmentIndex(id) < 0) {
         problem(at, "the catalog has no segment '" + id + "'" + Where.didYouMean(id, segmentIds()));
         return;
       }
       figures(v, at, List.of(Field.DEMAND, Field.MAX_SHARE), f -> new Target(f, id, null), changes);
     });
-    eachEntry(n.get("rules"), Where.field(path, "rules"), "{cargo-needs-big-battery: off}", (id, v, at) -> {
+    eachEntry(n.get("rules"), Where.field(path, "rules"), "{propane-clearance: off}", (id, v, at) -> {
       Target t = ruleTarget(id, at);
       Amount a = t == null ? null : switchOf(v, at);
       if (a != null) {
@@ -557,7 +557,7 @@ public final class Scenarios {
       Field f = field.equals("price") ? Field.PRICE : field.equals("cost") ? Field.COST : null;
       if (dot <= 0 || f == null) {
         problem(where, "an option's figures are written options.GROUP.OPTION.price or .cost, e.g."
-            + " options.battery.b750.cost");
+            + " options.compressor.evi.cost");
         return null;
       }
       return optionTarget(f, rest.substring(0, dot), rest.substring(dot + 1), where);
