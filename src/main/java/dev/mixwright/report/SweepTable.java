@@ -1,5 +1,8 @@
 package dev.mixwright.report;
 
+import java.util.Optional;
+import java.util.Arrays;
+import dev.mixwright.colgen.RunStatus;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -153,7 +156,23 @@ public final class SweepTable {
   }
 
   private static boolean solved(JsonNode n) {
-    return n.path("status").asText().equals("optimal");
+    return status(n).filter(RunStatus::isOptimal).isPresent();
+  }
+
+  /** A row's status; empty for a scenario that could not be built ({@code invalid}). */
+  public static Optional<RunStatus> status(JsonNode row) {
+    String w = row.path("status").asText();
+    return Arrays.stream(RunStatus.values()).filter(s -> s.word().equals(w)).findFirst();
+  }
+
+  /** A row a later run of the same sweep keeps: solved to its optimum, or proven infeasible. */
+  public static boolean finished(JsonNode row) {
+    return status(row).filter(s -> s != RunStatus.STOPPED).isPresent();
+  }
+
+  /** A row whose solve a limit or a signal ended. */
+  public static boolean stopped(JsonNode row) {
+    return status(row).filter(s -> s == RunStatus.STOPPED).isPresent();
   }
 
   public ObjectNode toJson() {
