@@ -73,7 +73,7 @@ final class Summary {
       return;
     }
     String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();
-    out.println("  integer portfolio   " + p.status().word() + (p.reason() == null || p.reason().isEmpty() ? ""
+    out.println("  integer portfolio   " + p.status().word() + (p.reason().isEmpty() ? ""
         : " (" + p.reason() + ")"));
     out.println("    value             " + Numbers.money(p.value()) + cur
         + "   after introduction costs " + Numbers.money(p.introductionCosts()) + cur);

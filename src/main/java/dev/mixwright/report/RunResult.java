@@ -46,6 +46,11 @@ public record RunResult(
     @JsonInclude(Include.NON_NULL) String portfolioPending,
     @JsonInclude(Include.NON_NULL) Portfolio portfolio) {
 
+  /** An absent stopReason reads as empty, as the writer leaves an empty one out. */
+  public RunResult {
+    stopReason = stopReason == null ? "" : stopReason;
+  }
+
   public record CatalogRef(String name, String file, String sha256, String currency, String period) {}
 
   public record Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
@@ -74,7 +79,12 @@ public record RunResult(
       @JsonInclude(Include.NON_NULL) Relaxation relaxation,
       Proof proof,
       Solver solver,
-      long elapsedMs) {}
+      long elapsedMs) {
+
+    public Portfolio {
+      reason = reason == null ? "" : reason;
+    }
+  }
 
   public record PortfolioVariant(Map<String, String> options, Map<String, Double> sales, double units,
       double margin, double introductionCost) {}

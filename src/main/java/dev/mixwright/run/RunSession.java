@@ -195,8 +195,7 @@ public final class RunSession {
         return Resumed.ended(new RunOutcome.AlreadyOptimal(runDir, result.objective()));
       }
       if (result.status() == RunStatus.INFEASIBLE) {
-        return Resumed.ended(new RunOutcome.EndedInfeasible(runDir,
-            result.stopReason() == null ? "" : result.stopReason()));
+        return Resumed.ended(new RunOutcome.EndedInfeasible(runDir, result.stopReason()));
       }
     }
 
