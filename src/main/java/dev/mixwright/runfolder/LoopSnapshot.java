@@ -44,13 +44,7 @@ public record LoopSnapshot(
     n.put("elapsedMs", elapsedMs);
     n.put("writtenAt", Instant.now().toString());
     if (settings != null) {
-      ObjectNode s = n.putObject("settings");
-      s.put("pricer", settings.pricer());
-      s.put("gap", settings.gap());
-      s.put("perRound", settings.perRound());
-      s.put("heuristicFirst", settings.heuristicFirst());
-      s.put("timeLimitMs", settings.timeLimitMs());
-      s.put("maxIterations", settings.maxIterations());
+      settings.putInto(n.putObject("settings"));
     }
     AtomicFiles.write(folder.snapshot(), Json.pretty().writeValueAsString(n) + "\n");
   }

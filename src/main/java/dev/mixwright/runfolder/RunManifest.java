@@ -51,6 +51,18 @@ public record RunManifest(
      * The loop's settings for a later session: the run's own, with {@code gap} when given and no
      * limits (a session's limits count from its own start and are applied apart).
      */
+    /** Every field, as run.json and state.json write them. */
+    public void putInto(ObjectNode s) {
+      s.put("pricer", pricer);
+      s.put("gap", gap);
+      s.put("perRound", perRound);
+      s.put("heuristicFirst", heuristicFirst);
+      s.put("timeLimitMs", timeLimitMs);
+      s.put("maxIterations", maxIterations);
+      s.put("smoothing", smoothing);
+      s.put("retireAfter", retireAfter);
+    }
+
     public SolveSettings forSession(Double gapOverride) {
       return new SolveSettings(gapOverride != null ? gapOverride : gap, perRound, 0, 0, heuristicFirst,
           smoothing, retireAfter);
@@ -97,15 +109,7 @@ public record RunManifest(
       putSource(n, "scenario", scenario);
     }
     n.put("catalogCopySha256", catalogCopySha256);
-    ObjectNode s = n.putObject("settings");
-    s.put("pricer", settings.pricer());
-    s.put("gap", settings.gap());
-    s.put("perRound", settings.perRound());
-    s.put("heuristicFirst", settings.heuristicFirst());
-    s.put("timeLimitMs", settings.timeLimitMs());
-    s.put("maxIterations", settings.maxIterations());
-    s.put("smoothing", settings.smoothing());
-    s.put("retireAfter", settings.retireAfter());
+    settings.putInto(n.putObject("settings"));
     ArrayNode a = n.putArray("sessions");
     for (Session x : sessions) {
       ObjectNode o = a.addObject();

@@ -71,20 +71,7 @@ class RunSessionTest {
   @Test
   void nothingSellableIsAnInfeasibleResultAndAResumeSaysSo() throws Exception {
     Path f = dir.resolve("clash.yaml");
-    Files.writeString(f, """
-        format: 1
-        name: clash
-        resources: [{id: line, capacity: 100}]
-        groups:
-          - id: body
-            options: [{id: a, price: 10, cost: 5}, {id: b, price: 12, cost: 6}]
-          - id: trim
-            options: [{id: x, price: 3, cost: 1}]
-        rules:
-          - {id: no-a, forbid: {body: [a], trim: [x]}}
-          - {id: no-b, forbid: {body: [b], trim: [x]}}
-        segments: [{id: all, demand: 10}]
-        """);
+    Files.writeString(f, Catalogs.NOTHING_BUILDABLE);
     RunSession session = new RunSession(new AtomicBoolean(), new RunSession.Watcher() {});
     Path run = dir.resolve("r");
     RunOutcome.Solved s = assertInstanceOf(RunOutcome.Solved.class,
