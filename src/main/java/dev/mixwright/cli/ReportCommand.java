@@ -40,9 +40,12 @@ final class ReportCommand implements Callable<Integer> {
     }
     try {
       HtmlReport.write(runDir, target);
-    } catch (JsonProcessingException e) {
-      throw new UserError(result + " is not valid JSON (" + e.getOriginalMessage()
-          + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
+    } catch (IOException e) {
+      if (e.getCause() instanceof JsonProcessingException j) {
+        throw new UserError(result + " is not valid JSON (" + j.getOriginalMessage()
+            + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
+      }
+      throw e;
     }
     spec.commandLine().getOut().println("report written to " + target);
     return ExitCodes.OK;

@@ -1,12 +1,7 @@
 package dev.mixwright.report;
 
-import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.colgen.RunStatus;
-import dev.mixwright.runfolder.Json;
-import java.io.IOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.Map;
 
 /** Reads a finished run's result.json back, keyed by the catalog's entities. */
@@ -28,15 +23,6 @@ public final class RunReader {
     public RunStatus status() {
       return result.status();
     }
-  }
-
-  /** The run's result.json as a tree, for the views that render it as it stands. */
-  public static JsonNode readResult(Path runDir) throws IOException {
-    Path f = runDir.resolve(ResultWriter.FILE);
-    if (!Files.isRegularFile(f)) {
-      throw new IOException("no " + ResultWriter.FILE + " in " + runDir + " — is this a run folder made by 'mixwright solve --out'?");
-    }
-    return Json.pretty().readTree(f.toFile());
   }
 
   public static RunView view(Catalog catalog, RunResult result) {

@@ -49,12 +49,21 @@ public record RunResult(
   /** An absent stopReason reads as empty, as the writer leaves an empty one out. */
   public RunResult {
     stopReason = stopReason == null ? "" : stopReason;
+    offers = offers == null ? List.of() : offers;
+    resources = resources == null ? List.of() : resources;
+    segments = segments == null ? List.of() : segments;
+    rounds = rounds == null ? List.of() : rounds;
   }
 
   public record CatalogRef(String name, String file, String sha256, String currency, String period) {}
 
   public record Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
-      double reducedCost, boolean atLimit, double contribution) {}
+      double reducedCost, boolean atLimit, double contribution) {
+
+    public Offer {
+      options = options == null ? Map.of() : options;
+    }
+  }
 
   public record ResourceRow(String id, double capacity, double used, double shadowPrice, boolean binding) {}
 
@@ -83,11 +92,18 @@ public record RunResult(
 
     public Portfolio {
       reason = reason == null ? "" : reason;
+      variants = variants == null ? List.of() : variants;
     }
   }
 
   public record PortfolioVariant(Map<String, String> options, Map<String, Double> sales, double units,
-      double margin, double introductionCost) {}
+      double margin, double introductionCost) {
+
+    public PortfolioVariant {
+      options = options == null ? Map.of() : options;
+      sales = sales == null ? Map.of() : sales;
+    }
+  }
 
   /** {@code maxVariants} and {@code variantCap} are null when unlimited. */
   public record Terms(double introductionCost, Integer maxVariants, double minLot, Integer variantCap) {}
