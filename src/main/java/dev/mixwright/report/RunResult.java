@@ -3,6 +3,7 @@ package dev.mixwright.report;
 import com.fasterxml.jackson.annotation.JsonInclude.Include;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.annotation.JsonValue;
+import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.ObjectReader;
@@ -172,8 +173,8 @@ public record RunResult(
   public static RunResult parse(String text, String where) throws IOException {
     try {
       return READER.readValue(text);
-    } catch (IOException e) {
-      throw new IOException(where + " is not a result this version reads: " + e.getMessage(), e);
+    } catch (JsonProcessingException e) {
+      throw new IOException(where + " is not a result this version reads (" + e.getOriginalMessage() + ")", e);
     }
   }
 

@@ -189,7 +189,13 @@ public final class RunSession {
     }
 
     if (!repriced && Files.isRegularFile(folder.result())) {
-      RunResult result = RunResult.read(runDir);
+      RunResult result;
+      try {
+        result = RunResult.read(runDir);
+      } catch (IOException e) {
+        throw new InputError(e.getMessage() + " — it is written atomically, so something else changed it; move it"
+            + " aside and resume again to continue from the column log");
+      }
       double target = r.gap().orElse(m.settings().gap());
       if (result.status().isOptimal() && result.gapOrInfinity() <= target) {
         return Resumed.ended(new RunOutcome.AlreadyOptimal(runDir, result.objective()));
