@@ -7,6 +7,7 @@ import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.explain.CapacityRanges;
 import dev.mixwright.report.RunResult;
+import dev.mixwright.run.PricerChoice;
 import dev.mixwright.runfolder.ColumnLogReader;
 import dev.mixwright.runfolder.ColumnPool;
 import dev.mixwright.runfolder.Json;
@@ -28,8 +29,16 @@ final class CapacityRangeReport {
   private CapacityRangeReport() {}
 
   /** The exact pricer the run used (bnb when its manifest is missing). */
-  static String runPricer(RunFolder folder) throws IOException {
-    return Files.isRegularFile(folder.manifest()) ? RunManifest.read(folder).settings().pricer() : "bnb";
+  static PricerChoice runPricer(RunFolder folder) throws IOException {
+    if (!Files.isRegularFile(folder.manifest())) {
+      return PricerChoice.BNB;
+    }
+    String word = RunManifest.read(folder).settings().pricer();
+    try {
+      return PricerChoice.byWord(word);
+    } catch (IllegalArgumentException e) {
+      throw new UserError(RunFolder.MANIFEST + " settings.pricer: " + e.getMessage());
+    }
   }
 
   /** Every column of the run's log, as warm start for re-solves. */
@@ -42,7 +51,7 @@ final class CapacityRangeReport {
   static List<CapacityRanges.Range> compute(RunFolder folder, Catalog catalog, List<String> only, PrintWriter err)
       throws IOException {
     VariantSpace space = new VariantSpace(catalog);
-    String pricer = runPricer(folder);
+    PricerChoice pricer = runPricer(folder);
     List<Column> warm = runColumns(folder, space);
     for (String id : only) {
       if (catalog.resourceIndex(id) < 0) {
@@ -58,7 +67,7 @@ final class CapacityRangeReport {
         continue;
       }
       CapacityRanges.ColumnGenerationSolver solver =
-          new CapacityRanges.ColumnGenerationSolver(catalog, r, pricer, RESOLVE, warm);
+          new CapacityRanges.ColumnGenerationSolver(catalog, r, pricer::create, RESOLVE, warm);
       // The run's own figures come from a solve to its own gap; solve once more here so every point
       // of the search has the same accuracy.
       CapacityRanges.Point p0 = solver.at(catalog.resources().get(r).capacity());

@@ -108,7 +108,7 @@ final class ExplainCommand implements Callable<Integer> {
     var verdict = PortfolioExplainView.verdict(space, v, run.result());
     PriceRange.Leave leave = null;
     if (leavePrice && qty > 0 && e.sellable()) {
-      leave = new PriceRange(space, CapacityRangeReport.runPricer(folder), CapacityRangeReport.RESOLVE,
+      leave = new PriceRange(space, CapacityRangeReport.runPricer(folder)::create, CapacityRangeReport.RESOLVE,
           CapacityRangeReport.runColumns(folder, space)).leave(v, s, 1e-6);
     }
     if (json) {
