@@ -240,10 +240,33 @@ final class BranchAndPrice {
 
   /** One worker's master and pricer; a node at a time. */
   private final class Worker implements AutoCloseable {
-    private final PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap);
+    private PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap);
     private final VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
     private int have;
     private final Set<Integer> fixed = new HashSet<>();
+    /** Count row per flat choice (−1 until needed) and of the total; rows keep their variants for good. */
+    private final int[] rowOf = new int[space.totalChoices()];
+    private int totalRow = -1;
+    private final Set<Integer> boundedRows = new HashSet<>();
+    /** The node's count ranges, per row: lo, hi (hi = +∞ for none). */
+    private final java.util.Map<Integer, double[]> ranges = new java.util.HashMap<>();
+
+    Worker() {
+      Arrays.fill(rowOf, -1);
+    }
+
+    /** A fresh master with the pool's variants and the node's decisions. */
+    private void rebuild(TreeNode node) {
+      lp.close();
+      lp = new PortfolioLp(terms.capacity(), terms.demand(), cap);
+      have = 0;
+      Arrays.fill(rowOf, -1);
+      totalRow = -1;
+      boundedRows.clear();
+      fixed.clear();
+      sync();
+      fix(node);
+    }
 
     /** Adds the pool variants this master does not hold yet. */
     private void sync() {
@@ -251,8 +274,39 @@ final class BranchAndPrice {
       for (int i = have; i < n; i++) {
         PoolVariant v = pool.get(i);
         lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+        if (totalRow >= 0) {
+          lp.addToCount(totalRow, i);
+        }
+        for (int g = 0; g < v.choices().length; g++) {
+          int r = rowOf[space.offset(g) + v.choices()[g]];
+          if (r >= 0) {
+            lp.addToCount(r, i);
+          }
+        }
       }
       have = n;
+    }
+
+    /** The count row of a choice ({@link TreeNode#TOTAL} for all), made on first use over the master's variants. */
+    private int row(int choice) {
+      if (choice == TreeNode.TOTAL) {
+        if (totalRow < 0) {
+          totalRow = lp.addCountRow();
+          for (int i = 0; i < have; i++) {
+            lp.addToCount(totalRow, i);
+          }
+        }
+        return totalRow;
+      }
+      if (rowOf[choice] < 0) {
+        rowOf[choice] = lp.addCountRow();
+        for (int i = 0; i < have; i++) {
+          if (TreeNode.uses(pool.get(i).choices(), choice, space.offsets())) {
+            lp.addToCount(rowOf[choice], i);
+          }
+        }
+      }
+      return rowOf[choice];
     }
 
     private void fix(TreeNode node) {
@@ -268,12 +322,27 @@ final class BranchAndPrice {
         lp.fixIntroduction(i, 0, 0);
         fixed.add(i);
       }
+      for (int r : boundedRows) {
+        lp.setCountBounds(r, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY);
+      }
+      boundedRows.clear();
+      ranges.clear();
+      for (TreeNode.Count c : node.counts()) {
+        int[] range = node.range(c.choice());
+        double hi = range[1] == Integer.MAX_VALUE ? Double.POSITIVE_INFINITY : range[1];
+        int r = row(c.choice());
+        lp.setCountBounds(r, range[0], hi);
+        boundedRows.add(r);
+        ranges.put(c.choice(), new double[] {range[0], hi});
+      }
     }
 
     /** Solves a node; returns its children (none when it is pruned or closed). */
     List<TreeNode> solve(TreeNode node) {
-      int freeCap = cap == PortfolioTerms.UNLIMITED ? cap : cap - node.offered().length;
-      if (freeCap < 0) {
+      int[] total = node.range(TreeNode.TOTAL);
+      int limit = Math.min(cap, total[1]);
+      int freeCap = limit == PortfolioTerms.UNLIMITED ? limit : limit - node.offered().length;
+      if (freeCap < 0 || total[0] > limit) {
         return List.of();
       }
       sync();
@@ -287,13 +356,19 @@ final class BranchAndPrice {
       while (true) {
         round++;
         sol = lp.solve();
+        if (sol.status() == LpStatus.FAILED) {
+          // GLOP gave up from its warm start (seen once in a deep node): the same master built afresh
+          rebuild(node);
+          sol = lp.solve();
+        }
         if (sol.status() == LpStatus.INFEASIBLE) {
           return List.of(); // the offered variants' lots do not fit: no portfolio in this node
         }
         if (!sol.isOptimal()) {
           return park(node, best, "the relaxation of a node ended " + sol.status() + " in GLOP");
         }
-        NodeProbe probe = probe(node, sol.resourceDual(), sol.segmentDual(), k, freeCap, offeredTooling);
+        NodeProbe probe = probe(node, sol.resourceDual(), sol.segmentDual(), countPrices(), k, freeCap,
+            offeredTooling);
         if (probe.bound.value() < best) {
           best = probe.bound.value();
           last = probe;
@@ -331,8 +406,9 @@ final class BranchAndPrice {
       double bound = best;
       double[] y = sol.y();
       heuristic(node, y);
-      int v = VariantBranching.choose(node, y);
-      if (v < 0) {
+      VariantBranching.Decision d = VariantBranching.choose(node, y, i -> pool.get(i).choices(), space.offsets(),
+          space.totalChoices());
+      if (d == null) {
         // y is integral and every variant at 1 is offered: the node's best portfolio is its offer
         Plan p = FixedPortfolio.solve(pool, terms, node.offered());
         offer(p, "an integral node of the branch-and-price tree");
@@ -347,26 +423,55 @@ final class BranchAndPrice {
             : "a node's relaxation stays above the value of its own offer");
       }
       int[] bar = reducedCostFixing(node, last);
-      TreeNode solved = bar.length == 0 ? node : node.barring(bar, bound);
-      if (solved.isBarred(v)) {
-        v = VariantBranching.choose(solved, y);
-        if (v < 0) {
-          return List.of(new TreeNode(solved.offered(), solved.barred(), bound, solved.depth()));
+      TreeNode solved = bar.length == 0 ? node.withBound(bound) : node.barring(bar, bound);
+      if (!d.onCount() && solved.isBarred(d.variant())) {
+        // the barred variant's y was fractional: re-solve the node with the bars (same portfolios of value)
+        return List.of(solved);
+      }
+      return VariantBranching.children(solved, d, bound);
+    }
+
+    /**
+     * The duals of the node's count rows as prices: per flat choice (a penalty on variants using it)
+     * and of the total (part of the charge), each clamped to the sign its binding side allows.
+     */
+    private CountPrices countPrices() {
+      double[] pen = new double[space.totalChoices()];
+      double charge = 0;
+      double constant = 0;
+      boolean any = false;
+      for (java.util.Map.Entry<Integer, double[]> e : ranges.entrySet()) {
+        double dual = lp.countDual(row(e.getKey()));
+        double lo = e.getValue()[0];
+        double hi = e.getValue()[1];
+        // value(S) ≤ ... + δ·(side − count(S)): valid when δ ≥ 0 at a finite upper side, δ ≤ 0 at the lower
+        if (dual > 0 && !Double.isFinite(hi) || !Double.isFinite(dual)) {
+          dual = 0;
+        }
+        if (dual == 0) {
+          continue;
+        }
+        any = true;
+        constant += dual > 0 ? dual * hi : dual * lo;
+        if (e.getKey() == TreeNode.TOTAL) {
+          charge += dual;
+        } else {
+          pen[e.getKey()] += dual;
         }
       }
-      return VariantBranching.children(solved, v, bound);
+      return new CountPrices(any ? pen : null, charge, constant);
     }
 
     /** A node that cannot be finished: it keeps its bound in the result, and the tree stays open. */
     private List<TreeNode> park(TreeNode node, double bound, String why) {
       synchronized (lock) {
         if (stop.check(clock.now(0)).isPresent()) {
-          open.add(new TreeNode(node.offered(), node.barred(), bound, node.depth()));
+          open.add(node.withBound(bound));
           if (stopReason.isEmpty()) {
             stopReason = stop.check(clock.now(0)).get();
           }
         } else {
-          stuck.add(new TreeNode(node.offered(), node.barred(), bound, node.depth()));
+          stuck.add(node.withBound(bound));
           stuckReason = why;
         }
       }
@@ -420,11 +525,12 @@ final class BranchAndPrice {
     }
 
     /** The Lagrangian bound of the node at prices (π, μ): one pricing call outside the master's variants. */
-    private NodeProbe probe(TreeNode node, double[] pi, double[] mu, int k, int freeCap, double offeredTooling) {
-      VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost(), null, 0.0, k, pool.keysBelow(have),
-          deadlineNanos);
+    private NodeProbe probe(TreeNode node, double[] pi, double[] mu, CountPrices cp, int k, int freeCap,
+        double offeredTooling) {
+      VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
+          pool.keysBelow(have), deadlineNanos);
       PricingOutcome out = pricer.price(q);
-      double constant = -offeredTooling;
+      double constant = cp.constant() - offeredTooling;
       for (int r = 0; r < pi.length; r++) {
         constant += pi[r] * terms.capacity()[r];
       }
@@ -473,6 +579,9 @@ final class BranchAndPrice {
       lp.close();
     }
   }
+
+  /** Prices of a node's count rows: penalty per flat choice (null for none), added charge, and Σ δ·side. */
+  private record CountPrices(double[] penalty, double charge, double constant) {}
 
   /** A node bound with the ψ of the master's variants at its prices, and what the pricer found outside. */
   private record NodeProbe(LagrangianPortfolioBound bound, double[] psi, List<PricedVariant> found, boolean exact) {}

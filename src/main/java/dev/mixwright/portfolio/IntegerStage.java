@@ -7,6 +7,7 @@ import dev.mixwright.colgen.ValueBound;
 import dev.mixwright.master.MipSolution;
 import dev.mixwright.master.MipStatus;
 import dev.mixwright.master.PortfolioMip;
+import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
@@ -28,16 +29,19 @@ import java.util.Optional;
  *       with y relaxed, priced over the whole space; gives the bound B and its prices.
  *   <li>Incumbent: {@link Rounding} of the relaxation, then the MIP over the pool ({@link PortfolioMip},
  *       warm-started from it).
- *   <li>Proof: {@link BranchAndPrice} over the whole space, from that incumbent and the bound B, with
+ *   <li>Quick proof, when few variants could be part of a better portfolio: they are listed by the
+ *       exact pricer at the relaxation's prices, join the pool, and the MIP over the pool decides.
+ *   <li>Otherwise: {@link BranchAndPrice} over the whole space, from that incumbent and the bound B, with
  *       the introduction y_v of a variant as the branching decision ({@link VariantBranching}); nodes
  *       are bounded by column generation with the exact variant pricer, and reduced-cost fixing bars
  *       the pool variants that cannot be part of a better portfolio below a node.
  * </ol>
  *
  * The bound reported is the least of the LP stage's bound, B, and the tree's bound (the largest
- * bound of its open nodes, never below the incumbent); all are valid for the whole space. The status
+ * bound of its open nodes, never below the incumbent) or, after the quick proof, the MIP's bound over
+ * the pool; all are valid for the whole space. The status
  * is proven when the tree closed, so that the bound meets the value within the gap. Time: the
- * relaxation gets up to 30 % of the limit, the first MIP a quarter of what is left, the tree the rest.
+ * relaxation gets up to 30 % of the limit, the first MIP half of what is left, the tree the rest.
  */
 public final class IntegerStage {
 
@@ -100,6 +104,7 @@ public final class IntegerStage {
     String reason = "";
     double treeBound = Double.POSITIVE_INFINITY;
     boolean closed;
+    boolean survivorsProve;
     long nodes;
     int openNodes;
     int workers;
@@ -130,9 +135,54 @@ public final class IntegerStage {
     Search search = new Search(Math.min(lpBound, rx.bound().value()));
     int relaxed = pool.size();
     firstIncumbent(pool, rx, search);
-    tree(pool, search);
+    survivors(pool, pricer, rx.bound(), search);
+    if (!search.survivorsProve) {
+      tree(pool, search);
+    }
     search.added = pool.size() - relaxed;
     return outcome(pool, lpBound, rx, search);
+  }
+
+  /**
+   * The quick proof, when it applies: by {@link LagrangianPortfolioBound}, a portfolio holding w is
+   * worth at most B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w), so only variants with ψ(w) − tooling(w) &gt; θ =
+   * value − B(λ̂) + λ̂ can be part of a better portfolio (the reduced-cost argument of Barnhart et al.
+   * 1998 at the relaxation's prices). When the exact pricer lists all of them outside the pool within
+   * the survivor limit, they join the pool, and a MIP solved to optimality over it is optimal over the
+   * whole space. When they are more, nothing is added and the tree takes over.
+   */
+  private void survivors(Pool pool, VariantPricer pricer, LagrangianPortfolioBound b, Search s) {
+    if (!b.isFinite() || clock.signalled().isPresent() || !settings.engine().provesContinuous()) {
+      return;
+    }
+    double[] tooling = terms.hasTooling() ? terms.choiceCost() : null;
+    s.theta = s.incumbent.value() - b.valueAtLambda() + b.lambda();
+    double slack = 1e-7 * (1 + Math.abs(s.incumbent.value()));
+    PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
+        terms.introductionCost(), tooling, s.theta - slack, settings.survivorLimit() + 1, pool.keys(),
+        clock.phase(0.2).deadlineNanos()));
+    s.complete = out.exact() && out.found().size() <= settings.survivorLimit();
+    emit(PortfolioEvent.Kind.SURVIVORS, s.theta, s.bound, pool.size(), out.found().size(), s.complete
+        ? "every variant that could be part of a better portfolio is listed"
+        : "too many variants could be part of a better portfolio to prove it over the pool");
+    if (!s.complete) {
+      return;
+    }
+    for (var f : out.found()) {
+      pool.add(f.choices());
+    }
+    MipRun again = mip(pool, s.incumbent, Math.max(1, (long) (clock.msLeft() * 0.5)));
+    if (again.plan() != null && again.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
+      s.incumbent = again.plan();
+      emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
+          "MIP over the pool with survivors");
+    }
+    s.mipOptimal = again.status() == MipStatus.OPTIMAL;
+    if (s.mipOptimal) {
+      // every portfolio better than the incumbent lies in the pool, where the MIP bounds it
+      s.survivorsProve = true;
+      s.treeBound = Math.max(s.incumbent.value(), again.bound());
+    }
   }
 
   /** The branch-and-price tree over the rest of the time, from the incumbent so far. */
@@ -187,7 +237,7 @@ public final class IntegerStage {
     Plan inc = Rounding.greedy(pool, terms, rx.y(), score, clock, clock.phase(0.2));
     emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
         "rounding of the relaxation");
-    MipRun mip = mip(pool, inc, Math.max(1, (long) (clock.msLeft() * 0.25)));
+    MipRun mip = mip(pool, inc, Math.max(1, (long) (clock.msLeft() * 0.5)));
     if (mip.plan() != null && mip.plan().value() > inc.value()) {
       inc = mip.plan();
       emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
@@ -202,12 +252,12 @@ public final class IntegerStage {
   private PortfolioOutcome outcome(Pool pool, double lpBound, RelaxationResult rx, Search s) {
     Plan inc = s.incumbent;
     double bound = Math.max(Math.min(s.bound, s.treeBound), inc.value());
-    boolean proven = s.closed && ValueBound.gap(inc.value(), bound) <= settings.gap() * (1 + 1e-9);
+    boolean proven = (s.closed || s.survivorsProve) && ValueBound.gap(inc.value(), bound) <= settings.gap() * (1 + 1e-9);
     String reason = proven ? "" : whyHeuristic(s.reason);
     PortfolioOutcome o = new PortfolioOutcome(proven ? PortfolioStatus.PROVEN : PortfolioStatus.HEURISTIC, reason,
         new ValueBound(inc.value(), bound),
         new PortfolioOutcome.Offer(offered(pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
-        lpBound, rx, new PortfolioOutcome.SurvivorProof(Double.NaN, s.added, s.closed, pool.size()),
+        lpBound, rx, new PortfolioOutcome.SurvivorProof(s.theta, s.added, s.complete, pool.size()),
         new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal),
         new PortfolioOutcome.Tree(s.nodes, s.openNodes, s.workers), clock.elapsedMs());
     emit(PortfolioEvent.Kind.END, o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
