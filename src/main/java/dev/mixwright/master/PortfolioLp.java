@@ -71,12 +71,17 @@ public final class PortfolioLp implements AutoCloseable {
   }
 
   /**
-   * A new row {@code lo ≤ Σ_{i in the row} y_i ≤ hi}, free until {@link #setCountBounds} (a
-   * branching decision on how many variants of some kind are offered); returns its index.
+   * A new row {@code lo ≤ Σ_{i in the row} y_i + a ≤ hi}, free until {@link #setCountBounds} (a
+   * branching decision on how many variants of some kind are offered); returns its index. The
+   * artificial a ≥ 0 costs {@code artificialCost} per unit: it keeps the restricted master feasible
+   * when the lower side needs variants that pricing has yet to bring in.
    */
-  public int addCountRow() {
+  public int addCountRow(double artificialCost) {
     MPConstraint c = rows.solver.makeConstraint(Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
         "count" + counts.size());
+    MPVariable a = rows.solver.makeNumVar(0.0, Double.POSITIVE_INFINITY, "a" + counts.size());
+    rows.objective.setCoefficient(a, -artificialCost);
+    c.setCoefficient(a, 1.0);
     counts.add(c);
     return counts.size() - 1;
   }

@@ -72,6 +72,7 @@ final class BranchAndPrice {
   private long nodes;
   private String stopReason = "";
   private String stuckReason = "";
+  private double artificialCost = 1;
   private final AtomicReference<RuntimeException> failure = new AtomicReference<>();
 
   /** How the tree ended. {@code closed}: no node left above the incumbent, so it is optimal within the gap. */
@@ -99,6 +100,9 @@ final class BranchAndPrice {
 
   Result run(Plan start, double rootBound) {
     incumbent = start;
+    // far above any gain of one more variant, so the artificials of count rows leave the master once
+    // pricing can meet the counts; the bounds do not depend on it
+    artificialCost = 10 * (Math.abs(rootBound) + Math.abs(start.value()) + terms.introductionCost() + 1);
     Arrays.fill(running, Double.NaN);
     open.add(TreeNode.root(rootBound));
     List<Thread> threads = new ArrayList<>();
@@ -291,7 +295,7 @@ final class BranchAndPrice {
     private int row(int choice) {
       if (choice == TreeNode.TOTAL) {
         if (totalRow < 0) {
-          totalRow = lp.addCountRow();
+          totalRow = lp.addCountRow(artificialCost);
           for (int i = 0; i < have; i++) {
             lp.addToCount(totalRow, i);
           }
@@ -299,7 +303,7 @@ final class BranchAndPrice {
         return totalRow;
       }
       if (rowOf[choice] < 0) {
-        rowOf[choice] = lp.addCountRow();
+        rowOf[choice] = lp.addCountRow(artificialCost);
         for (int i = 0; i < have; i++) {
           if (TreeNode.uses(pool.get(i).choices(), choice, space.offsets())) {
             lp.addToCount(rowOf[choice], i);

@@ -53,6 +53,7 @@ public final class IntegerStage {
   private int mipSolves;
   private StopCriterion stop = StopCriterion.never();
   private int workers = BranchAndPrice.defaultWorkers();
+  private boolean quickProof = true;
 
   public IntegerStage(VariantSpace space, PortfolioSettings settings) {
     this.space = space;
@@ -76,6 +77,12 @@ public final class IntegerStage {
       throw new IllegalArgumentException("workers must be >= 1");
     }
     this.workers = n;
+    return this;
+  }
+
+  /** Whether the quick proof over the pool may settle the stage before the tree; for tests of the tree. */
+  IntegerStage quickProof(boolean on) {
+    this.quickProof = on;
     return this;
   }
 
@@ -135,7 +142,9 @@ public final class IntegerStage {
     Search search = new Search(Math.min(lpBound, rx.bound().value()));
     int relaxed = pool.size();
     firstIncumbent(pool, rx, search);
-    survivors(pool, pricer, rx.bound(), search);
+    if (quickProof) {
+      survivors(pool, pricer, rx.bound(), search);
+    }
     if (!search.survivorsProve) {
       tree(pool, search);
     }

@@ -65,14 +65,14 @@ final class VariantBranching {
         byChoice[offsets[g] + v[g]] += y[i];
       }
     }
-    if (fraction(total) > INTEGRAL) {
+    if (fraction(total) > INTEGRAL && splits(node, TreeNode.TOTAL, total)) {
       return Decision.count(TreeNode.TOTAL, (int) Math.floor(total));
     }
     int bestF = -1;
     double bestFrac = INTEGRAL;
     for (int f = 0; f < totalChoices; f++) {
       double fr = fraction(byChoice[f]);
-      if (fr > bestFrac) {
+      if (fr > bestFrac && splits(node, f, byChoice[f])) {
         bestFrac = fr;
         bestF = f;
       }
@@ -82,6 +82,17 @@ final class VariantBranching {
     }
     int v = chooseVariant(node, y);
     return v < 0 ? null : Decision.variant(v);
+  }
+
+  /**
+   * True when splitting the count at ⌊n⌋ gives two nonempty children inside the node's range; false
+   * when n lies outside it (the master's artificial fills the count), where the split would repeat
+   * the node.
+   */
+  private static boolean splits(TreeNode node, int choice, double n) {
+    int[] range = node.range(choice);
+    int floor = (int) Math.floor(n);
+    return floor >= range[0] && floor + 1 <= range[1];
   }
 
   /** Distance to the nearest whole number. */
