@@ -534,13 +534,7 @@ final class BranchAndPrice {
       VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
           pool.keysBelow(have), deadlineNanos);
       PricingOutcome out = pricer.price(q);
-      double constant = cp.constant() - offeredTooling;
-      for (int r = 0; r < pi.length; r++) {
-        constant += pi[r] * terms.capacity()[r];
-      }
-      for (int s = 0; s < mu.length; s++) {
-        constant += mu[s] * terms.demand()[s];
-      }
+      double constant = terms.rowValue(pi, mu) + cp.constant() - offeredTooling;
       double[] psi = new double[have];
       double[] listed = new double[have + out.found().size()];
       int n = 0;

@@ -77,6 +77,18 @@ public record PortfolioTerms(
     return (int) cap;
   }
 
+  /** π·b + μ·D: what the rows' capacities and demands are worth at prices π, μ (the Lagrangian constant). */
+  public double rowValue(double[] pi, double[] mu) {
+    double v = 0;
+    for (int r = 0; r < pi.length; r++) {
+      v += pi[r] * capacity[r];
+    }
+    for (int s = 0; s < mu.length; s++) {
+      v += mu[s] * demand[s];
+    }
+    return v;
+  }
+
   /** True when some choice carries a tooling cost. */
   public boolean hasTooling() {
     for (double x : choiceCost) {
