@@ -26,6 +26,8 @@ import dev.mixwright.report.RunLock;
 import dev.mixwright.report.RunManifest;
 import dev.mixwright.report.RunReader;
 import dev.mixwright.report.SnapshotWriter;
+import dev.mixwright.space.CountJob;
+import dev.mixwright.space.SpaceSurvey;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -230,7 +232,8 @@ final class ResumeCommand implements Callable<Integer> {
     } catch (IllegalArgumentException e) {
       throw new UserError(RunFolder.MANIFEST + " settings.pricer: " + e.getMessage());
     }
-    SpaceFacts facts = SpaceFacts.of(space);
+    SpaceSurvey facts = SpaceSurvey.of(space);
+    CountJob count = CountJob.whole(space, CountJob.BACKGROUND_BUDGET_MS); // nothing waits for it
     WarmStart.Carried pool = ColumnPool.rebuild(space, r.log().lines());
     LoopSnapshot st = r.state();
     double priorBound = r.repriced() ? Double.POSITIVE_INFINITY : st.bound();
@@ -258,7 +261,7 @@ final class ResumeCommand implements Callable<Integer> {
       SolveOutcome outcome = facts.nothingSellable() ? null : cg.run(pool.columns());
       long elapsed = priorElapsed + (System.nanoTime() - start) / 1_000_000;
       ResultWriter.RunInfo info = new ResultWriter.RunInfo(m.catalog().path(), m.catalog().sha256(),
-          pricer.name(), new ResultWriter.SpaceSize(facts.buildable(), facts.exact()), elapsed);
+          pricer.name(), new ResultWriter.SpaceSize(count.finish()), elapsed);
       if (outcome == null) {
         outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
       }

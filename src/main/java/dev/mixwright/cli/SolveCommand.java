@@ -15,6 +15,8 @@ import dev.mixwright.report.RunFolder;
 import dev.mixwright.report.RunLock;
 import dev.mixwright.report.RunManifest;
 import dev.mixwright.report.SnapshotWriter;
+import dev.mixwright.space.CountJob;
+import dev.mixwright.space.SpaceSurvey;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -141,7 +143,8 @@ final class SolveCommand implements Callable<Integer> {
       RunManifest manifest = RunSessions.begin(folder, catalog, RunSessions.source(catalogFile, sha),
           scenarioFile == null ? null : RunSessions.source(scenarioFile, Inputs.sha256(scenarioFile)),
           RunSessions.settings(settings, pricer.name()));
-      SpaceFacts facts = SpaceFacts.of(space);
+      SpaceSurvey facts = SpaceSurvey.of(space);
+      CountJob count = CountJob.whole(space, CountJob.BACKGROUND_BUDGET_MS); // nothing waits for it
       try (ColumnLog log = ColumnLog.open(space, runDir, 1, 0)) {
         ColumnGeneration cg = new ColumnGeneration(space, pricer,
             heuristicFirst ? Pricers.byName("heuristic", space) : null, settings,
@@ -152,7 +155,7 @@ final class SolveCommand implements Callable<Integer> {
         SolveOutcome outcome = facts.nothingSellable() ? null : cg.run();
         long elapsed = (System.nanoTime() - start) / 1_000_000;
         ResultWriter.RunInfo info = new ResultWriter.RunInfo(catalogFile.toString(), sha, pricer.name(),
-            new ResultWriter.SpaceSize(facts.buildable(), facts.exact()), elapsed);
+            new ResultWriter.SpaceSize(count.finish()), elapsed);
         if (outcome == null) {
           outcome = SolveOutcomes.infeasible(space, facts.emptyReason(), elapsed);
         }

@@ -8,6 +8,7 @@ import dev.mixwright.catalog.Segment;
 import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.IterationRecord;
 import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.math.BigInteger;
@@ -25,7 +26,12 @@ public final class ResultWriter {
   private ResultWriter() {}
 
   /** What result.json says about the variant space's size. */
-  public record SpaceSize(BigInteger value, boolean exact) {}
+  public record SpaceSize(SpaceCount count) {
+    /** An exact count, or only an upper bound. */
+    public SpaceSize(BigInteger value, boolean exact) {
+      this(exact ? SpaceCount.exact(value) : SpaceCount.atMost(value));
+    }
+  }
 
   /** Facts about the run that the outcome does not hold. */
   public record RunInfo(String catalogFile, String catalogSha256, String pricer, SpaceSize size, long elapsedMs) {}
@@ -43,12 +49,7 @@ public final class ResultWriter {
     n.put("iterations", out.iterations());
     n.put("columnsGenerated", out.columnsGenerated());
     n.put("columnsInMaster", out.columns().size());
-    if (info.size().exact()) {
-      n.put("buildableVariants", info.size().value().toString());
-    } else {
-      n.putNull("buildableVariants");
-      n.put("buildableVariantsAtMost", info.size().value().toString());
-    }
+    putCount(n, "buildableVariants", info.size().count());
     n.put("elapsedMs", info.elapsedMs());
     ObjectNode c = n.putObject("catalog");
     c.put("name", cat.name());
@@ -118,6 +119,27 @@ public final class ResultWriter {
       o.put("elapsedMs", r.elapsedMs());
     }
     return n;
+  }
+
+  /**
+   * {@code field}: the count as a decimal string when exact, else null with {@code fieldAtMost} and
+   * {@code fieldAtLeast} (decimal strings) and, when sampled, {@code fieldEstimate}: value, standard
+   * error and number of samples.
+   */
+  public static void putCount(ObjectNode n, String field, SpaceCount count) {
+    if (count.exact()) {
+      n.put(field, count.upper().toString());
+      return;
+    }
+    n.putNull(field);
+    n.put(field + "AtMost", count.upper().toString());
+    n.put(field + "AtLeast", count.lower().toString());
+    count.estimate().ifPresent(e -> {
+      ObjectNode o = n.putObject(field + "Estimate");
+      o.put("value", e.value().doubleValue());
+      o.put("standardError", e.standardError().doubleValue());
+      o.put("samples", e.samples());
+    });
   }
 
   static void putNum(ObjectNode n, String field, double v) {

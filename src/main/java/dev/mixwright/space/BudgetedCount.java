@@ -1,0 +1,275 @@
+package dev.mixwright.space;
+
+import java.math.BigDecimal;
+import java.math.BigInteger;
+import java.math.MathContext;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Optional;
+import java.util.Set;
+import java.util.SplittableRandom;
+import java.util.function.BooleanSupplier;
+import java.util.function.Consumer;
+
+/**
+ * Counts buildable variants within a time budget and says what it knows when the budget ends: the
+ * exact count, or bounds from both sides with a sampled estimate.
+ *
+ * <p>Three steps, each published as soon as it is done:
+ *
+ * <ol>
+ *   <li>Upper bound: {@link SpaceCounter} with a small table limit ({@value #QUICK_TABLE_LIMIT}
+ *       entries), which drops the widest rules until the elimination fits; milliseconds, and exact
+ *       when nothing had to be dropped.
+ *   <li>The full count: {@link SpaceCounter} with the configured table limit, stopped at half the
+ *       budget; exact, or a tighter upper bound.
+ *   <li>Sampling for the rest of the budget: random probes down the search tree of
+ *       {@link Feasibility} (generalised arc consistency, fewest choices first). Knuth's estimator
+ *       (Knuth 1975, "Estimating the efficiency of backtrack programs", Mathematics of Computation
+ *       29(129), 121–136): a probe that reaches a variant weighs the product of the numbers of live
+ *       choices met on its way, a dead end weighs 0, and the mean weight is an unbiased estimate of
+ *       the count; its standard error is the sample standard deviation over √n. Every variant a probe
+ *       reaches is buildable, so the distinct ones found are a proven lower bound.
+ * </ol>
+ *
+ * <p>A probe costs O(groups · propagation); the distinct variants are kept as keys, at most
+ * {@value #MAX_KEPT} of them. A budget of 0 or less means no time limit: the full count runs to the
+ * end and at most {@value #UNTIMED_PROBES} probes follow when it is not exact.
+ */
+public final class BudgetedCount {
+  /** Table limit of the first, quick upper bound. */
+  public static final long QUICK_TABLE_LIMIT = 1L << 12;
+
+  static final int MAX_KEPT = 1 << 20;
+  static final long UNTIMED_PROBES = 20_000;
+
+  private final VariantSpace space;
+  private final long tableLimit;
+  private final long seed;
+  private final long untimedProbes;
+
+  public BudgetedCount(VariantSpace space) {
+    this(space, SpaceCounter.DEFAULT_TABLE_LIMIT, 1);
+  }
+
+  /**
+   * @param tableLimit largest table of the full count (see {@link SpaceCounter})
+   * @param seed seed of the probes: the same seed and the same number of probes, the same estimate
+   */
+  public BudgetedCount(VariantSpace space, long tableLimit, long seed) {
+    this(space, tableLimit, seed, UNTIMED_PROBES);
+  }
+
+  /** Tests fix the number of probes of an untimed count, so that its estimate is reproducible. */
+  BudgetedCount(VariantSpace space, long tableLimit, long seed, long untimedProbes) {
+    if (tableLimit < 1 || tableLimit > SpaceCounter.MAX_TABLE_LIMIT) {
+      throw new IllegalArgumentException(
+          "tableLimit must be between 1 and " + SpaceCounter.MAX_TABLE_LIMIT + ", got " + tableLimit);
+    }
+    this.space = space;
+    this.tableLimit = tableLimit;
+    this.seed = seed;
+    this.untimedProbes = untimedProbes;
+  }
+
+  /** The choices of buildable variants: what {@link VariantSpace#allowed} lets through. */
+  public static boolean[] wholeSpace(VariantSpace space) {
+    boolean[] d = new boolean[space.totalChoices()];
+    for (int f = 0; f < d.length; f++) {
+      d[f] = space.allowed(f);
+    }
+    return d;
+  }
+
+  /** The choices of buildable variants segment s accepts. */
+  public static boolean[] segment(VariantSpace space, int s) {
+    if (s < 0 || s >= space.segmentCount()) {
+      throw new IllegalArgumentException(
+          "segment index " + s + " out of range 0.." + (space.segmentCount() - 1));
+    }
+    boolean[] d = new boolean[space.totalChoices()];
+    for (int f = 0; f < d.length; f++) {
+      d[f] = space.allowedIn(s, f);
+    }
+    return d;
+  }
+
+  /**
+   * The whole space first, then each segment in catalog order, within {@code budgetMs} in all (≤ 0:
+   * no limit): half the budget for the whole space, the other half shared by the segments, each
+   * count handing on the time it did not use.
+   */
+  public List<SpaceCount> wholeAndSegments(long budgetMs) {
+    List<SpaceCount> out = new ArrayList<>();
+    long start = System.nanoTime();
+    int segments = space.segmentCount();
+    out.add(count(wholeSpace(space), budgetMs <= 0 ? 0 : Math.max(1, budgetMs / 2)));
+    for (int s = 0; s < segments; s++) {
+      long share = 0;
+      if (budgetMs > 0) {
+        long left = budgetMs - (System.nanoTime() - start) / 1_000_000;
+        share = Math.max(1, left / (segments - s));
+      }
+      out.add(count(segment(space, s), share));
+    }
+    return out;
+  }
+
+  /** {@link #count(boolean[], long, BooleanSupplier, Consumer)} without stop signal or progress. */
+  public SpaceCount count(boolean[] domain, long budgetMs) {
+    return count(domain, budgetMs, () -> false, c -> {});
+  }
+
+  /**
+   * What can be said of the number of buildable variants within {@code domain} (by flat choice)
+   * within {@code budgetMs} (≤ 0: no limit).
+   *
+   * @param stop polled inside every loop; once it says stop, the answer so far is returned
+   * @param progress told each better answer as it is found, on the calling thread
+   */
+  public SpaceCount count(
+      boolean[] domain, long budgetMs, BooleanSupplier stop, Consumer<SpaceCount> progress) {
+    if (domain.length != space.totalChoices()) {
+      throw new IllegalArgumentException(
+          "domain has " + domain.length + " entries, the space has " + space.totalChoices() + " choices");
+    }
+    long start = System.nanoTime();
+    boolean timed = budgetMs > 0;
+    long end = timed ? start + budgetMs * 1_000_000L : Long.MAX_VALUE;
+    long half = timed ? start + budgetMs * 500_000L : Long.MAX_VALUE;
+    BooleanSupplier over = () -> stop.getAsBoolean() || System.nanoTime() - end > 0;
+
+    BigInteger upper = product(domain);
+    SpaceCount quick =
+        new SpaceCounter(space, Math.min(QUICK_TABLE_LIMIT, tableLimit)).count(domain, over).orElse(null);
+    if (quick != null) {
+      if (quick.exact()) {
+        progress.accept(quick);
+        return quick;
+      }
+      upper = upper.min(quick.upper());
+    }
+    progress.accept(SpaceCount.atMost(upper));
+    if (tableLimit > QUICK_TABLE_LIMIT && !over.getAsBoolean()) {
+      BooleanSupplier overHalf = () -> stop.getAsBoolean() || System.nanoTime() - half > 0;
+      Optional<SpaceCount> full = new SpaceCounter(space, tableLimit).count(domain, overHalf);
+      if (full.isPresent()) {
+        if (full.get().exact()) {
+          progress.accept(full.get());
+          return full.get();
+        }
+        if (full.get().upper().compareTo(upper) < 0) {
+          upper = full.get().upper();
+          progress.accept(SpaceCount.atMost(upper));
+        }
+      }
+    }
+    return sample(domain, upper, timed ? Long.MAX_VALUE : untimedProbes, over, progress);
+  }
+
+  /** Knuth probes until {@code over} or {@code maxProbes}; the bounds and estimate they give. */
+  private SpaceCount sample(
+      boolean[] domain, BigInteger upper, long maxProbes, BooleanSupplier over, Consumer<SpaceCount> progress) {
+    boolean[] d = domain.clone();
+    for (int f = 0; f < d.length; f++) {
+      d[f] &= space.allowed(f);
+    }
+    Feasibility search = Feasibility.prepared(space, d);
+    if (search == null) {
+      SpaceCount none = SpaceCount.exact(BigInteger.ZERO);
+      progress.accept(none);
+      return none;
+    }
+    SplittableRandom rnd = new SplittableRandom(seed);
+    Set<VariantKey> found = new HashSet<>();
+    Mean mean = new Mean();
+    int[] v = new int[space.groupCount()];
+    SpaceCount now = SpaceCount.atMost(upper);
+    for (long probes = 0; probes < maxProbes && !over.getAsBoolean(); probes++) {
+      double w = search.probe(rnd, v);
+      mean.add(w);
+      if (w > Double.NEGATIVE_INFINITY && found.size() < MAX_KEPT) {
+        found.add(space.key(v));
+        if (BigInteger.valueOf(found.size()).equals(upper)) {
+          now = SpaceCount.exact(upper);
+          progress.accept(now);
+          return now; // every variant the relaxation allows has been found
+        }
+      }
+      if ((probes & 255) == 255) {
+        now = SpaceCount.between(BigInteger.valueOf(found.size()), upper, mean.estimate());
+        progress.accept(now);
+      }
+    }
+    now = SpaceCount.between(BigInteger.valueOf(found.size()), upper, mean.estimate());
+    progress.accept(now);
+    return now;
+  }
+
+  /** Product of the groups' numbers of choices within the domain: the count with no rules. */
+  BigInteger product(boolean[] domain) {
+    BigInteger p = BigInteger.ONE;
+    int[] off = space.offsets();
+    for (int g = 0; g < space.groupCount(); g++) {
+      int n = 0;
+      for (int f = off[g]; f < off[g + 1]; f++) {
+        n += domain[f] && space.allowed(f) ? 1 : 0;
+      }
+      p = p.multiply(BigInteger.valueOf(n));
+    }
+    return p;
+  }
+
+  /**
+   * Mean and standard error of weights e^x given as logarithms x (x = -∞ for 0), kept relative to
+   * the largest x so far, since weights can pass the range of a double.
+   */
+  static final class Mean {
+    private long n;
+    private double top = Double.NEGATIVE_INFINITY;
+    private double s1;
+    private double s2;
+
+    void add(double x) {
+      n++;
+      if (x == Double.NEGATIVE_INFINITY) {
+        return;
+      }
+      if (x > top) {
+        double r = top == Double.NEGATIVE_INFINITY ? 0 : Math.exp(top - x);
+        s1 *= r;
+        s2 *= r * r;
+        top = x;
+      }
+      double e = Math.exp(x - top);
+      s1 += e;
+      s2 += e * e;
+    }
+
+    /** Empty until two weights are in. */
+    Optional<SpaceCount.Estimate> estimate() {
+      if (n < 2) {
+        return Optional.empty();
+      }
+      if (top == Double.NEGATIVE_INFINITY) {
+        return Optional.of(new SpaceCount.Estimate(BigDecimal.ZERO, BigDecimal.ZERO, n));
+      }
+      double m = s1 / n;
+      double var = Math.max(0, (s2 - s1 * s1 / n) / (n - 1));
+      double se = Math.sqrt(var / n);
+      return Optional.of(new SpaceCount.Estimate(scaled(m, top), scaled(se, top), n));
+    }
+
+    /** a · e^top as a decimal of six significant digits. */
+    static BigDecimal scaled(double a, double top) {
+      if (a <= 0) {
+        return BigDecimal.ZERO;
+      }
+      double log10 = Math.log10(a) + top / Math.log(10);
+      int exponent = (int) Math.floor(log10);
+      double mantissa = Math.pow(10, log10 - exponent);
+      return new BigDecimal(mantissa, new MathContext(6)).scaleByPowerOfTen(exponent).stripTrailingZeros();
+    }
+  }
+}
