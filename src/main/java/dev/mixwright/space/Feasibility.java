@@ -157,15 +157,7 @@ final class Feasibility {
     double logWeight = 0;
     boolean dead = false;
     while (true) {
-      int g = -1;
-      for (int h = 0; h < size.length; h++) {
-        if (!assigned[h]
-            && (g < 0
-                || size[h] < size[g]
-                || (size[h] == size[g] && occNogood[h].length > occNogood[g].length))) {
-          g = h;
-        }
-      }
+      int g = nextGroup();
       if (g < 0) {
         break;
       }
@@ -223,15 +215,7 @@ final class Feasibility {
     if (++nodes > budget) {
       throw new OutOfBudget();
     }
-    int g = -1;
-    for (int h = 0; h < size.length; h++) {
-      if (!assigned[h]
-          && (g < 0
-              || size[h] < size[g]
-              || (size[h] == size[g] && occNogood[h].length > occNogood[g].length))) {
-        g = h;
-      }
-    }
+    int g = nextGroup();
     if (g < 0) {
       return true;
     }
@@ -254,6 +238,20 @@ final class Feasibility {
     }
     assigned[g] = false;
     return false;
+  }
+
+  /** The unassigned group with the fewest live choices, most rules first among equals; -1 when none. */
+  private int nextGroup() {
+    int g = -1;
+    for (int h = 0; h < size.length; h++) {
+      if (!assigned[h]
+          && (g < 0
+              || size[h] < size[g]
+              || (size[h] == size[g] && occNogood[h].length > occNogood[g].length))) {
+        g = h;
+      }
+    }
+    return g;
   }
 
   /** Removes choice f and updates the counters; false on a wipe-out or a violated nogood. */

@@ -76,24 +76,12 @@ public final class SpaceCounter {
 
   /** Number of buildable variants. */
   public SpaceCount count() {
-    boolean[] domain = new boolean[space.totalChoices()];
-    for (int f = 0; f < domain.length; f++) {
-      domain[f] = space.allowed(f);
-    }
-    return countWithin(domain, NEVER);
+    return countWithin(BudgetedCount.wholeSpace(space), NEVER);
   }
 
   /** Number of variants that are buildable and accepted by segment s. */
   public SpaceCount count(int segment) {
-    if (segment < 0 || segment >= space.segmentCount()) {
-      throw new IllegalArgumentException(
-          "segment index " + segment + " out of range 0.." + (space.segmentCount() - 1));
-    }
-    boolean[] domain = new boolean[space.totalChoices()];
-    for (int f = 0; f < domain.length; f++) {
-      domain[f] = space.allowedIn(segment, f);
-    }
-    return countWithin(domain, NEVER);
+    return countWithin(BudgetedCount.segment(space, segment), NEVER);
   }
 
   /** {@link #count(int)} for every segment, in catalog order. */
