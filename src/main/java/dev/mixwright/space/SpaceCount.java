@@ -84,9 +84,17 @@ public sealed interface SpaceCount permits SpaceCount.Exact, SpaceCount.Bounded 
     }
 
     public String text() {
-      MathContext three = new MathContext(3);
-      return value.round(three).toString() + " ± " + standardError.round(three) + " (estimate from "
-          + samples + " samples)";
+      return scientific(value) + " ± " + scientific(standardError) + " (estimate from " + samples + " samples)";
+    }
+
+    /** Three significant digits, as 6.44e25 (plain below a million). */
+    private static String scientific(BigDecimal x) {
+      BigDecimal r = x.round(new MathContext(3));
+      if (r.compareTo(BigDecimal.valueOf(1_000_000)) < 0) {
+        return r.stripTrailingZeros().toPlainString();
+      }
+      int exponent = r.precision() - r.scale() - 1;
+      return r.movePointLeft(exponent).stripTrailingZeros().toPlainString() + "e" + exponent;
     }
   }
 

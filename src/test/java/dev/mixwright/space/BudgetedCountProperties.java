@@ -43,6 +43,7 @@ class BudgetedCountProperties {
   @Test
   void boundsEncloseTheTruth() {
     AtomicInteger bounded = new AtomicInteger();
+    AtomicInteger aboveProbes = new AtomicInteger();
     Cases.each(300, (seed, rnd) -> {
       VariantSpace space = space(rnd, 2);
       long limit = Cases.between(rnd, 1, 32);
@@ -53,6 +54,9 @@ class BudgetedCountProperties {
       assertTrue(c.upper().compareTo(truth) >= 0, c.text() + " upper below " + truth);
       if (!c.exact()) {
         bounded.incrementAndGet();
+        if (c.lower().compareTo(BigInteger.valueOf(probes)) > 0) {
+          aboveProbes.incrementAndGet(); // the conditioned counts proved more than the probes found
+        }
       }
       int s = rnd.nextInt(space.segmentCount());
       SpaceCount cs = new BudgetedCount(space, limit, seed, probes).count(BudgetedCount.segment(space, s), 0);
@@ -60,6 +64,7 @@ class BudgetedCountProperties {
       assertTrue(cs.lower().compareTo(ts) <= 0 && cs.upper().compareTo(ts) >= 0, cs.text() + " vs " + ts);
     });
     assertTrue(bounded.get() >= 50, "only " + bounded + " cases were left with bounds");
+    assertTrue(aboveProbes.get() >= 10, "only " + aboveProbes + " lower bounds above the number of probes");
   }
 
   /**
