@@ -16,15 +16,17 @@ import java.util.function.Consumer;
  * Counts buildable variants within a time budget and says what it knows when the budget ends: the
  * exact count, or bounds from both sides with a sampled estimate.
  *
- * <p>Three steps, each published as soon as it is done:
+ * <p>Five steps, each published as soon as it is done:
  *
  * <ol>
  *   <li>Upper bound: {@link SpaceCounter} with a small table limit ({@value #QUICK_TABLE_LIMIT}
  *       entries), which drops the widest rules until the elimination fits; milliseconds, and exact
  *       when nothing had to be dropped.
+ *   <li>When timed, a tenth of the budget (at most a second) of the probes of step 4, for a first
+ *       estimate.
  *   <li>The full count: {@link SpaceCounter} with the configured table limit, stopped at half the
  *       budget; exact, or a tighter upper bound.
- *   <li>Sampling for the rest of the budget: random probes down the search tree of
+ *   <li>Sampling for 60 % of the rest of the budget: random probes down the search tree of
  *       {@link Feasibility} (generalised arc consistency, fewest choices first). Knuth's estimator
  *       (Knuth 1975, "Estimating the efficiency of backtrack programs", Mathematics of Computation
  *       29(129), 121–136): a probe that reaches a variant weighs the product of the numbers of live
@@ -156,6 +158,20 @@ public final class BudgetedCount {
       upper = upper.min(quick.upper());
     }
     progress.accept(SpaceCount.atMost(upper));
+    Probes probes = new Probes(domain);
+    if (probes.search == null) {
+      SpaceCount none = SpaceCount.exact(BigInteger.ZERO); // arc consistency empties a domain
+      progress.accept(none);
+      return none;
+    }
+    if (timed) {
+      // A first estimate early, for whoever reads the count while the full count runs.
+      long firstEnd = System.nanoTime() + Math.min(budgetMs * 100_000L, 1_000_000_000L);
+      SpaceCount now = probes.run(upper, Long.MAX_VALUE, () -> over.getAsBoolean() || System.nanoTime() - firstEnd > 0, progress);
+      if (now.exact()) {
+        return now;
+      }
+    }
     if (tableLimit > QUICK_TABLE_LIMIT && !over.getAsBoolean()) {
       BooleanSupplier overHalf = () -> stop.getAsBoolean() || System.nanoTime() - half > 0;
       Optional<SpaceCount> full = new SpaceCounter(space, tableLimit).count(domain, overHalf);
@@ -166,63 +182,74 @@ public final class BudgetedCount {
         }
         if (full.get().upper().compareTo(upper) < 0) {
           upper = full.get().upper();
-          progress.accept(SpaceCount.atMost(upper));
+          progress.accept(probes.answer(upper, probes.lower()));
         }
       }
     }
     long probeEnd = timed ? System.nanoTime() + (long) (0.6 * Math.max(0, end - System.nanoTime())) : Long.MAX_VALUE;
-    BooleanSupplier overProbes = () -> over.getAsBoolean() || System.nanoTime() - probeEnd > 0;
-    return sample(domain, upper, timed ? Long.MAX_VALUE : untimedProbes, overProbes, over, progress);
+    SpaceCount now = probes.run(upper, timed ? Long.MAX_VALUE : untimedProbes,
+        () -> over.getAsBoolean() || System.nanoTime() - probeEnd > 0, progress);
+    if (now.exact() || probes.variants.isEmpty()) {
+      return now;
+    }
+    BigInteger top = upper;
+    BigInteger atLeast = conditioned(probes.domain, probes.variants, over,
+        x -> progress.accept(probes.answer(top, x.max(probes.lower()))));
+    now = probes.answer(upper, atLeast.max(probes.lower()));
+    progress.accept(now);
+    return now;
   }
 
   /**
-   * Knuth probes until {@code overProbes} or {@code maxProbes}, then conditioned counts of what they
-   * found until {@code over}; the bounds and estimate they give.
+   * Knuth probes over one domain, and what they found: the distinct variants (a lower bound) and
+   * the mean of their weights (the estimate).
    */
-  private SpaceCount sample(boolean[] domain, BigInteger upper, long maxProbes, BooleanSupplier overProbes,
-      BooleanSupplier over, Consumer<SpaceCount> progress) {
-    boolean[] d = domain.clone();
-    for (int f = 0; f < d.length; f++) {
-      d[f] &= space.allowed(f);
+  private final class Probes {
+    final boolean[] domain;
+    final Feasibility search;
+    final SplittableRandom rnd = new SplittableRandom(seed);
+    final Set<VariantKey> found = new HashSet<>();
+    final List<int[]> variants = new ArrayList<>();
+    final Mean mean = new Mean();
+    final int[] v = new int[space.groupCount()];
+
+    Probes(boolean[] domain) {
+      this.domain = domain.clone();
+      for (int f = 0; f < this.domain.length; f++) {
+        this.domain[f] &= space.allowed(f);
+      }
+      search = Feasibility.prepared(space, this.domain);
     }
-    Feasibility search = Feasibility.prepared(space, d);
-    if (search == null) {
-      SpaceCount none = SpaceCount.exact(BigInteger.ZERO);
-      progress.accept(none);
-      return none;
+
+    BigInteger lower() {
+      return BigInteger.valueOf(found.size());
     }
-    SplittableRandom rnd = new SplittableRandom(seed);
-    Set<VariantKey> found = new HashSet<>();
-    List<int[]> variants = new ArrayList<>();
-    Mean mean = new Mean();
-    int[] v = new int[space.groupCount()];
-    SpaceCount now = SpaceCount.atMost(upper);
-    for (long probes = 0; probes < maxProbes && !overProbes.getAsBoolean(); probes++) {
-      double w = search.probe(rnd, v);
-      mean.add(w);
-      if (w > Double.NEGATIVE_INFINITY && found.size() < MAX_KEPT && found.add(space.key(v))) {
-        variants.add(v.clone());
-        if (BigInteger.valueOf(found.size()).equals(upper)) {
-          now = SpaceCount.exact(upper);
-          progress.accept(now);
-          return now; // every variant the relaxation allows has been found
+
+    SpaceCount answer(BigInteger upper, BigInteger lower) {
+      return SpaceCount.between(lower, upper, mean.estimate());
+    }
+
+    /** Probes until {@code over} or {@code maxProbes} more; exact when they found all {@code upper}. */
+    SpaceCount run(BigInteger upper, long maxProbes, BooleanSupplier over, Consumer<SpaceCount> progress) {
+      for (long probes = 0; probes < maxProbes && !over.getAsBoolean(); probes++) {
+        double w = search.probe(rnd, v);
+        mean.add(w);
+        if (w > Double.NEGATIVE_INFINITY && found.size() < MAX_KEPT && found.add(space.key(v))) {
+          variants.add(v.clone());
+          if (lower().equals(upper)) {
+            SpaceCount all = SpaceCount.exact(upper);
+            progress.accept(all);
+            return all; // every variant the relaxation allows has been found
+          }
+        }
+        if ((probes & 255) == 255) {
+          progress.accept(answer(upper, lower()));
         }
       }
-      if ((probes & 255) == 255) {
-        now = SpaceCount.between(BigInteger.valueOf(found.size()), upper, mean.estimate());
-        progress.accept(now);
-      }
+      SpaceCount now = answer(upper, lower());
+      progress.accept(now);
+      return now;
     }
-    Optional<SpaceCount.Estimate> estimate = mean.estimate();
-    BigInteger lower = BigInteger.valueOf(found.size());
-    if (!variants.isEmpty()) {
-      BigInteger probed = lower;
-      lower = lower.max(conditioned(d, variants, over,
-          x -> progress.accept(SpaceCount.between(x.max(probed), upper, estimate))));
-    }
-    now = SpaceCount.between(lower, upper, estimate);
-    progress.accept(now);
-    return now;
   }
 
   /** Table limit of the counts with a cutset fixed: many of them run, so each must be quick. */
