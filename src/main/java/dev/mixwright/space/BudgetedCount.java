@@ -48,6 +48,12 @@ public final class BudgetedCount {
   static final int MAX_KEPT = 1 << 20;
   static final long UNTIMED_PROBES = 20_000;
 
+  /**
+   * Probes a timed count takes even past its budget (milliseconds on catalogs of hundreds of
+   * choices), so that a loaded machine still gets an estimate and a lower bound.
+   */
+  static final long MIN_PROBES = 64;
+
   private final VariantSpace space;
   private final long tableLimit;
   private final long seed;
@@ -167,7 +173,8 @@ public final class BudgetedCount {
     if (timed) {
       // A first estimate early, for whoever reads the count while the full count runs.
       long firstEnd = System.nanoTime() + Math.min(budgetMs * 100_000L, 1_000_000_000L);
-      SpaceCount now = probes.run(upper, Long.MAX_VALUE, () -> over.getAsBoolean() || System.nanoTime() - firstEnd > 0, progress);
+      SpaceCount now = probes.run(upper, Long.MAX_VALUE, MIN_PROBES, stop,
+          () -> over.getAsBoolean() || System.nanoTime() - firstEnd > 0, progress);
       if (now.exact()) {
         return now;
       }
@@ -187,7 +194,7 @@ public final class BudgetedCount {
       }
     }
     long probeEnd = timed ? System.nanoTime() + (long) (0.6 * Math.max(0, end - System.nanoTime())) : Long.MAX_VALUE;
-    SpaceCount now = probes.run(upper, timed ? Long.MAX_VALUE : untimedProbes,
+    SpaceCount now = probes.run(upper, timed ? Long.MAX_VALUE : untimedProbes, 0, stop,
         () -> over.getAsBoolean() || System.nanoTime() - probeEnd > 0, progress);
     if (now.exact() || probes.variants.isEmpty()) {
       return now;
@@ -229,9 +236,15 @@ public final class BudgetedCount {
       return SpaceCount.between(lower, upper, mean.estimate());
     }
 
-    /** Probes until {@code over} or {@code maxProbes} more; exact when they found all {@code upper}. */
-    SpaceCount run(BigInteger upper, long maxProbes, BooleanSupplier over, Consumer<SpaceCount> progress) {
-      for (long probes = 0; probes < maxProbes && !over.getAsBoolean(); probes++) {
+    /**
+     * Probes until {@code over} (but at least {@code minProbes} unless {@code stop}) or
+     * {@code maxProbes} more; exact when they found all {@code upper}.
+     */
+    SpaceCount run(BigInteger upper, long maxProbes, long minProbes, BooleanSupplier stop, BooleanSupplier over,
+        Consumer<SpaceCount> progress) {
+      for (long probes = 0;
+          probes < maxProbes && (probes < minProbes ? !stop.getAsBoolean() : !over.getAsBoolean());
+          probes++) {
         double w = search.probe(rnd, v);
         mean.add(w);
         if (w > Double.NEGATIVE_INFINITY && found.size() < MAX_KEPT && found.add(space.key(v))) {
