@@ -10,25 +10,35 @@ package dev.mixwright.colgen;
  */
 public enum ChoiceEntry {
   /** The perRound best by d, as for a fixed segment. */
-  BY_REDUCED_COST(1, 1, false),
+  BY_REDUCED_COST(1, 1, false, false),
   /** The 3 × perRound best by d all enter. */
-  MORE_BY_REDUCED_COST(3, 3, false),
+  MORE_BY_REDUCED_COST(3, 3, false, false),
   /** Of the 3 × perRound best by d, the perRound best by w·d enter. */
-  BY_RATE(3, 1, true),
-  /** Of the 5 × perRound best by d, the 2 × perRound best by w·d enter. */
-  MORE_BY_RATE(5, 2, true);
+  BY_RATE(3, 1, true, false),
+  /**
+   * As {@link #BY_RATE}, the candidates widened by a search for high w·d (pricing u + d/D, see
+   * {@code ColumnGeneration.rateSearch}); 2 × perRound enter.
+   */
+  RATE_SEARCH(3, 2, true, true);
 
   /** Measured on the choosing benchmark pair and the rowing-boats catalog: docs/choice.md. */
-  public static final ChoiceEntry DEFAULT = BY_RATE;
+  public static final ChoiceEntry DEFAULT = RATE_SEARCH;
 
   private final int asked;
   private final int entering;
   private final boolean byRate;
+  private final boolean searchesRate;
 
-  ChoiceEntry(int asked, int entering, boolean byRate) {
+  ChoiceEntry(int asked, int entering, boolean byRate, boolean searchesRate) {
     this.asked = asked;
     this.entering = entering;
     this.byRate = byRate;
+    this.searchesRate = searchesRate;
+  }
+
+  /** True when extra pricing calls look for columns of high w·d. */
+  boolean searchesRate() {
+    return searchesRate;
   }
 
   /** Columns asked of the pricer for a choosing segment, given perRound. */

@@ -78,6 +78,10 @@ public final class ColumnGeneration {
   private final double[] upper;
   private final boolean[] chooses;
   private ChoiceEntry choiceEntry = ChoiceEntry.DEFAULT;
+  /** Passes of {@link #rateSearch} per choosing segment and round. */
+  private static final int RATE_PASSES = 3;
+  /** Per segment, the columns the last round's rate search proposed (empty for fixed segments). */
+  private final List<List<PricedVariant>> rateFound = new ArrayList<>();
   private final LagrangianLpBound lagrangian;
   /**
    * A column must pay more than this to enter; tiny against any catalog's margins, large against
@@ -292,6 +296,7 @@ public final class ColumnGeneration {
   /** One pricing call per segment at (y, ν): the heuristic first when asked, exact where it finds nothing. */
   private List<PricingOutcome> priceSegments(MasterPool pool, double[] y, double[] nu) {
     List<PricingOutcome> outcomes = new ArrayList<>();
+    rateFound.clear();
     for (int s = 0; s < space.segmentCount(); s++) {
       // Threshold 0, so that the bound uses the best reduced cost itself; only columns that pay more
       // than the round-off tolerance enter.
@@ -306,10 +311,57 @@ public final class ColumnGeneration {
           o = null;
         }
       }
-      outcomes.add(o != null ? o : priceExact(q));
+      o = o != null ? o : priceExact(q);
+      outcomes.add(o);
+      rateFound.add(chooses[s] && choiceEntry.searchesRate() && o.best() > entryTolerance
+          ? rateSearch(pool, s, y, nu[s], q.weight(), o.best())
+          : List.of());
     }
     return outcomes;
   }
+
+  /**
+   * Columns of choosing segment s with a high rate w·d, found by pricing u(v) + d(v)/D for a scale D
+   * (both terms additive over the groups, so the pricers answer it as they are). Why: log(w·d) =
+   * u − stayOut + log d, and its first-order change is δu + δd/d, so at the column of best rate
+   * D = its own d; starting from D = the best d, each pass sets D to the d of the best-rate column
+   * found, a fixed-point iteration that stops when D settles (at most {@link #RATE_PASSES} passes).
+   * Plain max-d pricing stays the exact test: this only proposes columns, each with its true d at
+   * (y, ν), and only those that pay enter. O(passes) pricing calls.
+   */
+  private List<PricedVariant> rateSearch(MasterPool pool, int s, double[] y, double nu, double[] dWeight, double bestD) {
+    double[] util = space.choiceUtilities(s);
+    List<PricedVariant> out = new ArrayList<>();
+    java.util.Set<dev.mixwright.space.VariantKey> seen = new java.util.HashSet<>();
+    double scale = bestD;
+    for (int pass = 0; pass < RATE_PASSES; pass++) {
+      double[] w = new double[dWeight.length];
+      for (int f = 0; f < w.length; f++) {
+        w[f] = dWeight[f] == Double.NEGATIVE_INFINITY ? Double.NEGATIVE_INFINITY : util[f] + dWeight[f] / scale;
+      }
+      PricingOutcome o = priceExact(new PricingQuery(s, w, -nu / scale, choiceEntry.asked(settings.perRound()),
+          Double.NEGATIVE_INFINITY, pool.active(s)));
+      double bestRate = 0;
+      double next = scale;
+      for (PricedVariant pv : o.found()) {
+        double d = ReducedCosts.of(space, pv.choices(), s, y, nu);
+        if (d > entryTolerance && seen.add(space.key(pv.choices()))) {
+          out.add(new PricedVariant(pv.choices(), d));
+          double rate = MasterPool.attraction(space, pv.choices(), s) * d;
+          if (rate > bestRate) {
+            bestRate = rate;
+            next = d;
+          }
+        }
+      }
+      if (Math.abs(next - scale) <= 1e-3 * scale) {
+        break;
+      }
+      scale = next;
+    }
+    return out;
+  }
+
 
   /** The bounds an exact round at (y, ν) proves; see {@link RoundBound}. */
   private RoundBound bound(MasterPool pool, MasterSolution sol, List<PricingOutcome> outcomes, double[] y,
@@ -329,7 +381,17 @@ public final class ColumnGeneration {
     List<Column> found = new ArrayList<>();
     for (int s = 0; s < outcomes.size(); s++) {
       List<Column> paying = new ArrayList<>();
-      for (PricedVariant pv : outcomes.get(s).found()) {
+      List<PricedVariant> candidates = new ArrayList<>(outcomes.get(s).found());
+      if (s < rateFound.size()) {
+        java.util.Set<dev.mixwright.space.VariantKey> seen = new java.util.HashSet<>();
+        candidates.forEach(pv -> seen.add(space.key(pv.choices())));
+        for (PricedVariant pv : rateFound.get(s)) {
+          if (seen.add(space.key(pv.choices()))) {
+            candidates.add(pv);
+          }
+        }
+      }
+      for (PricedVariant pv : candidates) {
         // At a smoothed point a column may price out positive yet not pay at the master's duals.
         double d = alpha == 0 ? pv.reducedCost() : ReducedCosts.of(space, pv.choices(), s, pi, mu[s]);
         if (d > entryTolerance) {
