@@ -10,12 +10,16 @@ import com.fasterxml.jackson.databind.json.JsonMapper;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
 import com.fasterxml.jackson.dataformat.yaml.YAMLMapper;
 import java.io.IOException;
-import java.nio.charset.MalformedInputException;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AccessDeniedException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.HexFormat;
 import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -57,6 +61,17 @@ public final class CatalogLoader {
 
   /** Loads a catalog file; option tables it names are read from the same folder. */
   public static Catalog load(Path file) throws CatalogException {
+    return loadHashed(file).catalog();
+  }
+
+  /** A catalog and the SHA-256 (lower-case hex) of the very bytes it was parsed from. */
+  public record Hashed(Catalog catalog, String sha256) {}
+
+  /**
+   * Reads the file once, hashes those bytes and parses them, so the hash a run records is of the
+   * text that was solved even if the file is rewritten meanwhile.
+   */
+  public static Hashed loadHashed(Path file) throws CatalogException {
     String name = nameOf(file.toString(), file);
     formatOf(name); // reject an unknown file type before reading it
     if (Files.isDirectory(file)) {
@@ -64,9 +79,19 @@ public final class CatalogLoader {
           new CatalogProblem(
               name, "is a folder, not a catalog file — give the .yaml or .json file"));
     }
-    String text = readText(file, name);
-    return parse(text, file.toString(), file.toAbsolutePath().getParent());
+    byte[] bytes = readBytes(file, name);
+    Catalog c = parse(decode(bytes, name), file.toString(), file.toAbsolutePath().getParent());
+    return new Hashed(c, sha256(bytes));
   }
+
+  private static String sha256(byte[] bytes) {
+    try {
+      return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
+    } catch (NoSuchAlgorithmException e) {
+      throw new IllegalStateException("every Java runtime has SHA-256", e);
+    }
+  }
+
 
   /**
    * Parses catalog text. {@code fileNameForFormat} picks YAML or JSON by its ending and names the
@@ -83,7 +108,7 @@ public final class CatalogLoader {
    * YAML or JSON text (picked by the file name's ending) as a tree, for the files that sit beside a
    * catalog (scenarios, sweeps); text that is neither is one problem naming the line and column.
    */
-  static JsonNode parseTree(String text, String fileNameForFormat) throws CatalogException {
+  public static JsonNode parseTree(String text, String fileNameForFormat) throws CatalogException {
     String name = nameOf(fileNameForFormat, null);
     boolean yaml = formatOf(name);
     String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
@@ -95,31 +120,42 @@ public final class CatalogLoader {
   }
 
   /** A file's text, or one problem saying in words why it cannot be read. */
-  static String readText(Path file, String name) throws CatalogException {
+  public static String readText(Path file, String name) throws CatalogException {
     formatOf(name);
     if (Files.isDirectory(file)) {
       throw new CatalogException(
           new CatalogProblem(name, "is a folder, not a file — give the .yaml or .json file"));
     }
+    return decode(readBytes(file, name), name);
+  }
+
+  private static byte[] readBytes(Path file, String name) throws CatalogException {
     try {
-      return Files.readString(file, StandardCharsets.UTF_8);
+      return Files.readAllBytes(file);
     } catch (NoSuchFileException e) {
       throw new CatalogException(
           new CatalogProblem(name, "no such file (looked for " + file.toAbsolutePath() + ")"));
     } catch (AccessDeniedException e) {
       throw new CatalogException(
           new CatalogProblem(name, "cannot read the file: permission denied"));
-    } catch (MalformedInputException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "is not UTF-8 text — save the file in UTF-8"));
     } catch (IOException e) {
       throw new CatalogException(
           new CatalogProblem(name, "cannot read the file: " + e.getMessage()));
     }
   }
 
+  private static String decode(byte[] bytes, String name) throws CatalogException {
+    try {
+      return StandardCharsets.UTF_8.newDecoder().decode(ByteBuffer.wrap(bytes)).toString();
+    } catch (CharacterCodingException e) {
+      throw new CatalogException(
+          new CatalogProblem(name, "is not UTF-8 text — save the file in UTF-8"));
+    }
+  }
+
+
   /** The file name problems are reported under. */
-  static String displayName(Path file) {
+  public static String displayName(Path file) {
     return nameOf(file.toString(), file);
   }
 

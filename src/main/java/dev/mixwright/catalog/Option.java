@@ -39,6 +39,19 @@ public record Option(
   }
 
   /**
+   * This option with other price points and every other field kept. Scenarios change options only
+   * through here and {@link #withCost}, so a field added to this record is carried over in one place.
+   */
+  public Option withPrices(List<Double> newPrices) {
+    return new Option(id, label, newPrices, cost, uses, tooling);
+  }
+
+  /** This option with another cost and every other field kept. */
+  public Option withCost(double newCost) {
+    return new Option(id, label, prices, newCost, uses, tooling);
+  }
+
+  /**
    * The option's price; with several price points, the first listed. Code that handles variants
    * should take the price of the chosen point from {@code VariantSpace.choicePrice}.
    */

@@ -6,13 +6,13 @@ import java.util.Collection;
 import java.util.regex.Pattern;
 
 /** Input paths and the small pieces of wording that problem messages share. */
-final class Where {
+public final class Where {
   private static final Pattern PLAIN_KEY = Pattern.compile("[A-Za-z0-9_\\-]+");
 
   private Where() {}
 
   /** {@code parent.key}, or {@code parent["odd key"]} when the key would not read as one step. */
-  static String field(String parent, String key) {
+  public static String field(String parent, String key) {
     if (PLAIN_KEY.matcher(key).matches()) {
       return parent.isEmpty() ? key : parent + "." + key;
     }
@@ -20,12 +20,12 @@ final class Where {
     return parent + quoted;
   }
 
-  static String index(String parent, int i) {
+  public static String index(String parent, int i) {
     return parent + "[" + i + "]";
   }
 
   /** A number as people write it: 14000, 1.6, 0.000001 (no exponent for ordinary magnitudes). */
-  static String num(double x) {
+  public static String num(double x) {
     if (Double.isNaN(x) || Double.isInfinite(x)) {
       return Double.toString(x);
     }
@@ -40,7 +40,7 @@ final class Where {
   }
 
   /** What a value was, for "got ..." in a message. */
-  static String describe(JsonNode v) {
+  public static String describe(JsonNode v) {
     if (v == null || v.isMissingNode() || v.isNull()) {
       return "nothing";
     }
@@ -68,7 +68,7 @@ final class Where {
   }
 
   /** {@code a, b, c} — or {@code (none)} for an empty list. */
-  static String list(Collection<String> items) {
+  public static String list(Collection<String> items) {
     return items.isEmpty() ? "(none)" : String.join(", ", items);
   }
 
@@ -76,7 +76,7 @@ final class Where {
    * The candidate closest to a misspelt word, or null when none is close enough to be a likely
    * typo: equal ignoring case, or within edit distance 1 (short words) or 2 (words of 5+ letters).
    */
-  static String closest(String word, Collection<String> candidates) {
+  public static String closest(String word, Collection<String> candidates) {
     String best = null;
     int bestDistance = Integer.MAX_VALUE;
     for (String c : candidates) {
@@ -91,7 +91,7 @@ final class Where {
   }
 
   /** {@code " — did you mean 'x'?"} or the empty string. */
-  static String didYouMean(String word, Collection<String> candidates) {
+  public static String didYouMean(String word, Collection<String> candidates) {
     String c = closest(word, candidates);
     return c == null ? "" : " — did you mean '" + c + "'?";
   }

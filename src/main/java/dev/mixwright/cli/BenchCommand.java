@@ -16,7 +16,7 @@ import dev.mixwright.pricing.Pricer;
 import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.pricing.PricingQuery;
 import dev.mixwright.pricing.ReducedCosts;
-import dev.mixwright.report.AtomicFiles;
+import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.SpaceCounter;
 import dev.mixwright.space.VariantEnumerator;
@@ -74,7 +74,7 @@ final class BenchCommand implements Callable<Integer> {
   @Option(names = "--seed", paramLabel = "X", defaultValue = "1", description = "seed of the generated catalogs (default ${DEFAULT-VALUE})")
   long seed;
 
-  @Option(names = "--pricer-repeats", paramLabel = "N", defaultValue = "3",
+  @Option(names = "--pricer-repeats", paramLabel = "N", defaultValue = "3", converter = Converters.PositiveCount.class,
       description = "timed repetitions of each pricer's exact round; the median is shown (default ${DEFAULT-VALUE})")
   int repeats;
 
@@ -96,9 +96,6 @@ final class BenchCommand implements Callable<Integer> {
     out = spec.commandLine().getOut();
     if (outFile != null && Files.exists(outFile) && !replace) {
       throw new UserError(outFile + " already exists; choose another --out file, or add --replace to overwrite it");
-    }
-    if (repeats < 1) {
-      throw new UserError("--pricer-repeats must be at least 1, got " + repeats);
     }
     List<Integer> full = fullColumns != null ? fullColumns : quick ? List.of(4, 5) : List.of(4, 5, 6);
     List<Integer> spaces = spaceSizes != null ? spaceSizes : quick ? List.of(9) : List.of(9, 15, 25);

@@ -1,17 +1,18 @@
 package dev.mixwright.cli;
 
-import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.explain.CapacityRanges;
-import dev.mixwright.report.ColumnLogReader;
-import dev.mixwright.report.ColumnPool;
-import dev.mixwright.report.Json;
-import dev.mixwright.report.RunFolder;
-import dev.mixwright.report.RunManifest;
+import dev.mixwright.report.RunResult;
+import dev.mixwright.run.PricerChoice;
+import dev.mixwright.runfolder.ColumnLogReader;
+import dev.mixwright.runfolder.ColumnPool;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.runfolder.RunManifest;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -28,8 +29,16 @@ final class CapacityRangeReport {
   private CapacityRangeReport() {}
 
   /** The exact pricer the run used (bnb when its manifest is missing). */
-  static String runPricer(RunFolder folder) throws IOException {
-    return Files.isRegularFile(folder.manifest()) ? RunManifest.read(folder).settings().pricer() : "bnb";
+  static PricerChoice runPricer(RunFolder folder) throws IOException {
+    if (!Files.isRegularFile(folder.manifest())) {
+      return PricerChoice.BNB;
+    }
+    String word = RunManifest.read(folder).settings().pricer();
+    try {
+      return PricerChoice.byWord(word);
+    } catch (IllegalArgumentException e) {
+      throw new UserError(RunFolder.MANIFEST + " settings.pricer: " + e.getMessage());
+    }
   }
 
   /** Every column of the run's log, as warm start for re-solves. */
@@ -42,7 +51,7 @@ final class CapacityRangeReport {
   static List<CapacityRanges.Range> compute(RunFolder folder, Catalog catalog, List<String> only, PrintWriter err)
       throws IOException {
     VariantSpace space = new VariantSpace(catalog);
-    String pricer = runPricer(folder);
+    PricerChoice pricer = runPricer(folder);
     List<Column> warm = runColumns(folder, space);
     for (String id : only) {
       if (catalog.resourceIndex(id) < 0) {
@@ -58,7 +67,7 @@ final class CapacityRangeReport {
         continue;
       }
       CapacityRanges.ColumnGenerationSolver solver =
-          new CapacityRanges.ColumnGenerationSolver(catalog, r, pricer, RESOLVE, warm);
+          new CapacityRanges.ColumnGenerationSolver(catalog, r, pricer::create, RESOLVE, warm);
       // The run's own figures come from a solve to its own gap; solve once more here so every point
       // of the search has the same accuracy.
       CapacityRanges.Point p0 = solver.at(catalog.resources().get(r).capacity());
@@ -93,7 +102,7 @@ final class CapacityRangeReport {
     }
   }
 
-  static void print(PrintWriter out, List<CapacityRanges.Range> ranges, JsonNode result) {
+  static void print(PrintWriter out, List<CapacityRanges.Range> ranges, RunResult result) {
     int solves = ranges.stream().mapToInt(CapacityRanges.Range::solves).sum() + ranges.size();
     out.println("capacity ranges of the shadow prices (found by re-solving over the whole space, "
         + solves + " solves):");
@@ -106,8 +115,8 @@ final class CapacityRangeReport {
           Numbers.money(r.capacity()), Numbers.money(r.price()), range, Numbers.money(r.priceBelow()),
           Numbers.money(r.priceAbove())));
     }
-    if (result != null && !result.path("status").asText().equals("optimal")) {
-      out.println("  note: the run ended " + result.path("status").asText()
+    if (!result.status().isOptimal()) {
+      out.println("  note: the run ended " + result.status().word()
           + "; the ranges are those of the re-solved optimum, not of its last master");
     }
   }

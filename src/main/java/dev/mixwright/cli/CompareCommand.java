@@ -5,10 +5,10 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
-import dev.mixwright.report.Json;
 import dev.mixwright.report.RunComparison;
-import dev.mixwright.report.RunFolder;
-import dev.mixwright.report.RunReader;
+import dev.mixwright.report.RunResult;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
@@ -46,8 +46,8 @@ final class CompareCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
-    JsonNode a = result(runA);
-    JsonNode b = result(runB);
+    RunResult a = result(runA);
+    RunResult b = result(runB);
     ObjectNode cmp = RunComparison.compare(a, b, catalog(runA), catalog(runB));
     if (json) {
       out.println(Json.pretty().writeValueAsString(cmp));
@@ -57,9 +57,9 @@ final class CompareCommand implements Callable<Integer> {
     return ExitCodes.OK;
   }
 
-  private static JsonNode result(Path run) {
+  private static RunResult result(Path run) {
     try {
-      return RunReader.readResult(run);
+      return RunResult.read(run);
     } catch (IOException e) {
       throw new UserError(e.getMessage());
     }

@@ -2,6 +2,8 @@ package dev.mixwright.cli;
 
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.run.InputError;
+import dev.mixwright.run.RunOutcome;
 import java.io.PrintWriter;
 import picocli.CommandLine;
 import picocli.CommandLine.ParseResult;
@@ -15,6 +17,14 @@ public final class ExitCodes {
 
   private ExitCodes() {}
 
+  /** A run that ended at its proven optimum is success; stopped early or infeasible is 1. */
+  static int of(RunOutcome o) {
+    if (o instanceof RunOutcome.Solved s) {
+      return s.lp().status().isOptimal() ? OK : STOPPED;
+    }
+    return o instanceof RunOutcome.AlreadyOptimal ? OK : STOPPED;
+  }
+
   static int handle(Exception e, CommandLine cl, ParseResult parsed) {
     PrintWriter err = cl.getErr();
     if (e instanceof CatalogException ce) {
@@ -26,7 +36,7 @@ public final class ExitCodes {
       err.flush();
       return BAD_INPUT;
     }
-    if (e instanceof UserError) {
+    if (e instanceof InputError) {
       err.println("mixwright: " + e.getMessage());
       err.flush();
       return BAD_INPUT;

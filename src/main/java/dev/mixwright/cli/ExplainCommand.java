@@ -3,15 +3,16 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.explain.CapacityRanges;
 import dev.mixwright.explain.Explainer;
 import dev.mixwright.explain.Explanation;
 import dev.mixwright.explain.PriceRange;
-import dev.mixwright.report.Json;
-import dev.mixwright.report.RunFolder;
 import dev.mixwright.report.RunReader;
+import dev.mixwright.report.RunResult;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.space.VariantSpace;
-import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -43,7 +44,7 @@ final class ExplainCommand implements Callable<Integer> {
   String segmentId;
 
   @Option(names = "--variant", paramLabel = "G=O,...",
-      description = "one option per group, e.g. frame=step,motor=mid750 (optional groups left out mean none)")
+      description = "one option per group, e.g. capacity=c9,compressor=scroll,tank=t200 (optional groups left out mean none)")
   String variantText;
 
   @Option(names = "--json", description = "print the explanation as JSON")
@@ -85,7 +86,7 @@ final class ExplainCommand implements Callable<Integer> {
         n.set("capacityRanges", CapacityRangeReport.toJson(ranges));
         out.println(Json.pretty().writeValueAsString(n));
       } else {
-        CapacityRangeReport.print(out, ranges, RunReader.readResult(runDir));
+        CapacityRangeReport.print(out, ranges, RunResult.read(runDir));
       }
       return ExitCodes.OK;
     }
@@ -101,13 +102,13 @@ final class ExplainCommand implements Callable<Integer> {
     } catch (IllegalArgumentException e) {
       throw new UserError("--variant: " + e.getMessage());
     }
-    RunReader.RunView run = RunReader.view(catalog, RunReader.readResult(runDir));
+    RunReader.RunView run = RunReader.view(catalog, RunResult.read(runDir));
     Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
     double qty = run.quantity(segmentId, space.describe(v));
     var verdict = PortfolioExplainView.verdict(space, v, run.result());
     PriceRange.Leave leave = null;
     if (leavePrice && qty > 0 && e.sellable()) {
-      leave = new PriceRange(space, CapacityRangeReport.runPricer(folder), CapacityRangeReport.RESOLVE,
+      leave = new PriceRange(space, CapacityRangeReport.runPricer(folder)::create, CapacityRangeReport.RESOLVE,
           CapacityRangeReport.runColumns(folder, space)).leave(v, s, 1e-6);
     }
     if (json) {
@@ -147,7 +148,7 @@ final class ExplainCommand implements Callable<Integer> {
       }
       int eq = p.indexOf('=');
       if (eq <= 0 || eq == p.length() - 1) {
-        throw new UserError("--variant: '" + p + "' is not group=option; write e.g. frame=step,motor=mid750");
+        throw new UserError("--variant: '" + p + "' is not group=option; write e.g. capacity=c9,compressor=scroll");
       }
       String g = p.substring(0, eq).trim();
       if (m.put(g, p.substring(eq + 1).trim()) != null) {
@@ -186,7 +187,7 @@ final class ExplainCommand implements Callable<Integer> {
     n.put("quantity", qty);
     n.put("inPlan", qty > 0);
     n.put("priceRiseToEnter", qty > 0 ? 0.0 : e.priceRiseToEnter());
-    n.put("runStatus", run.status());
+    n.put("runStatus", run.status().word());
     return n;
   }
 
@@ -209,7 +210,7 @@ final class ExplainCommand implements Callable<Integer> {
     }
     out.println(String.format(Locale.ROOT, "  - %-20s %s  (segment shadow price)", "demand of " + seg, fmt(e.segmentCharge())));
     out.println("  = reduced cost         " + fmt(e.reducedCost()));
-    if (run.status().equals("optimal") || run.status().equals("stopped")) {
+    if (run.status() != RunStatus.INFEASIBLE) {
       if (qty > 0) {
         out.println("  in the plan: " + Numbers.qty(qty) + " units"
             + (e.reducedCost() > 1e-7 ? " (at its share limit: it pays more than its resources' worth)" : ""));
@@ -220,8 +221,8 @@ final class ExplainCommand implements Callable<Integer> {
         out.println("  not in the plan, though it pays as much as its resources' worth: an alternative optimum");
       }
     }
-    if (!run.status().equals("optimal")) {
-      out.println("  note: the run ended " + run.status() + "; shadow prices are those of its last master");
+    if (!run.status().isOptimal()) {
+      out.println("  note: the run ended " + run.status().word() + "; shadow prices are those of its last master");
     }
   }
 

@@ -3,7 +3,7 @@ package dev.mixwright.cli;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogGenerator;
 import dev.mixwright.catalog.CatalogWriter;
-import dev.mixwright.report.AtomicFiles;
+import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.space.SpaceCounter;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;

@@ -2,8 +2,8 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.Durations;
-import dev.mixwright.report.ColumnLogReader;
-import dev.mixwright.report.RunFolder;
+import dev.mixwright.runfolder.ColumnLogReader;
+import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;

@@ -1,14 +1,13 @@
 package dev.mixwright.cli;
 
-import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.explain.PortfolioExplainer;
 import dev.mixwright.explain.PortfolioVerdict;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
@@ -18,52 +17,49 @@ final class PortfolioExplainView {
   private PortfolioExplainView() {}
 
   /** The verdict for v, or null when the run has no integer portfolio. */
-  static PortfolioVerdict verdict(VariantSpace space, int[] v, JsonNode result) {
-    JsonNode p = result.get("portfolio");
+  static PortfolioVerdict verdict(VariantSpace space, int[] v, RunResult result) {
+    RunResult.Portfolio p = result.portfolio();
     if (p == null || space.catalog().portfolio().isEmpty()) {
       return null;
     }
     Catalog cat = space.catalog();
     List<int[]> offered = new ArrayList<>();
     List<double[]> sales = new ArrayList<>();
-    for (JsonNode e : p.get("variants")) {
-      Map<String, String> opts = new LinkedHashMap<>();
-      e.get("options").fields().forEachRemaining(x -> opts.put(x.getKey(), x.getValue().asText()));
-      offered.add(space.parse(opts));
-      double[] q = new double[cat.segments().size()];
-      e.get("sales").fields().forEachRemaining(x -> {
-        int s = cat.segmentIndex(x.getKey());
-        if (s >= 0) {
-          q[s] = x.getValue().asDouble();
-        }
-      });
-      sales.add(q);
+    for (RunResult.PortfolioVariant e : p.variants()) {
+      offered.add(space.parse(e.options()));
+      sales.add(bySegment(cat, e.sales()));
     }
     double[] pi = new double[cat.resources().size()];
     double[] mu = new double[cat.segments().size()];
     double lambda = 0;
     double at = Double.POSITIVE_INFINITY;
-    JsonNode rx = p.get("relaxation");
+    RunResult.Relaxation rx = p.relaxation();
     if (rx != null) {
-      rx.path("prices").path("resources").fields().forEachRemaining(x -> {
-        int r = cat.resourceIndex(x.getKey());
+      rx.prices().resources().forEach((id, price) -> {
+        int r = cat.resourceIndex(id);
         if (r >= 0) {
-          pi[r] = x.getValue().asDouble();
+          pi[r] = price;
         }
       });
-      rx.path("prices").path("segments").fields().forEachRemaining(x -> {
-        int s = cat.segmentIndex(x.getKey());
-        if (s >= 0) {
-          mu[s] = x.getValue().asDouble();
-        }
-      });
-      lambda = rx.path("variantLimitPrice").asDouble(0);
-      JsonNode b = rx.get("boundAtVariantLimitPrice");
-      at = b == null || b.isNull() ? Double.POSITIVE_INFINITY : b.asDouble();
+      mu = bySegment(cat, rx.prices().segments());
+      lambda = rx.variantLimitPrice() == null ? 0 : rx.variantLimitPrice();
+      at = rx.boundAtVariantLimitPrice() == null ? Double.POSITIVE_INFINITY : rx.boundAtVariantLimitPrice();
     }
-    PortfolioExplainer.Facts f = new PortfolioExplainer.Facts(p.get("status").asText().equals("proven"),
-        p.get("value").asDouble(), offered, sales, pi, mu, lambda, at);
+    PortfolioExplainer.Facts f = new PortfolioExplainer.Facts(p.status().isProven(),
+        p.value(), offered, sales, pi, mu, lambda, at);
     return new PortfolioExplainer(space).explain(v, f);
+  }
+
+  /** Figures keyed by segment id, aligned with the catalog's segments (0 for those not named). */
+  private static double[] bySegment(Catalog cat, Map<String, Double> byId) {
+    double[] q = new double[cat.segments().size()];
+    byId.forEach((id, x) -> {
+      int s = cat.segmentIndex(id);
+      if (s >= 0) {
+        q[s] = x;
+      }
+    });
+    return q;
   }
 
   static void print(PrintWriter out, VariantSpace space, PortfolioVerdict e) {

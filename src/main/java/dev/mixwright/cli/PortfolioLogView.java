@@ -2,8 +2,8 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.Durations;
-import dev.mixwright.report.Json;
-import dev.mixwright.report.PortfolioLog;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.PortfolioLog;
 import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.PrintWriter;

@@ -2,7 +2,7 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
 import dev.mixwright.report.HtmlReport;
-import dev.mixwright.report.RunFolder;
+import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -40,9 +40,12 @@ final class ReportCommand implements Callable<Integer> {
     }
     try {
       HtmlReport.write(runDir, target);
-    } catch (JsonProcessingException e) {
-      throw new UserError(result + " is not valid JSON (" + e.getOriginalMessage()
-          + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
+    } catch (IOException e) {
+      if (e.getCause() instanceof JsonProcessingException j) {
+        throw new UserError(result + " is not valid JSON (" + j.getOriginalMessage()
+            + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
+      }
+      throw e;
     }
     spec.commandLine().getOut().println("report written to " + target);
     return ExitCodes.OK;

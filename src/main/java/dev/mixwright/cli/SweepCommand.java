@@ -1,36 +1,22 @@
 package dev.mixwright.cli;
 
-import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.choice.NotSolvedYet;
-import dev.mixwright.catalog.CatalogException;
-import dev.mixwright.catalog.CatalogWriter;
-import dev.mixwright.catalog.Scenario;
-import dev.mixwright.catalog.Scenarios;
-import dev.mixwright.catalog.SweepPlan;
 import dev.mixwright.colgen.ColGenListener;
-import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.Sweep;
-import dev.mixwright.pricing.Pricers;
-import dev.mixwright.report.AtomicFiles;
-import dev.mixwright.report.Checksums;
-import dev.mixwright.report.Json;
-import dev.mixwright.report.RunFolder;
-import dev.mixwright.report.RunLock;
 import dev.mixwright.report.SweepTable;
-import java.io.IOException;
+import dev.mixwright.run.SweepRun;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.scenario.SweepPlan;
 import java.io.PrintWriter;
-import java.io.UncheckedIOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
-import java.util.Set;
+import java.util.Optional;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -63,15 +49,7 @@ final class SweepCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "DIR", description = "folder for sweep.csv and sweep.json")
   Path outDir;
 
-  @Option(names = "--pricer", paramLabel = "NAME", defaultValue = "bnb", description = "exact pricer: bnb (default), cpsat, brute")
-  String pricerName;
-
-  @Option(names = "--gap", paramLabel = "REL", defaultValue = "1e-6", description = "gap target of each solve (default ${DEFAULT-VALUE})")
-  double gap;
-
-  @Option(names = "--per-round", paramLabel = "K", defaultValue = "" + SolveSettings.DEFAULT_PER_ROUND,
-      description = "columns sought per segment per round (default ${DEFAULT-VALUE})")
-  int perRound;
+  @Mixin LoopOptions loop;
 
   @Option(names = "--cold", description = "solve every scenario from scratch (no warm start; for checking)")
   boolean cold;
@@ -82,171 +60,47 @@ final class SweepCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print sweep.json on stdout instead of the table")
   boolean json;
 
-  @Option(names = "--progress", negatable = true, description = "progress on stderr (default: on a terminal)")
-  Boolean progress;
+  @Mixin ProgressOption progressOption;
 
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
-    if (!(gap >= 0)) {
-      throw new UserError("--gap must be >= 0, got " + gap);
-    }
-    if (perRound < 1) {
-      throw new UserError("--per-round must be at least 1, got " + perRound);
-    }
-    if (!List.of("bnb", "cpsat", "brute").contains(pricerName)) {
-      throw new UserError("--pricer: choose bnb, cpsat or brute, got '" + pricerName + "'");
-    }
-    if (sweepFile != null && !grid.isEmpty()) {
-      throw new UserError("give the grid either with --grid or in the --sweep file, not both");
-    }
-    Catalog catalog = Inputs.catalog(catalogFile);
-    String sha = Inputs.sha256(catalogFile);
-    NotSolvedYet.refuseChoiceFeatures(catalog);
-    SweepPlan plan;
-    try {
-      plan = plan(catalog);
-    } catch (CatalogException e) {
-      throw Inputs.problems(sweepFile != null ? "the sweep file " + sweepFile : "the --grid axes", e);
-    }
-    List<SweepPlan.Point> points = plan.points();
-    if (points.isEmpty()) {
-      throw new UserError("nothing to sweep: give --grid PATH=VALUES, a --sweep file, or --scenario files");
-    }
-    SolveSettings settings = SolveSettings.defaults().withGapTolerance(gap).withPerRound(perRound);
-    ObjectNode header = Json.pretty().createObjectNode();
-    header.put("format", 1);
-    header.put("sweep", plan.name());
-    ObjectNode cat = header.putObject("catalog");
-    cat.put("name", catalog.name());
-    cat.put("file", catalogFile.toString());
-    cat.put("sha256", sha);
-    header.put("pricer", pricerName);
-    header.put("gap", gap);
-    header.put("warmStart", !cold);
-    header.put("definitionSha256", definition(plan, sha, settings));
-    SweepTable table = new SweepTable(plan, catalog, header);
-
-    Files.createDirectories(outDir);
-    RunFolder folder = new RunFolder(outDir);
-    try (RunLock lock = RunSessions.lock(folder);
-        StopSignals signals = StopSignals.install(err)) {
-      Set<Integer> done = keepEarlierRows(table, header, err);
-      AtomicFiles.write(outDir.resolve("catalog.json"), CatalogWriter.toJson(catalog));
-      table.write(outDir);
-      Sweep sweep = new Sweep(catalog, plan, pricerName, settings, !cold);
-      List<Sweep.Row> rows = sweep.run(done, () -> signals.flag().get(), new Sweep.Listener() {
+    Boolean progress = progressOption.asked;
+    SweepRun.Request request = new SweepRun.Request(catalogFile, Optional.ofNullable(sweepFile), grid, scenarioFiles,
+        outDir, loop.settings(), loop.pricer, !cold, replace);
+    SweepRun.Outcome o;
+    try (StopSignals signals = StopSignals.install(err)) {
+      o = SweepRun.run(request, signals.flag(), new SweepRun.Watcher() {
         @Override
-        public ColGenListener loopListener(SweepPlan.Point p, int nth, int total) {
-          Progress pr = Progress.choose(err, progress, String.format(Locale.ROOT, "[%d/%d] ", nth, total));
-          return pr;
+        public Optional<ColGenListener> loop(SweepPlan.Point p, int nth, int total) {
+          return Optional.ofNullable(
+              Progress.choose(err, progress, String.format(Locale.ROOT, "[%d/%d] ", nth, total)));
         }
 
         @Override
         public void solved(Sweep.Row row) {
-          table.add(row);
-          try {
-            table.write(outDir);
-          } catch (IOException e) {
-            throw new UncheckedIOException(e);
-          }
           if (progress != null && progress || Progress.stderrIsTerminal() && progress == null) {
             err.println("  " + row.point().name() + ": " + (row.outcome() == null ? "invalid"
                 : row.outcome().status().word() + ", objective " + Numbers.money(row.outcome().objective())));
             err.flush();
           }
         }
+
+        @Override
+        public void note(String text) {
+          err.println("mixwright: " + text);
+          err.flush();
+        }
       });
-      boolean complete = table.rows().size() == points.size()
-          && table.rows().values().stream().noneMatch(n -> n.path("status").asText().equals("stopped"));
-      if (json) {
-        out.println(Json.pretty().writeValueAsString(table.toJson()));
-      } else {
-        print(out, table, plan, catalog, rows.size(), done.size());
-      }
-      out.flush();
-      return complete ? ExitCodes.OK : ExitCodes.STOPPED;
     }
-  }
-
-  private SweepPlan plan(Catalog catalog) throws CatalogException {
-    if (sweepFile != null) {
-      if (!Files.isRegularFile(sweepFile)) {
-        throw new UserError("no sweep file at " + sweepFile);
-      }
-      SweepPlan p = Scenarios.loadSweep(sweepFile, catalog);
-      Scenario under = Scenario.none();
-      for (Path f : scenarioFiles) {
-        under = under.then(scenario(f, catalog), "base");
-      }
-      return new SweepPlan(p.name(), under.then(p.base(), "base"), p.axes(), p.listed());
+    if (json) {
+      out.println(Json.pretty().writeValueAsString(o.table().toJson()));
+    } else {
+      print(out, o.table(), o.plan(), o.catalog(), o.solvedNow(), o.kept());
     }
-    List<Scenario> loaded = new ArrayList<>();
-    for (Path f : scenarioFiles) {
-      loaded.add(scenario(f, catalog));
-    }
-    if (grid.isEmpty()) {
-      return new SweepPlan("scenarios", Scenario.none(), List.of(), loaded);
-    }
-    Scenario base = Scenario.none();
-    for (Scenario s : loaded) {
-      base = base.then(s, "base");
-    }
-    return Scenarios.grid(grid, base, List.of(), catalog);
-  }
-
-  private static Scenario scenario(Path f, Catalog catalog) {
-    if (!Files.isRegularFile(f)) {
-      throw new UserError("no scenario file at " + f);
-    }
-    try {
-      return Scenarios.load(f, catalog);
-    } catch (CatalogException e) {
-      throw Inputs.problems("the scenario file " + f, e);
-    }
-  }
-
-  /** The hash that says whether an earlier sweep.json in OUT is of this very sweep. */
-  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s) {
-    StringBuilder sb = new StringBuilder(catalogSha).append('\n').append(s.gapTolerance()).append('\n')
-        .append(s.perRound()).append('\n');
-    for (SweepPlan.Point p : plan.points()) {
-      sb.append(p.index()).append(':').append(p.scenario().describe()).append('\n');
-    }
-    return Checksums.sha256(sb.toString());
-  }
-
-  /** Rows of an earlier run of the same sweep that are finished; a different sweep needs --replace. */
-  private Set<Integer> keepEarlierRows(SweepTable table, ObjectNode header, PrintWriter err) {
-    Set<Integer> done = new HashSet<>();
-    Path f = outDir.resolve(SweepTable.JSON_FILE);
-    if (!Files.isRegularFile(f) || replace) {
-      return done;
-    }
-    JsonNode old;
-    try {
-      old = Json.pretty().readTree(f.toFile());
-    } catch (IOException e) {
-      throw new UserError(f + " is not a sweep table (" + e.getMessage() + "); add --replace to start afresh");
-    }
-    if (!old.path("definitionSha256").asText().equals(header.path("definitionSha256").asText())
-        || !old.path("pricer").asText().equals(pricerName)) {
-      throw new UserError(outDir + " holds another sweep (other catalog, scenarios or settings); choose another"
-          + " --out folder, or add --replace to overwrite it");
-    }
-    for (JsonNode row : old.path("rows")) {
-      String st = row.path("status").asText();
-      if (st.equals("optimal") || st.equals("infeasible")) {
-        table.keep(row);
-        done.add(row.path("index").asInt());
-      }
-    }
-    if (!done.isEmpty()) {
-      err.println("mixwright: " + done.size() + " scenarios already solved in " + outDir + "; solving the rest");
-      err.flush();
-    }
-    return done;
+    out.flush();
+    return o.complete() ? ExitCodes.OK : ExitCodes.STOPPED;
   }
 
   private static void print(PrintWriter out, SweepTable table, SweepPlan plan, Catalog catalog, int solved,

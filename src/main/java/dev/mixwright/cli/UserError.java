@@ -1,7 +1,9 @@
 package dev.mixwright.cli;
 
-/** Bad input from a person: the message says what is wrong and how to fix it; exit code 2, no trace. */
-public final class UserError extends RuntimeException {
+import dev.mixwright.run.InputError;
+
+/** Bad input found by a command itself (an option that does not fit); exit code 2, no trace. */
+public final class UserError extends InputError {
   private static final long serialVersionUID = 1L;
 
   public UserError(String message) {

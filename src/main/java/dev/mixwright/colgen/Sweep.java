@@ -2,14 +2,15 @@ package dev.mixwright.colgen;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
-import dev.mixwright.catalog.SweepPlan;
-import dev.mixwright.pricing.Pricers;
+import dev.mixwright.pricing.Pricer;
+import dev.mixwright.scenario.SweepPlan;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 import java.util.Set;
 import java.util.function.BooleanSupplier;
+import java.util.function.Function;
 
 /**
  * Solves the scenarios of a {@link SweepPlan} one after another, each to its own proven optimum, in
@@ -22,7 +23,7 @@ import java.util.function.BooleanSupplier;
 public final class Sweep {
   private final Catalog base;
   private final SweepPlan plan;
-  private final String pricer;
+  private final Function<VariantSpace, Pricer> pricer;
   private final SolveSettings settings;
   private final boolean warmStart;
 
@@ -49,7 +50,9 @@ public final class Sweep {
     }
   }
 
-  public Sweep(Catalog base, SweepPlan plan, String pricer, SolveSettings settings, boolean warmStart) {
+  /** @param pricer makes the exact pricer of each scenario's space */
+  public Sweep(Catalog base, SweepPlan plan, Function<VariantSpace, Pricer> pricer, SolveSettings settings,
+      boolean warmStart) {
     this.base = base;
     this.plan = plan;
     this.pricer = pricer;
@@ -89,7 +92,7 @@ public final class Sweep {
       VariantSpace space = new VariantSpace(c);
       List<Column> warm = warmStart && prevSpace != null
           ? WarmStart.reprice(prevSpace, prevColumns, space).columns() : List.of();
-      ColumnGeneration cg = new ColumnGeneration(space, Pricers.byName(pricer, space), null, settings,
+      ColumnGeneration cg = new ColumnGeneration(space, pricer.apply(space), null, settings,
           r -> stop.getAsBoolean() ? Optional.of("interrupted by a signal") : Optional.empty(),
           System.nanoTime());
       ColGenListener l = listener.loopListener(p, nth, total);

@@ -8,13 +8,14 @@ import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.StopCriterion;
-import dev.mixwright.pricing.Pricers;
+import dev.mixwright.pricing.Pricer;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
+import java.util.function.Function;
 
 /**
  * The capacity range over which a resource's shadow price holds, found by re-solving the whole
@@ -181,13 +182,14 @@ public final class CapacityRanges {
   public static final class ColumnGenerationSolver implements Solver {
     private final Catalog catalog;
     private final int resource;
-    private final String pricer;
+    private final Function<VariantSpace, Pricer> pricer;
     private final SolveSettings settings;
     private final List<Column> pool = new ArrayList<>();
     private final List<Set<VariantKey>> keys = new ArrayList<>();
     private final VariantSpace keySpace;
 
-    public ColumnGenerationSolver(Catalog catalog, int resource, String pricer, SolveSettings settings,
+    public ColumnGenerationSolver(Catalog catalog, int resource, Function<VariantSpace, Pricer> pricer,
+        SolveSettings settings,
         List<Column> warmStart) {
       this.catalog = catalog;
       this.resource = resource;
@@ -216,8 +218,8 @@ public final class CapacityRanges {
       Catalog c = new Catalog(catalog.format(), catalog.name(), catalog.currency(), catalog.period(), res,
           catalog.groups(), catalog.rules(), catalog.segments(), catalog.portfolio());
       VariantSpace space = new VariantSpace(c);
-      SolveOutcome out = new ColumnGeneration(space, Pricers.byName(pricer, space), null, settings,
-          StopCriterion.never(), System.nanoTime()).run(pool);
+      SolveOutcome out = new ColumnGeneration(space, pricer.apply(space), null, settings,
+        StopCriterion.never(), System.nanoTime()).run(pool);
       if (out.status() != RunStatus.OPTIMAL) {
         throw new IllegalStateException("the re-solve at capacity " + capacity + " ended " + out.status().word()
             + " (" + out.stopReason() + ")");

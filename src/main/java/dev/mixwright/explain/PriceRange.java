@@ -6,13 +6,14 @@ import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.StopCriterion;
-import dev.mixwright.pricing.Pricers;
+import dev.mixwright.pricing.Pricer;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
+import java.util.function.Function;
 
 /**
  * How far the price of one column (a variant in one segment) may fall before the plan stops selling
@@ -34,13 +35,15 @@ public final class PriceRange {
   private static final int MAX_SOLVES = 60;
 
   private final VariantSpace space;
-  private final String pricer;
+  private final Function<VariantSpace, Pricer> pricer;
   private final SolveSettings settings;
   private final List<Column> pool = new ArrayList<>();
   private final List<Set<VariantKey>> inPool = new ArrayList<>();
   private int solves;
 
-  public PriceRange(VariantSpace space, String pricer, SolveSettings settings, List<Column> warmStart) {
+  /** @param pricer makes the exact pricer of each re-solve's space */
+  public PriceRange(VariantSpace space, Function<VariantSpace, Pricer> pricer, SolveSettings settings,
+      List<Column> warmStart) {
     this.space = space;
     this.pricer = pricer;
     this.settings = settings;
@@ -101,7 +104,7 @@ public final class PriceRange {
     List<Column> warm = new ArrayList<>();
     warm.add(changed); // first, so that it wins over the unchanged copy in the pool
     warm.addAll(pool);
-    SolveOutcome out = new ColumnGeneration(space, Pricers.byName(pricer, space), null, settings,
+    SolveOutcome out = new ColumnGeneration(space, pricer.apply(space), null, settings,
         StopCriterion.never(), System.nanoTime()).run(warm);
     if (out.status() != RunStatus.OPTIMAL) {
       throw new IllegalStateException("a re-solve ended " + out.status().word() + " (" + out.stopReason() + ")");

@@ -31,6 +31,12 @@ public final class BranchAndBoundPricer implements Pricer {
    * @param tableLimit most doubles the exact bound's tables may hold in all; above it (or at 0)
    *     forward checking alone answers
    */
+
+  /** The default policy: no node limit, tables up to {@link #DEFAULT_TABLE_LIMIT} entries. */
+  public static BranchAndBoundPricer withDefaultLimits(VariantSpace space) {
+    return new BranchAndBoundPricer(space, Long.MAX_VALUE, DEFAULT_TABLE_LIMIT);
+  }
+
   public BranchAndBoundPricer(VariantSpace space, long nodeLimit, long tableLimit) {
     if (tableLimit < 0) {
       throw new IllegalArgumentException("tableLimit must be >= 0");

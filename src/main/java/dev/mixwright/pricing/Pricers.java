@@ -26,7 +26,7 @@ public final class Pricers {
   public static Pricer byName(String name, VariantSpace space) {
     String n = name == null || name.isBlank() ? DEFAULT : name.trim().toLowerCase(Locale.ROOT);
     return switch (n) {
-      case "bnb" -> new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT);
+      case "bnb" -> BranchAndBoundPricer.withDefaultLimits(space);
       case "brute" -> new BruteForcePricer(space);
       case "cpsat" -> new CpSatPricer(space, 0, 1);
       case "heuristic" -> new HeuristicPricer(space);

@@ -1,10 +1,9 @@
 package dev.mixwright.report;
 
-import com.fasterxml.jackson.databind.JsonNode;
+import dev.mixwright.runfolder.AtomicFiles;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
@@ -30,26 +29,25 @@ public final class HtmlReport {
 
   /** Reads RUN_DIR/result.json, renders it and writes the page atomically to {@code target}. */
   public static void write(Path runDir, Path target) throws IOException {
-    JsonNode result = RunReader.readResult(runDir);
-    AtomicFiles.write(target, render(result));
+    AtomicFiles.write(target, render(RunResult.read(runDir)));
   }
 
-  /** The page for one result.json tree. Missing optional parts (bound, portfolio) are left out, not invented. */
-  public static String render(JsonNode r) {
+  /** The page for one result. Missing optional parts (bound, portfolio) are left out, not invented. */
+  public static String render(RunResult r) {
     StringBuilder h = new StringBuilder(32_768);
-    JsonNode cat = r.path("catalog");
-    String name = cat.path("name").asText("unnamed catalog");
-    String currency = cat.path("currency").asText("");
+    RunResult.CatalogRef cat = r.catalog();
+    String name = cat == null || cat.name() == null ? "unnamed catalog" : cat.name();
+    String currency = cat == null || cat.currency() == null ? "" : cat.currency();
     h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
         .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
         .append("<title>").append(escape(name)).append(" — mixwright run</title>\n")
         .append("<style>\n").append(css()).append("</style>\n</head>\n<body>\n<main>\n");
     header(h, r, name, currency);
-    convergence(h, r.path("rounds"));
-    resources(h, r.path("resources"), currency);
+    convergence(h, r.rounds());
+    resources(h, r.resources(), currency);
     segments(h, r, currency);
-    if (r.path("portfolio").isObject()) {
-      portfolio(h, r.path("portfolio"), r.path("segments"), currency);
+    if (r.portfolio() != null) {
+      portfolio(h, r.portfolio(), r.segments(), currency);
     }
     h.append("</main>\n</body>\n</html>\n");
     return h.toString();
@@ -74,17 +72,17 @@ public final class HtmlReport {
         + ".tag{display:inline-block;background:" + AMBER + ";color:#fff;border-radius:4px;padding:0 6px;font-size:12px}\n";
   }
 
-  private static void header(StringBuilder h, JsonNode r, String name, String currency) {
+  private static void header(StringBuilder h, RunResult r, String name, String currency) {
     h.append("<h1>").append(escape(name)).append("</h1>\n");
     h.append("<p class=\"note\">Planning estimates only: these figures are as good as the margins, demands"
         + " and capacities written in the catalog, and no better.</p>\n");
     h.append("<div class=\"facts\">\n");
-    fact(h, "status", escape(r.path("status").asText("unknown")));
-    fact(h, "objective", money(r.path("objective")) + unit(currency));
-    fact(h, "bound", money(r.path("bound")) + unit(currency));
-    fact(h, "gap", percent(r.path("gap")));
-    fact(h, "rounds", escape(r.path("iterations").asText(String.valueOf(r.path("rounds").size()))));
-    fact(h, "buildable variants", escape(r.path("buildableVariants").asText("—")));
+    fact(h, "status", escape(r.status() == null ? "unknown" : r.status().word()));
+    fact(h, "objective", money(r.objective()) + unit(currency));
+    fact(h, "bound", money(r.bound()) + unit(currency));
+    fact(h, "gap", percent(r.gap()));
+    fact(h, "rounds", escape(String.valueOf(r.iterations())));
+    fact(h, "buildable variants", escape(r.buildableVariants() == null ? "—" : r.buildableVariants()));
     h.append("</div>\n");
   }
 
@@ -98,18 +96,16 @@ public final class HtmlReport {
 
   // ---- convergence ------------------------------------------------------------------------------
 
-  private static void convergence(StringBuilder h, JsonNode rounds) {
+  private static void convergence(StringBuilder h, List<RunResult.Round> rounds) {
     h.append("<h2>Convergence</h2>\n");
     List<double[]> obj = new ArrayList<>();
     List<double[]> bnd = new ArrayList<>();
-    for (JsonNode n : rounds) {
-      double it = n.path("iteration").asDouble();
-      if (n.path("objective").isNumber()) {
-        obj.add(new double[] {it, n.path("objective").asDouble()});
-      }
+    for (RunResult.Round n : rounds) {
+      double it = n.iteration();
+      obj.add(new double[] {it, n.objective()});
       // early rounds may have no valid bound yet: those points are skipped, not drawn at zero
-      if (n.path("bound").isNumber()) {
-        bnd.add(new double[] {it, n.path("bound").asDouble()});
+      if (n.bound() != null) {
+        bnd.add(new double[] {it, n.bound()});
       }
     }
     h.append("<p class=\"note\">Master LP objective (a plan that can be carried out) and the bound on the"
@@ -228,7 +224,7 @@ public final class HtmlReport {
 
   // ---- resources --------------------------------------------------------------------------------
 
-  private static void resources(StringBuilder h, JsonNode res, String currency) {
+  private static void resources(StringBuilder h, List<RunResult.ResourceRow> res, String currency) {
     h.append("<h2>Resources</h2>\n<p class=\"note\">Capacity used by the plan, each bar scaled to its own capacity."
         + " The shadow price is what one more unit of capacity would add to the objective;"
         + " binding resources are used to the full and drawn in amber.</p>\n");
@@ -239,19 +235,19 @@ public final class HtmlReport {
     int ht = Math.max(1, res.size()) * rowH + 16;
     h.append(svgOpen(w, ht, "Resource use against capacity"));
     int i = 0;
-    for (JsonNode r : res) {
+    for (RunResult.ResourceRow r : res) {
       double y = 12 + i * rowH;
-      double cap = r.path("capacity").asDouble();
-      double used = r.path("used").asDouble();
-      boolean binding = r.path("binding").asBoolean(false);
+      double cap = r.capacity();
+      double used = r.used();
+      boolean binding = r.binding();
       double frac = cap > 0 ? Math.max(0, Math.min(1, used / cap)) : 0;
-      h.append(text(labelW - 10, y + 17, "end", r.path("id").asText()));
+      h.append(text(labelW - 10, y + 17, "end", r.id()));
       h.append(rect(labelW, y + 4, barW, 18, TRACK));
       h.append(rect(labelW, y + 4, barW * frac, 18, binding ? AMBER : TEAL));
       h.append(text(labelW + barW + 10, y + 12, "start",
           qty(used) + " / " + qty(cap) + (cap > 0 ? String.format(Locale.ROOT, " (%.0f%%)", 100 * used / cap) : "")));
       h.append(text(labelW + barW + 10, y + 28, "start",
-          "shadow price " + money(r.path("shadowPrice").asDouble()) + (currency.isEmpty() ? "" : " " + currency)
+          "shadow price " + (r.shadowPrice() == null ? "unknown" : money(r.shadowPrice())) + (currency.isEmpty() ? "" : " " + currency)
               + " a unit" + (binding ? " · binding" : "")));
       i++;
     }
@@ -260,13 +256,13 @@ public final class HtmlReport {
 
   // ---- segments ---------------------------------------------------------------------------------
 
-  private static void segments(StringBuilder h, JsonNode r, String currency) {
-    JsonNode segs = r.path("segments");
+  private static void segments(StringBuilder h, RunResult r, String currency) {
+    List<RunResult.SegmentRow> segs = r.segments();
     h.append("<h2>The plan by segment</h2>\n<p class=\"note\">Units sold against demand in each segment;"
         + " the pale part of a bar is demand the plan leaves unserved.</p>\n");
     double maxDemand = 0;
-    for (JsonNode s : segs) {
-      maxDemand = Math.max(maxDemand, Math.max(s.path("demand").asDouble(), s.path("sold").asDouble()));
+    for (RunResult.SegmentRow s : segs) {
+      maxDemand = Math.max(maxDemand, Math.max(s.demand(), s.sold()));
     }
     int rowH = 40;
     int w = 760;
@@ -275,14 +271,14 @@ public final class HtmlReport {
     int ht = Math.max(1, segs.size()) * rowH + 40;
     h.append(svgOpen(w, ht, "Units sold against demand per segment"));
     int i = 0;
-    for (JsonNode s : segs) {
+    for (RunResult.SegmentRow s : segs) {
       double y = 12 + i * rowH;
-      double demand = s.path("demand").asDouble();
-      double sold = s.path("sold").asDouble();
+      double demand = s.demand();
+      double sold = s.sold();
       double scale = maxDemand > 0 ? barW / maxDemand : 0;
       double soldW = Math.max(0, sold) * scale;
       double restW = Math.max(0, demand - sold) * scale;
-      h.append(text(labelW - 10, y + 17, "end", s.path("id").asText()));
+      h.append(text(labelW - 10, y + 17, "end", s.id()));
       h.append(rect(labelW, y + 4, soldW, 20, TEAL));
       h.append("<rect x=\"").append(f(labelW + soldW)).append("\" y=\"").append(f(y + 4)).append("\" width=\"")
           .append(f(restW)).append("\" height=\"20\" fill=\"").append(TRACK).append("\" stroke=\"").append(TEAL)
@@ -295,29 +291,29 @@ public final class HtmlReport {
     h.append(rect(labelW + 80, ly - 10, 14, 12, TRACK)).append(text(labelW + 100, ly, "start", "unserved demand"));
     h.append("</svg>\n");
 
-    Map<String, List<JsonNode>> bySegment = new LinkedHashMap<>();
-    for (JsonNode s : segs) {
-      bySegment.put(s.path("id").asText(), new ArrayList<>());
+    Map<String, List<RunResult.Offer>> bySegment = new LinkedHashMap<>();
+    for (RunResult.SegmentRow s : segs) {
+      bySegment.put(s.id(), new ArrayList<>());
     }
-    for (JsonNode o : r.path("offers")) {
-      bySegment.computeIfAbsent(o.path("segment").asText(), k -> new ArrayList<>()).add(o);
+    for (RunResult.Offer o : r.offers()) {
+      bySegment.computeIfAbsent(o.segment(), k -> new ArrayList<>()).add(o);
     }
-    for (JsonNode s : segs) {
-      String id = s.path("id").asText();
+    for (RunResult.SegmentRow s : segs) {
+      String id = s.id();
       h.append("<h3>Segment ").append(escape(id)).append("</h3>\n");
-      h.append("<p class=\"note\">demand ").append(qty(s.path("demand").asDouble())).append(", sold ")
-          .append(qty(s.path("sold").asDouble())).append(", shadow price ").append(money(s.path("shadowPrice").asDouble()))
+      h.append("<p class=\"note\">demand ").append(qty(s.demand())).append(", sold ")
+          .append(qty(s.sold())).append(", shadow price ").append(s.shadowPrice() == null ? "unknown" : money(s.shadowPrice()))
           .append(unit(currency)).append("</p>\n");
-      List<JsonNode> offers = bySegment.get(id);
+      List<RunResult.Offer> offers = bySegment.get(id);
       if (offers.isEmpty()) {
         h.append("<p>No variant is offered in this segment.</p>\n");
         continue;
       }
       h.append("<table>\n<tr><th>variant</th><th class=\"n\">quantity</th><th class=\"n\">unit margin</th></tr>\n");
-      for (JsonNode o : offers) {
-        h.append("<tr><td><code>").append(escape(variant(o.path("options")))).append("</code></td><td class=\"n\">")
-            .append(qty(o.path("quantity").asDouble())).append("</td><td class=\"n\">")
-            .append(money(o.path("unitMargin").asDouble())).append("</td></tr>\n");
+      for (RunResult.Offer o : offers) {
+        h.append("<tr><td><code>").append(escape(variant(o.options()))).append("</code></td><td class=\"n\">")
+            .append(qty(o.quantity())).append("</td><td class=\"n\">")
+            .append(money(o.unitMargin())).append("</td></tr>\n");
       }
       h.append("</table>\n");
     }
@@ -325,29 +321,28 @@ public final class HtmlReport {
 
   // ---- portfolio --------------------------------------------------------------------------------
 
-  private static void portfolio(StringBuilder h, JsonNode p, JsonNode segs, String currency) {
+  private static void portfolio(StringBuilder h, RunResult.Portfolio p, List<RunResult.SegmentRow> segs,
+      String currency) {
     h.append("<h2>Integer portfolio</h2>\n<p class=\"note\">Whole variants with their introduction costs and"
         + " minimum lots, chosen from the columns of the LP stage.</p>\n<div class=\"facts\">\n");
-    fact(h, "status", escape(p.path("status").asText("unknown")));
-    fact(h, "value", money(p.path("value")) + unit(currency));
-    fact(h, "bound", money(p.path("bound")) + unit(currency));
-    fact(h, "gap", percent(p.path("gap")));
-    if (p.path("introductionCosts").isNumber()) {
-      fact(h, "introduction costs", money(p.path("introductionCosts")) + unit(currency));
-    }
+    fact(h, "status", escape(p.status() == null ? "unknown" : p.status().word()));
+    fact(h, "value", money(p.value()) + unit(currency));
+    fact(h, "bound", money(p.bound()) + unit(currency));
+    fact(h, "gap", percent(p.gap()));
+    fact(h, "introduction costs", money(p.introductionCosts()) + unit(currency));
     h.append("</div>\n");
     List<String> segIds = new ArrayList<>();
-    for (JsonNode s : segs) {
-      segIds.add(s.path("id").asText());
+    for (RunResult.SegmentRow s : segs) {
+      segIds.add(s.id());
     }
-    for (JsonNode v : p.path("variants")) {
-      v.path("sales").fieldNames().forEachRemaining(k -> {
+    for (RunResult.PortfolioVariant v : p.variants()) {
+      v.sales().keySet().forEach(k -> {
         if (!segIds.contains(k)) {
           segIds.add(k);
         }
       });
     }
-    if (p.path("variants").isEmpty()) {
+    if (p.variants().isEmpty()) {
       h.append("<p>No variant is introduced.</p>\n");
       return;
     }
@@ -356,11 +351,11 @@ public final class HtmlReport {
       h.append("<th class=\"n\">").append(escape(s)).append("</th>");
     }
     h.append("</tr>\n");
-    for (JsonNode v : p.path("variants")) {
-      h.append("<tr><td><code>").append(escape(variant(v.path("options")))).append("</code></td>");
+    for (RunResult.PortfolioVariant v : p.variants()) {
+      h.append("<tr><td><code>").append(escape(variant(v.options()))).append("</code></td>");
       for (String s : segIds) {
-        JsonNode q = v.path("sales").path(s);
-        h.append("<td class=\"n\">").append(q.isNumber() && q.asDouble() != 0 ? qty(q.asDouble()) : "").append("</td>");
+        Double q = v.sales().get(s);
+        h.append("<td class=\"n\">").append(q != null && q != 0 ? qty(q) : "").append("</td>");
       }
       h.append("</tr>\n");
     }
@@ -370,16 +365,13 @@ public final class HtmlReport {
   // ---- small pieces -----------------------------------------------------------------------------
 
   /** A variant as group=choice pairs, optional groups left at none omitted (as the log command shows it). */
-  static String variant(JsonNode options) {
+  static String variant(Map<String, String> options) {
     StringBuilder sb = new StringBuilder();
-    Iterator<Map.Entry<String, JsonNode>> it = options.fields();
-    while (it.hasNext()) {
-      Map.Entry<String, JsonNode> e = it.next();
-      if (e.getValue().asText().equals("none")) {
-        continue;
+    options.forEach((g, c) -> {
+      if (!c.equals("none")) {
+        sb.append(sb.length() == 0 ? "" : ", ").append(g).append('=').append(c);
       }
-      sb.append(sb.length() == 0 ? "" : ", ").append(e.getKey()).append('=').append(e.getValue().asText());
-    }
+    });
     return sb.length() == 0 ? "(every optional group at none)" : sb.toString();
   }
 
@@ -428,8 +420,8 @@ public final class HtmlReport {
     return Double.isFinite(v) ? String.format(Locale.ROOT, "%,.2f", v) : "—";
   }
 
-  private static String money(JsonNode n) {
-    return n.isNumber() ? money(n.asDouble()) : "—";
+  private static String money(Double n) {
+    return n == null ? "—" : money(n.doubleValue());
   }
 
   private static String qty(double v) {
@@ -439,11 +431,11 @@ public final class HtmlReport {
     return String.format(Locale.ROOT, "%,.2f", v);
   }
 
-  private static String percent(JsonNode n) {
-    if (!n.isNumber() || !Double.isFinite(n.asDouble())) {
+  private static String percent(Double n) {
+    if (n == null || !Double.isFinite(n)) {
       return "—";
     }
-    double g = n.asDouble();
+    double g = n;
     if (g == 0) {
       return "0%";
     }

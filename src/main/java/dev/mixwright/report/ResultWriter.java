@@ -1,13 +1,13 @@
 package dev.mixwright.report;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.IterationRecord;
 import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.math.BigInteger;
@@ -18,7 +18,7 @@ import java.util.List;
 
 /** Builds {@code result.json} (fields of PRODUCT.md and more) and writes it atomically. */
 public final class ResultWriter {
-  public static final String FILE = "result.json";
+  public static final String FILE = RunFolder.RESULT;
   /** A quantity below this is reported as not sold. */
   static final double QUANTITY_EPS = 1e-7;
 
@@ -30,35 +30,8 @@ public final class ResultWriter {
   /** Facts about the run that the outcome does not hold. */
   public record RunInfo(String catalogFile, String catalogSha256, String pricer, SpaceSize size, long elapsedMs) {}
 
-  public static ObjectNode build(VariantSpace space, SolveOutcome out, RunInfo info) {
+  public static RunResult build(VariantSpace space, SolveOutcome out, RunInfo info) {
     Catalog cat = space.catalog();
-    ObjectNode n = Json.pretty().createObjectNode();
-    n.put("status", out.status().word());
-    if (!out.stopReason().isEmpty()) {
-      n.put("stopReason", out.stopReason());
-    }
-    n.put("objective", out.objective());
-    putNum(n, "bound", out.bound());
-    putNum(n, "gap", out.gap());
-    n.put("iterations", out.iterations());
-    n.put("columnsGenerated", out.columnsGenerated());
-    n.put("columnsInMaster", out.columns().size());
-    if (info.size().exact()) {
-      n.put("buildableVariants", info.size().value().toString());
-    } else {
-      n.putNull("buildableVariants");
-      n.put("buildableVariantsAtMost", info.size().value().toString());
-    }
-    n.put("elapsedMs", info.elapsedMs());
-    ObjectNode c = n.putObject("catalog");
-    c.put("name", cat.name());
-    c.put("file", info.catalogFile());
-    c.put("sha256", info.catalogSha256());
-    c.put("currency", cat.currency());
-    c.put("period", cat.period());
-    n.put("pricer", info.pricer());
-
-    ArrayNode offers = n.putArray("offers");
     List<Integer> sold = new ArrayList<>();
     for (int j = 0; j < out.x().length; j++) {
       if (out.x()[j] > QUANTITY_EPS) {
@@ -69,66 +42,50 @@ public final class ResultWriter {
         .thenComparing(j -> -out.x()[j] * out.columns().get(j).margin()));
     double[] used = new double[cat.resources().size()];
     double[] segSold = new double[cat.segments().size()];
+    List<RunResult.Offer> offers = new ArrayList<>();
     for (int j : sold) {
       Column col = out.columns().get(j);
       double q = out.x()[j];
-      ObjectNode o = offers.addObject();
-      o.put("segment", cat.segments().get(col.segment()).id());
-      ObjectNode opts = o.putObject("options");
-      space.describe(col.choices()).forEach(opts::put);
-      o.put("quantity", q);
-      o.put("unitMargin", col.margin());
-      o.put("reducedCost", out.reducedCost()[j]);
-      o.put("atLimit", q >= col.upper() * (1 - 1e-9));
-      o.put("contribution", q * col.margin());
+      offers.add(new RunResult.Offer(cat.segments().get(col.segment()).id(), space.describe(col.choices()), q,
+          col.margin(), out.reducedCost()[j], q >= col.upper() * (1 - 1e-9), q * col.margin()));
       for (int r = 0; r < used.length; r++) {
         used[r] += col.use()[r] * q;
       }
       segSold[col.segment()] += q;
     }
-    ArrayNode res = n.putArray("resources");
+    List<RunResult.ResourceRow> res = new ArrayList<>();
     for (int r = 0; r < cat.resources().size(); r++) {
       Resource rr = cat.resources().get(r);
-      ObjectNode o = res.addObject();
-      o.put("id", rr.id());
-      o.put("capacity", rr.capacity());
-      o.put("used", used[r]);
-      putNum(o, "shadowPrice", out.duals().resource(r).orElse(Double.NaN));
-      o.put("binding", used[r] >= rr.capacity() * (1 - 1e-7) - 1e-9);
+      res.add(new RunResult.ResourceRow(rr.id(), rr.capacity(), used[r],
+          known(out.duals().resource(r)),
+          used[r] >= rr.capacity() * (1 - 1e-7) - 1e-9));
     }
-    ArrayNode segs = n.putArray("segments");
+    List<RunResult.SegmentRow> segs = new ArrayList<>();
     for (int s = 0; s < cat.segments().size(); s++) {
       Segment ss = cat.segments().get(s);
-      ObjectNode o = segs.addObject();
-      o.put("id", ss.id());
-      o.put("demand", ss.demand());
-      o.put("sold", segSold[s]);
-      putNum(o, "shadowPrice", out.duals().segment(s).orElse(Double.NaN));
+      segs.add(new RunResult.SegmentRow(ss.id(), ss.demand(), segSold[s],
+          known(out.duals().segment(s))));
     }
-    ArrayNode rounds = n.putArray("rounds");
+    List<RunResult.Round> rounds = new ArrayList<>();
     for (IterationRecord r : out.history()) {
-      ObjectNode o = rounds.addObject();
-      o.put("iteration", r.iteration());
-      o.put("objective", r.objective());
-      putNum(o, "bound", r.bound());
-      putNum(o, "gap", r.gap());
-      o.put("columns", r.columns());
-      o.put("added", r.added());
-      o.put("exactPricing", r.exactPricing());
-      o.put("elapsedMs", r.elapsedMs());
+      rounds.add(new RunResult.Round(r.iteration(), r.objective(), Json.num(r.bound()), Json.num(r.gap()),
+          r.columns(), r.added(), r.exactPricing(), r.elapsedMs()));
     }
-    return n;
+    boolean exact = info.size().exact();
+    String size = info.size().value().toString();
+    return new RunResult(out.status(), out.stopReason(), out.objective(), Json.num(out.bound()),
+        Json.num(out.gap()), out.iterations(), out.columnsGenerated(), out.columns().size(),
+        exact ? size : null, exact ? null : size, info.elapsedMs(),
+        new RunResult.CatalogRef(cat.name(), info.catalogFile(), info.catalogSha256(), cat.currency(), cat.period()),
+        info.pricer(), offers, res, segs, rounds, null, null, null);
   }
 
-  static void putNum(ObjectNode n, String field, double v) {
-    if (Double.isFinite(v)) {
-      n.put(field, v);
-    } else {
-      n.putNull(field);
-    }
+  public static void write(Path runDir, RunResult result) throws IOException {
+    result.write(runDir);
   }
 
-  public static void write(Path runDir, ObjectNode result) throws IOException {
-    AtomicFiles.write(runDir.resolve(FILE), Json.pretty().writeValueAsString(result) + "\n");
+  /** A dual value as written: null when the run has none (nothing was solved), never a made-up 0. */
+  private static Double known(java.util.OptionalDouble d) {
+    return d.isPresent() ? d.getAsDouble() : null;
   }
 }

@@ -9,8 +9,8 @@ import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Rule;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.runfolder.Json;
 import java.util.ArrayList;
-import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -29,26 +29,58 @@ public final class RunComparison {
 
   private RunComparison() {}
 
-  public static ObjectNode compare(JsonNode a, JsonNode b, Catalog catA, Catalog catB) {
+  public static ObjectNode compare(RunResult a, RunResult b, Catalog catA, Catalog catB) {
     ObjectNode n = Json.pretty().createObjectNode();
     ObjectNode head = n.putObject("summary");
-    for (String f : List.of("status", "objective", "bound", "gap", "iterations", "columnsGenerated")) {
-      ObjectNode o = head.putObject(f);
-      o.set("a", a.path(f).deepCopy());
-      o.set("b", b.path(f).deepCopy());
-      if (a.path(f).isNumber() && b.path(f).isNumber()) {
-        o.put("change", b.path(f).asDouble() - a.path(f).asDouble());
-      }
-    }
-    n.put("sameCatalog", a.path("catalog").path("sha256").asText("a").equals(b.path("catalog").path("sha256").asText("b"))
-        && (catA == null || catA.equals(catB)));
+    ObjectNode st = head.putObject("status");
+    st.put("a", a.status().word());
+    st.put("b", b.status().word());
+    pair(head.putObject("objective"), a.objective(), b.objective());
+    pair(head.putObject("bound"), a.bound(), b.bound());
+    pair(head.putObject("gap"), a.gap(), b.gap());
+    pair(head.putObject("iterations"), a.iterations(), b.iterations());
+    pair(head.putObject("columnsGenerated"), a.columnsGenerated(), b.columnsGenerated());
+    n.put("sameCatalog", a.catalog().sha256().equals(b.catalog().sha256()) && (catA == null || catA.equals(catB)));
     if (catA != null && catB != null) {
       n.set("catalogChanges", catalogChanges(catA, catB));
     }
     n.set("offers", offers(a, b));
-    n.set("resources", byId(a.path("resources"), b.path("resources"), List.of("capacity", "used", "shadowPrice")));
-    n.set("segments", byId(a.path("segments"), b.path("segments"), List.of("demand", "sold", "shadowPrice")));
+    n.set("resources", byId(rows(a.resources()), rows(b.resources()), List.of("capacity", "used", "shadowPrice")));
+    n.set("segments", byId(rows(a.segments()), rows(b.segments()),
+        List.of("demand", "sold", "shadowPrice")));
     return n;
+  }
+
+  /** {a, b, change}; a missing figure (a bound not yet proven) is null and has no change. */
+  private static void pair(ObjectNode o, Number x, Number y) {
+    putNumber(o, "a", x);
+    putNumber(o, "b", y);
+    if (x != null && y != null) {
+      o.put("change", y.doubleValue() - x.doubleValue());
+    }
+  }
+
+  private static void putNumber(ObjectNode o, String f, Number v) {
+    if (v == null) {
+      o.putNull(f);
+    } else if (v instanceof Integer i) {
+      o.put(f, i);
+    } else {
+      o.put(f, v.doubleValue());
+    }
+  }
+
+  /** A resource's or segment's figures by id, in the order the comparison lists them. */
+  private static Map<String, double[]> rows(List<?> rows) {
+    Map<String, double[]> m = new LinkedHashMap<>();
+    for (Object r : rows) {
+      if (r instanceof RunResult.ResourceRow x) {
+        m.put(x.id(), new double[] {x.capacity(), x.used(), x.shadowPrice() == null ? Double.NaN : x.shadowPrice()});
+      } else if (r instanceof RunResult.SegmentRow x) {
+        m.put(x.id(), new double[] {x.demand(), x.sold(), x.shadowPrice() == null ? Double.NaN : x.shadowPrice()});
+      }
+    }
+    return m;
   }
 
   /** The figures that differ, each as {path, a, b}; ids only in one catalog as added or removed. */
@@ -133,86 +165,84 @@ public final class RunComparison {
     return s;
   }
 
-  private static ObjectNode offers(JsonNode a, JsonNode b) {
-    Map<String, JsonNode> oa = offerMap(a);
-    Map<String, JsonNode> ob = offerMap(b);
+  private static ObjectNode offers(RunResult a, RunResult b) {
+    Map<String, RunResult.Offer> oa = offerMap(a);
+    Map<String, RunResult.Offer> ob = offerMap(b);
     ObjectNode n = Json.pretty().createObjectNode();
     ArrayNode added = n.putArray("new");
     ArrayNode dropped = n.putArray("dropped");
     ArrayNode changed = n.putArray("changed");
     int same = 0;
-    for (Map.Entry<String, JsonNode> e : ob.entrySet()) {
-      JsonNode x = oa.get(e.getKey());
+    for (Map.Entry<String, RunResult.Offer> e : ob.entrySet()) {
+      RunResult.Offer x = oa.get(e.getKey());
       if (x == null) {
-        added.add(offer(e.getValue(), null, e.getValue()));
+        added.add(offer(e.getValue(), 0, e.getValue().quantity()));
       } else {
-        double qa = x.path("quantity").asDouble();
-        double qb = e.getValue().path("quantity").asDouble();
+        double qa = x.quantity();
+        double qb = e.getValue().quantity();
         if (Math.abs(qa - qb) > SAME * Math.max(1, Math.abs(qa))) {
-          changed.add(offer(e.getValue(), x, e.getValue()));
+          changed.add(offer(e.getValue(), qa, qb));
         } else {
           same++;
         }
       }
     }
-    for (Map.Entry<String, JsonNode> e : oa.entrySet()) {
+    for (Map.Entry<String, RunResult.Offer> e : oa.entrySet()) {
       if (!ob.containsKey(e.getKey())) {
-        dropped.add(offer(e.getValue(), e.getValue(), null));
+        dropped.add(offer(e.getValue(), e.getValue().quantity(), 0));
       }
     }
     n.put("unchanged", same);
     return n;
   }
 
-  private static ObjectNode offer(JsonNode any, JsonNode a, JsonNode b) {
+  private static ObjectNode offer(RunResult.Offer any, double qa, double qb) {
     ObjectNode o = Json.pretty().createObjectNode();
-    o.put("segment", any.path("segment").asText());
-    o.set("options", any.path("options").deepCopy());
-    o.put("quantityA", a == null ? 0.0 : a.path("quantity").asDouble());
-    o.put("quantityB", b == null ? 0.0 : b.path("quantity").asDouble());
+    o.put("segment", any.segment());
+    ObjectNode opts = o.putObject("options");
+    any.options().forEach(opts::put);
+    o.put("quantityA", qa);
+    o.put("quantityB", qb);
     return o;
   }
 
-  private static Map<String, JsonNode> offerMap(JsonNode result) {
-    Map<String, JsonNode> m = new LinkedHashMap<>();
-    for (JsonNode o : result.path("offers")) {
-      m.put(o.path("segment").asText() + " " + variant(o.path("options")), o);
+  private static Map<String, RunResult.Offer> offerMap(RunResult result) {
+    Map<String, RunResult.Offer> m = new LinkedHashMap<>();
+    for (RunResult.Offer o : result.offers()) {
+      m.put(o.segment() + " " + variant(o.options()), o);
     }
     return m;
   }
 
   /** {@code group=option,...} without the optional groups at none. */
-  public static String variant(JsonNode options) {
+  public static String variant(Map<String, String> options) {
     List<String> parts = new ArrayList<>();
-    for (Iterator<Map.Entry<String, JsonNode>> it = options.fields(); it.hasNext(); ) {
-      Map.Entry<String, JsonNode> e = it.next();
-      if (!e.getValue().asText().equals(Group.NONE)) {
-        parts.add(e.getKey() + "=" + e.getValue().asText());
+    options.forEach((g, c) -> {
+      if (!c.equals(Group.NONE)) {
+        parts.add(g + "=" + c);
       }
-    }
+    });
     return String.join(",", parts);
   }
 
-  private static ArrayNode byId(JsonNode a, JsonNode b, List<String> fields) {
-    Map<String, JsonNode> ma = new LinkedHashMap<>();
-    a.forEach(x -> ma.put(x.path("id").asText(), x));
-    Map<String, JsonNode> mb = new LinkedHashMap<>();
-    b.forEach(x -> mb.put(x.path("id").asText(), x));
+  /** The same for the options object of a comparison's offer. */
+  public static String variant(JsonNode options) {
+    Map<String, String> m = new LinkedHashMap<>();
+    options.fields().forEachRemaining(e -> m.put(e.getKey(), e.getValue().asText()));
+    return variant(m);
+  }
+
+  private static ArrayNode byId(Map<String, double[]> ma, Map<String, double[]> mb, List<String> fields) {
     Set<String> ids = new LinkedHashSet<>(ma.keySet());
     ids.addAll(mb.keySet());
     ArrayNode out = Json.pretty().createArrayNode();
     for (String id : ids) {
       ObjectNode o = out.addObject();
       o.put("id", id);
-      for (String f : fields) {
-        ObjectNode v = o.putObject(f);
-        JsonNode x = ma.containsKey(id) ? ma.get(id).path(f) : null;
-        JsonNode y = mb.containsKey(id) ? mb.get(id).path(f) : null;
-        v.set("a", x == null || x.isMissingNode() ? null : x.deepCopy());
-        v.set("b", y == null || y.isMissingNode() ? null : y.deepCopy());
-        if (x != null && y != null && x.isNumber() && y.isNumber()) {
-          v.put("change", y.asDouble() - x.asDouble());
-        }
+      for (int f = 0; f < fields.size(); f++) {
+        double[] x = ma.get(id);
+        double[] y = mb.get(id);
+        pair(o.putObject(fields.get(f)), x == null ? null : x[f], y == null ? null : y[f]);
       }
     }
     return out;

@@ -1,15 +1,20 @@
 package dev.mixwright.report;
 
+import java.util.Optional;
+import java.util.Arrays;
+import dev.mixwright.colgen.RunStatus;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Resource;
-import dev.mixwright.catalog.Scenario;
 import dev.mixwright.catalog.Segment;
-import dev.mixwright.catalog.SweepPlan;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.Sweep;
+import dev.mixwright.runfolder.AtomicFiles;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.scenario.Scenario;
+import dev.mixwright.scenario.SweepPlan;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -71,8 +76,8 @@ public final class SweepTable {
       n.put("stopReason", o.stopReason());
     }
     n.put("objective", o.objective());
-    ResultWriter.putNum(n, "bound", o.bound());
-    ResultWriter.putNum(n, "gap", o.gap());
+    Json.putNum(n, "bound", o.bound());
+    Json.putNum(n, "gap", o.gap());
     n.put("iterations", o.iterations());
     n.put("columnsGenerated", o.columnsGenerated());
     n.put("warmStartColumns", r.warmColumns());
@@ -88,14 +93,14 @@ public final class SweepTable {
       ObjectNode x = res.putObject(rr.id());
       x.put("capacity", rr.capacity());
       x.put("used", r.used()[i]);
-      ResultWriter.putNum(x, "shadowPrice", o.duals().resource(i).orElse(Double.NaN));
+      Json.putNum(x, "shadowPrice", o.duals().resource(i).orElse(Double.NaN));
     }
     ObjectNode segs = n.putObject("segments");
     for (int s = 0; s < c.segments().size(); s++) {
       Segment ss = c.segments().get(s);
       ObjectNode x = segs.putObject(ss.id());
       x.put("demand", ss.demand());
-      ResultWriter.putNum(x, "shadowPrice", o.duals().segment(s).orElse(Double.NaN));
+      Json.putNum(x, "shadowPrice", o.duals().segment(s).orElse(Double.NaN));
     }
     rows.put(p.index(), n);
     return n;
@@ -105,7 +110,7 @@ public final class SweepTable {
     if (t.field() == Scenario.Field.RULE) {
       ax.put(t.path(), t.valueIn(c) > 0 ? "on" : "off");
     } else {
-      ResultWriter.putNum(ax, t.path(), t.valueIn(c));
+      Json.putNum(ax, t.path(), t.valueIn(c));
     }
   }
 
@@ -145,13 +150,29 @@ public final class SweepTable {
             slope = (n.path("objective").asDouble() - prev.path("objective").asDouble()) / (b - bp);
           }
         }
-        ResultWriter.putNum(v, t.path(), slope);
+        Json.putNum(v, t.path(), slope);
       }
     }
   }
 
   private static boolean solved(JsonNode n) {
-    return n.path("status").asText().equals("optimal");
+    return status(n).filter(RunStatus::isOptimal).isPresent();
+  }
+
+  /** A row's status; empty for a scenario that could not be built ({@code invalid}). */
+  public static Optional<RunStatus> status(JsonNode row) {
+    String w = row.path("status").asText();
+    return Arrays.stream(RunStatus.values()).filter(s -> s.word().equals(w)).findFirst();
+  }
+
+  /** A row a later run of the same sweep keeps: solved to its optimum, or proven infeasible. */
+  public static boolean finished(JsonNode row) {
+    return status(row).filter(s -> s != RunStatus.STOPPED).isPresent();
+  }
+
+  /** A row whose solve a limit or a signal ended. */
+  public static boolean stopped(JsonNode row) {
+    return status(row).filter(s -> s == RunStatus.STOPPED).isPresent();
   }
 
   public ObjectNode toJson() {

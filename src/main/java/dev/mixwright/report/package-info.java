@@ -1,4 +1,5 @@
 /**
- * What a run leaves for people to read: result.json, the column log and their readable views.
+ * What a run leaves for people to read: result.json as a record tree, and its views (the HTML
+ * report, the comparison of two runs, the sweep table).
  */
 package dev.mixwright.report;

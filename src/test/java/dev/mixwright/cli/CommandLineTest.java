@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.mixwright.run.Catalogs;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -246,20 +247,7 @@ class CommandLineTest {
 
   @Test
   void noBuildableVariantIsInfeasibleWithTheRulesNamed(@TempDir Path dir) throws IOException {
-    String yaml = """
-        format: 1
-        name: clash
-        resources: [{id: line, capacity: 100}]
-        groups:
-          - id: body
-            options: [{id: a, price: 10, cost: 5}, {id: b, price: 12, cost: 6}]
-          - id: trim
-            options: [{id: x, price: 3, cost: 1}]
-        rules:
-          - {id: no-a, forbid: {body: [a], trim: [x]}}
-          - {id: no-b, forbid: {body: [b], trim: [x]}}
-        segments: [{id: all, demand: 10}]
-        """;
+    String yaml = Catalogs.NOTHING_BUILDABLE;
     Path f = dir.resolve("clash.yaml");
     Files.writeString(f, yaml);
     CliRun s = CliRun.of("solve", f.toString(), "--out", dir.resolve("r").toString());

@@ -7,7 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import dev.mixwright.report.Json;
+import dev.mixwright.runfolder.Json;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;

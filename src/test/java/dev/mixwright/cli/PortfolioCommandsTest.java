@@ -5,7 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import dev.mixwright.report.Json;
+import dev.mixwright.runfolder.Json;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;

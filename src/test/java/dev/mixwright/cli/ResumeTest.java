@@ -4,10 +4,10 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import dev.mixwright.report.ColumnLogReader;
-import dev.mixwright.report.Json;
-import dev.mixwright.report.RunFolder;
-import dev.mixwright.report.RunLock;
+import dev.mixwright.runfolder.ColumnLogReader;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.runfolder.RunLock;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Arrays;
@@ -71,6 +71,24 @@ class ResumeTest {
     CliRun done = CliRun.of("resume", run.toString());
     assertEquals(0, done.code(), done.toString());
     assertTrue(done.out().contains("already optimal"), done.out());
+  }
+
+  @Test
+  void aResumeKeepsEverySettingTheRunWasStartedWith() throws Exception {
+    // Resume once rebuilt the loop without --smoothing and --retire-after (run.json had no field
+    // for them), so the second session ran with the defaults.
+    Path run = dir.resolve("run");
+    CliRun first = CliRun.of("solve", STARTER.toString(), "--out", run.toString(), "--max-iterations", "1",
+        "--smoothing", "0.4", "--retire-after", "3", "--per-round", "4", "--heuristic-first");
+    assertEquals(1, first.code(), first.toString());
+    CliRun again = CliRun.of("resume", run.toString());
+    assertEquals(0, again.code(), again.toString());
+    assertSameObjective(uninterrupted, run);
+    JsonNode settings = Json.pretty().readTree(run.resolve("run.json").toFile()).path("settings");
+    assertEquals(0.4, settings.path("smoothing").asDouble(-1), settings.toString());
+    assertEquals(3, settings.path("retireAfter").asInt(-1), settings.toString());
+    assertEquals(4, settings.path("perRound").asInt(-1), settings.toString());
+    assertTrue(settings.path("heuristicFirst").asBoolean(false), settings.toString());
   }
 
   @Test

@@ -5,9 +5,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
-import dev.mixwright.catalog.Scenario;
-import dev.mixwright.catalog.Scenarios;
-import dev.mixwright.catalog.SweepPlan;
+import dev.mixwright.pricing.BranchAndBoundPricer;
+import dev.mixwright.scenario.Scenario;
+import dev.mixwright.scenario.Scenarios;
+import dev.mixwright.scenario.SweepPlan;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.EnumeratedLp;
 import dev.mixwright.testing.RandomCatalogs;
@@ -38,7 +39,7 @@ class SweepTest {
   private static final SolveSettings TIGHT = SolveSettings.defaults().withGapTolerance(1e-9).withPerRound(5);
 
   private static List<Sweep.Row> sweep(Catalog c, SweepPlan plan, boolean warm) {
-    List<Sweep.Row> rows = new ArrayList<>(new Sweep(c, plan, "bnb", TIGHT, warm).run(Set.of(), () -> false,
+    List<Sweep.Row> rows = new ArrayList<>(new Sweep(c, plan, BranchAndBoundPricer::withDefaultLimits, TIGHT, warm).run(Set.of(), () -> false,
         new Sweep.Listener() {}));
     rows.sort(Comparator.comparingInt(r -> r.point().index()));
     return rows;
@@ -149,7 +150,7 @@ class SweepTest {
         List.of(), starter);
     List<Sweep.Row> all = sweep(starter, plan, true);
     int[] solved = {0};
-    List<Sweep.Row> first = new Sweep(starter, plan, "bnb", TIGHT, true).run(Set.of(), () -> solved[0] >= 3,
+    List<Sweep.Row> first = new Sweep(starter, plan, BranchAndBoundPricer::withDefaultLimits, TIGHT, true).run(Set.of(), () -> solved[0] >= 3,
         new Sweep.Listener() {
           @Override
           public void solved(Sweep.Row row) {
@@ -159,7 +160,7 @@ class SweepTest {
     assertEquals(3, first.size());
     Set<Integer> done = new java.util.HashSet<>();
     first.forEach(r -> done.add(r.point().index()));
-    List<Sweep.Row> rest = new Sweep(starter, plan, "bnb", TIGHT, true).run(done, () -> false, new Sweep.Listener() {});
+    List<Sweep.Row> rest = new Sweep(starter, plan, BranchAndBoundPricer::withDefaultLimits, TIGHT, true).run(done, () -> false, new Sweep.Listener() {});
     assertEquals(all.size() - 3, rest.size());
     for (Sweep.Row r : rest) {
       assertTrue(!done.contains(r.point().index()));

@@ -10,6 +10,7 @@ import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.pricing.BranchAndBoundPricer;
 import dev.mixwright.pricing.Pricers;
 import dev.mixwright.space.VariantSpace;
 import java.nio.file.Path;
@@ -117,7 +118,7 @@ class CapacityRangesTest {
     int checked = 0;
     for (int r = 0; r < cat.resources().size(); r++) {
       CapacityRanges.ColumnGenerationSolver solver =
-          new CapacityRanges.ColumnGenerationSolver(cat, r, "bnb", tight, List.of());
+          new CapacityRanges.ColumnGenerationSolver(cat, r, BranchAndBoundPricer::withDefaultLimits, tight, List.of());
       CapacityRanges.Point p0 = solver.at(cat.resources().get(r).capacity());
       CapacityRanges.Range range = search.find(cat.resources().get(r).id(), p0,
           CapacityRanges.unusableCapacity(space, r), solver);

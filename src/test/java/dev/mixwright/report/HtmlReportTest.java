@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.cli.Main;
+import dev.mixwright.runfolder.Json;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
@@ -28,7 +29,7 @@ class HtmlReportTest {
     int code = Main.run(new String[] {"solve", "catalogs/heatpump-starter.yaml", "--out", run.toString()},
         new PrintWriter(out), new PrintWriter(err));
     assertEquals(0, code, () -> out + "\n" + err);
-    result = RunReader.readResult(run);
+    result = Json.pretty().readTree(run.resolve(ResultWriter.FILE).toFile());
   }
 
   @Test

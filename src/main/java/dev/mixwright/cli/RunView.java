@@ -1,0 +1,83 @@
+package dev.mixwright.cli;
+
+import dev.mixwright.colgen.ColGenListener;
+import dev.mixwright.colgen.Durations;
+import dev.mixwright.portfolio.PortfolioListener;
+import dev.mixwright.run.RunOutcome;
+import dev.mixwright.run.RunSession;
+import java.io.PrintWriter;
+import java.util.List;
+import java.util.Locale;
+import picocli.CommandLine;
+
+/** Runs a {@link RunSession} for a command (signals caught, progress shown) and prints how it ended. */
+final class RunView {
+  private RunView() {}
+
+  /** What a command asks of the session. */
+  interface Job {
+    RunOutcome run(RunSession session) throws Exception;
+  }
+
+  /** Runs the job and prints its outcome; returns the exit code. */
+  static int run(CommandLine cl, Boolean progress, Job job) throws Exception {
+    PrintWriter out = cl.getOut();
+    PrintWriter err = cl.getErr();
+    try (StopSignals signals = StopSignals.install(err)) {
+      RunOutcome o = job.run(new RunSession(signals.flag(), new Watcher(out, err, progress)));
+      print(out, o);
+      return ExitCodes.of(o);
+    }
+  }
+
+  static void print(PrintWriter out, RunOutcome o) {
+    if (o instanceof RunOutcome.Solved s) {
+      Summary.print(out, s.space(), s.lp(), s.result(), s.runDir());
+    } else if (o instanceof RunOutcome.AlreadyOptimal a) {
+      out.println(a.runDir() + ": the run is already optimal (objective " + Numbers.money(a.objective())
+          + "); nothing to resume");
+    } else if (o instanceof RunOutcome.EndedInfeasible i) {
+      out.println(i.runDir() + ": the run ended infeasible (" + i.reason()
+          + "); a resume cannot change that — fix the catalog and solve again");
+    }
+    out.flush();
+  }
+
+  /** Progress and notes on stderr, the resume line on stdout. */
+  private record Watcher(PrintWriter out, PrintWriter err, Boolean progress) implements RunSession.Watcher {
+    @Override
+    public List<ColGenListener> loop() {
+      Progress p = Progress.choose(err, progress, "");
+      return p == null ? List.of() : List.of(p);
+    }
+
+    @Override
+    public List<PortfolioListener> portfolio() {
+      if (Progress.choose(err, progress, "") == null) {
+        return List.of();
+      }
+      return List.of(e -> {
+        err.println(String.format(Locale.ROOT, "portfolio %-10s value %s  bound %s  pool %d  %s  %s",
+            e.kind().word(), Numbers.money(e.value()), Numbers.money(e.bound()), e.pool(), e.note(),
+            Durations.format(e.elapsedMs())));
+        err.flush();
+      });
+    }
+
+    @Override
+    public void note(String text) {
+      err.println("mixwright: note: " + text);
+      err.flush();
+    }
+
+    @Override
+    public void resuming(RunSession.ResumePoint p) {
+      out.println(String.format(Locale.ROOT, "resuming %s: session %d, %d columns from the pool%s, after round %d"
+              + " (%s so far)%s", p.runDir(), p.session(), p.pooledColumns(),
+          p.leftOut() > 0 ? " (" + p.leftOut() + " left out: no longer sellable or duplicated)" : "",
+          p.afterRound(), Durations.format(p.elapsedMs()),
+          Double.isFinite(p.bound()) ? ", bound " + Numbers.money(p.bound()) : ""));
+      out.flush();
+    }
+  }
+}

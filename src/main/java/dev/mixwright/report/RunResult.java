@@ -1,0 +1,193 @@
+package dev.mixwright.report;
+
+import com.fasterxml.jackson.annotation.JsonInclude.Include;
+import com.fasterxml.jackson.annotation.JsonInclude;
+import com.fasterxml.jackson.annotation.JsonValue;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.ObjectReader;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.json.JsonMapper;
+import dev.mixwright.colgen.RunStatus;
+import dev.mixwright.portfolio.PortfolioStatus;
+import dev.mixwright.runfolder.AtomicFiles;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * {@code result.json} as a record tree, the one model that both writes the file and reads it back
+ * (Jackson data binding on records, properties in component order). Field names and shape are
+ * PRODUCT.md's: a figure that is not finite (a bound before the first exact round) is written as
+ * null; fields marked non-null are left out when absent. Unknown fields are ignored on reading,
+ * so a newer file still reads.
+ */
+public record RunResult(
+    RunStatus status,
+    @JsonInclude(Include.NON_EMPTY) String stopReason,
+    double objective,
+    Double bound,
+    Double gap,
+    int iterations,
+    int columnsGenerated,
+    int columnsInMaster,
+    String buildableVariants,
+    @JsonInclude(Include.NON_NULL) String buildableVariantsAtMost,
+    long elapsedMs,
+    CatalogRef catalog,
+    String pricer,
+    List<Offer> offers,
+    List<ResourceRow> resources,
+    List<SegmentRow> segments,
+    List<Round> rounds,
+    @JsonInclude(Include.NON_NULL) Integer sessions,
+    @JsonInclude(Include.NON_NULL) String portfolioPending,
+    @JsonInclude(Include.NON_NULL) Portfolio portfolio) {
+
+  /** An absent stopReason reads as empty, as the writer leaves an empty one out. */
+  public RunResult {
+    stopReason = stopReason == null ? "" : stopReason;
+    offers = offers == null ? List.of() : offers;
+    resources = resources == null ? List.of() : resources;
+    segments = segments == null ? List.of() : segments;
+    rounds = rounds == null ? List.of() : rounds;
+  }
+
+  public record CatalogRef(String name, String file, String sha256, String currency, String period) {}
+
+  public record Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
+      double reducedCost, boolean atLimit, double contribution) {
+
+    public Offer {
+      options = options == null ? Map.of() : options;
+    }
+  }
+
+  public record ResourceRow(String id, double capacity, double used, Double shadowPrice, boolean binding) {}
+
+  public record SegmentRow(String id, double demand, double sold, Double shadowPrice) {}
+
+  public record Round(int iteration, double objective, Double bound, Double gap, int columns, int added,
+      boolean exactPricing, long elapsedMs) {}
+
+  /** The integer stage's section. */
+  public record Portfolio(
+      PortfolioStatus status,
+      @JsonInclude(Include.NON_EMPTY) String reason,
+      double value,
+      Double bound,
+      Double gap,
+      List<PortfolioVariant> variants,
+      double introductionCosts,
+      double toolingCosts,
+      @JsonInclude(Include.NON_NULL) Map<String, Double> toolingPaid,
+      Terms terms,
+      Double lpBound,
+      @JsonInclude(Include.NON_NULL) Relaxation relaxation,
+      Proof proof,
+      Solver solver,
+      long elapsedMs) {
+
+    public Portfolio {
+      reason = reason == null ? "" : reason;
+      variants = variants == null ? List.of() : variants;
+    }
+  }
+
+  public record PortfolioVariant(Map<String, String> options, Map<String, Double> sales, double units,
+      double margin, double introductionCost) {
+
+    public PortfolioVariant {
+      options = options == null ? Map.of() : options;
+      sales = sales == null ? Map.of() : sales;
+    }
+  }
+
+  /** {@code maxVariants} and {@code variantCap} are null when unlimited. */
+  public record Terms(double introductionCost, Integer maxVariants, double minLot, Integer variantCap) {}
+
+  public record Relaxation(double objective, Double bound, boolean converged, int rounds, Double boundAtLpPrices,
+      Prices prices, Double variantLimitPrice, Double boundAtVariantLimitPrice, long elapsedMs) {}
+
+  public record Prices(Map<String, Double> resources, Map<String, Double> segments) {}
+
+  public record Proof(Double survivorThreshold, int survivorsAdded, boolean survivorsComplete, int poolVariants) {}
+
+  public record Solver(String engine, int mipSolves, boolean lastMipOptimal) {}
+
+  public RunResult withSessions(int n) {
+    return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
+        buildableVariants, buildableVariantsAtMost, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
+        n, portfolioPending, portfolio);
+  }
+
+  public RunResult withPortfolioPending(String why) {
+    return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
+        buildableVariants, buildableVariantsAtMost, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
+        sessions, why, portfolio);
+  }
+
+  /** This result with the integer stage's section; {@code elapsedMs} then covers both stages. */
+  public RunResult withPortfolio(Portfolio p, long totalElapsedMs) {
+    return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
+        buildableVariants, buildableVariantsAtMost, totalElapsedMs, catalog, pricer, offers, resources, segments,
+        rounds, sessions, portfolioPending, p);
+  }
+
+  /** The proven bound, +∞ when none is proven yet. */
+  public double boundOrInfinity() {
+    return bound == null ? Double.POSITIVE_INFINITY : bound;
+  }
+
+  /** The gap, +∞ when no bound is proven yet. */
+  public double gapOrInfinity() {
+    return gap == null ? Double.POSITIVE_INFINITY : gap;
+  }
+
+  /** The result.json words of {@link RunStatus} and {@link PortfolioStatus}, both ways. */
+  abstract static class StatusWords {
+    @JsonValue
+    public abstract String word();
+  }
+
+  private static final ObjectMapper MAPPER = JsonMapper.builder()
+      .addMixIn(RunStatus.class, StatusWords.class)
+      .addMixIn(PortfolioStatus.class, StatusWords.class)
+      .enable(SerializationFeature.INDENT_OUTPUT)
+      .disable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
+      .build();
+  private static final ObjectReader READER = MAPPER.readerFor(RunResult.class);
+
+  public String toJson() {
+    try {
+      return MAPPER.writeValueAsString(this) + "\n";
+    } catch (IOException e) {
+      throw new IllegalStateException("a result always serializes", e);
+    }
+  }
+
+  /** The text of result.json; the exception's message says in words what is wrong. */
+  public static RunResult parse(String text, String where) throws IOException {
+    try {
+      return READER.readValue(text);
+    } catch (JsonProcessingException e) {
+      throw new IOException(where + " is not a result this version reads (" + e.getOriginalMessage() + ")", e);
+    }
+  }
+
+  public static RunResult read(Path runDir) throws IOException {
+    Path f = runDir.resolve(ResultWriter.FILE);
+    if (!Files.isRegularFile(f)) {
+      throw new IOException("no " + ResultWriter.FILE + " in " + runDir
+          + " — is this a run folder made by 'mixwright solve --out'?");
+    }
+    return parse(Files.readString(f), f.toString());
+  }
+
+  public void write(Path runDir) throws IOException {
+    AtomicFiles.write(runDir.resolve(ResultWriter.FILE), toJson());
+  }
+}

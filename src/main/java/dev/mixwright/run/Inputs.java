@@ -1,0 +1,71 @@
+package dev.mixwright.run;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogException;
+import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.scenario.Scenarios;
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.HexFormat;
+
+/** Reading what the user names on the command line, with errors for people. */
+public final class Inputs {
+  private Inputs() {}
+
+  public static Catalog catalog(Path file) throws CatalogException {
+    return hashedCatalog(file).catalog();
+  }
+
+  /** The catalog and the SHA-256 of the bytes it was parsed from (the file is read once). */
+  public static CatalogLoader.Hashed hashedCatalog(Path file) throws CatalogException {
+    if (!Files.isRegularFile(file)) {
+      throw new InputError("no catalog file at " + file + " — give the path of a .yaml, .yml or .json catalog");
+    }
+    return CatalogLoader.loadHashed(file);
+  }
+
+  /**
+   * A scenario file applied to {@code base}; its problems come as one bad-input error listing each
+   * with its path (the catalog's own problems keep their own wording).
+   */
+  public static Catalog withScenario(Catalog base, Path scenarioFile) {
+    if (!Files.isRegularFile(scenarioFile)) {
+      throw new InputError("no scenario file at " + scenarioFile + " — give the path of a .yaml or .json scenario");
+    }
+    try {
+      return Scenarios.load(scenarioFile, base).applyTo(base);
+    } catch (CatalogException e) {
+      throw problems("the scenario file " + scenarioFile, e);
+    }
+  }
+
+  /** A CatalogException from a file other than the catalog, as a bad-input error naming that file. */
+  public static InputError problems(String what, CatalogException e) {
+    StringBuilder sb = new StringBuilder(what + " has " + e.problems().size()
+        + (e.problems().size() == 1 ? " problem:" : " problems:"));
+    for (CatalogProblem p : e.problems()) {
+      sb.append("\n  ").append(p.path()).append(": ").append(p.message());
+    }
+    return new InputError(sb.toString());
+  }
+
+  public static String sha256(Path file) {
+    try (InputStream in = Files.newInputStream(file)) {
+      MessageDigest md = MessageDigest.getInstance("SHA-256");
+      byte[] buf = new byte[1 << 16];
+      for (int n; (n = in.read(buf)) > 0; ) {
+        md.update(buf, 0, n);
+      }
+      return HexFormat.of().formatHex(md.digest());
+    } catch (IOException e) {
+      throw new InputError("cannot read " + file + ": " + e.getMessage());
+    } catch (NoSuchAlgorithmException e) {
+      throw new IllegalStateException(e);
+    }
+  }
+}

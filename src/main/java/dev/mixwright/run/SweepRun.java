@@ -1,0 +1,195 @@
+package dev.mixwright.run;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.choice.NotSolvedYet;
+import dev.mixwright.catalog.CatalogException;
+import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.catalog.CatalogWriter;
+import dev.mixwright.colgen.ColGenListener;
+import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.colgen.Sweep;
+import dev.mixwright.report.SweepTable;
+import dev.mixwright.runfolder.AtomicFiles;
+import dev.mixwright.runfolder.Checksums;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.runfolder.RunLock;
+import dev.mixwright.scenario.Scenario;
+import dev.mixwright.scenario.Scenarios;
+import dev.mixwright.scenario.SweepPlan;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Optional;
+import java.util.Set;
+import java.util.concurrent.atomic.AtomicBoolean;
+
+/**
+ * A sweep as the application runs it: the catalog read once, the plan built from a sweep file,
+ * grid axes and scenario files, the rows of an earlier run of the same sweep kept, every other
+ * point solved ({@link Sweep}) and the table rewritten after each.
+ */
+public final class SweepRun {
+  private SweepRun() {}
+
+  /** What to sweep and how; {@code grid} and {@code sweepFile} exclude each other. */
+  public record Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
+      Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace) {}
+
+  /** What the caller wants to hear while the sweep goes on. */
+  public interface Watcher {
+    /** A listener for the loop of the nth of {@code total} points solved now. */
+    default Optional<ColGenListener> loop(SweepPlan.Point p, int nth, int total) {
+      return Optional.empty();
+    }
+
+    default void solved(Sweep.Row row) {}
+
+    default void note(String text) {}
+  }
+
+  /** The table as written, how many rows were solved now and kept from before, and whether every point is done. */
+  public record Outcome(SweepTable table, SweepPlan plan, Catalog catalog, int solvedNow, int kept, boolean complete) {}
+
+  public static Outcome run(Request r, AtomicBoolean stop, Watcher watcher) throws IOException, CatalogException {
+    if (r.sweepFile().isPresent() && !r.grid().isEmpty()) {
+      throw new InputError("give the grid either with --grid or in the --sweep file, not both");
+    }
+    CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile());
+    Catalog catalog = read.catalog();
+    NotSolvedYet.refuseChoiceFeatures(catalog);
+    SweepPlan plan;
+    try {
+      plan = plan(r, catalog);
+    } catch (CatalogException e) {
+      throw Inputs.problems(r.sweepFile().map(f -> "the sweep file " + f).orElse("the --grid axes"), e);
+    }
+    if (plan.points().isEmpty()) {
+      throw new InputError("nothing to sweep: give --grid PATH=VALUES, a --sweep file, or --scenario files");
+    }
+    ObjectNode header = Json.pretty().createObjectNode();
+    header.put("format", 1);
+    header.put("sweep", plan.name());
+    ObjectNode cat = header.putObject("catalog");
+    cat.put("name", catalog.name());
+    cat.put("file", r.catalogFile().toString());
+    cat.put("sha256", read.sha256());
+    header.put("pricer", r.pricer().word());
+    header.put("gap", r.settings().gapTolerance());
+    header.put("warmStart", r.warmStart());
+    header.put("definitionSha256", definition(plan, read.sha256(), r.settings()));
+    SweepTable table = new SweepTable(plan, catalog, header);
+
+    Files.createDirectories(r.outDir());
+    try (RunLock lock = RunStart.lock(new RunFolder(r.outDir()))) {
+      Set<Integer> done = keepEarlierRows(r, table, header, watcher);
+      AtomicFiles.write(r.outDir().resolve(RunFolder.CATALOG_COPY), CatalogWriter.toJson(catalog));
+      table.write(r.outDir());
+      Sweep sweep = new Sweep(catalog, plan, r.pricer()::create, r.settings(), r.warmStart());
+      List<Sweep.Row> rows = sweep.run(done, stop::get, new Sweep.Listener() {
+        @Override
+        public ColGenListener loopListener(SweepPlan.Point p, int nth, int total) {
+          return watcher.loop(p, nth, total).orElse(null);
+        }
+
+        @Override
+        public void solved(Sweep.Row row) {
+          table.add(row);
+          try {
+            table.write(r.outDir());
+          } catch (IOException e) {
+            throw new UncheckedIOException(e);
+          }
+          watcher.solved(row);
+        }
+      });
+      boolean complete = table.rows().size() == plan.points().size()
+          && table.rows().values().stream().noneMatch(SweepTable::stopped);
+      return new Outcome(table, plan, catalog, rows.size(), done.size(), complete);
+    }
+  }
+
+  private static SweepPlan plan(Request r, Catalog catalog) throws CatalogException {
+    if (r.sweepFile().isPresent()) {
+      Path sweepFile = r.sweepFile().get();
+      if (!Files.isRegularFile(sweepFile)) {
+        throw new InputError("no sweep file at " + sweepFile);
+      }
+      SweepPlan p = Scenarios.loadSweep(sweepFile, catalog);
+      Scenario under = Scenario.none();
+      for (Path f : r.scenarioFiles()) {
+        under = under.then(scenario(f, catalog), "base");
+      }
+      return new SweepPlan(p.name(), under.then(p.base(), "base"), p.axes(), p.listed());
+    }
+    List<Scenario> loaded = new ArrayList<>();
+    for (Path f : r.scenarioFiles()) {
+      loaded.add(scenario(f, catalog));
+    }
+    if (r.grid().isEmpty()) {
+      return new SweepPlan("scenarios", Scenario.none(), List.of(), loaded);
+    }
+    Scenario base = Scenario.none();
+    for (Scenario s : loaded) {
+      base = base.then(s, "base");
+    }
+    return Scenarios.grid(r.grid(), base, List.of(), catalog);
+  }
+
+  private static Scenario scenario(Path f, Catalog catalog) {
+    if (!Files.isRegularFile(f)) {
+      throw new InputError("no scenario file at " + f);
+    }
+    try {
+      return Scenarios.load(f, catalog);
+    } catch (CatalogException e) {
+      throw Inputs.problems("the scenario file " + f, e);
+    }
+  }
+
+  /** The hash that says whether an earlier sweep.json in OUT is of this very sweep. */
+  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s) {
+    StringBuilder sb = new StringBuilder(catalogSha).append('\n').append(s.gapTolerance()).append('\n')
+        .append(s.perRound()).append('\n');
+    for (SweepPlan.Point p : plan.points()) {
+      sb.append(p.index()).append(':').append(p.scenario().describe()).append('\n');
+    }
+    return Checksums.sha256(sb.toString());
+  }
+
+  /** Rows of an earlier run of the same sweep that are finished; a different sweep needs --replace. */
+  private static Set<Integer> keepEarlierRows(Request r, SweepTable table, ObjectNode header, Watcher watcher) {
+    Set<Integer> done = new HashSet<>();
+    Path f = r.outDir().resolve(SweepTable.JSON_FILE);
+    if (!Files.isRegularFile(f) || r.replace()) {
+      return done;
+    }
+    JsonNode old;
+    try {
+      old = Json.pretty().readTree(f.toFile());
+    } catch (IOException e) {
+      throw new InputError(f + " is not a sweep table (" + e.getMessage() + "); add --replace to start afresh");
+    }
+    if (!old.path("definitionSha256").asText().equals(header.path("definitionSha256").asText())
+        || !old.path("pricer").asText().equals(r.pricer().word())) {
+      throw new InputError(r.outDir() + " holds another sweep (other catalog, scenarios or settings); choose"
+          + " another --out folder, or add --replace to overwrite it");
+    }
+    for (JsonNode row : old.path("rows")) {
+      if (SweepTable.finished(row)) {
+        table.keep(row);
+        done.add(row.path("index").asInt());
+      }
+    }
+    if (!done.isEmpty()) {
+      watcher.note(done.size() + " scenarios already solved in " + r.outDir() + "; solving the rest");
+    }
+    return done;
+  }
+}

@@ -1,0 +1,58 @@
+package dev.mixwright.runfolder;
+
+import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.channels.FileChannel;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+
+/**
+ * Writes a file so that a reader sees either the old content or the whole new content, never half:
+ * write a temp file beside it, force it to disk, then rename over the target.
+ */
+public final class AtomicFiles {
+  private AtomicFiles() {}
+
+  public static void write(Path target, String text) throws IOException {
+    write(target, text.getBytes(StandardCharsets.UTF_8));
+  }
+
+  public static void write(Path target, byte[] bytes) throws IOException {
+    Path dir = target.toAbsolutePath().getParent();
+    Files.createDirectories(dir);
+    Path tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
+    try {
+      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
+        ByteBuffer buf = ByteBuffer.wrap(bytes);
+        while (buf.hasRemaining()) {
+          ch.write(buf);
+        }
+        ch.force(true);
+      }
+      try {
+        Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+      } catch (AtomicMoveNotSupportedException e) {
+        Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
+      }
+      syncDirectory(dir);
+    } finally {
+      Files.deleteIfExists(tmp);
+    }
+  }
+
+  /**
+   * Forces a folder's entries (a rename, a new file) to disk, where the platform allows it: Linux and
+   * macOS do; elsewhere opening a folder fails and the rename's own durability has to do.
+   */
+  public static void syncDirectory(Path dir) {
+    try (FileChannel ch = FileChannel.open(dir, StandardOpenOption.READ)) {
+      ch.force(true);
+    } catch (IOException | UnsupportedOperationException e) {
+      // not supported here (e.g. Windows); nothing better is available from Java
+    }
+  }
+}
