@@ -60,11 +60,11 @@ public record RunResult(
 
   /**
    * {@code price}: what the segment pays per unit (the chosen price points plus its value of the
-   * options). For a segment that chooses, {@code share} is the offer's share of the segment's
+   * options; absent in files of earlier versions). For a segment that chooses, {@code share} is the offer's share of the segment's
    * buyers and {@code attraction} its w = exp(u − stayOut); both are absent for a fixed segment.
    */
   public record Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
-      double reducedCost, boolean atLimit, double contribution, Double price,
+      double reducedCost, boolean atLimit, double contribution, @JsonInclude(Include.NON_NULL) Double price,
       @JsonInclude(Include.NON_NULL) Double share, @JsonInclude(Include.NON_NULL) Double attraction) {
 
     public Offer {
