@@ -36,6 +36,8 @@ public record RunResult(
     int columnsInMaster,
     String buildableVariants,
     @JsonInclude(Include.NON_NULL) String buildableVariantsAtMost,
+    @JsonInclude(Include.NON_NULL) String buildableVariantsAtLeast,
+    @JsonInclude(Include.NON_NULL) CountEstimate buildableVariantsEstimate,
     long elapsedMs,
     CatalogRef catalog,
     String pricer,
@@ -55,6 +57,9 @@ public record RunResult(
     segments = segments == null ? List.of() : segments;
     rounds = rounds == null ? List.of() : rounds;
   }
+
+  /** A sampled estimate of the number of buildable variants, when no exact count was reached. */
+  public record CountEstimate(double value, double standardError, long samples) {}
 
   public record CatalogRef(String name, String file, String sha256, String currency, String period) {}
 
@@ -144,20 +149,20 @@ public record RunResult(
 
   public RunResult withSessions(int n) {
     return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
-        buildableVariants, buildableVariantsAtMost, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
+        buildableVariants, buildableVariantsAtMost, buildableVariantsAtLeast, buildableVariantsEstimate, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
         n, portfolioPending, portfolio);
   }
 
   public RunResult withPortfolioPending(String why) {
     return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
-        buildableVariants, buildableVariantsAtMost, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
+        buildableVariants, buildableVariantsAtMost, buildableVariantsAtLeast, buildableVariantsEstimate, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
         sessions, why, portfolio);
   }
 
   /** This result with the integer stage's section; {@code elapsedMs} then covers both stages. */
   public RunResult withPortfolio(Portfolio p, long totalElapsedMs) {
     return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
-        buildableVariants, buildableVariantsAtMost, totalElapsedMs, catalog, pricer, offers, resources, segments,
+        buildableVariants, buildableVariantsAtMost, buildableVariantsAtLeast, buildableVariantsEstimate, totalElapsedMs, catalog, pricer, offers, resources, segments,
         rounds, sessions, portfolioPending, p);
   }
 
