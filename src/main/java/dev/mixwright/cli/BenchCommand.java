@@ -34,11 +34,8 @@ import java.util.HashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Set;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Spec;
 
 /**
  * The benchmark of docs/performance.md: on the same generated catalogs, the full LP (every column
@@ -48,15 +45,12 @@ import picocli.CommandLine.Spec;
  */
 @Command(
     name = "bench",
-    mixinStandardHelpOptions = true,
     description = {
       "Measures column generation against listing every column and solving the whole LP,",
       "on generated catalogs, and prints the tables of docs/performance.md (Markdown).",
       "Takes minutes; --quick runs the small sizes only."
     })
-final class BenchCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
+final class BenchCommand extends SubCommand {
   @Option(names = "--full-columns", split = ",", paramLabel = "E",
       description = "sizes for the full-LP comparison, as powers of ten of the column count (default 4,5,6)")
   List<Integer> fullColumns;

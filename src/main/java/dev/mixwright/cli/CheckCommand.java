@@ -15,30 +15,19 @@ import dev.mixwright.runfolder.Json;
 import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
 
 @Command(
     name = "check",
-    mixinStandardHelpOptions = true,
     description = {
       "Validates a catalog and describes it: groups, rules, resources, segments and the number of buildable variants, in total and per segment: exact when the count ends within --count-time, else bounds from both sides and an estimate.",
       "Every problem is named by its path in the file."
     })
-final class CheckCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
-  @Parameters(index = "0", paramLabel = "CATALOG", description = "catalog file (.yaml, .yml or .json)")
-  Path catalogFile;
-
+final class CheckCommand extends CatalogCommand {
   @Option(names = "--json", description = "print the description as JSON")
   boolean json;
 

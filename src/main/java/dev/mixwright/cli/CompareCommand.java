@@ -14,23 +14,17 @@ import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
 
 @Command(
     name = "compare",
-    mixinStandardHelpOptions = true,
     description = {
       "Shows what changed from run A to run B.",
       "Objective and bound, the catalog figures that differ, offers that are new, dropped or sold in another quantity, and the shadow prices of resources and segments."
     })
-final class CompareCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
+final class CompareCommand extends SubCommand {
   @Parameters(index = "0", paramLabel = "RUN_A", description = "a run folder (the before)")
   Path runA;
 

@@ -15,31 +15,20 @@ import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
 import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
 
 @Command(
     name = "explain",
-    mixinStandardHelpOptions = true,
     description = {
       "Shows why a variant pays or not in a segment at the run's shadow prices: its margin, what each resource and the segment's demand charge it, its reduced cost, and the price change at which it would enter the plan."
     })
-final class ExplainCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
-  @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
-  Path runDir;
-
+final class ExplainCommand extends RunDirCommand {
   @Option(names = "--segment", paramLabel = "S", description = "segment id")
   String segmentId;
 

@@ -10,22 +10,16 @@ import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Spec;
 
 @Command(
     name = "generate",
-    mixinStandardHelpOptions = true,
     description = {
       "Writes a synthetic catalog (invented data) of the given size, for trials and benchmarks.",
       "The same options and seed always give the same file."
     })
-final class GenerateCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
+final class GenerateCommand extends SubCommand {
   @Option(names = "--groups", paramLabel = "N", required = true, description = "option groups")
   int groups;
 

@@ -11,24 +11,14 @@ import java.nio.file.Path;
 import java.util.Iterator;
 import java.util.Locale;
 import java.util.Map;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
 
 @Command(
     name = "log",
-    mixinStandardHelpOptions = true,
     description = "Shows a run's column log as a table: when each column entered, which variant in which"
         + " segment, its reduced cost, and the objective and bound after its round.")
-final class LogCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
-  @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
-  Path runDir;
-
+final class LogCommand extends RunDirCommand {
   @Option(names = "--segment", paramLabel = "S", description = "only columns of this segment")
   String segment;
 

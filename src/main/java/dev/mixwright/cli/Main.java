@@ -3,10 +3,12 @@ package dev.mixwright.cli;
 import java.io.PrintWriter;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.ScopeType;
 
 /** The {@code mixwright} command: subcommands for each job; exit codes are mapped in {@link ExitCodes}. */
 @Command(
     name = "mixwright",
+    scope = ScopeType.INHERIT,
     mixinStandardHelpOptions = true,
     versionProvider = Version.class,
     description = "Designs a product range over the whole space of buildable variants by column generation.",

@@ -6,24 +6,14 @@ import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
 
 @Command(
     name = "report",
-    mixinStandardHelpOptions = true,
     description = "Writes one self-contained HTML page for a finished run: headline figures, convergence,"
         + " resource use, the plan by segment and the integer portfolio. Nothing in it is fetched from a network.")
-final class ReportCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
-  @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
-  Path runDir;
-
+final class ReportCommand extends RunDirCommand {
   @Option(names = "--out", paramLabel = "FILE", description = "where to write the page (default RUN_DIR/report.html)")
   Path out;
 

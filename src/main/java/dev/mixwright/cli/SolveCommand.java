@@ -3,27 +3,17 @@ package dev.mixwright.cli;
 import dev.mixwright.run.RunSession;
 import java.nio.file.Path;
 import java.util.Optional;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 @Command(
     name = "solve",
-    mixinStandardHelpOptions = true,
     description = {
       "Finds the best LP plan over the whole variant space by column generation and proves it.",
       "Writes RUN_DIR/result.json, RUN_DIR/columns.jsonl (one line per column added) and RUN_DIR/catalog.json (the catalog as solved), RUN_DIR/run.json (what the run is) and RUN_DIR/state.json (the loop's state after each round). Ctrl-C or SIGTERM stops after the current round with status stopped (exit 1); 'mixwright resume RUN_DIR' continues such a run, or one cut off by a crash."
     })
-final class SolveCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
-  @Parameters(index = "0", paramLabel = "CATALOG", description = "catalog file (.yaml, .yml or .json)")
-  Path catalogFile;
-
+final class SolveCommand extends CatalogCommand {
   @Option(names = "--out", required = true, paramLabel = "RUN_DIR", description = "folder for the run's files")
   Path runDir;
 
