@@ -555,6 +555,67 @@ public final class CatalogGenerator {
     }
   }
 
+  /**
+   * The same catalog with every segment choosing by multinomial logit instead of buying a fixed
+   * volume: its demand becomes its buyers, and per segment each option draws a conjoint-like
+   * part-worth that rises with its tier: {@code spread} × (importance of the group, drawn in
+   * 0.5–1.5, × tier from 0 to 1, plus 0.3 × a standard normal), the absent choice of an optional
+   * group below the lowest tier. Buyers who value the tiers that earn more keep the sales-based LP's
+   * support small: it offers every variant whose adjusted margin exceeds the segment's dual μ, and
+   * μ sits near the top margins only when the top variants attract (see docs/choice.md). The price weight makes one group's typical price spread worth half a util, and
+   * the stay-out utility is the best variant's utility (ignoring rules, an upper bound) minus one,
+   * so the best variants draw about as many buyers as staying out does. Same catalog and seed, same
+   * result; options with price points get one part-worth for all points.
+   */
+  public static Catalog choosing(Catalog fixed, long seed, double spread) {
+    Random rnd = new Random(seed);
+    double priceSpread = 0;
+    for (Group g : fixed.groups()) {
+      double sum = 0;
+      double sq = 0;
+      int n = 0;
+      for (Option o : g.options()) {
+        for (double p : o.prices()) {
+          sum += p;
+          sq += p * p;
+          n++;
+        }
+      }
+      double mean = sum / n;
+      priceSpread += Math.sqrt(Math.max(0, sq / n - mean * mean)) / fixed.groups().size();
+    }
+    double priceWeight = -round(0.5 / Math.max(1, priceSpread), 6);
+    List<Segment> out = new ArrayList<>();
+    for (Segment seg : fixed.segments()) {
+      Map<String, Double> utility = new LinkedHashMap<>();
+      double best = 0;
+      for (Group g : fixed.groups()) {
+        double top = Double.NEGATIVE_INFINITY;
+        List<String> accepted = seg.accepts().get(g.id());
+        double importance = 0.5 + rnd.nextDouble();
+        int tiers = Math.max(1, g.options().size() - 1);
+        for (int c = 0; c < g.choiceCount(); c++) {
+          String choice = g.choiceId(c);
+          double tier = c < g.options().size() ? (double) c / tiers : -0.5;
+          double pw = round(spread * (importance * tier + 0.3 * rnd.nextGaussian()), 2);
+          if (pw != 0) {
+            utility.put(g.id() + "." + choice, pw);
+          }
+          double price = c < g.options().size() ? g.options().get(c).prices().get(0) : 0;
+          price += seg.value().getOrDefault(g.id() + "." + choice, 0.0);
+          if (accepted == null || accepted.contains(choice)) {
+            top = Math.max(top, pw + priceWeight * price);
+          }
+        }
+        best += top;
+      }
+      Choice choice = new Choice(seg.demand(), round(best - 1, 2), priceWeight, utility);
+      out.add(Segment.choosing(seg.id(), seg.label(), seg.accepts(), seg.value(), choice));
+    }
+    return new Catalog(fixed.format(), fixed.name() + ", segments that choose", fixed.currency(), fixed.period(),
+        fixed.resources(), fixed.groups(), fixed.rules(), out, fixed.portfolio());
+  }
+
   /** {@code g07} for 7 of up to 99: ids of one kind have the same width, so they sort in order. */
   private static String id(String prefix, int n, int count) {
     int width = Integer.toString(count).length();

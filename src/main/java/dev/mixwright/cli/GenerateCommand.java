@@ -61,6 +61,11 @@ final class GenerateCommand implements Callable<Integer> {
   @Option(names = "--replace", description = "overwrite FILE if it exists")
   boolean replace;
 
+  @Option(names = "--choice-spread", paramLabel = "U", defaultValue = "0",
+      description = "give every segment a choice section (multinomial logit) with part-worths of this spread in utils;"
+          + " 0 (default) keeps fixed demand")
+  double choiceSpread;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -82,7 +87,13 @@ final class GenerateCommand implements Callable<Integer> {
     if (Files.isDirectory(outFile)) {
       throw new UserError("--out: " + outFile + " is a folder; give a file name");
     }
+    if (!(choiceSpread >= 0) || Double.isInfinite(choiceSpread)) {
+      throw new UserError("--choice-spread must be 0 (fixed demand) or a positive number of utils, got " + choiceSpread);
+    }
     Catalog c = CatalogGenerator.generate(s);
+    if (choiceSpread > 0) {
+      c = CatalogGenerator.choosing(c, seed, choiceSpread);
+    }
     AtomicFiles.write(outFile, json ? CatalogWriter.toJson(c) : CatalogWriter.toYaml(c));
     VariantSpace space = new VariantSpace(c);
     out.printf(Locale.ROOT, "wrote %s: %d groups, %d rules, %d resources, %d segments, buildable variants %s%n",

@@ -2,7 +2,6 @@ package dev.mixwright.explain;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
-import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.Rule;
 import dev.mixwright.space.Nogood;
 import dev.mixwright.space.VariantSpace;
@@ -28,15 +27,10 @@ public final class Explainer {
     for (int g = 0; g < space.groupCount(); g++) {
       Group group = cat.groups().get(g);
       int f = space.offset(g) + v[g];
-      double price = 0;
-      double cost = 0;
-      if (v[g] < group.options().size()) {
-        Option o = group.options().get(v[g]);
-        price = o.price();
-        cost = o.cost();
-      }
-      Explanation.MarginPart p = new Explanation.MarginPart(group.id(), group.choiceId(v[g]), price, cost,
-          space.choiceValue(s, f));
+      // With price points a group has more choices than options: the space maps a choice to its
+      // option and price point (a none choice has price and cost 0).
+      Explanation.MarginPart p = new Explanation.MarginPart(group.id(), space.choiceId(g, v[g]),
+          space.choicePrice(f), space.choiceCost(f), space.choiceValue(s, f));
       parts.add(p);
       margin += p.total();
     }
@@ -58,7 +52,7 @@ public final class Explainer {
     List<String> out = new ArrayList<>();
     for (int g = 0; g < space.groupCount(); g++) {
       int f = space.offset(g) + v[g];
-      String choice = cat.groups().get(g).id() + "=" + cat.groups().get(g).choiceId(v[g]);
+      String choice = cat.groups().get(g).id() + "=" + space.choiceId(g, v[g]);
       if (!space.allowed(f)) {
         out.add(choice + " is ruled out by " + singleGroupRules(g, v[g]));
       } else if (!space.allowedIn(s, f)) {

@@ -3,6 +3,7 @@ package dev.mixwright.report;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.choice.Logit;
 import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.IterationRecord;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -53,8 +54,13 @@ public final class ResultWriter {
     for (int j : sold) {
       Column col = out.columns().get(j);
       double q = out.x()[j];
-      offers.add(new RunResult.Offer(cat.segments().get(col.segment()).id(), space.describe(col.choices()), q,
-          col.margin(), out.reducedCost()[j], q >= col.upper() * (1 - 1e-9), q * col.margin()));
+      int s = col.segment();
+      boolean chooses = space.chooses(s);
+      offers.add(new RunResult.Offer(cat.segments().get(s).id(), space.describe(col.choices()), q,
+          col.margin(), out.reducedCost()[j], !chooses && q >= col.upper() * (1 - 1e-9), q * col.margin(),
+          space.price(col.choices(), s),
+          chooses ? q / space.buyers(s) : null,
+          chooses ? Logit.attraction(space.utility(col.choices(), s), space.stayOut(s)) : null));
       for (int r = 0; r < used.length; r++) {
         used[r] += col.use()[r] * q;
       }
@@ -70,8 +76,11 @@ public final class ResultWriter {
     List<RunResult.SegmentRow> segs = new ArrayList<>();
     for (int s = 0; s < cat.segments().size(); s++) {
       Segment ss = cat.segments().get(s);
+      boolean chooses = space.chooses(s);
       segs.add(new RunResult.SegmentRow(ss.id(), ss.demand(), segSold[s],
-          known(out.duals().segment(s))));
+          known(out.duals().segment(s)),
+          chooses ? space.buyers(s) : null,
+          chooses ? stayingOut(out, space, s, segSold[s]) : null));
     }
     List<RunResult.Round> rounds = new ArrayList<>();
     for (IterationRecord r : out.history()) {
@@ -89,6 +98,15 @@ public final class ResultWriter {
         exact || count.lower().signum() == 0 ? null : count.lower().toString(), estimate, info.elapsedMs(),
         new RunResult.CatalogRef(cat.name(), info.catalogFile(), info.catalogSha256(), cat.currency(), cat.period()),
         info.pricer(), offers, res, segs, rounds, null, null, null);
+  }
+
+  /**
+   * The buyers of choosing segment s who buy none: the master's x_s0 when the run solved one, else
+   * (nothing offered) every buyer who did not buy.
+   */
+  private static double stayingOut(SolveOutcome out, VariantSpace space, int s, double sold) {
+    double x0 = out.master().stayingOut(s);
+    return Double.isNaN(x0) ? space.buyers(s) - sold : x0;
   }
 
   public static void write(Path runDir, RunResult result) throws IOException {

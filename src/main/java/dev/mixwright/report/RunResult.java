@@ -63,17 +63,41 @@ public record RunResult(
 
   public record CatalogRef(String name, String file, String sha256, String currency, String period) {}
 
+  /**
+   * {@code price}: what the segment pays per unit (the chosen price points plus its value of the
+   * options). For a segment that chooses, {@code share} is the offer's share of the segment's
+   * buyers and {@code attraction} its w = exp(u − stayOut); both are absent for a fixed segment.
+   */
   public record Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
-      double reducedCost, boolean atLimit, double contribution) {
+      double reducedCost, boolean atLimit, double contribution, Double price,
+      @JsonInclude(Include.NON_NULL) Double share, @JsonInclude(Include.NON_NULL) Double attraction) {
 
     public Offer {
       options = options == null ? Map.of() : options;
+    }
+
+    /** An offer of a fixed segment, without its price. */
+    public Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
+        double reducedCost, boolean atLimit, double contribution) {
+      this(segment, options, quantity, unitMargin, reducedCost, atLimit, contribution, null, null, null);
     }
   }
 
   public record ResourceRow(String id, double capacity, double used, Double shadowPrice, boolean binding) {}
 
-  public record SegmentRow(String id, double demand, double sold, Double shadowPrice) {}
+  /**
+   * For a segment that chooses, {@code buyers} (equal to {@code demand}) and {@code stayOut}, the
+   * buyers who buy none of the offers, are present and {@code shadowPrice} is the dual of its buyers
+   * row (free in sign); both are absent for a fixed segment.
+   */
+  public record SegmentRow(String id, double demand, double sold, Double shadowPrice,
+      @JsonInclude(Include.NON_NULL) Double buyers, @JsonInclude(Include.NON_NULL) Double stayOut) {
+
+    /** A segment with a fixed demand. */
+    public SegmentRow(String id, double demand, double sold, Double shadowPrice) {
+      this(id, demand, sold, shadowPrice, null, null);
+    }
+  }
 
   public record Round(int iteration, double objective, Double bound, Double gap, int columns, int added,
       boolean exactPricing, long elapsedMs) {}

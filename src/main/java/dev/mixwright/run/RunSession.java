@@ -1,7 +1,6 @@
 package dev.mixwright.run;
 
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.choice.NotSolvedYet;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
@@ -101,7 +100,6 @@ public final class RunSession {
     if (r.scenarioFile().isPresent()) {
       catalog = Inputs.withScenario(catalog, r.scenarioFile().get());
     }
-    NotSolvedYet.refuseChoiceFeatures(catalog);
     VariantSpace space = new VariantSpace(catalog);
     RunFolder folder = new RunFolder(r.runDir());
     if (!r.replace() && folder.holdsRun()) {

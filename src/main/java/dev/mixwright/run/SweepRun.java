@@ -63,7 +63,7 @@ public final class SweepRun {
     }
     CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile());
     Catalog catalog = read.catalog();
-    NotSolvedYet.refuseChoiceFeatures(catalog);
+    NotSolvedYet.refuseInSweep(catalog);
     SweepPlan plan;
     try {
       plan = plan(r, catalog);
