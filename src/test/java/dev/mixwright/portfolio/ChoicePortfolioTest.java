@@ -28,6 +28,10 @@ class ChoicePortfolioTest {
     int limit = 1 + rnd.nextInt(3);
     double lot = rnd.nextBoolean() ? 0 : 5 + rnd.nextInt(40);
     Catalog t = StageRuns.withTerms(c, intro, limit, lot);
+    if (rnd.nextDouble() < 0.25) {
+      t = new Catalog(t.format(), t.name(), t.currency(), t.period(), t.resources(), t.groups(), t.rules(),
+          t.segments(), Optional.of(new PortfolioSpec(intro, limit, lot, true)));
+    }
     return rnd.nextDouble() < 0.3 ? StageRuns.withTooling(t, rnd) : t;
   }
 
@@ -65,8 +69,40 @@ class ChoicePortfolioTest {
         throw new AssertionError("seed " + at + ": " + e.getMessage(), e);
       }
     }
+    System.out.println("choice portfolio: " + proven + " of " + runs + " proven");
     // on catalogs this small the quick proof lists every survivor, so most runs end proven
     assertTrue(proven >= runs / 2, "only " + proven + " of " + runs + " proven");
+  }
+
+  /**
+   * The branch-and-price tree with choice rows in its node masters (the quick proof off, so the tree
+   * decides): its bound never below the enumerated optimum (SCIP on {@link EnumeratedMip}), its value
+   * never above it, equal when proven.
+   */
+  @Test
+  void treeKeepsItsBoundWithChoiceRows() {
+    for (long seed = 101; seed <= 106; seed++) {
+      long at = seed;
+      try {
+        Random rnd = new Random(seed * 104729);
+        Catalog c = withRandomTerms(RandomChoiceCatalogs.tiny(seed, true), rnd);
+        VariantSpace space = new VariantSpace(c);
+        PortfolioOutcome o = new IntegerStage(space, PortfolioSettings.defaults().withTimeLimit(5_000))
+            .quickProof(false).run(StageRuns.lp(space));
+        EnumeratedMip.Result ref = EnumeratedMip.solve(space, false, 60_000);
+        assertTrue(ref.optimal(), "the reference MIP was not solved to optimality");
+        double tol = 1e-5 * (1 + Math.abs(ref.value()));
+        StageRuns.checkFeasible(space, o);
+        checkChoiceRows(space, o);
+        assertTrue(o.bound() >= ref.value() - tol, "bound " + o.bound() + " below the optimum " + ref.value());
+        assertTrue(o.value() <= ref.value() + tol, "value " + o.value() + " above the optimum " + ref.value());
+        if (o.status() == PortfolioStatus.PROVEN) {
+          assertEquals(ref.value(), o.value(), tol, "proven but not the enumerated optimum");
+        }
+      } catch (AssertionError | RuntimeException e) {
+        throw new AssertionError("seed " + at + ": " + e.getMessage(), e);
+      }
+    }
   }
 
   /** Each choosing segment's sales obey x_sv ≤ w_s(v)·(buyers_s − Σ_v x_sv), from the catalog figures. */
