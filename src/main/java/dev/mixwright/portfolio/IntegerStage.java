@@ -121,6 +121,18 @@ public final class IntegerStage {
     }
   }
 
+  /**
+   * Prices the bound may use: a buyers row's dual is free in sign in the sales-based LP, and the
+   * whole-space bound, which relaxes it to Σ_v x_sv ≤ buyers_s, holds for μ_s ≥ 0 only.
+   */
+  private static double[] atLeastZero(double[] mu) {
+    double[] out = mu.clone();
+    for (int s = 0; s < out.length; s++) {
+      out[s] = Math.max(0.0, out[s]);
+    }
+    return out;
+  }
+
   public PortfolioOutcome run(SolveOutcome lp) {
     clock = new StageClock(settings.timeLimitMs(), stop);
     mipSolves = 0;
@@ -138,7 +150,7 @@ public final class IntegerStage {
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
     // Columns came from the LP stage, so its duals are known: they are the relaxation's first prices.
     RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, clock, clock.phase(0.3))
-        .run(pool, lp.duals().resource(), lp.duals().segment());
+        .run(pool, lp.duals().resource(), atLeastZero(lp.duals().segment()));
     Search search = new Search(Math.min(lpBound, rx.bound().value()));
     int relaxed = pool.size();
     firstIncumbent(pool, rx, search);
@@ -304,8 +316,11 @@ public final class IntegerStage {
     mipSolves++;
     try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
         terms.choiceCost(), terms.wholeUnits())) {
+      pool.choice().enter(m);
       for (PoolVariant v : pool.all()) {
-        m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(), v.tools());
+        int i = m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(),
+            v.tools());
+        pool.choice().attract(m, i, v);
       }
       double[] y = new double[pool.size()];
       double[][] x = new double[pool.size()][];
