@@ -40,10 +40,12 @@ final class CheckCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print the description as JSON")
   boolean json;
 
+  @picocli.CommandLine.Mixin TableReachOption tables;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
-    Catalog catalog = Inputs.catalog(catalogFile);
+    Catalog catalog = Inputs.catalog(catalogFile, tables.reach());
     VariantSpace space = new VariantSpace(catalog);
     SpaceFacts facts = SpaceFacts.of(space);
     List<String> notes = notes(space, facts);
