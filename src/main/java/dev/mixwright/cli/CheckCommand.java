@@ -42,7 +42,6 @@ final class CheckCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print the description as JSON")
   boolean json;
 
-<<<<<<< HEAD
   @Option(names = "--count-time", paramLabel = "DURATION", defaultValue = "2s",
       description = "time for counting the buildable variants, e.g. 2s, 60s, 10m; past it the counts are"
           + " bounds with an estimate (default ${DEFAULT-VALUE})")
@@ -50,9 +49,8 @@ final class CheckCommand implements Callable<Integer> {
 
   @Option(names = "--count-to-end", description = "count until the counts are exact (or bounded by the table limit), however long it takes")
   boolean countToEnd;
-=======
+
   @picocli.CommandLine.Mixin TableReachOption tables;
->>>>>>> ecef5d1
 
   @Override
   public Integer call() throws Exception {
