@@ -104,7 +104,10 @@ public final class IntegerStage {
     return this;
   }
 
-  /** Hands the progress to {@code sink} after the relaxation, the first incumbent and every proof pass. */
+  /**
+   * Hands the progress to {@code sink} after the relaxation, the rounding, the first MIP and every
+   * proof pass.
+   */
   public IntegerStage checkpointTo(Consumer<Checkpoint> sink) {
     this.checkpoints = sink;
     return this;
@@ -235,6 +238,7 @@ public final class IntegerStage {
       emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
           "incumbent of the earlier session");
     }
+    checkpoint(pool, inc, s.bound); // before the MIP, which may run for most of the stage
     MipRun mip = mip(pool, inc, Math.max(1, (long) (clock.msLeft() * 0.5)));
     if (mip.plan() != null && mip.plan().value() > inc.value()) {
       inc = mip.plan();

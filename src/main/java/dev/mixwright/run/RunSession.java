@@ -210,8 +210,8 @@ public final class RunSession {
         }
         // The LP stage had ended but the integer stage had not: the LP is rebuilt from the column log
         // (one round proves it again) because the integer stage starts from its columns and prices.
-        watcher.note("the LP stage had reached its optimum, the integer stage had not ended ("
-            + result.portfolioPending() + "); running the integer stage");
+        watcher.note("the LP stage had reached its optimum but the integer stage had not ended; rebuilding the LP"
+            + " from " + ColumnLog.FILE + " and running the integer stage");
       }
       if (result.status() == RunStatus.INFEASIBLE) {
         return Resumed.ended(new RunOutcome.EndedInfeasible(runDir, result.stopReason()));
