@@ -3,7 +3,6 @@ package dev.mixwright.cli;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
-import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
@@ -67,9 +66,8 @@ final class Summary {
   /** The summary lines of the integer stage, when the result has one. */
   private static void printPortfolio(PrintWriter out, VariantSpace space, RunResult result) {
     RunResult.Portfolio p = result.portfolio();
-    String pending = PortfolioPending.line(result);
-    if (pending != null) {
-      out.println("  " + pending);
+    if (result.portfolioPending() != null) {
+      out.println("  integer portfolio   " + (p == null ? "not run: " : "not final: ") + result.portfolioPending());
     }
     if (p == null) {
       return;

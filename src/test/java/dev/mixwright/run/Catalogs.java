@@ -23,7 +23,8 @@ public final class Catalogs {
   /**
    * The hand-checked portfolio catalog (invented data): a (margin 20) only in north (demand 80), b
    * (margin 15) only in south (demand 50), 100 hours; introduction cost 100 gives both, worth
-   * 80·20 + 20·15 − 200 = 1,700 (worked by hand).
+   * 80·20 + 20·15 − 200 = 1,700 (worked by hand). The introduction cost is left to fill in with
+   * {@code formatted}.
    */
   public static final String HAND_PORTFOLIO = """
       format: 1
@@ -40,6 +41,6 @@ public final class Catalogs {
         - {id: north, demand: 80, accepts: {model: [a]}}
         - {id: south, demand: 50, accepts: {model: [b]}}
       portfolio:
-        introductionCost: 100
+        introductionCost: %s
       """;
 }

@@ -40,7 +40,7 @@ class PortfolioResumeTest {
 
   private Path solved() throws Exception {
     Path cat = dir.resolve("hand.yaml");
-    Files.writeString(cat, Catalogs.HAND_PORTFOLIO);
+    Files.writeString(cat, Catalogs.HAND_PORTFOLIO.formatted("100"));
     Path run = dir.resolve("run");
     RunOutcome.Solved s = assertInstanceOf(RunOutcome.Solved.class, session.solve(new RunSession.SolveRequest(cat,
         Optional.empty(), run, false, SolveSettings.defaults(), PricerChoice.BNB, PortfolioPlan.defaults())));
