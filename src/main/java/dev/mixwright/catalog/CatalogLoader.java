@@ -9,13 +9,10 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.json.JsonMapper;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
 import com.fasterxml.jackson.dataformat.yaml.YAMLMapper;
-import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.charset.CharacterCodingException;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AccessDeniedException;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
@@ -34,8 +31,8 @@ import org.yaml.snakeyaml.error.MarkedYAMLException;
  * problem naming the line and column. Never throws anything else for bad input.
  */
 public final class CatalogLoader {
-  /** Large generated catalogs exceed SnakeYAML's default 3 MB limit; 512 MB is plenty. */
-  private static final int YAML_CODE_POINT_LIMIT = 512 * 1024 * 1024;
+  /** Large generated catalogs exceed SnakeYAML's default 3 MB; the file limit bounds it anyway. */
+  private static final int YAML_CODE_POINT_LIMIT = (int) Limits.MAX_FILE_BYTES + 1;
 
   private static final ObjectMapper JSON =
       JsonMapper.builder()
@@ -49,10 +46,16 @@ public final class CatalogLoader {
 
   private CatalogLoader() {}
 
-  private static ObjectMapper yamlMapper() {
+  private static final LoaderOptions YAML_OPTIONS = yamlOptions();
+
+  private static LoaderOptions yamlOptions() {
     LoaderOptions options = new LoaderOptions();
     options.setCodePointLimit(YAML_CODE_POINT_LIMIT);
-    YAMLFactory factory = YAMLFactory.builder().loaderOptions(options).build();
+    return options;
+  }
+
+  private static ObjectMapper yamlMapper() {
+    YAMLFactory factory = YAMLFactory.builder().loaderOptions(yamlOptions()).build();
     return YAMLMapper.builder(factory)
         .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
         .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
@@ -64,6 +67,11 @@ public final class CatalogLoader {
     return loadHashed(file).catalog();
   }
 
+  /** Loads a catalog file whose option tables may lie where {@code reach} allows. */
+  public static Catalog load(Path file, TableReach reach) throws CatalogException {
+    return loadHashed(file, reach).catalog();
+  }
+
   /** A catalog and the SHA-256 (lower-case hex) of the very bytes it was parsed from. */
   public record Hashed(Catalog catalog, String sha256) {}
 
@@ -72,6 +80,11 @@ public final class CatalogLoader {
    * text that was solved even if the file is rewritten meanwhile.
    */
   public static Hashed loadHashed(Path file) throws CatalogException {
+    return loadHashed(file, TableReach.CATALOG_FOLDER);
+  }
+
+  /** As {@link #loadHashed(Path)}, with the tables allowed where {@code reach} says. */
+  public static Hashed loadHashed(Path file, TableReach reach) throws CatalogException {
     String name = nameOf(file.toString(), file);
     formatOf(name); // reject an unknown file type before reading it
     if (Files.isDirectory(file)) {
@@ -80,7 +93,10 @@ public final class CatalogLoader {
               name, "is a folder, not a catalog file — give the .yaml or .json file"));
     }
     byte[] bytes = readBytes(file, name);
-    Catalog c = parse(decode(bytes, name), file.toString(), file.toAbsolutePath().getParent());
+    String text = decode(bytes, name);
+    Catalog c =
+        new CatalogReader(name, file.toAbsolutePath().getParent(), reach)
+            .read(parseTree(text, file.toString()));
     return new Hashed(c, sha256(bytes));
   }
 
@@ -112,6 +128,17 @@ public final class CatalogLoader {
     String name = nameOf(fileNameForFormat, null);
     boolean yaml = formatOf(name);
     String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
+    if (body.length() > Limits.MAX_FILE_BYTES) {
+      throw new CatalogException(
+          new CatalogProblem(
+              name,
+              "is longer than "
+                  + Limits.bytes(Limits.MAX_FILE_BYTES)
+                  + "; catalog files are read up to that size, far more than a real one needs"));
+    }
+    if (yaml) {
+      YamlShape.check(body, name, YAML_OPTIONS);
+    }
     try {
       return (yaml ? YAML : JSON).readTree(body);
     } catch (JsonProcessingException e) {
@@ -130,18 +157,12 @@ public final class CatalogLoader {
   }
 
   private static byte[] readBytes(Path file, String name) throws CatalogException {
-    try {
-      return Files.readAllBytes(file);
-    } catch (NoSuchFileException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "no such file (looked for " + file.toAbsolutePath() + ")"));
-    } catch (AccessDeniedException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "cannot read the file: permission denied"));
-    } catch (IOException e) {
-      throw new CatalogException(
-          new CatalogProblem(name, "cannot read the file: " + e.getMessage()));
+    String[] why = new String[1];
+    byte[] bytes = InputFiles.read(file, Limits.MAX_FILE_BYTES, "catalog", m -> why[0] = m);
+    if (bytes == null) {
+      throw new CatalogException(new CatalogProblem(name, why[0]));
     }
+    return bytes;
   }
 
   private static String decode(byte[] bytes, String name) throws CatalogException {

@@ -6,6 +6,16 @@ package dev.mixwright.catalog;
  * suggest the fix.
  */
 public record CatalogProblem(String path, String message) {
+  /** Longest path and message kept; longer ones quote a catalog's own text, which is cut short. */
+  private static final int MAX_PATH = 300;
+
+  private static final int MAX_MESSAGE = 1_000;
+
+  /** Made printable here, the one place every problem passes, so no caller can forget it. */
+  public CatalogProblem {
+    path = Where.printable(path, MAX_PATH);
+    message = Where.printable(message, MAX_MESSAGE);
+  }
 
   /** The form people read: {@code path: message}. */
   @Override

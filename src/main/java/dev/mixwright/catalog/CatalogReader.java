@@ -1,6 +1,7 @@
 package dev.mixwright.catalog;
 
 import com.fasterxml.jackson.databind.JsonNode;
+import dev.mixwright.catalog.Checks.Figure;
 import dev.mixwright.catalog.Checks.IdKind;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -108,6 +109,7 @@ final class CatalogReader {
 
   private final String document;
   private final Path baseDir;
+  private final TableReach reach;
   private final List<CatalogProblem> problems = new ArrayList<>();
   private final Map<String, String> resourceIdAt = new LinkedHashMap<>();
   private final Map<String, GroupRef> groupsById = new LinkedHashMap<>();
@@ -120,8 +122,18 @@ final class CatalogReader {
    * @param baseDir folder option tables are read from, or null when there is none
    */
   CatalogReader(String document, Path baseDir) {
+    this(document, baseDir, TableReach.CATALOG_FOLDER);
+  }
+
+  /** @param reach where the option and utility tables the catalog names may lie */
+  CatalogReader(String document, Path baseDir, TableReach reach) {
     this.document = document;
     this.baseDir = baseDir;
+    this.reach = reach;
+  }
+
+  TableReach reach() {
+    return reach;
   }
 
   Catalog read(JsonNode root) throws CatalogException {
@@ -140,6 +152,14 @@ final class CatalogReader {
       throw new CatalogException(problems);
     }
     unknownFields(root, "", TOP_FIELDS, "the top level");
+    int beforeSizes = problems.size();
+    tooMany(root.get("resources"), "resources", Limits.MAX_RESOURCES, "resources");
+    tooMany(root.get("groups"), "groups", Limits.MAX_GROUPS, "option groups");
+    tooMany(root.get("rules"), "rules", Limits.MAX_RULES, "rules");
+    tooMany(root.get("segments"), "segments", Limits.MAX_SEGMENTS, "segments");
+    if (problems.size() != beforeSizes) {
+      throw new CatalogException(problems);
+    }
     int format = readFormat(root.get("format"));
     String name = optionalText(root, "", "name");
     String currency = optionalText(root, "", "currency");
@@ -210,7 +230,8 @@ final class CatalogReader {
               r,
               path,
               "capacity",
-              "the capacity per period in the resource's unit, e.g. capacity: 14000");
+              "the capacity per period in the resource's unit, e.g. capacity: 14000",
+              Figure.QUANTITY);
       if (id != null && capacity != null) {
         out.add(new Resource(id, label, unit, capacity));
       }
@@ -237,6 +258,7 @@ final class CatalogReader {
           "groups",
           "is empty — a catalog needs at least one option group, e.g. groups: " + example);
     }
+    long totalOptions = 0;
     for (int i = 0; i < v.size(); i++) {
       String path = Where.index("groups", i);
       JsonNode g = v.get(i);
@@ -271,6 +293,9 @@ final class CatalogReader {
               optionsPath,
               "must be a list of options, e.g. [{id: step, price: 520, cost: 210}], got "
                   + Where.describe(inline));
+          complete = false;
+        } else if (inline.size() > Limits.MAX_OPTIONS_PER_GROUP) {
+          problem(optionsPath, tooManyOptions(inline.size()));
           complete = false;
         } else {
           entries += inline.size();
@@ -312,6 +337,16 @@ final class CatalogReader {
       if (id != null) {
         out.add(new Group(id, label, required == null || required, options));
       }
+      totalOptions += entries;
+    }
+    if (totalOptions > Limits.MAX_OPTIONS) {
+      problem(
+          "groups",
+          "have "
+              + totalOptions
+              + " options in all; a catalog has at most "
+              + Limits.MAX_OPTIONS
+              + ", far more than a real one needs — check that this is the right file");
     }
     return out;
   }
@@ -324,9 +359,9 @@ final class CatalogReader {
     String id = requiredId(o, path, IdKind.OPTION);
     String label = optionalText(o, path, "label");
     List<Double> prices = readPrices(o, path);
-    Double cost = requiredNumber(o, path, "cost", COST_HINT);
+    Double cost = requiredNumber(o, path, "cost", COST_HINT, Figure.MONEY);
     Map<String, Double> uses = readUses(value(o, "uses"), Where.field(path, "uses"));
-    double tooling = optionalNumber(o, path, "tooling", 0, TOOLING_HINT);
+    double tooling = optionalNumber(o, path, "tooling", 0, TOOLING_HINT, Figure.MONEY);
     if (id != null) {
       registerOption(ref, id, Where.field(path, "id"));
     }
@@ -344,7 +379,7 @@ final class CatalogReader {
         problem(at, "is empty — give " + PRICES_HINT + ", or give a single price: 520 instead");
         return null;
       }
-      Double price = requiredNumber(o, path, "price", PRICE_HINT);
+      Double price = requiredNumber(o, path, "price", PRICE_HINT, Figure.MONEY);
       return price == null ? null : List.of(price);
     }
     if (value(o, "price") != null) {
@@ -364,12 +399,22 @@ final class CatalogReader {
       problem(at, "empty list — give at least one price point, e.g. prices: [760, 820, 880]");
       return null;
     }
+    if (list.size() > Limits.MAX_PRICE_POINTS) {
+      problem(
+          at,
+          "has "
+              + list.size()
+              + " price points; an option has at most "
+              + Limits.MAX_PRICE_POINTS
+              + " — keep the ones worth choosing between");
+      return null;
+    }
     List<Double> out = new ArrayList<>();
     Map<Double, String> firstAt = new LinkedHashMap<>();
     boolean ok = true;
     for (int k = 0; k < list.size(); k++) {
       String kAt = Where.index(at, k);
-      Double x = number(list.get(k), kAt, "a price point of this option, e.g. 820", true);
+      Double x = number(list.get(k), kAt, "a price point of this option, e.g. 820", Figure.MONEY);
       if (x == null) {
         ok = false;
         continue;
@@ -411,7 +456,7 @@ final class CatalogReader {
               e.getValue(),
               at,
               "the amount of '" + e.getKey() + "' one unit with this option uses, e.g. 1.6",
-              true);
+              Figure.USE);
       if (amount == null) {
         ok = false;
       } else {
@@ -535,11 +580,12 @@ final class CatalogReader {
                 s,
                 path,
                 "demand",
-                "the units per period this segment buys at most, e.g. demand: 9000");
+                "the units per period this segment buys at most, e.g. demand: 9000",
+                Figure.QUANTITY);
         JsonNode ms = value(s, "maxShare");
         if (ms != null) {
           String at = Where.field(path, "maxShare");
-          Double x = number(ms, at, "a share of demand, e.g. maxShare: 0.35", true);
+          Double x = number(ms, at, "a share of demand, e.g. maxShare: 0.35", Figure.SHARE);
           if (x != null) {
             String p = Checks.shareProblem(x);
             if (p != null) {
@@ -572,20 +618,26 @@ final class CatalogReader {
         path,
         "must be a mapping of group.option to the extra value per unit, e.g. value:"
             + " {\"battery.b750\": 90}, got ",
-        "what this segment pays extra per unit for the choice (negative: pays less), e.g. 90");
+        "what this segment pays extra per unit for the choice (negative: pays less), e.g. 90",
+        Figure.SIGNED_MONEY);
   }
 
   /** A mapping of {@code group.option} to a finite number, every key checked. */
-  private Map<String, Double> readPerChoice(JsonNode v, String path, String notMapping, String hint) {
+  private Map<String, Double> readPerChoice(
+      JsonNode v, String path, String notMapping, String hint, Figure kind) {
     Map<String, Double> out = new LinkedHashMap<>();
     if (!v.isObject()) {
       problem(path, notMapping + Where.describe(v));
       return out;
     }
+    if (v.size() > Limits.MAX_UTILITY_ROWS) {
+      problem(path, "has " + v.size() + " entries; at most " + Limits.MAX_UTILITY_ROWS + " are read");
+      return out;
+    }
     for (Map.Entry<String, JsonNode> e : v.properties()) {
       String key = e.getKey();
       String at = Where.field(path, key);
-      Double x = number(e.getValue(), at, hint, false);
+      Double x = number(e.getValue(), at, hint, kind);
       int dot = key.indexOf('.');
       if (dot <= 0 || dot == key.length() - 1) {
         problem(at, "write the key as group.option, " + valueKeyExample(key));
@@ -630,7 +682,8 @@ final class CatalogReader {
     }
     unknownFields(ch, at, CHOICE_FIELDS, "a choice section");
     Double buyers =
-        requiredNumber(ch, at, "buyers", "the potential buyers per period, e.g. buyers: 60000", false);
+        requiredNumber(
+            ch, at, "buyers", "the potential buyers per period, e.g. buyers: 60000", Figure.SIGNED_QUANTITY);
     if (buyers != null && buyers <= 0) {
       problem(
           Where.field(at, "buyers"),
@@ -647,14 +700,18 @@ final class CatalogReader {
               so,
               Where.field(at, "stayOut"),
               "the utility of buying none of the offered variants, e.g. stayOut: 1.2",
-              false);
+              Figure.UTILITY);
       stayOut = x == null ? 0 : x;
     }
     String weightHint =
         "the utility per currency unit of the price the segment pays, e.g. priceWeight: -0.0045";
     Double priceWeight =
         requiredNumber(
-            ch, at, "priceWeight", weightHint + " (0 if price does not matter to it)", false);
+            ch,
+            at,
+            "priceWeight",
+            weightHint + " (0 if price does not matter to it)",
+            Figure.UTILITY);
     if (priceWeight != null && priceWeight > 0) {
       problem(
           Where.field(at, "priceWeight"),
@@ -674,7 +731,8 @@ final class CatalogReader {
               uPath,
               "must be a mapping of group.option to the part-worth, e.g. utility: {\"deck.d28\": 0.7,"
                   + " \"app.none\": -0.4}, got ",
-              "the part-worth of the choice for this segment, e.g. 0.7")
+              "the part-worth of the choice for this segment, e.g. 0.7",
+              Figure.UTILITY)
           .forEach(
               (k, x) -> {
                 utility.put(k, x);
@@ -760,14 +818,16 @@ final class CatalogReader {
             "portfolio",
             "introductionCost",
             0,
-            "the fixed cost per distinct variant offered, e.g. introductionCost: 18000");
+            "the fixed cost per distinct variant offered, e.g. introductionCost: 18000",
+            Figure.MONEY);
     double minLot =
         optionalNumber(
             v,
             "portfolio",
             "minLot",
             0,
-            "the least a variant offered is built, all segments together, e.g. minLot: 150");
+            "the least a variant offered is built, all segments together, e.g. minLot: 150",
+            Figure.QUANTITY);
     int maxVariants = Integer.MAX_VALUE;
     JsonNode mv = value(v, "maxVariants");
     if (mv != null) {
@@ -811,6 +871,29 @@ final class CatalogReader {
       }
     }
     return Optional.of(new PortfolioSpec(introductionCost, maxVariants, minLot, wholeUnits));
+  }
+
+  static String tooManyOptions(int n) {
+    return "has "
+        + n
+        + " options; a group has at most "
+        + Limits.MAX_OPTIONS_PER_GROUP
+        + " — split it into groups, or leave out options no one would choose";
+  }
+
+  /** A problem when a list has more entries than its limit (before anything in it is read). */
+  private void tooMany(JsonNode list, String path, int max, String what) {
+    if (list != null && list.isArray() && list.size() > max) {
+      problem(
+          path,
+          "has "
+              + list.size()
+              + " "
+              + what
+              + "; a catalog has at most "
+              + max
+              + ", far more than a real one needs — check that this is the right file");
+    }
   }
 
   // ---------------------------------------------------------------- clauses and references
@@ -1070,6 +1153,11 @@ final class CatalogReader {
       problem(Where.field(path, field), "must be text, got " + Where.describe(v) + quoteHint(v));
       return null;
     }
+    String p = Checks.textProblem(v.textValue());
+    if (p != null) {
+      problem(Where.field(path, field), p);
+      return null;
+    }
     return v.textValue();
   }
 
@@ -1091,27 +1179,24 @@ final class CatalogReader {
     return v.booleanValue();
   }
 
-  private Double requiredNumber(JsonNode o, String path, String field, String hint) {
-    return requiredNumber(o, path, field, hint, true);
-  }
-
   private Double requiredNumber(
-      JsonNode o, String path, String field, String hint, boolean nonNegative) {
+      JsonNode o, String path, String field, String hint, Figure kind) {
     String at = Where.field(path, field);
     JsonNode v = o.get(field);
     if (v == null || v.isNull()) {
       problem(at, (v == null ? "missing" : "is empty") + " — give " + hint);
       return null;
     }
-    return number(v, at, hint, nonNegative);
+    return number(v, at, hint, kind);
   }
 
-  private double optionalNumber(JsonNode o, String path, String field, double absent, String hint) {
+  private double optionalNumber(
+      JsonNode o, String path, String field, double absent, String hint, Figure kind) {
     JsonNode v = value(o, field);
     if (v == null) {
       return absent;
     }
-    Double x = number(v, Where.field(path, field), hint, true);
+    Double x = number(v, Where.field(path, field), hint, kind);
     return x == null ? absent : x;
   }
 
@@ -1119,7 +1204,7 @@ final class CatalogReader {
    * A number; {@code nonNegative} also rules out values below zero. Every number must be finite.
    * Null (and a problem) when the value is wrong.
    */
-  private Double number(JsonNode v, String path, String hint, boolean nonNegative) {
+  private Double number(JsonNode v, String path, String hint, Figure kind) {
     if (v == null || v.isNull()) {
       problem(path, "is empty — give " + hint);
       return null;
@@ -1134,7 +1219,7 @@ final class CatalogReader {
       return null;
     }
     double x = v.doubleValue();
-    String p = nonNegative ? Checks.nonNegativeProblem(x, hint) : Checks.finiteProblem(x, hint);
+    String p = Checks.figureProblem(x, kind, hint);
     if (p != null) {
       problem(path, p);
       return null;

@@ -4,12 +4,12 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.core.JsonToken;
 import com.fasterxml.jackson.dataformat.csv.CsvMapper;
 import com.fasterxml.jackson.dataformat.csv.CsvParser;
+import dev.mixwright.catalog.Checks.Figure;
 import dev.mixwright.catalog.Checks.IdKind;
 import java.io.IOException;
-import java.nio.charset.MalformedInputException;
+import java.nio.charset.CharacterCodingException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -24,6 +24,8 @@ import java.util.Map;
  */
 final class CsvOptionTable {
   private static final CsvMapper CSV = new CsvMapper();
+  private static final java.util.regex.Pattern COLUMN_NAME =
+      java.util.regex.Pattern.compile("[A-Za-z0-9_.\\-]{1,60}");
   private static final String HEADER_FORM = "id,price,cost[,label][,uses.<resource>...]";
   private static final List<String> FIXED = List.of("id", "price", "cost", "label");
 
@@ -47,8 +49,13 @@ final class CsvOptionTable {
       return -1;
     }
     String at = fieldPath + " " + fileName;
-    List<Row> rows = rows(reader, at, text);
+    List<Row> rows = rows(reader, at, text, Limits.MAX_OPTIONS_PER_GROUP + 1);
     if (rows == null) {
+      return -1;
+    }
+    if (rows.size() > Limits.MAX_OPTIONS_PER_GROUP + 1) {
+      reader.problem(at, "has more than " + Limits.MAX_OPTIONS_PER_GROUP + " option rows; a group has at most"
+          + " that many — split it into groups, or leave out options no one would choose");
       return -1;
     }
     if (rows.isEmpty()) {
@@ -64,7 +71,7 @@ final class CsvOptionTable {
     java.util.Set<String> seen = new java.util.HashSet<>();
     for (int j = 0; j < header.cells().size(); j++) {
       String name = header.cells().get(j);
-      String colAt = headerAt + " column " + (name.isEmpty() ? "#" + (j + 1) : name);
+      String colAt = headerAt + " column " + CsvOptionTable.columnName(name, j);
       if (name.isEmpty()) {
         reader.problem(
             colAt,
@@ -86,9 +93,9 @@ final class CsvOptionTable {
       } else if (header.cells().size() == 1 && name.contains(";")) {
         reader.problem(
             headerAt,
-            "the header is one column \""
-                + name
-                + "\" — separate the columns with commas, not semicolons");
+            "the header is one column "
+                + Where.quote(name)
+                + " — separate the columns with commas, not semicolons");
         return -1;
       } else {
         List<String> allowed = new ArrayList<>(FIXED);
@@ -137,6 +144,7 @@ final class CsvOptionTable {
    */
   static String readFile(
       CatalogReader reader, String fieldPath, String fileName, Path baseDir, String kind, String inline) {
+    String shown = Where.printable(fileName, 80);
     if (baseDir == null) {
       reader.problem(
           fieldPath,
@@ -147,26 +155,38 @@ final class CsvOptionTable {
               + ", or load the catalog from its file");
       return null;
     }
-    Path file = baseDir.resolve(fileName);
-    try {
-      return Files.readString(file, StandardCharsets.UTF_8);
-    } catch (NoSuchFileException e) {
+    Path file = TablePlace.resolve(reader, fieldPath, shown, fileName, baseDir, kind);
+    if (file == null) {
+      return null;
+    }
+    if (!Files.exists(file)) {
       reader.problem(
           fieldPath,
           "cannot read '"
-              + fileName
+              + shown
               + "': no such file (looked for "
               + file
               + ") — "
               + kind
               + " are found relative to the catalog file's folder");
       return null;
-    } catch (MalformedInputException e) {
-      reader.problem(fieldPath, "'" + fileName + "' is not UTF-8 text — save it as CSV in UTF-8");
+    }
+    byte[] bytes =
+        InputFiles.read(
+            file,
+            Limits.MAX_TABLE_BYTES,
+            "table",
+            m -> reader.problem(fieldPath, "cannot read '" + shown + "': " + m));
+    if (bytes == null) {
       return null;
-    } catch (IOException e) {
-      String why = Files.isDirectory(file) ? "it is a folder" : String.valueOf(e.getMessage());
-      reader.problem(fieldPath, "cannot read '" + fileName + "': " + why);
+    }
+    try {
+      return StandardCharsets.UTF_8
+          .newDecoder()
+          .decode(java.nio.ByteBuffer.wrap(bytes))
+          .toString();
+    } catch (CharacterCodingException e) {
+      reader.problem(fieldPath, "'" + shown + "' is not UTF-8 text — save it as CSV in UTF-8");
       return null;
     }
   }
@@ -199,7 +219,8 @@ final class CsvOptionTable {
             "price",
             cells.get(column.get("price")),
             "the list price this option adds, e.g. 520",
-            true);
+            true,
+            Figure.MONEY);
     Double cost =
         cell(
             reader,
@@ -207,10 +228,16 @@ final class CsvOptionTable {
             "cost",
             cells.get(column.get("cost")),
             "the variable cost this option adds, e.g. 210",
-            true);
+            true,
+            Figure.MONEY);
     Integer labelColumn = column.get("label");
     String label =
         labelColumn == null || cells.get(labelColumn).isEmpty() ? null : cells.get(labelColumn);
+    String labelProblem = label == null ? null : Checks.textProblem(label);
+    if (labelProblem != null) {
+      reader.problem(lineAt + " column label", labelProblem);
+      ok = false;
+    }
     Map<String, Double> uses = new LinkedHashMap<>();
     for (Map.Entry<String, Integer> u : usesColumn.entrySet()) {
       String text = cells.get(u.getValue());
@@ -224,7 +251,8 @@ final class CsvOptionTable {
               "uses." + u.getKey(),
               text,
               "the amount of '" + u.getKey() + "' one unit with this option uses, e.g. 1.6",
-              false);
+              false,
+              Figure.USE);
       if (x == null) {
         ok = false;
       } else {
@@ -240,7 +268,8 @@ final class CsvOptionTable {
       String columnName,
       String text,
       String hint,
-      boolean required) {
+      boolean required,
+      Figure kind) {
     String at = lineAt + " column " + columnName;
     if (text.isEmpty()) {
       if (required) {
@@ -258,12 +287,20 @@ final class CsvOptionTable {
               + hint);
       return null;
     }
-    String p = Checks.nonNegativeProblem(x, hint);
+    String p = Checks.figureProblem(x, kind, hint);
     if (p != null) {
       reader.problem(at, p);
       return null;
     }
     return x;
+  }
+
+  /**
+   * A header cell as a column is named in problems: the name when it reads as one, else its
+   * position, so that a file that is no table at all (a password file) is never quoted.
+   */
+  static String columnName(String name, int j) {
+    return COLUMN_NAME.matcher(name).matches() ? name : "#" + (j + 1);
   }
 
   /** The message for a row whose number of cells differs from the header's. */
@@ -276,9 +313,9 @@ final class CsvOptionTable {
   }
 
   /** The rows of CSV text (a leading byte-order mark dropped), or null and a problem at {@code at}. */
-  static List<Row> rows(CatalogReader reader, String at, String text) {
+  static List<Row> rows(CatalogReader reader, String at, String text, int maxRows) {
     try {
-      return rows(text.startsWith("\uFEFF") ? text.substring(1) : text);
+      return rows(text.startsWith("\uFEFF") ? text.substring(1) : text, maxRows);
     } catch (JsonProcessingException e) {
       int line = e.getLocation() == null ? -1 : e.getLocation().getLineNr();
       reader.problem(
@@ -288,7 +325,8 @@ final class CsvOptionTable {
   }
 
   /** Rows with the line each starts on; rows whose cells are all blank are left out. */
-  private static List<Row> rows(String text) throws JsonProcessingException {
+  /** At most {@code maxRows + 1} rows are kept: one more than allowed says the table is too long. */
+  private static List<Row> rows(String text, int maxRows) throws JsonProcessingException {
     List<Row> rows = new ArrayList<>();
     try (CsvParser p = CSV.getFactory().createParser(text)) {
       p.enable(CsvParser.Feature.WRAP_AS_ARRAY);
@@ -307,6 +345,9 @@ final class CsvOptionTable {
         } else if (t == JsonToken.END_ARRAY && cells != null) {
           if (cells.stream().anyMatch(c -> !c.isEmpty())) {
             rows.add(new Row(line, cells));
+            if (rows.size() > maxRows) {
+              break;
+            }
           }
           cells = null;
         }

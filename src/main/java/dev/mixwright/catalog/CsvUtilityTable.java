@@ -31,8 +31,12 @@ final class CsvUtilityTable {
       return null;
     }
     String at = fieldPath + " " + fileName;
-    List<CsvOptionTable.Row> rows = CsvOptionTable.rows(reader, at, text);
+    List<CsvOptionTable.Row> rows = CsvOptionTable.rows(reader, at, text, Limits.MAX_UTILITY_ROWS + 1);
     if (rows == null) {
+      return null;
+    }
+    if (rows.size() > Limits.MAX_UTILITY_ROWS + 1) {
+      reader.problem(at, "has more than " + Limits.MAX_UTILITY_ROWS + " rows; a utility table has at most that many");
       return null;
     }
     if (rows.isEmpty()) {
@@ -46,7 +50,7 @@ final class CsvUtilityTable {
     boolean ok = true;
     for (int j = 0; j < header.cells().size(); j++) {
       String name = header.cells().get(j);
-      String colAt = headerAt + " column " + (name.isEmpty() ? "#" + (j + 1) : name);
+      String colAt = headerAt + " column " + CsvOptionTable.columnName(name, j);
       if (!COLUMNS.contains(name)) {
         reader.problem(
             colAt,
@@ -101,9 +105,12 @@ final class CsvUtilityTable {
             (utilityText.isEmpty() ? "empty" : "not a number: " + Where.quote(utilityText))
                 + " — write the part-worth as a plain number with a dot for decimals, e.g. 0.7 or -0.4");
         rowOk = false;
-      } else if (!Double.isFinite(u)) {
-        reader.problem(uAt, "must be a finite number, got " + Where.num(u) + " — a part-worth, e.g. 0.7");
-        rowOk = false;
+      } else {
+        String p = Checks.figureProblem(u, Checks.Figure.UTILITY, "a part-worth, e.g. 0.7");
+        if (p != null) {
+          reader.problem(uAt, p);
+          rowOk = false;
+        }
       }
       if (rowOk) {
         out.add(new Entry(group + "." + option, u, lineAt));

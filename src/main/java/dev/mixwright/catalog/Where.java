@@ -62,8 +62,45 @@ public final class Where {
     return v.getNodeType().toString().toLowerCase(java.util.Locale.ROOT);
   }
 
+  /**
+   * Control characters (C0, DEL, C1: terminal escape codes, line breaks) and the bidirectional
+   * controls that can make a terminal show text other than what it holds.
+   */
+  static boolean unprintable(char c) {
+    return c < 0x20
+        || (c >= 0x7f && c <= 0x9f)
+        || c == '\u2028'
+        || c == '\u2029'
+        || (c >= '\u202a' && c <= '\u202e')
+        || (c >= '\u2066' && c <= '\u2069')
+        || c == '\ufeff';
+  }
+
+  /**
+   * Text safe to print on one terminal line: each unprintable character shown as {@code \\u001B},
+   * and at most {@code max} characters (the cut marked with {@code ...}). Every problem message
+   * passes through here, so text from a catalog or a table it names never reaches a terminal raw
+   * and never more than a short excerpt of it.
+   */
+  public static String printable(String s, int max) {
+    StringBuilder b = new StringBuilder(Math.min(s.length(), max) + 16);
+    for (int i = 0; i < s.length(); i++) {
+      if (b.length() >= max) {
+        b.append("...");
+        break;
+      }
+      char c = s.charAt(i);
+      if (unprintable(c)) {
+        b.append(String.format(java.util.Locale.ROOT, "\\u%04X", (int) c));
+      } else {
+        b.append(c);
+      }
+    }
+    return b.toString();
+  }
+
   static String quote(String s) {
-    String shown = s.length() > 60 ? s.substring(0, 57) + "..." : s;
+    String shown = printable(s, 40);
     return "\"" + shown + "\"";
   }
 

@@ -8,8 +8,8 @@ import java.util.List;
 
 /**
  * The one place that keeps catalogs with segments that choose, or options with price points, away
- * from {@code sweep}. {@code solve} and {@code resume} run them (the master is the sales-based LP;
- * the integer stage is skipped for choosing segments in {@code run.PortfolioStep}); a sweep's
+ * from {@code sweep}. {@code solve} and {@code resume} run them (the master is the sales-based LP,
+ * and the integer stage carries the same rows with introductions); a sweep's
  * scenario changes and table have not been checked against the choice model and price points yet,
  * and a wrong table is worse than none. Remove the call in {@code run.SweepRun} and this class once
  * they are.

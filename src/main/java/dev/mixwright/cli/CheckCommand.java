@@ -39,10 +39,12 @@ final class CheckCommand extends CatalogCommand {
   @Option(names = "--count-to-end", description = "count until the counts are exact (or bounded by the table limit), however long it takes")
   boolean countToEnd;
 
+  @picocli.CommandLine.Mixin TableReachOption tables;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
-    Catalog catalog = Inputs.catalog(catalogFile);
+    Catalog catalog = Inputs.catalog(catalogFile, tables.reach());
     VariantSpace space = new VariantSpace(catalog);
     long budgetMs = countToEnd ? 0 : countBudget(countTime);
     SpaceFacts facts = SpaceFacts.of(space, budgetMs);

@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.RunComparison;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.runfolder.Json;
@@ -43,10 +44,21 @@ final class CompareCommand extends SubCommand {
     RunResult a = result(runA);
     RunResult b = result(runB);
     ObjectNode cmp = RunComparison.compare(a, b, catalog(runA), catalog(runB));
+    if (a.portfolioPending() != null || b.portfolioPending() != null) {
+      ObjectNode pending = cmp.putObject("portfolioPending");
+      pending.put("a", a.portfolioPending());
+      pending.put("b", b.portfolioPending());
+    }
     if (json) {
       out.println(Json.pretty().writeValueAsString(cmp));
     } else {
       print(out, cmp);
+      for (RunResult r : new RunResult[] {a, b}) {
+        String pending = PortfolioPending.line(r);
+        if (pending != null) {
+          out.println("run " + (r == a ? "A" : "B") + ": " + pending);
+        }
+      }
     }
     return ExitCodes.OK;
   }

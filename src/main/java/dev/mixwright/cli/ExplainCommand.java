@@ -8,6 +8,7 @@ import dev.mixwright.explain.CapacityRanges;
 import dev.mixwright.explain.Explainer;
 import dev.mixwright.explain.Explanation;
 import dev.mixwright.explain.PriceRange;
+import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.RunReader;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.runfolder.Json;
@@ -95,6 +96,7 @@ final class ExplainCommand extends RunDirCommand {
     Explanation e = new Explainer(space).explain(v, s, run.resourcePrices(), run.segmentPrices());
     double qty = run.quantity(segmentId, space.describe(v));
     var verdict = PortfolioExplainView.verdict(space, v, run.result());
+    String pending = PortfolioPending.line(run.result());
     PriceRange.Leave leave = null;
     if (leavePrice && qty > 0 && e.sellable()) {
       leave = new PriceRange(space, CapacityRangeReport.runPricer(folder)::create, CapacityRangeReport.RESOLVE,
@@ -110,8 +112,14 @@ final class ExplainCommand extends RunDirCommand {
         n.set("capacityRanges", CapacityRangeReport.toJson(ranges));
       }
       PortfolioExplainView.put(n, space, verdict);
+      if (pending != null) {
+        n.put("portfolioPending", run.result().portfolioPending());
+      }
       out.println(Json.pretty().writeValueAsString(n));
     } else {
+      if (pending != null) {
+        out.println(pending);
+      }
       print(out, space, e, qty, run);
       if (leave != null) {
         out.println(String.format(Locale.ROOT,

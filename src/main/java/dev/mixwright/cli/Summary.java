@@ -66,10 +66,10 @@ final class Summary {
   /** The summary lines of the integer stage, when the result has one. */
   private static void printPortfolio(PrintWriter out, VariantSpace space, RunResult result) {
     RunResult.Portfolio p = result.portfolio();
+    if (result.portfolioPending() != null) {
+      out.println("  integer portfolio   " + (p == null ? "not run: " : "not final: ") + result.portfolioPending());
+    }
     if (p == null) {
-      if (result.portfolioPending() != null) {
-        out.println("  integer portfolio   not run: " + result.portfolioPending());
-      }
       return;
     }
     String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();

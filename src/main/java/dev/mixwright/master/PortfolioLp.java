@@ -33,6 +33,9 @@ public final class PortfolioLp implements AutoCloseable {
   private final int limit;
   private final List<Block> blocks = new ArrayList<>();
   private final List<MPConstraint> counts = new ArrayList<>();
+  /** Stay-out x_s0 per choosing segment (null for a fixed one), and the attraction rows to verify. */
+  private final MPVariable[] stay;
+  private final List<double[]> attractions = new ArrayList<>();
 
   private record Block(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
       double minLot, MPVariable y, MPVariable[] x) {}
@@ -44,6 +47,26 @@ public final class PortfolioLp implements AutoCloseable {
     this.limit = variantLimit;
     rows = new Rows("GLOP", capacity, demand, variantLimit);
     rows.solver.setSolverSpecificParametersAsString("use_preprocessing:false");
+    stay = new MPVariable[demand.length];
+  }
+
+  /**
+   * Makes segment s choose: its row becomes Σ_v x_vs + x_s0 = buyers (the demand given at
+   * construction), for the sales-based rows of {@link #addAttraction}. Call before adding blocks.
+   */
+  public void chooseIn(int s) {
+    stay[s] = rows.makeBuyersRow(s, demand[s]);
+  }
+
+  /** The row x_vs − w·x_s0 ≤ 0 for entry k of block i, whose segment was made to choose. */
+  public void addAttraction(int i, int k, double attraction) {
+    Block b = blocks.get(i);
+    int s = b.segments()[k];
+    if (stay[s] == null) {
+      throw new IllegalArgumentException("segment " + s + " does not choose");
+    }
+    rows.addAttractionRow("w" + i + "_" + s, b.x()[k], stay[s], attraction);
+    attractions.add(new double[] {i, k, attraction});
   }
 
   /**
@@ -158,6 +181,14 @@ public final class PortfolioLp implements AutoCloseable {
         }
       }
       if (sold < b.minLot() * y[i] - FEASIBILITY_TOLERANCE * Math.max(1.0, b.minLot())) {
+        return false;
+      }
+    }
+    for (double[] a : attractions) {
+      int i = (int) a[0];
+      int s = blocks.get(i).segments()[(int) a[1]];
+      double room = a[2] * stay[s].solutionValue();
+      if (x[i][(int) a[1]] > room + FEASIBILITY_TOLERANCE * Math.max(1.0, room)) {
         return false;
       }
     }

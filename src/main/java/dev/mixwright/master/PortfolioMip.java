@@ -67,7 +67,11 @@ public final class PortfolioMip implements AutoCloseable {
   private final Map<Integer, MPVariable> tools = new HashMap<>();
   private final List<MPVariable> ys = new ArrayList<>();
   private final List<MPVariable[]> xs = new ArrayList<>();
+  private final List<int[]> segmentsOf = new ArrayList<>();
   private final boolean wholeUnits;
+  private final double[] demand;
+  /** Stay-out x_s0 per choosing segment, null for a fixed one. */
+  private final MPVariable[] stay;
 
   /**
    * @param variantLimit K, {@code Integer.MAX_VALUE} for none
@@ -83,6 +87,8 @@ public final class PortfolioMip implements AutoCloseable {
     this.engine = engine;
     this.wholeUnits = wholeUnits;
     this.toolCost = toolCost.clone();
+    this.demand = demand.clone();
+    this.stay = new MPVariable[demand.length];
     rows = new Rows(engine.solverId, capacity, demand, variantLimit);
     solver = rows.solver;
     objective = rows.objective;
@@ -124,7 +130,25 @@ public final class PortfolioMip implements AutoCloseable {
     }
     ys.add(y);
     xs.add(x);
+    segmentsOf.add(segments.clone());
     return i;
+  }
+
+  /** As {@link PortfolioLp#chooseIn}: segment s's row becomes its buyers row with a stay-out. */
+  public void chooseIn(int s) {
+    stay[s] = rows.makeBuyersRow(s, demand[s]);
+  }
+
+  /** As {@link PortfolioLp#addAttraction}: x_vs − w·x_s0 ≤ 0 for entry k of variant i. */
+  public void addAttraction(int i, int k, double attraction) {
+    if (stay[rowsSegment(i, k)] == null) {
+      throw new IllegalArgumentException("segment " + rowsSegment(i, k) + " does not choose");
+    }
+    rows.addAttractionRow("w" + i + "_" + k, xs.get(i)[k], stay[rowsSegment(i, k)], attraction);
+  }
+
+  private int rowsSegment(int i, int k) {
+    return segmentsOf.get(i)[k];
   }
 
   /** Bounds on y_i: {@code 1, 1} offers the variant, {@code 0, 0} leaves it out. */

@@ -244,7 +244,7 @@ final class BranchAndPrice {
 
   /** One worker's master and pricer; a node at a time. */
   private final class Worker implements AutoCloseable {
-    private PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap);
+    private PortfolioLp lp = choosing(new PortfolioLp(terms.capacity(), terms.demand(), cap));
     private final VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
     private int have;
     private final Set<Integer> fixed = new HashSet<>();
@@ -259,10 +259,15 @@ final class BranchAndPrice {
       Arrays.fill(rowOf, -1);
     }
 
+    private PortfolioLp choosing(PortfolioLp fresh) {
+      pool.choice().enter(fresh);
+      return fresh;
+    }
+
     /** A fresh master with the pool's variants and the node's decisions. */
     private void rebuild(TreeNode node) {
       lp.close();
-      lp = new PortfolioLp(terms.capacity(), terms.demand(), cap);
+      lp = choosing(new PortfolioLp(terms.capacity(), terms.demand(), cap));
       have = 0;
       Arrays.fill(rowOf, -1);
       totalRow = -1;
@@ -278,6 +283,7 @@ final class BranchAndPrice {
       for (int i = have; i < n; i++) {
         PoolVariant v = pool.get(i);
         lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+        pool.choice().attract(lp, i, v);
         if (totalRow >= 0) {
           lp.addToCount(totalRow, i);
         }

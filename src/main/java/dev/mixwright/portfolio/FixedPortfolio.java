@@ -32,10 +32,12 @@ final class FixedPortfolio {
       return wholeUnits(pool, terms, m);
     }
     try (PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), PortfolioTerms.UNLIMITED)) {
+      pool.choice().enter(lp);
       Set<Integer> tools = new HashSet<>();
       for (int i : m) {
         PoolVariant v = pool.get(i);
         int j = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+        pool.choice().attract(lp, j, v);
         lp.fixIntroduction(j, 1, 1);
         for (int t : v.tools()) {
           tools.add(t);
@@ -61,10 +63,12 @@ final class FixedPortfolio {
   private static Plan wholeUnits(Pool pool, PortfolioTerms terms, int[] m) {
     try (PortfolioMip mip = new PortfolioMip(PortfolioMip.Engine.SCIP, terms.capacity(), terms.demand(),
         PortfolioTerms.UNLIMITED, terms.choiceCost(), true)) {
+      pool.choice().enter(mip);
       for (int i : m) {
         PoolVariant v = pool.get(i);
         int j = mip.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(),
             v.tools());
+        pool.choice().attract(mip, j, v);
         mip.fixIntroduction(j, 1, 1);
       }
       // K variants with a few integer sales each: quick; a plan found within the limit is feasible

@@ -8,11 +8,15 @@ import dev.mixwright.master.MipSolution;
 import dev.mixwright.master.MipStatus;
 import dev.mixwright.master.PortfolioMip;
 import dev.mixwright.pricing.PricingOutcome;
+import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
+import java.util.function.Consumer;
 
 /**
  * The integer stage after the LP stage: a portfolio of whole variants with an introduction cost F
@@ -54,6 +58,8 @@ public final class IntegerStage {
   private StopCriterion stop = StopCriterion.never();
   private int workers = BranchAndPrice.defaultWorkers();
   private boolean quickProof = true;
+  private Checkpoint warm;
+  private Consumer<Checkpoint> checkpoints = c -> {};
 
   public IntegerStage(VariantSpace space, PortfolioSettings settings) {
     this.space = space;
@@ -91,6 +97,78 @@ public final class IntegerStage {
     return this;
   }
 
+  // ---- warm start and checkpoint entry point (resume after a kill; used by run.PortfolioStep) ----
+
+  /**
+   * The stage's progress that a later session can start from: the pool's variants, the incumbent's
+   * variants (a subset of the pool; empty before the first) with its value, and the bound proven for
+   * the whole space so far (+∞ for none).
+   */
+  public record Checkpoint(List<int[]> pool, List<int[]> incumbent, double value, double bound) {
+    public Checkpoint {
+      pool = List.copyOf(pool);
+      incumbent = List.copyOf(incumbent);
+    }
+  }
+
+  /**
+   * Starts from an earlier session's progress of the same catalog and terms: its variants join the
+   * pool, its incumbent competes with the rounding, its bound caps the bound. The proof runs as
+   * without it, so a warm start changes where the search begins, never what it proves.
+   */
+  public IntegerStage warmStart(Checkpoint c) {
+    this.warm = c;
+    return this;
+  }
+
+  /**
+   * Hands the progress to {@code sink} after the relaxation, the rounding, the first MIP and every
+   * proof pass.
+   */
+  public IntegerStage checkpointTo(Consumer<Checkpoint> sink) {
+    this.checkpoints = sink;
+    return this;
+  }
+
+  /** {@code inc} null: no incumbent yet in this session, so the warm one (if any) is kept. */
+  private void checkpoint(Pool pool, Plan inc, double bound) {
+    List<int[]> vs = new ArrayList<>(pool.size());
+    pool.all().forEach(v -> vs.add(v.choices()));
+    if (inc == null && warm != null) {
+      checkpoints.accept(new Checkpoint(vs, warm.incumbent(), warm.value(), bound));
+      return;
+    }
+    List<int[]> members = new ArrayList<>();
+    if (inc != null) {
+      for (int i : inc.members()) {
+        members.add(pool.get(i).choices());
+      }
+    }
+    checkpoints.accept(new Checkpoint(vs, members, inc == null ? Double.NEGATIVE_INFINITY : inc.value(), bound));
+  }
+
+  /** The warm incumbent's plan in this pool (its variants re-found by key), or null when none or no longer feasible. */
+  private Plan warmIncumbent(Pool pool) {
+    if (warm == null || warm.incumbent().isEmpty()) {
+      return null;
+    }
+    Map<VariantKey, Integer> index = new HashMap<>();
+    for (int i = 0; i < pool.size(); i++) {
+      index.put(pool.get(i).key(), i);
+    }
+    int[] members = new int[warm.incumbent().size()];
+    for (int j = 0; j < members.length; j++) {
+      Integer i = index.get(space.key(warm.incumbent().get(j)));
+      if (i == null) {
+        return null;
+      }
+      members[j] = i;
+    }
+    return FixedPortfolio.solve(pool, terms, members);
+  }
+
+  // ---- end of the warm start and checkpoint entry point ----
+
   private void emit(PortfolioEvent.Kind kind, double value, double bound, int pool, int count, String note) {
     PortfolioEvent e = new PortfolioEvent(kind, clock.elapsedMs(), value, bound, pool, count, note);
     listeners.forEach(l -> l.event(e));
@@ -121,6 +199,18 @@ public final class IntegerStage {
     }
   }
 
+  /**
+   * Prices the bound may use: a buyers row's dual is free in sign in the sales-based LP, and the
+   * whole-space bound, which relaxes it to Σ_v x_sv ≤ buyers_s, holds for μ_s ≥ 0 only.
+   */
+  private static double[] atLeastZero(double[] mu) {
+    double[] out = mu.clone();
+    for (int s = 0; s < out.length; s++) {
+      out[s] = Math.max(0.0, out[s]);
+    }
+    return out;
+  }
+
   public PortfolioOutcome run(SolveOutcome lp) {
     clock = new StageClock(settings.timeLimitMs(), stop);
     mipSolves = 0;
@@ -128,6 +218,9 @@ public final class IntegerStage {
     if (!lp.status().isInfeasible()) {
       for (Column c : lp.columns()) {
         pool.add(c.choices());
+      }
+      if (warm != null) {
+        warm.pool().forEach(pool::add);
       }
     }
     if (pool.size() == 0 || terms.variantCap() == 0) {
@@ -138,15 +231,20 @@ public final class IntegerStage {
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
     // Columns came from the LP stage, so its duals are known: they are the relaxation's first prices.
     RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, clock, clock.phase(0.3))
-        .run(pool, lp.duals().resource(), lp.duals().segment());
-    Search search = new Search(Math.min(lpBound, rx.bound().value()));
+        .run(pool, lp.duals().resource(), atLeastZero(lp.duals().segment()));
+    double warmBound = warm == null ? Double.POSITIVE_INFINITY : warm.bound();
+    Search search = new Search(Math.min(Math.min(lpBound, rx.bound().value()), warmBound));
+    checkpoint(pool, null, search.bound);
     int relaxed = pool.size();
     firstIncumbent(pool, rx, search);
+    checkpoint(pool, search.incumbent, search.bound);
     if (quickProof) {
       survivors(pool, pricer, rx.bound(), search);
+      checkpoint(pool, search.incumbent, search.bound);
     }
     if (!search.survivorsProve) {
       tree(pool, search);
+      checkpoint(pool, search.incumbent, Math.min(search.bound, search.treeBound));
     }
     search.added = pool.size() - relaxed;
     return outcome(pool, lpBound, rx, search);
@@ -254,6 +352,13 @@ public final class IntegerStage {
     Plan inc = Rounding.greedy(pool, terms, rx.y(), score, clock, clock.phase(0.2));
     emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
         "rounding of the relaxation");
+    Plan earlier = warmIncumbent(pool);
+    if (earlier != null && earlier.value() > inc.value()) {
+      inc = earlier;
+      emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
+          "incumbent of the earlier session");
+    }
+    checkpoint(pool, inc, s.bound); // before the MIP, which may run for most of the stage
     MipRun mip = mip(pool, inc, Math.max(1, (long) (clock.msLeft() * 0.5)));
     if (mip.plan() != null && mip.plan().value() > inc.value()) {
       inc = mip.plan();
@@ -304,8 +409,11 @@ public final class IntegerStage {
     mipSolves++;
     try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
         terms.choiceCost(), terms.wholeUnits())) {
+      pool.choice().enter(m);
       for (PoolVariant v : pool.all()) {
-        m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(), v.tools());
+        int i = m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(),
+            v.tools());
+        pool.choice().attract(m, i, v);
       }
       double[] y = new double[pool.size()];
       double[][] x = new double[pool.size()][];

@@ -20,10 +20,17 @@ final class Pool {
   private final PortfolioTerms terms;
   private final List<PoolVariant> variants = new CopyOnWriteArrayList<>();
   private final Map<VariantKey, Integer> index = new ConcurrentHashMap<>();
+  private final ChoiceRows choice;
 
   Pool(VariantSpace space, PortfolioTerms terms) {
     this.space = space;
     this.terms = terms;
+    this.choice = new ChoiceRows(space);
+  }
+
+  /** The rows of segments that choose, for every master built over this pool. */
+  ChoiceRows choice() {
+    return choice;
   }
 
   /** Adds v unless it is there already or no segment takes it; true when added. */

@@ -27,6 +27,9 @@ public record PoolVariant(
     for (int k = 0; k < n; k++) {
       m[k] = space.margin(v2, segs[k]);
       u[k] = terms.columnBound()[segs[k]];
+      if (space.chooses(segs[k])) {
+        u[k] = Math.min(u[k], ChoiceRows.cap(space.buyers(segs[k]), new ChoiceRows(space).attraction(v2, segs[k])));
+      }
     }
     int[] tools = new int[v2.length];
     int t = 0;

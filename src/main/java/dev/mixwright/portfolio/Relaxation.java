@@ -84,8 +84,9 @@ final class Relaxation {
     LagrangianPortfolioBound best = bound(pool, lpPi, lpMu, k).bound();
     double lpPriceBound = best.value();
     try (PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap)) {
+      pool.choice().enter(lp);
       for (PoolVariant v : pool.all()) {
-        add(lp, v);
+        add(lp, pool, v);
       }
       PortfolioLpSolution sol = null;
       boolean converged = false;
@@ -123,7 +124,7 @@ final class Relaxation {
         }
         for (PricedVariant f : entering) {
           if (pool.add(f.choices())) {
-            add(lp, pool.get(pool.size() - 1));
+            add(lp, pool, pool.get(pool.size() - 1));
           }
         }
       }
@@ -133,7 +134,8 @@ final class Relaxation {
     }
   }
 
-  private void add(PortfolioLp lp, PoolVariant v) {
-    lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+  private void add(PortfolioLp lp, Pool pool, PoolVariant v) {
+    int i = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+    pool.choice().attract(lp, i, v);
   }
 }

@@ -43,6 +43,10 @@ public final class HtmlReport {
         .append("<title>").append(escape(name)).append(" — mixwright run</title>\n")
         .append("<style>\n").append(css()).append("</style>\n</head>\n<body>\n<main>\n");
     header(h, r, name, currency);
+    String pending = PortfolioPending.line(r);
+    if (pending != null) {
+      h.append("<p class=\"note\">").append(escape(pending)).append("</p>\n");
+    }
     convergence(h, r.rounds());
     resources(h, r.resources(), currency);
     segments(h, r, currency);

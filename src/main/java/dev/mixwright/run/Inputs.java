@@ -4,6 +4,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.catalog.TableReach;
 import dev.mixwright.scenario.Scenarios;
 import java.io.IOException;
 import java.io.InputStream;
@@ -21,12 +22,22 @@ public final class Inputs {
     return hashedCatalog(file).catalog();
   }
 
+  /** The catalog, its tables allowed where {@code reach} says (the user's choice, never the file's). */
+  public static Catalog catalog(Path file, TableReach reach) throws CatalogException {
+    return hashedCatalog(file, reach).catalog();
+  }
+
   /** The catalog and the SHA-256 of the bytes it was parsed from (the file is read once). */
   public static CatalogLoader.Hashed hashedCatalog(Path file) throws CatalogException {
-    if (!Files.isRegularFile(file)) {
+    return hashedCatalog(file, TableReach.CATALOG_FOLDER);
+  }
+
+  /** As {@link #hashedCatalog(Path)}; a path that is there but no ordinary file is refused by the loader. */
+  public static CatalogLoader.Hashed hashedCatalog(Path file, TableReach reach) throws CatalogException {
+    if (!Files.exists(file)) {
       throw new InputError("no catalog file at " + file + " — give the path of a .yaml, .yml or .json catalog");
     }
-    return CatalogLoader.loadHashed(file);
+    return CatalogLoader.loadHashed(file, reach);
   }
 
   /**

@@ -116,7 +116,7 @@ public final class RunSession {
         cg.addListener(log);
         cg.addListener(new SnapshotWriter(folder, manifest, 1));
         Stage lp = new Stage(space, cg, List.of(), r.catalogFile().toString(), read.sha256(), r.pricer(), 0, start);
-        return finish(lp, r.portfolio(), r.runDir(), false, 1);
+        return finish(lp, r.portfolio(), checkpoints(folder, manifest, false), false, 1);
       }
     }
   }
@@ -126,9 +126,14 @@ public final class RunSession {
     Path runDir = r.runDir();
     RunFolder folder = new RunFolder(runDir);
     if (!Files.isDirectory(runDir)) {
-      throw new InputError("no run folder at " + runDir + " — give a folder written by 'mixwright solve --out'");
+      throw new InputError("no run folder at " + runDir + " — give a folder written by 'mixwright solve --out'"
+          + " (if a solve into it was cut off before it made the folder, that run never started: run"
+          + " 'mixwright solve CATALOG --out " + runDir + "' again)");
     }
     try (RunLock lock = RunStart.lock(folder)) {
+      if (!Files.exists(folder.manifest())) {
+        throw new InputError(RunStart.neverStarted(folder));
+      }
       RunManifest m;
       try {
         m = RunManifest.read(folder);
@@ -200,7 +205,13 @@ public final class RunSession {
       }
       double target = r.gap().orElse(m.settings().gap());
       if (result.status().isOptimal() && result.gapOrInfinity() <= target) {
-        return Resumed.ended(new RunOutcome.AlreadyOptimal(runDir, result.objective()));
+        if (!portfolioOwed(catalog, result, r.portfolio())) {
+          return Resumed.ended(new RunOutcome.AlreadyOptimal(runDir, result.objective()));
+        }
+        // The LP stage had ended but the integer stage had not: the LP is rebuilt from the column log
+        // (one round proves it again) because the integer stage starts from its columns and prices.
+        watcher.note("the LP stage had reached its optimum but the integer stage had not ended; rebuilding the LP"
+            + " from " + ColumnLog.FILE + " and running the integer stage");
       }
       if (result.status() == RunStatus.INFEASIBLE) {
         return Resumed.ended(new RunOutcome.EndedInfeasible(runDir, result.stopReason()));
@@ -229,6 +240,15 @@ public final class RunSession {
     LoopSnapshot state = snap.map(s -> merge(s, fromLog)).orElse(fromLog);
     m.write(folder);
     return new Resumed(Optional.empty(), m, catalog, repriced, log, state);
+  }
+
+  /**
+   * The run has a portfolio to write: the catalog has a portfolio section, the stage is not skipped,
+   * and result.json has no final portfolio (none, or one marked pending).
+   */
+  private static boolean portfolioOwed(Catalog catalog, RunResult result, PortfolioPlan plan) {
+    return plan.run() && catalog.portfolio().isPresent()
+        && (result.portfolio() == null || result.portfolioPending() != null);
   }
 
   /** The later of the two views: the snapshot can be behind the log (written after the round) or ahead. */
@@ -268,7 +288,7 @@ public final class RunSession {
       cg.addListener(new SnapshotWriter(folder, m, session));
       Stage lp = new Stage(space, cg, pool.columns(), m.catalog().path(), m.catalog().sha256(), pricer,
           priorElapsed, start);
-      return finish(lp, r.portfolio(), r.runDir(), true, session);
+      return finish(lp, r.portfolio(), checkpoints(folder, m, true), true, session);
     }
   }
 
@@ -302,8 +322,9 @@ public final class RunSession {
    * Runs the LP stage (unless nothing is sellable), then the integer stage, and writes result.json.
    * {@code resumed}: result.json names the session count.
    */
-  private RunOutcome finish(Stage lp, PortfolioPlan plan, Path runDir, boolean resumed, int session)
+  private RunOutcome finish(Stage lp, PortfolioPlan plan, PortfolioStep.Checkpoints cp, boolean resumed, int session)
       throws IOException {
+    Path runDir = cp.folder().dir();
     VariantSpace space = lp.space();
     SpaceSurvey facts = SpaceSurvey.of(space);
     // nothing waits for the count: it runs beside the loop and is taken as far as it got at the end
@@ -319,10 +340,14 @@ public final class RunSession {
     if (resumed) {
       lpResult = lpResult.withSessions(session);
     }
-    RunResult result = PortfolioStep.attach(space, outcome, plan, runDir, lpResult,
+    RunResult result = PortfolioStep.attach(space, outcome, plan, cp, lpResult,
         lp.startNanos() - lp.priorElapsedMs() * 1_000_000L, watcher.portfolio(), stop::get);
     ResultWriter.write(runDir, result);
     return new RunOutcome.Solved(runDir, space, outcome, result);
+  }
+
+  private PortfolioStep.Checkpoints checkpoints(RunFolder folder, RunManifest m, boolean resume) {
+    return new PortfolioStep.Checkpoints(folder, m.runId(), m.catalogCopySha256(), resume, watcher::note);
   }
 
   private static long sinceMs(long startNanos) {

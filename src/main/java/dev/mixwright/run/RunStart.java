@@ -4,6 +4,8 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
+import dev.mixwright.runfolder.PortfolioCheckpoint;
+import dev.mixwright.runfolder.PortfolioLog;
 import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.runfolder.RunManifest;
@@ -24,6 +26,18 @@ public final class RunStart {
     }
   }
 
+  /**
+   * Why a folder without run.json cannot be resumed: run.json is written last when a run begins, so
+   * its absence means the run never started (cut off while starting, or never given this folder).
+   */
+  static String neverStarted(RunFolder folder) {
+    Path dir = folder.dir();
+    return "the run in " + dir + " never started: there is no " + RunFolder.MANIFEST + ", which a run writes"
+        + " once it has begun (it was cut off while starting, or this folder was never given to 'mixwright solve')."
+        + " There is nothing to resume; start it again with 'mixwright solve CATALOG --out " + dir
+        + (folder.holdsRun() ? " --replace" : "") + "'";
+  }
+
   static RunManifest.Source source(Path file, String sha256) {
     return new RunManifest.Source(file.toAbsolutePath().normalize().toString(), sha256);
   }
@@ -40,6 +54,8 @@ public final class RunStart {
     Files.deleteIfExists(folder.result());
     Files.deleteIfExists(folder.snapshot());
     Files.deleteIfExists(folder.columnLog());
+    Files.deleteIfExists(folder.dir().resolve(PortfolioLog.FILE));
+    PortfolioCheckpoint.delete(folder);
     String copy = CatalogWriter.toJson(catalog);
     AtomicFiles.write(folder.catalogCopy(), copy);
     RunManifest m = RunManifest.begin(catalogSource, scenarioSource, Checksums.sha256(copy), settings);

@@ -89,9 +89,9 @@ class ChoiceCommandsTest {
     assertTrue(clubOffers > 0);
   }
 
-  /** The integer stage handles fixed demand only: with a portfolio section it is skipped, said in words. */
+  /** With a portfolio section the integer stage runs over the choosing segment too. */
   @Test
-  void portfolioIsSkippedWithANote() throws Exception {
+  void portfolioIsChosen() throws Exception {
     Path from = Path.of(boats()).getParent();
     java.nio.file.Files.copy(from.resolve("clubs-utility.csv"), dir.resolve("clubs-utility.csv"));
     String text = java.nio.file.Files.readString(from.resolve("rowing-boats.yaml"))
@@ -102,8 +102,10 @@ class ChoiceCommandsTest {
     Ran r = run("solve", catalog.toString(), "--out", run.toString());
     assertEquals(0, r.code(), r.err());
     JsonNode n = new ObjectMapper().readTree(run.resolve("result.json").toFile());
-    assertFalse(n.has("portfolio"));
-    assertTrue(n.get("portfolioPending").asText().contains("chooses by multinomial logit"), n.toString());
+    assertFalse(n.has("portfolioPending"), n.toString());
+    JsonNode p = n.get("portfolio");
+    assertTrue(p.get("variants").size() <= 3, p.toString());
+    assertTrue(p.get("bound").asDouble() >= p.get("value").asDouble() - 1e-6, p.toString());
   }
 
   @Test

@@ -45,6 +45,21 @@ final class ChildJvm {
     return true;
   }
 
+  /** Waits until the child's stderr holds one of {@code texts} (or it ended); false if it ended first. */
+  boolean awaitText(List<String> texts, long maxMillis) throws InterruptedException, IOException {
+    long until = System.nanoTime() + maxMillis * 1_000_000;
+    while (true) {
+      String e = Files.exists(err) ? Files.readString(err) : "";
+      if (texts.stream().anyMatch(e::contains)) {
+        return true;
+      }
+      if (!process.isAlive() || System.nanoTime() > until) {
+        return false;
+      }
+      Thread.sleep(20);
+    }
+  }
+
   int waitFor(long maxSeconds) throws InterruptedException {
     if (!process.waitFor(maxSeconds, TimeUnit.SECONDS)) {
       process.destroyForcibly().waitFor();

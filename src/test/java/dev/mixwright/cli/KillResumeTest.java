@@ -13,8 +13,11 @@ import dev.mixwright.runfolder.ColumnLogReader;
 import dev.mixwright.runfolder.LoopSnapshot;
 import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.space.VariantSpace;
+import dev.mixwright.report.PortfolioPending;
+import dev.mixwright.runfolder.PortfolioLog;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.BeforeAll;
@@ -124,6 +127,120 @@ class KillResumeTest {
     CliRun resumed = CliRun.of("resume", run.toString(), "--no-progress");
     assertEquals(0, resumed.code(), resumed.toString());
     assertEquals(uninterrupted, ResumeTest.result(run).path("objective").asDouble(), 1e-6 * uninterrupted);
+  }
+
+  /**
+   * Kills during both stages of a run with a portfolio section: a small generated catalog whose
+   * integer stage takes a few seconds and proves its portfolio. Three chains, each a solve and
+   * resumes killed one after another (two chains begin with a kill in the LP stage), 10 kills inside
+   * the integer stage in all, each chain finished by a resume that must reach the uninterrupted LP
+   * objective and a portfolio with a valid bound, proven to the same value where the uninterrupted
+   * run proves it. Kill moments are drawn within the stage's duration in the uninterrupted run,
+   * counted from when the stage is seen to begin (portfolio.jsonl appears, or the resume says so).
+   */
+  @Test
+  void killedAtRandomMomentsOfBothStagesTheResumedRunWritesItsPortfolio() throws Exception {
+    long seed = System.nanoTime();
+    Random rnd = new Random(seed);
+    System.out.println("KillResumeTest portfolio kills: seed " + seed);
+    Path cat = dir.resolve("small.yaml");
+    CliRun gen = CliRun.of("generate", "--groups", "8", "--options", "4", "--resources", "5", "--segments", "3",
+        "--rules", "12", "--seed", "11", "--out", cat.toString());
+    assertEquals(0, gen.code(), gen.toString());
+    Files.writeString(cat, Files.readString(cat) + "portfolio:\n  introductionCost: 50000\n  maxVariants: 4\n"
+        + "  minLot: 200\n");
+    Path full = dir.resolve("full");
+    CliRun once = CliRun.of("solve", cat.toString(), "--out", full.toString(), "--no-progress");
+    assertEquals(0, once.code(), once.toString());
+    JsonNode ref = ResumeTest.result(full);
+    double lp = ref.path("objective").asDouble();
+    JsonNode refPortfolio = ref.path("portfolio");
+    assertTrue(refPortfolio.isObject(), once.toString());
+    long lpMs = ref.path("elapsedMs").asLong() - refPortfolio.path("elapsedMs").asLong();
+    long stageMs = Math.max(200, refPortfolio.path("elapsedMs").asLong());
+    System.out.println("uninterrupted: LP stage " + lpMs + " ms, integer stage " + stageMs + " ms, portfolio "
+        + refPortfolio.path("status").asText() + " " + refPortfolio.path("value").asDouble());
+
+    int stageKills = 0;
+    int lpKills = 0;
+    for (int chain = 0; stageKills < 10 && chain < 6; chain++) {
+      String why = "seed " + seed + ", chain " + chain;
+      Path run = dir.resolve("chain" + chain);
+      ChildJvm child = ChildJvm.start(dir, "c" + chain + "-solve", "solve", cat.toString(), "--out", run.toString(),
+          "--no-progress");
+      boolean lpKill = chain % 2 == 0;
+      if (lpKill) {
+        assertTrue(child.awaitFile(run.resolve(RunFolder.MANIFEST), 60_000), child.transcript());
+        Thread.sleep(rnd.nextInt((int) Math.max(1, Math.min(lpMs, 5000))));
+      } else {
+        assertTrue(child.awaitFile(run.resolve(PortfolioLog.FILE), 120_000), child.transcript());
+        Thread.sleep(rnd.nextInt(window(stageMs)));
+      }
+      Kill first = kill(child, run, why);
+      lpKills += lpKill && first == Kill.IN_LP ? 1 : 0;
+      stageKills += first == Kill.IN_STAGE ? 1 : 0;
+      // resumes killed in their integer stage, until 4 landed in this chain or one finished the run
+      for (int landed = first == Kill.IN_STAGE ? 1 : 0; landed < 4 && first != Kill.MISSED && stageKills < 10; ) {
+        ChildJvm again = ChildJvm.start(dir, "c" + chain + "-resume" + landed, "resume", run.toString(),
+            "--no-progress");
+        assertTrue(again.awaitText(List.of("continuing the integer stage", "starts afresh"), 120_000),
+            why + "\n" + again.transcript());
+        Thread.sleep(rnd.nextInt(window(stageMs)));
+        Kill k = kill(again, run, why);
+        if (k != Kill.IN_STAGE) {
+          break;
+        }
+        landed++;
+        stageKills++;
+      }
+      CliRun last = CliRun.of("resume", run.toString(), "--no-progress");
+      assertEquals(0, last.code(), why + "\n" + last);
+      JsonNode res = ResumeTest.result(run);
+      assertEquals("optimal", res.path("status").asText(), why);
+      assertEquals(lp, res.path("objective").asDouble(), 1e-6 * Math.abs(lp), why);
+      JsonNode p = res.path("portfolio");
+      assertTrue(p.isObject(), why + "\n" + last);
+      assertTrue(res.path("portfolioPending").isMissingNode(), why);
+      assertTrue(p.path("bound").asDouble() >= p.path("value").asDouble() - 1e-9 * Math.abs(lp), why);
+      // the uninterrupted bound holds for the whole space, so no resumed portfolio may beat it
+      assertTrue(p.path("value").asDouble() <= refPortfolio.path("bound").asDouble() * (1 + 1e-9), why);
+      if ("proven".equals(refPortfolio.path("status").asText())) {
+        assertEquals("proven", p.path("status").asText(), why + "\n" + p);
+        assertEquals(refPortfolio.path("value").asDouble(), p.path("value").asDouble(),
+            1e-6 * Math.abs(refPortfolio.path("value").asDouble()), why);
+      }
+    }
+    System.out.println("kills landed: " + lpKills + " in the LP stage, " + stageKills + " in the integer stage");
+    assertEquals(10, stageKills, "seed " + seed + ": too few kills landed in the integer stage");
+  }
+
+  /** Where a kill landed: in the LP stage, in the integer stage, or after the child had ended. */
+  private enum Kill { IN_LP, IN_STAGE, MISSED }
+
+  /** Kill moments within the first 60 % of the uninterrupted stage: a resumed stage, warm-started, can be shorter. */
+  private static int window(long stageMs) {
+    return (int) Math.max(1, stageMs * 6 / 10);
+  }
+
+  /**
+   * Kills the child if it still runs and says where the kill landed (in the integer stage when
+   * result.json marks the portfolio pending as running). Whatever the moment, result.json never
+   * shows a finished run without its portfolio.
+   */
+  private static Kill kill(ChildJvm child, Path run, String why) throws Exception {
+    boolean alive = child.process.isAlive();
+    child.process.destroyForcibly();
+    child.waitFor(30);
+    assertNothingDurableLost(run);
+    JsonNode res = Files.exists(run.resolve(RunFolder.RESULT)) ? ResumeTest.result(run) : null;
+    if (res != null && !res.path("portfolio").isObject()) {
+      assertTrue(res.path("portfolioPending").isTextual(), why + ": result.json without portfolio or pending\n" + res);
+    }
+    if (!alive) {
+      return Kill.MISSED;
+    }
+    return res != null && PortfolioPending.RUNNING.equals(res.path("portfolioPending").asText()) ? Kill.IN_STAGE
+        : Kill.IN_LP;
   }
 
   /** Bit 1 (SIGINT is signal 2) of the ignored-signals mask in /proc/self/status; false where there is no /proc. */

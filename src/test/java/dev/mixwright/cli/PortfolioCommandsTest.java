@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
+import dev.mixwright.run.Catalogs;
 import dev.mixwright.runfolder.Json;
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -19,23 +20,7 @@ import org.junit.jupiter.api.io.TempDir;
  * (margin 15) only in south (demand 50), 100 hours; F = 100 gives both, 1,900 − 200 = 1,700.
  */
 class PortfolioCommandsTest {
-  private static final String CATALOG = """
-      format: 1
-      name: hand
-      currency: EUR
-      resources:
-        - {id: hours, capacity: 100}
-      groups:
-        - id: model
-          options:
-            - {id: a, price: 30, cost: 10, uses: {hours: 1}}
-            - {id: b, price: 25, cost: 10, uses: {hours: 1}}
-      segments:
-        - {id: north, demand: 80, accepts: {model: [a]}}
-        - {id: south, demand: 50, accepts: {model: [b]}}
-      portfolio:
-        introductionCost: %s
-      """;
+  private static final String CATALOG = Catalogs.HAND_PORTFOLIO;
 
   @TempDir Path dir;
 

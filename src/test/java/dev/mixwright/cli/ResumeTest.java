@@ -172,6 +172,13 @@ class ResumeTest {
     CliRun r = CliRun.of("resume", dir.resolve("empty").toString());
     assertEquals(2, r.code(), r.toString());
     assertTrue(r.err().contains("no run.json"), r.err());
+    assertTrue(r.err().contains("never started"), r.err());
+    assertTrue(r.err().contains("mixwright solve CATALOG --out " + dir.resolve("empty")), r.err());
+    // A solve cut off after it copied the catalog but before run.json: solving again needs --replace.
+    Files.writeString(dir.resolve("empty").resolve("catalog.json"), "{}");
+    CliRun left = CliRun.of("resume", dir.resolve("empty").toString());
+    assertEquals(2, left.code(), left.toString());
+    assertTrue(left.err().contains("--replace"), left.err());
     CliRun none = CliRun.of("resume", dir.resolve("nowhere").toString());
     assertEquals(2, none.code(), none.toString());
   }

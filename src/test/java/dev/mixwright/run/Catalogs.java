@@ -19,4 +19,28 @@ public final class Catalogs {
         - {id: no-b, forbid: {body: [b], trim: [x]}}
       segments: [{id: all, demand: 10}]
       """;
+
+  /**
+   * The hand-checked portfolio catalog (invented data): a (margin 20) only in north (demand 80), b
+   * (margin 15) only in south (demand 50), 100 hours; introduction cost 100 gives both, worth
+   * 80·20 + 20·15 − 200 = 1,700 (worked by hand). The introduction cost is left to fill in with
+   * {@code formatted}.
+   */
+  public static final String HAND_PORTFOLIO = """
+      format: 1
+      name: hand
+      currency: EUR
+      resources:
+        - {id: hours, capacity: 100}
+      groups:
+        - id: model
+          options:
+            - {id: a, price: 30, cost: 10, uses: {hours: 1}}
+            - {id: b, price: 25, cost: 10, uses: {hours: 1}}
+      segments:
+        - {id: north, demand: 80, accepts: {model: [a]}}
+        - {id: south, demand: 50, accepts: {model: [b]}}
+      portfolio:
+        introductionCost: %s
+      """;
 }

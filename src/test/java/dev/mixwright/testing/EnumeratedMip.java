@@ -26,6 +26,11 @@ import java.util.Map;
  *   Σ a_rv x_vs ≤ b_r,  Σ_v x_vs ≤ D_s,  x_vs ≤ u_s y_v,  Σ_s x_vs ≥ L y_v,  Σ y_v ≤ K,  y_v ≤ t_o (o in v)
  *   y, t ∈ {0,1} (or [0,1] for the relaxation),  x ≥ 0
  * </pre>
+ *
+ * For a segment s that chooses, its demand row becomes Σ_v x_vs + x_s0 = buyers_s with a stay-out
+ * x_s0 ≥ 0, and every x_vs gets x_vs ≤ exp(u_s(v) − stayOut_s)·x_s0 (the sales-based LP of Gallego,
+ * Ratliff &amp; Shebalov 2015, Operations Research 63(1)), its link x_vs ≤ buyers_s·y_v: no tighter
+ * cap of the project's own.
  */
 public final class EnumeratedMip {
   private EnumeratedMip() {}
@@ -78,6 +83,14 @@ public final class EnumeratedMip {
       for (int s = 0; s < dem.length; s++) {
         dem[s] = solver.makeConstraint(Double.NEGATIVE_INFINITY, c.segments().get(s).demand());
       }
+      MPVariable[] stay = new MPVariable[dem.length];
+      for (int s = 0; s < dem.length; s++) {
+        if (c.segments().get(s).chooses()) {
+          dem[s].setLb(c.segments().get(s).demand());
+          stay[s] = solver.makeNumVar(0, Double.POSITIVE_INFINITY, "");
+          dem[s].setCoefficient(stay[s], 1);
+        }
+      }
       MPConstraint limit = p.maxVariants() == Integer.MAX_VALUE ? null
           : solver.makeConstraint(Double.NEGATIVE_INFINITY, p.maxVariants());
       Map<Integer, MPVariable> tools = new HashMap<>();
@@ -108,6 +121,11 @@ public final class EnumeratedMip {
           link.setCoefficient(x, 1);
           link.setCoefficient(y, -u);
           lot.setCoefficient(x, -1);
+          if (stay[s] != null) {
+            MPConstraint logit = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0);
+            logit.setCoefficient(x, 1);
+            logit.setCoefficient(stay[s], -Math.exp(space.utility(w, s) - space.stayOut(s)));
+          }
         }
         for (int g = 0; g < groups; g++) {
           if (w[g] >= c.groups().get(g).options().size()) {
