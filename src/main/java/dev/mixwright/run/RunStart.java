@@ -4,6 +4,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
+import dev.mixwright.runfolder.RunFileDamaged;
 import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.runfolder.RunManifest;
@@ -36,10 +37,14 @@ public final class RunStart {
   static RunManifest begin(RunFolder folder, Catalog catalog, RunManifest.Source catalogSource,
       RunManifest.Source scenarioSource, RunManifest.Settings settings) throws IOException {
     Files.createDirectories(folder.dir());
-    Files.deleteIfExists(folder.manifest());
-    Files.deleteIfExists(folder.result());
-    Files.deleteIfExists(folder.snapshot());
-    Files.deleteIfExists(folder.columnLog());
+    try {
+      folder.claim(RunFolder.Kind.SOLVE);
+      if (folder.holdsRun()) {
+        folder.clearForReplace();
+      }
+    } catch (RunFileDamaged e) {
+      throw new InputError(e.getMessage());
+    }
     String copy = CatalogWriter.toJson(catalog);
     AtomicFiles.write(folder.catalogCopy(), copy);
     RunManifest m = RunManifest.begin(catalogSource, scenarioSource, Checksums.sha256(copy), settings);
