@@ -180,6 +180,11 @@ public record RunManifest(
       sessions.add(new Session(x.path("number").asInt(), x.path("kind").asText(),
           x.path("startedAt").asText(), x.path("note").asText("")));
     }
+    if (Files.exists(folder.catalogCopy())) {
+      // Its SHA-256 is checked by whoever reads it (a changed copy may be re-priced); bytes that are
+      // not text at all are damage no reader can handle, refused here before anyone reads them.
+      folder.readText(RunFolder.CATALOG_COPY);
+    }
     return new RunManifest(format, need(n, "runId", name).asText(), n.path("createdAt").asText(),
         source(need(n, "catalog", name), name + " catalog"),
         n.has("scenario") ? source(n.get("scenario"), name + " scenario") : null,
