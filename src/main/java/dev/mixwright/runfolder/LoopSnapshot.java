@@ -54,6 +54,8 @@ public record LoopSnapshot(
     String text;
     try {
       text = folder.readSealed(RunFolder.SNAPSHOT);
+    } catch (RunFileDamaged e) {
+      return new Loaded(Optional.empty(), RunFolder.SNAPSHOT + " is damaged (" + e.getMessage() + ")");
     } catch (NoSuchFileException e) {
       return new Loaded(Optional.empty(), "no " + RunFolder.SNAPSHOT + " (the run ended before its first round)");
     } catch (IOException e) {
