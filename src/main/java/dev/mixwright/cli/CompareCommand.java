@@ -83,7 +83,9 @@ final class CompareCommand implements Callable<Integer> {
       return null;
     }
     try {
-      return CatalogLoader.load(f);
+      return CatalogLoader.parse(new RunFolder(run).verifiedCatalogCopy(), f.toString(), null);
+    } catch (IOException e) {
+      throw new UserError(e.getMessage());
     } catch (CatalogException e) {
       return null; // the figures are then compared through result.json only
     }

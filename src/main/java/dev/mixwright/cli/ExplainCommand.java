@@ -78,7 +78,7 @@ final class ExplainCommand implements Callable<Integer> {
       throw new UserError("give --segment S --variant G=O,... to explain a variant, or --capacity-ranges for"
           + " the range of each shadow price");
     }
-    Catalog catalog = CatalogLoader.load(folder.catalogCopy());
+    Catalog catalog = CatalogLoader.parse(folder.verifiedCatalogCopy(), folder.catalogCopy().toString(), null);
     List<CapacityRanges.Range> ranges = capacityRanges
         ? CapacityRangeReport.compute(folder, catalog, resources, spec.commandLine().getErr()) : null;
     if (segmentId == null) {

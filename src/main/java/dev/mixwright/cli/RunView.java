@@ -26,7 +26,9 @@ final class RunView {
     try (StopSignals signals = StopSignals.install(err)) {
       RunOutcome o = job.run(new RunSession(signals.flag(), new Watcher(out, err, progress)));
       print(out, o);
-      return ExitCodes.of(o);
+      // A signal stops the integer stage too, which then ends with its best portfolio so far: the run
+      // was still stopped, whatever the LP stage proved.
+      return signals.flag().get() ? ExitCodes.STOPPED : ExitCodes.of(o);
     }
   }
 

@@ -14,6 +14,7 @@ import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
 import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFileDamaged;
 import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.scenario.Scenario;
@@ -75,6 +76,7 @@ public final class SweepRun {
     }
     ObjectNode header = Json.pretty().createObjectNode();
     header.put("format", 1);
+    header.put("kind", RunFolder.Kind.SWEEP.word());
     header.put("sweep", plan.name());
     ObjectNode cat = header.putObject("catalog");
     cat.put("name", catalog.name());
@@ -87,6 +89,11 @@ public final class SweepRun {
     SweepTable table = new SweepTable(plan, catalog, header);
 
     Files.createDirectories(r.outDir());
+    try {
+      new RunFolder(r.outDir()).claim(RunFolder.Kind.SWEEP);
+    } catch (RunFileDamaged e) {
+      throw new InputError(e.getMessage());
+    }
     try (RunLock lock = RunStart.lock(new RunFolder(r.outDir()))) {
       Set<Integer> done = keepEarlierRows(r, table, header, watcher);
       AtomicFiles.write(r.outDir().resolve(RunFolder.CATALOG_COPY), CatalogWriter.toJson(catalog));

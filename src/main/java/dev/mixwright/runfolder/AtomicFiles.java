@@ -6,6 +6,7 @@ import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
@@ -24,9 +25,16 @@ public final class AtomicFiles {
   public static void write(Path target, byte[] bytes) throws IOException {
     Path dir = target.toAbsolutePath().getParent();
     Files.createDirectories(dir);
+    if (Files.isSymbolicLink(target)) {
+      throw new RunFileDamaged(target + " is a symbolic link; mixwright never writes through a link (its target"
+          + " would be overwritten) — remove the link or choose another folder");
+    }
+    // A fresh name created here (createTempFile is CREATE_NEW), opened without following links, then
+    // renamed over the target: the rename replaces a directory entry and never writes into a link's target.
     Path tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
     try {
-      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
+      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING,
+          LinkOption.NOFOLLOW_LINKS)) {
         ByteBuffer buf = ByteBuffer.wrap(bytes);
         while (buf.hasRemaining()) {
           ch.write(buf);

@@ -57,6 +57,6 @@ class ReportCommandTest {
     Files.writeString(broken.resolve("result.json"), "{\"status\": ");
     CliRun r = CliRun.of("report", broken.toString());
     assertEquals(2, r.code(), r::toString);
-    assertTrue(r.err().contains("not valid JSON"), r::toString);
+    assertTrue(r.err().contains("result.json in " + broken + " is damaged"), r::toString);
   }
 }
