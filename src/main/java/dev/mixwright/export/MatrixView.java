@@ -145,7 +145,7 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
       for (double u : r.units) {
         line.add(u == 0 ? "-" : units.apply(u));
       }
-      line.add(units.apply(r.total()));
+      line.add(r.total() == 0 ? "-" : units.apply(r.total()));
       if (hasPortfolio) {
         line.add(r.portfolioUnits() == 0 ? "-" : units.apply(r.portfolioUnits()));
       }
