@@ -257,7 +257,36 @@ class CommandLineTest {
     assertTrue(r.get("stopReason").asText().contains("rules[0]") && r.get("stopReason").asText().contains("rules[1]"),
         r.get("stopReason").asText());
     CliRun c = CliRun.of("check", f.toString());
-    assertEquals(1, c.code());
+    assertEquals(2, c.code(), "nothing buildable is bad input for check");
     assertTrue(c.out().contains("rules[0]") && c.out().contains("rules[1]"), c.out());
+    assertFalse(c.out().contains("valid"), c.out());
+    assertTrue(c.err().contains("rules: ") && c.err().contains("rules[0]"), c.err());
+  }
+
+  @Test
+  void checkRefusesASegmentWhoseAcceptsLeavesNoBuildableVariant(@TempDir Path dir) throws IOException {
+    Path f = dir.resolve("narrow.yaml");
+    Files.writeString(f, """
+        format: 1
+        name: narrow
+        resources: [{id: line, capacity: 100}]
+        groups:
+          - id: body
+            options: [{id: a, price: 10, cost: 5}, {id: b, price: 12, cost: 6}]
+          - id: trim
+            options: [{id: x, price: 3, cost: 1}]
+        rules:
+          - {id: no-b, forbid: {body: [b], trim: [x]}}
+        segments:
+          - {id: all, demand: 10}
+          - {id: picky, demand: 5, accepts: {body: [b]}}
+        """);
+    CliRun c = CliRun.of("check", f.toString());
+    assertEquals(2, c.code(), c.out() + c.err());
+    assertTrue(c.err().contains("segments[1].accepts") && c.err().contains("picky"), c.err());
+    assertFalse(c.err().contains("at dev.mixwright"), c.err());
+    CliRun j = CliRun.of("check", "--json", f.toString());
+    assertEquals(2, j.code());
+    assertTrue(j.out().contains("\"valid\" : false"), j.out());
   }
 }
