@@ -41,6 +41,9 @@ class CommandLineTest {
       assertTrue(r.has(f), "result.json lacks " + f);
     }
     assertTrue(r.get("gap").asDouble() <= 1e-6);
+    // every line of the column log is a column counted, the seed columns included
+    assertEquals(Files.readAllLines(run.resolve("columns.jsonl")).size(), r.get("columnsGenerated").asInt());
+    assertTrue(solved.out().contains("V01 "), "the summary names variants by code: " + solved.out());
     // Counted by the demo author by brute force (catalog header comment).
     assertEquals("2244", r.get("buildableVariants").asText());
     assertTrue(r.get("bound").asDouble() >= r.get("objective").asDouble() - 1e-6);
@@ -205,6 +208,16 @@ class CommandLineTest {
     JsonNode p = done.get("portfolio");
     assertTrue(p != null && p.get("value").asDouble() > 0, done.toString());
     assertTrue(p.get("bound").asDouble() >= p.get("value").asDouble() - 1e-6);
+  }
+
+  @Test
+  void helpTextsKeepTheirTablesAndOneLineSummaries() {
+    CliRun sweep = CliRun.of("sweep", "--help");
+    assertTrue(sweep.out().contains("\n  rules.ID=on,off                            a rule switched\n"), sweep.out());
+    assertTrue(sweep.out().contains("\n  options.GROUP.OPTION.cost=-10%..+10%:10%    changes in percent\n"), sweep.out());
+    CliRun main = CliRun.of("--help");
+    String bench = main.out().substring(main.out().indexOf("  bench "));
+    assertTrue(bench.substring(0, bench.indexOf("  report ")).trim().endsWith("listed."), main.out());
   }
 
   @Test
