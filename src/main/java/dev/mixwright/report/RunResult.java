@@ -63,6 +63,7 @@ public record RunResult(
 
     public Offer {
       options = options == null ? Map.of() : options;
+      unitMargin = Figures.catalogSum(unitMargin);
     }
   }
 
