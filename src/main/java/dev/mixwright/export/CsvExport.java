@@ -1,5 +1,6 @@
 package dev.mixwright.export;
 
+import dev.mixwright.runfolder.AtomicFiles;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
@@ -20,7 +21,7 @@ public final class CsvExport {
     List<Path> files = new ArrayList<>();
     for (Table t : Tables.of(run)) {
       Path f = outDir.resolve(t.name() + ".csv");
-      OutputFiles.write(f, text(t).getBytes(StandardCharsets.UTF_8));
+      AtomicFiles.write(f, text(t).getBytes(StandardCharsets.UTF_8), true);
       files.add(f);
     }
     return files;

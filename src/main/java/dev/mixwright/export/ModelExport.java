@@ -1,5 +1,6 @@
 package dev.mixwright.export;
 
+import dev.mixwright.runfolder.AtomicFiles;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.colgen.Column;
@@ -73,11 +74,11 @@ public final class ModelExport {
     List<Column> columns = columns(run, space);
     List<Path> files = new ArrayList<>();
     Path master = outDir.resolve(MASTER);
-    OutputFiles.write(master, masterMps(run, space, columns).getBytes(StandardCharsets.UTF_8));
+    AtomicFiles.write(master, masterMps(run, space, columns).getBytes(StandardCharsets.UTF_8), true);
     files.add(master);
     if (run.result().portfolio() != null && catalog.portfolio().isPresent()) {
       Path p = outDir.resolve(PORTFOLIO);
-      OutputFiles.write(p, portfolioMps(run, space, columns).getBytes(StandardCharsets.UTF_8));
+      AtomicFiles.write(p, portfolioMps(run, space, columns).getBytes(StandardCharsets.UTF_8), true);
       files.add(p);
     }
     return files;

@@ -1,5 +1,6 @@
 package dev.mixwright.export;
 
+import dev.mixwright.runfolder.AtomicFiles;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.nio.file.Path;
@@ -27,7 +28,7 @@ public final class WorkbookExport {
       wb.finish();
     }
     Path f = outDir.resolve(FILE);
-    OutputFiles.write(f, bytes.toByteArray());
+    AtomicFiles.write(f, bytes.toByteArray(), true);
     return f;
   }
 

@@ -22,9 +22,20 @@ public final class AtomicFiles {
   }
 
   public static void write(Path target, byte[] bytes) throws IOException {
+    write(target, bytes, false);
+  }
+
+  /**
+   * As {@link #write(Path, byte[])}; {@code shared}: the file gets the process's default permissions
+   * (0644 under umask 022) rather than {@code createTempFile}'s owner-only 0600, for files made to be
+   * handed on (exports).
+   */
+  public static void write(Path target, byte[] bytes, boolean shared) throws IOException {
     Path dir = target.toAbsolutePath().getParent();
     Files.createDirectories(dir);
-    Path tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
+    Path tmp = shared
+        ? Files.createFile(dir.resolve("." + target.getFileName() + "." + System.nanoTime() + ".tmp"))
+        : Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
     try {
       try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
         ByteBuffer buf = ByteBuffer.wrap(bytes);

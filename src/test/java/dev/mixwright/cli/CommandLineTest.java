@@ -279,21 +279,10 @@ class CommandLineTest {
   @Test
   void checkRefusesASegmentWhoseAcceptsLeavesNoBuildableVariant(@TempDir Path dir) throws IOException {
     Path f = dir.resolve("narrow.yaml");
-    Files.writeString(f, """
-        format: 1
-        name: narrow
-        resources: [{id: line, capacity: 100}]
-        groups:
-          - id: body
-            options: [{id: a, price: 10, cost: 5}, {id: b, price: 12, cost: 6}]
-          - id: trim
-            options: [{id: x, price: 3, cost: 1}]
-        rules:
-          - {id: no-b, forbid: {body: [b], trim: [x]}}
-        segments:
-          - {id: all, demand: 10}
-          - {id: picky, demand: 5, accepts: {body: [b]}}
-        """);
+    // the clash catalog with one of its two rules gone: body b is still unbuildable, and 'picky' takes only b
+    Files.writeString(f, Catalogs.NOTHING_BUILDABLE.replace("- {id: no-a, forbid: {body: [a], trim: [x]}}", "")
+        .replace("segments: [{id: all, demand: 10}]",
+            "segments: [{id: all, demand: 10}, {id: picky, demand: 5, accepts: {body: [b]}}]"));
     CliRun c = CliRun.of("check", f.toString());
     assertEquals(2, c.code(), c.out() + c.err());
     assertTrue(c.err().contains("segments[1].accepts") && c.err().contains("picky"), c.err());
