@@ -50,8 +50,8 @@ import picocli.CommandLine.Spec;
     name = "bench",
     mixinStandardHelpOptions = true,
     description = {
-      "Measures column generation against listing every column and solving the whole LP,",
-      "on generated catalogs, and prints the tables of docs/performance.md (Markdown).",
+      "Measures column generation against solving the whole LP with every column listed.",
+      "Runs on generated catalogs and prints the tables of docs/performance.md (Markdown).",
       "Takes minutes; --quick runs the small sizes only."
     })
 final class BenchCommand implements Callable<Integer> {

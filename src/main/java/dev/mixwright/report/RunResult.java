@@ -78,6 +78,7 @@ public record RunResult(
 
     public Offer {
       options = options == null ? Map.of() : options;
+      unitMargin = Figures.catalogSum(unitMargin);
     }
 
     /** An offer of a fixed segment, without its price. */
