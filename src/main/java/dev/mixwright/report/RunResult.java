@@ -58,17 +58,49 @@ public record RunResult(
 
   public record CatalogRef(String name, String file, String sha256, String currency, String period) {}
 
+  /**
+   * One variant sold in one segment. {@code price}: what the segment pays per unit (the chosen price
+   * points plus its value), null in files written before it was recorded. {@code share} (of the
+   * segment's buyers) and {@code attraction} (w = exp(u − stayOut)) only for a segment that chooses.
+   */
   public record Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
-      double reducedCost, boolean atLimit, double contribution) {
+      double reducedCost, boolean atLimit, double contribution,
+      @JsonInclude(Include.NON_NULL) Double price,
+      @JsonInclude(Include.NON_NULL) Double share,
+      @JsonInclude(Include.NON_NULL) Double attraction) {
 
     public Offer {
       options = options == null ? Map.of() : options;
+    }
+
+    /** An offer of a fixed segment whose price is not recorded. */
+    public Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
+        double reducedCost, boolean atLimit, double contribution) {
+      this(segment, options, quantity, unitMargin, reducedCost, atLimit, contribution, null, null, null);
     }
   }
 
   public record ResourceRow(String id, double capacity, double used, Double shadowPrice, boolean binding) {}
 
-  public record SegmentRow(String id, double demand, double sold, Double shadowPrice) {}
+  /**
+   * One segment. For a segment that chooses, {@code buyers} and {@code stayOut} (buyers who buy none
+   * of the offered variants) are set and {@code shadowPrice} is the dual of its buyers row; both are
+   * null for a segment with fixed demand.
+   */
+  public record SegmentRow(String id, double demand, double sold, Double shadowPrice,
+      @JsonInclude(Include.NON_NULL) Double buyers,
+      @JsonInclude(Include.NON_NULL) Double stayOut) {
+
+    /** A segment with fixed demand. */
+    public SegmentRow(String id, double demand, double sold, Double shadowPrice) {
+      this(id, demand, sold, shadowPrice, null, null);
+    }
+
+    /** True for a segment that chooses by multinomial logit. */
+    public boolean chooses() {
+      return buyers != null;
+    }
+  }
 
   public record Round(int iteration, double objective, Double bound, Double gap, int columns, int added,
       boolean exactPricing, long elapsedMs) {}
