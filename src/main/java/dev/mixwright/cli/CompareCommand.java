@@ -118,6 +118,7 @@ final class CompareCommand implements Callable<Integer> {
     }
     section(out, "shadow prices of resources", c.path("resources"), "capacity", "used");
     section(out, "shadow prices of segments", c.path("segments"), "demand", "sold");
+    choosing(out, c.path("choosing"));
     out.flush();
   }
 
@@ -140,6 +141,23 @@ final class CompareCommand implements Callable<Integer> {
     }
     if (hidden > 0) {
       out.println("  (" + hidden + " unchanged; --all shows them)");
+    }
+  }
+
+  /** Segments that choose: who buys and who stays out, and each offer's share of the buyers. */
+  private static void choosing(PrintWriter out, JsonNode segs) {
+    if (!segs.isArray() || segs.isEmpty()) {
+      return;
+    }
+    out.println("segments that choose (multinomial logit):");
+    for (JsonNode s : segs) {
+      out.println(String.format(Locale.ROOT, "  %-14s buyers %s, buy %s, stay out %s, shadow price of a buyer %s -> %s",
+          s.path("id").asText(), arrow(s.path("buyers")), arrow(s.path("sold")), arrow(s.path("stayOut")),
+          money(s.path("shadowPrice").path("a")), money(s.path("shadowPrice").path("b"))));
+      for (JsonNode o : s.path("offers")) {
+        out.println(String.format(Locale.ROOT, "    share %6.1f%% -> %6.1f%%  %s", 100 * o.path("shareA").asDouble(),
+            100 * o.path("shareB").asDouble(), RunComparison.variant(o.path("options"))));
+      }
     }
   }
 

@@ -34,6 +34,15 @@ public record Substitution(
    */
   public record Taken(int[] choices, double attraction, double salesWithout, double taken) {}
 
+  /**
+   * The fraction of its buyers every other alternative loses when a variant of attraction w joins
+   * offers of total attraction W: 1/(1 + W) − 1/(1 + W + w) = w / ((1 + W)(1 + W + w)), applied to
+   * buyers · w_u for an offer u and to buyers for staying out.
+   */
+  public static double lostFraction(double w, double othersAttraction) {
+    return w / ((1 + othersAttraction) * (1 + othersAttraction + w));
+  }
+
   /** Buyers who stay out without the variant: buyers / (1 + W). */
   public double stayingOutWithout() {
     return buyers / (1 + othersAttraction);
