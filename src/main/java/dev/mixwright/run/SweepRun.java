@@ -111,6 +111,10 @@ public final class SweepRun {
       });
       boolean complete = table.rows().size() == plan.points().size()
           && table.rows().values().stream().noneMatch(SweepTable::stopped);
+      table.bestRow().ifPresent(b -> watcher.note(String.format(java.util.Locale.ROOT,
+          "best price of the sweep: %s (objective %,.2f); a segment that chooses buys less as the price"
+              + " rises, so the objective is a curve over the price", b.path("name").asText(),
+          b.path("objective").asDouble())));
       return new Outcome(table, plan, catalog, rows.size(), done.size(), complete);
     }
   }
