@@ -301,10 +301,17 @@ final class ExplainCommand implements Callable<Integer> {
               + " buyers (%s of %s), taken as follows:", sub.others().size(), w(sub.othersAttraction()),
           Numbers.qty(sub.sales()), pct(sub.share()), Numbers.qty(sub.buyers())));
     }
-    for (Substitution.Taken t : sub.others()) {
+    List<Substitution.Taken> most = new ArrayList<>(sub.others());
+    most.sort((a, b) -> Double.compare(b.taken(), a.taken()));
+    for (Substitution.Taken t : most.subList(0, Math.min(SHOWN, most.size()))) {
       out.println(String.format(Locale.ROOT, "    %12s  from %s (w %s; %s -> %s)", Numbers.qty(t.taken()),
           RunComparison.variant(space.describe(t.choices())), w(t.attraction()),
           Numbers.qty(t.salesWithout()), Numbers.qty(t.salesWithout() - t.taken())));
+    }
+    if (most.size() > SHOWN) {
+      double rest = most.subList(SHOWN, most.size()).stream().mapToDouble(Substitution.Taken::taken).sum();
+      out.println(String.format(Locale.ROOT, "    %12s  from the %d other offers (see --json)", Numbers.qty(rest),
+          most.size() - SHOWN));
     }
     out.println(String.format(Locale.ROOT, "    %12s  from staying out (%s -> %s)", Numbers.qty(sub.fromStayingOut()),
         Numbers.qty(sub.stayingOutWithout()), Numbers.qty(sub.stayingOutWithout() - sub.fromStayingOut())));
@@ -312,6 +319,9 @@ final class ExplainCommand implements Callable<Integer> {
         + " substitution); these are the logit's figures, and where a resource binds the plan may sell less"
         + " than this");
   }
+
+  /** Offers named one by one in the substitution list; the rest are summed. */
+  private static final int SHOWN = 8;
 
   private static String w(double attraction) {
     return String.format(Locale.ROOT, "%.4g", attraction);

@@ -26,6 +26,9 @@ public final class HtmlReport {
   private static final String AMBER = "#d98e04";
   private static final String TRACK = "#edf1f5";
 
+  /** Offers with a row and a column of their own in a substitution table; the rest are summed. */
+  private static final int SUBSTITUTION_MAX = 8;
+
   private HtmlReport() {}
 
   /** Reads RUN_DIR/result.json, renders it and writes the page atomically to {@code target}. */
@@ -390,25 +393,41 @@ public final class HtmlReport {
     for (RunResult.Offer o : offers) {
       total += o.attraction();
     }
-    h.append("<p class=\"note\">Who takes buyers from whom: each row is an offer, each cell the buyers it takes"
-        + " from the offer of that column (or from staying out), that is, what the column would gain if the row's"
-        + " offer were dropped. By the logit every alternative loses the same fraction of its buyers; these are the"
+    h.append("<p class=\"note\">Who takes buyers from whom: each row is an offer (numbered as above), each cell"
+        + " the buyers it takes from the offer of that column (or from staying out), that is, what the column would"
+        + " gain if the row's offer were dropped. By the logit every alternative loses the same fraction of its buyers; these are the"
         + " logit's figures, and where a resource binds the plan may sell less.</p>\n");
-    h.append("<table>\n<tr><th>takes buyers from →</th>");
-    for (int k = 1; k <= offers.size(); k++) {
-      h.append("<th class=\"n\">").append(k).append("</th>");
+    int k = Math.min(offers.size(), SUBSTITUTION_MAX);
+    boolean cut = k < offers.size();
+    h.append("<table>\n<tr><th>offer</th>");
+    for (int c = 1; c <= k; c++) {
+      h.append("<th class=\"n\">from ").append(c).append("</th>");
     }
-    h.append("<th class=\"n\">stay out</th></tr>\n");
-    for (int r = 0; r < offers.size(); r++) {
+    if (cut) {
+      h.append("<th class=\"n\">from ").append(k + 1).append("–").append(offers.size()).append("</th>");
+    }
+    h.append("<th class=\"n\">from staying out</th></tr>\n");
+    for (int r = 0; r < k; r++) {
       double wr = offers.get(r).attraction();
       double lost = Substitution.lostFraction(wr, total - wr);
       h.append("<tr><th>").append(r + 1).append("</th>");
-      for (int c = 0; c < offers.size(); c++) {
+      for (int c = 0; c < k; c++) {
         h.append("<td class=\"n\">").append(c == r ? "" : qty(buyers * offers.get(c).attraction() * lost)).append("</td>");
+      }
+      if (cut) {
+        double rest = 0;
+        for (int c = k; c < offers.size(); c++) {
+          rest += offers.get(c).attraction();
+        }
+        h.append("<td class=\"n\">").append(qty(buyers * rest * lost)).append("</td>");
       }
       h.append("<td class=\"n\">").append(qty(buyers * lost)).append("</td></tr>\n");
     }
     h.append("</table>\n");
+    if (cut) {
+      h.append("<p class=\"note\">Rows for offers ").append(k + 1).append("–").append(offers.size())
+          .append(" are left out to keep the table readable; <code>mixwright explain</code> gives any one of them.</p>\n");
+    }
   }
 
   /** The price points the plan chose in a segment, with the units sold at each. */
