@@ -37,12 +37,19 @@ class SubstitutionTest {
     return space.parse(Map.of("hull", hull, "oars", oars, "cover", cover));
   }
 
+  /** The three variants whose attractions are W1, W2 and W3. */
+  private static int[][] three(VariantSpace space) {
+    return new int[][] {v(space, "shell@4300", "carbon", "canvas"), v(space, "skiff", "wood", "none"),
+        v(space, "shell@3900", "wood", "canvas")};
+  }
+
   @Test
   void aVariantAddedTakesFromEachOfferInProportionToItsShare() throws Exception {
     VariantSpace space = boats();
-    int[] v1 = v(space, "shell@4300", "carbon", "canvas");
-    int[] v2 = v(space, "skiff", "wood", "none");
-    int[] v3 = v(space, "shell@3900", "wood", "canvas");
+    int[][] three = three(space);
+    int[] v1 = three[0];
+    int[] v2 = three[1];
+    int[] v3 = three[2];
     Substitution sub = new Explainer(space).substitution(v1, 0, List.of(v2, v3));
     double w = W2 + W3;
     assertFalse(sub.offered());
@@ -65,9 +72,10 @@ class SubstitutionTest {
   @Test
   void anOfferedVariantIsMeasuredAgainstThePlanWithoutIt() throws Exception {
     VariantSpace space = boats();
-    int[] v1 = v(space, "shell@4300", "carbon", "canvas");
-    int[] v2 = v(space, "skiff", "wood", "none");
-    int[] v3 = v(space, "shell@3900", "wood", "canvas");
+    int[][] three = three(space);
+    int[] v1 = three[0];
+    int[] v2 = three[1];
+    int[] v3 = three[2];
     Substitution sub = new Explainer(space).substitution(v1, 0, List.of(v3, v1, v2));
     assertTrue(sub.offered());
     assertEquals(2, sub.others().size());
