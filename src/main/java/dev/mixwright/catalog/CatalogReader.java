@@ -43,7 +43,7 @@ final class CatalogReader {
   private static final List<String> CHOICE_FIELDS =
       List.of("buyers", "stayOut", "priceWeight", "utility", "utilityFile");
   private static final List<String> PORTFOLIO_FIELDS =
-      List.of("introductionCost", "maxVariants", "minLot");
+      List.of("introductionCost", "maxVariants", "minLot", "wholeUnits");
 
   static final String PRICE_HINT = "the list price this option adds, e.g. price: 520";
   static final String PRICES_HINT =
@@ -796,7 +796,21 @@ final class CatalogReader {
         }
       }
     }
-    return Optional.of(new PortfolioSpec(introductionCost, maxVariants, minLot));
+    boolean wholeUnits = false;
+    JsonNode wu = value(v, "wholeUnits");
+    if (wu != null) {
+      if (wu.isBoolean()) {
+        wholeUnits = wu.booleanValue();
+      } else {
+        problem(
+            "portfolio.wholeUnits",
+            "must be true or false, got "
+                + Where.describe(wu)
+                + unquoteHint(wu, "wholeUnits")
+                + " — true: the integer stage sells whole units only; false (the default): any quantity");
+      }
+    }
+    return Optional.of(new PortfolioSpec(introductionCost, maxVariants, minLot, wholeUnits));
   }
 
   // ---------------------------------------------------------------- clauses and references

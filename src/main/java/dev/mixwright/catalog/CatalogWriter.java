@@ -162,6 +162,9 @@ public final class CatalogWriter {
                 n.put("maxVariants", p.maxVariants());
               }
               putNumber(n, "minLot", p.minLot());
+              if (p.wholeUnits()) {
+                n.put("wholeUnits", true);
+              }
             });
     return root;
   }

@@ -8,26 +8,25 @@ import java.util.List;
 
 /**
  * The one place that keeps catalogs with segments that choose, or options with price points, away
- * from the solvers of this version. The master LP still has fixed demand rows, so a choosing segment
- * would be solved as if it bought up to its buyers whatever it is offered; and parts of the explain,
- * report and integer-stage code still take a choice index for an option index, which is only true
- * without price points. A wrong plan is worse than none. Remove the calls (in {@code solve} and
- * {@code sweep}) and this class once the sales-based master is in and those places use {@code
- * VariantSpace.optionOf}.
+ * from {@code sweep}. {@code solve} and {@code resume} run them (the master is the sales-based LP;
+ * the integer stage is skipped for choosing segments in {@code run.PortfolioStep}); a sweep's
+ * scenario changes and table have not been checked against the choice model and price points yet,
+ * and a wrong table is worse than none. Remove the call in {@code run.SweepRun} and this class once
+ * they are.
  */
 public final class NotSolvedYet {
   private NotSolvedYet() {}
 
   /** Throws one problem per choosing segment and per option with price points; else returns. */
-  public static void refuseChoiceFeatures(Catalog catalog) throws CatalogException {
+  public static void refuseInSweep(Catalog catalog) throws CatalogException {
     List<CatalogProblem> problems = new ArrayList<>();
     for (int s = 0; s < catalog.segments().size(); s++) {
       if (catalog.segments().get(s).chooses()) {
         problems.add(
             new CatalogProblem(
                 "segments[" + s + "].choice",
-                "segments that choose are not solved by this version yet — `check` describes"
-                    + " them; to solve now, give segment '"
+                "sweeps over segments that choose are not run by this version yet — `solve`"
+                    + " solves the catalog; to sweep now, give segment '"
                     + catalog.segments().get(s).id()
                     + "' a fixed demand instead of choice"));
       }
@@ -39,8 +38,8 @@ public final class NotSolvedYet {
           problems.add(
               new CatalogProblem(
                   "groups[" + g + "].options[" + k + "].prices",
-                  "options with price points are not solved by this version yet — `check`"
-                      + " describes them; to solve now, give option '"
+                  "sweeps over options with price points are not run by this version yet —"
+                      + " `solve` solves the catalog; to sweep now, give option '"
                       + options.get(k).id()
                       + "' one price"));
         }

@@ -153,6 +153,7 @@ final class BenchCommand implements Callable<Integer> {
     line("");
     line("Instances: " + specs(all) + ".");
     line("");
+    choicePair();
 
     line("## Exact pricers on the same duals");
     line("");
@@ -187,6 +188,38 @@ final class BenchCommand implements Callable<Integer> {
       AtomicFiles.write(outFile, report.toString());
     }
     return ExitCodes.OK;
+  }
+
+  /**
+   * The same generated catalog with fixed demand and with every segment choosing (part-worths of
+   * spread 3 utils, {@code generate --choice-spread 3}): the time to prove each LP optimum and the
+   * ratio, measured in this run (docs/choice.md).
+   */
+  private void choicePair() {
+    CatalogGenerator.Spec sp = CatalogGenerator.Spec.of(6, 6, 8, 4, 10, seed);
+    Instance fixed = instance("fixed demand", sp);
+    Catalog c = CatalogGenerator.choosing(CatalogGenerator.generate(sp), seed, 3.0);
+    Instance choosing = new Instance("segments that choose", sp, new VariantSpace(c), fixed.variants, fixed.columns);
+    note("segments that choose against fixed demand");
+    line("## Segments that choose against fixed demand");
+    line("");
+    line("| catalog | buildable variants | time | rounds | columns | sold (variant, segment) pairs |");
+    line("|---|---|---|---|---|---|");
+    long[] nanos = new long[2];
+    Instance[] pair = {fixed, choosing};
+    for (int i = 0; i < 2; i++) {
+      CgRun r = colgen(pair[i], SolveSettings.defaults());
+      nanos[i] = r.nanos;
+      long sold = java.util.Arrays.stream(r.outcome.x()).filter(x -> x > 1e-6).count();
+      line(String.format(Locale.ROOT, "| %s | %s | %s (%s) | %d | %d | %d |", pair[i].label, sci(pair[i].variants.value()),
+          secs(r.nanos), r.outcome.status().word(), r.outcome.iterations(), r.outcome.columns().size(), sold));
+    }
+    line("");
+    line(String.format(Locale.ROOT, "Ratio choosing/fixed: %.1f. Catalog: `generate --groups %d --options %d"
+        + " --resources %d --segments %d --rules %d --seed %d`, with and without `--choice-spread 3`.",
+        (double) nanos[1] / nanos[0], sp.groups(), sp.options(), sp.resources(), sp.segments(), sp.rules(), sp.seed()));
+    line("");
+    out.flush();
   }
 
   // ---- instances -------------------------------------------------------------------------

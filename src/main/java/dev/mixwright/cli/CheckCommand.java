@@ -7,6 +7,8 @@ import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.choice.ChoiceDescription;
+import dev.mixwright.colgen.Durations;
+import dev.mixwright.report.ResultWriter;
 import dev.mixwright.run.Inputs;
 import dev.mixwright.run.SpaceFacts;
 import dev.mixwright.runfolder.Json;
@@ -28,7 +30,7 @@ import picocli.CommandLine.Spec;
     name = "check",
     mixinStandardHelpOptions = true,
     description = {
-      "Validates a catalog and describes it: groups, rules, resources, segments and the exact number of buildable variants, in total and per segment.",
+      "Validates a catalog and describes it: groups, rules, resources, segments and the number of buildable variants, in total and per segment: exact when the count ends within --count-time, else bounds from both sides and an estimate.",
       "Every problem is named by its path in the file."
     })
 final class CheckCommand implements Callable<Integer> {
@@ -40,21 +42,46 @@ final class CheckCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print the description as JSON")
   boolean json;
 
+  @Option(names = "--count-time", paramLabel = "DURATION", defaultValue = "2s",
+      description = "time for counting the buildable variants, e.g. 2s, 60s, 10m; past it the counts are"
+          + " bounds with an estimate (default ${DEFAULT-VALUE})")
+  String countTime;
+
+  @Option(names = "--count-to-end", description = "count until the counts are exact (or bounded by the table limit), however long it takes")
+  boolean countToEnd;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     Catalog catalog = Inputs.catalog(catalogFile);
     VariantSpace space = new VariantSpace(catalog);
-    SpaceFacts facts = SpaceFacts.of(space);
+    long budgetMs = countToEnd ? 0 : countBudget(countTime);
+    SpaceFacts facts = SpaceFacts.of(space, budgetMs);
     List<String> notes = notes(space, facts);
     ChoiceDescription choices = ChoiceDescription.of(space);
     notes.addAll(choices.warnings());
+    if (!countToEnd && !facts.total().exact()) {
+      notes.add("the counts stopped after " + countTime + " with bounds; 'check --count-time 60s' counts for a"
+          + " minute, and 'check --count-to-end' until they are exact or no table fits");
+    }
     if (json) {
       out.println(Json.pretty().writeValueAsString(toJson(catalog, space, facts, notes).set("choice", choices.json())));
     } else {
       print(out, catalog, space, facts, notes, choices.lines());
     }
     return facts.nothingSellable() ? ExitCodes.STOPPED : ExitCodes.OK;
+  }
+
+  private static long countBudget(String text) {
+    try {
+      long ms = Durations.parse(text);
+      if (ms <= 0) {
+        throw new IllegalArgumentException("must be above 0");
+      }
+      return ms;
+    } catch (IllegalArgumentException e) {
+      throw new UserError("--count-time: " + e.getMessage() + " (use --count-to-end for no limit)");
+    }
   }
 
   static List<String> notes(VariantSpace space, SpaceFacts facts) {
@@ -78,25 +105,16 @@ final class CheckCommand implements Callable<Integer> {
     n.put("choices", space.totalChoices());
     n.put("rules", c.rules().size());
     n.put("resources", c.resources().size());
-    putCount(n, "buildableVariants", facts.total());
+    ResultWriter.putCount(n, "buildableVariants", facts.total());
     ArrayNode segs = n.putArray("segments");
     for (int s = 0; s < c.segments().size(); s++) {
       ObjectNode o = segs.addObject();
       o.put("id", c.segments().get(s).id());
-      putCount(o, "acceptedVariants", facts.perSegment().get(s));
+      ResultWriter.putCount(o, "acceptedVariants", facts.perSegment().get(s));
     }
     ArrayNode ns = n.putArray("notes");
     notes.forEach(ns::add);
     return n;
-  }
-
-  private static void putCount(ObjectNode n, String field, SpaceCount count) {
-    if (count.exact()) {
-      n.put(field, count.value().toString());
-    } else {
-      n.putNull(field);
-      n.put(field + "AtMost", count.value().toString());
-    }
   }
 
   private static void print(PrintWriter out, Catalog c, VariantSpace space, SpaceFacts facts, List<String> notes,

@@ -30,6 +30,28 @@ import java.util.Optional;
  * Bound for any resource prices y ≥ 0 (see {@link LagrangianLpBound}), used at every exact round and
  * the only one valid at smoothed duals:
  *   UB(y) = Σ_r y_r·capacity_r + Σ_s K_s(y),  K_s = continuous knapsack of segment s by m_j − a_j·y
+ *
+ * Segments that choose (sales-based LP, Gallego, Ratliff &amp; Shebalov 2015, Operations Research
+ * 63(1):212–232): instead of the demand row, Σ_{j∈s} x_j + x_s0 = buyers_s (μ_s free) and per column
+ * of s in the master its own row x_j − w_j·x_s0 ≤ 0 (β_j ≥ 0); x_s0 ≥ 0 has margin 0.
+ *   Dual of the full LP: column j needs π·a_j + μ_s + β_j ≥ m_j; x_s0 needs μ_s − Σ_{j∈s} w_j β_j ≥ 0.
+ *   Give every absent column β_j = 0. Then x_s0's dual row holds already (it involves the present
+ *   rows only, and the master's duals satisfy it), and an absent column's holds iff
+ *   d_j = m_j − π·a_j − μ_s ≤ 0. So pricing keeps its shape: weights m − π·a, constant −μ_s, every
+ *   column of s in the master excluded (its own β prices it; it may keep d &gt; 0 legitimately).
+ *   Bound: for any x feasible in the full LP, the relaxed rows have the signs of their duals
+ *   (π·(b − A x) ≥ 0, β_j·(w_j x_s0 − x_j) ≥ 0, the buyers row is met), so
+ *     Σ m x ≤ π·b + Σ_s μ_s·buyers_s + Σ_present (m_j − π·a_j − μ_s − β_j) x_j
+ *             + Σ_s (Σ_present w_j β_j − μ_s) x_s0 + Σ_absent d_j x_j
+ *   The first two terms are the master's dual objective = z_RM; the present columns' and x_s0's
+ *   coefficients are ≤ 0 by the master's dual feasibility; and Σ_absent x_j ≤ buyers_s. Hence
+ *     z_LP ≤ z_RM + Σ_s buyers_s · max(0, d̄_s),   the Lasdon-type bound with κ_s = buyers_s.
+ *   The Lagrangian bound stays valid unchanged: every feasible x of a choosing segment has
+ *   Σ_j x_j ≤ buyers_s, which is the knapsack with demand = buyers and each item bounded by buyers
+ *   (the Segment's maxShare 1), a relaxation of the segment's choice rows. It is weak for such
+ *   segments, which is why smoothing earns little with them; it is never wrong. Choosing columns
+ *   are never retired (their row carries β), see {@link MasterPool}.
+ *   Entering columns of a choosing segment are ranked per {@link ChoiceEntry}.
  * </pre>
  *
  * <p>Accelerations, each a switch of {@link SolveSettings}: k columns per segment per round; a
@@ -54,6 +76,12 @@ public final class ColumnGeneration {
   private final double[] capacity;
   private final double[] demand;
   private final double[] upper;
+  private final boolean[] chooses;
+  private ChoiceEntry choiceEntry = ChoiceEntry.DEFAULT;
+  /** Passes of {@link #rateSearch} per choosing segment and round. */
+  private static final int RATE_PASSES = 3;
+  /** Per segment, the columns the last round's rate search proposed (empty for fixed segments). */
+  private final List<List<PricedVariant>> rateFound = new ArrayList<>();
   private final LagrangianLpBound lagrangian;
   /**
    * A column must pay more than this to enter; tiny against any catalog's margins, large against
@@ -96,7 +124,9 @@ public final class ColumnGeneration {
     }
     this.demand = new double[segCount];
     this.upper = new double[segCount];
+    this.chooses = new boolean[segCount];
     for (int s = 0; s < segCount; s++) {
+      chooses[s] = space.chooses(s);
       demand[s] = space.catalog().segments().get(s).demand();
       upper[s] = space.catalog().segments().get(s).columnBound();
     }
@@ -128,6 +158,12 @@ public final class ColumnGeneration {
     return this;
   }
 
+  /** How the columns of choosing segments enter (default {@link ChoiceEntry#DEFAULT}). */
+  public ColumnGeneration withChoiceEntry(ChoiceEntry entry) {
+    this.choiceEntry = entry;
+    return this;
+  }
+
   private long elapsedMs() {
     return (System.nanoTime() - startNanos) / 1_000_000;
   }
@@ -144,7 +180,7 @@ public final class ColumnGeneration {
   /** Runs the loop, starting from {@code warmStart} columns (e.g. from an earlier run) plus the seed. */
   public SolveOutcome run(List<Column> warmStart) {
     counters = new LoopCounters();
-    try (RestrictedMaster master = new RestrictedMaster(capacity, demand)) {
+    try (RestrictedMaster master = new RestrictedMaster(capacity, demand, chooses)) {
       MasterPool pool = new MasterPool(space, master, counters);
       int warmCount = seed(pool, warmStart);
       listeners.forEach(l -> l.started(pool.size()));
@@ -197,7 +233,7 @@ public final class ColumnGeneration {
       if (end.isPresent()) {
         return ended(new SolveOutcome(end.get().status(), end.get().reason(),
             new ValueBound(sol.objective(), bestBound), iteration,
-            new MasterColumns(pool.columns(), sol.x(), sol.reducedCost()),
+            new MasterColumns(pool.columns(), sol.x(), sol.reducedCost(), sol.columnDual(), sol.stayingOut()),
             new Duals(sol.resourceDual(), sol.segmentDual()), history, elapsedMs()));
       }
       round.found().forEach(pool::add);
@@ -260,10 +296,12 @@ public final class ColumnGeneration {
   /** One pricing call per segment at (y, ν): the heuristic first when asked, exact where it finds nothing. */
   private List<PricingOutcome> priceSegments(MasterPool pool, double[] y, double[] nu) {
     List<PricingOutcome> outcomes = new ArrayList<>();
+    rateFound.clear();
     for (int s = 0; s < space.segmentCount(); s++) {
       // Threshold 0, so that the bound uses the best reduced cost itself; only columns that pay more
       // than the round-off tolerance enter.
-      PricingQuery q = ReducedCosts.query(space, s, y, nu[s], settings.perRound(), 0.0, pool.active(s));
+      int k = chooses[s] ? choiceEntry.asked(settings.perRound()) : settings.perRound();
+      PricingQuery q = ReducedCosts.query(space, s, y, nu[s], k, 0.0, pool.active(s));
       PricingOutcome o = null;
       if (settings.heuristicFirst() && heuristic != null) {
         long h0 = System.nanoTime();
@@ -273,10 +311,57 @@ public final class ColumnGeneration {
           o = null;
         }
       }
-      outcomes.add(o != null ? o : priceExact(q));
+      o = o != null ? o : priceExact(q);
+      outcomes.add(o);
+      rateFound.add(chooses[s] && choiceEntry.searchesRate() && o.best() > entryTolerance
+          ? rateSearch(pool, s, y, nu[s], q.weight(), o.best())
+          : List.of());
     }
     return outcomes;
   }
+
+  /**
+   * Columns of choosing segment s with a high rate w·d, found by pricing u(v) + d(v)/D for a scale D
+   * (both terms additive over the groups, so the pricers answer it as they are). Why: log(w·d) =
+   * u − stayOut + log d, and its first-order change is δu + δd/d, so at the column of best rate
+   * D = its own d; starting from D = the best d, each pass sets D to the d of the best-rate column
+   * found, a fixed-point iteration that stops when D settles (at most {@link #RATE_PASSES} passes).
+   * Plain max-d pricing stays the exact test: this only proposes columns, each with its true d at
+   * (y, ν), and only those that pay enter. O(passes) pricing calls.
+   */
+  private List<PricedVariant> rateSearch(MasterPool pool, int s, double[] y, double nu, double[] dWeight, double bestD) {
+    double[] util = space.choiceUtilities(s);
+    List<PricedVariant> out = new ArrayList<>();
+    java.util.Set<dev.mixwright.space.VariantKey> seen = new java.util.HashSet<>();
+    double scale = bestD;
+    for (int pass = 0; pass < RATE_PASSES; pass++) {
+      double[] w = new double[dWeight.length];
+      for (int f = 0; f < w.length; f++) {
+        w[f] = dWeight[f] == Double.NEGATIVE_INFINITY ? Double.NEGATIVE_INFINITY : util[f] + dWeight[f] / scale;
+      }
+      PricingOutcome o = priceExact(new PricingQuery(s, w, -nu / scale, choiceEntry.asked(settings.perRound()),
+          Double.NEGATIVE_INFINITY, pool.active(s)));
+      double bestRate = 0;
+      double next = scale;
+      for (PricedVariant pv : o.found()) {
+        double d = ReducedCosts.of(space, pv.choices(), s, y, nu);
+        if (d > entryTolerance && seen.add(space.key(pv.choices()))) {
+          out.add(new PricedVariant(pv.choices(), d));
+          double rate = MasterPool.attraction(space, pv.choices(), s) * d;
+          if (rate > bestRate) {
+            bestRate = rate;
+            next = d;
+          }
+        }
+      }
+      if (Math.abs(next - scale) <= 1e-3 * scale) {
+        break;
+      }
+      scale = next;
+    }
+    return out;
+  }
+
 
   /** The bounds an exact round at (y, ν) proves; see {@link RoundBound}. */
   private RoundBound bound(MasterPool pool, MasterSolution sol, List<PricingOutcome> outcomes, double[] y,
@@ -295,15 +380,48 @@ public final class ColumnGeneration {
   private List<Column> entering(List<PricingOutcome> outcomes, double alpha, double[] pi, double[] mu, int iteration) {
     List<Column> found = new ArrayList<>();
     for (int s = 0; s < outcomes.size(); s++) {
-      for (PricedVariant pv : outcomes.get(s).found()) {
+      List<Column> paying = new ArrayList<>();
+      List<PricedVariant> candidates = new ArrayList<>(outcomes.get(s).found());
+      if (s < rateFound.size()) {
+        java.util.Set<dev.mixwright.space.VariantKey> seen = new java.util.HashSet<>();
+        candidates.forEach(pv -> seen.add(space.key(pv.choices())));
+        for (PricedVariant pv : rateFound.get(s)) {
+          if (seen.add(space.key(pv.choices()))) {
+            candidates.add(pv);
+          }
+        }
+      }
+      for (PricedVariant pv : candidates) {
         // At a smoothed point a column may price out positive yet not pay at the master's duals.
         double d = alpha == 0 ? pv.reducedCost() : ReducedCosts.of(space, pv.choices(), s, pi, mu[s]);
         if (d > entryTolerance) {
-          found.add(column(s, pv.choices(), iteration, d));
+          paying.add(column(s, pv.choices(), iteration, d));
         }
       }
+      found.addAll(chooses[s] ? choosingEntering(paying, s) : paying);
     }
     return found;
+  }
+
+  /** The paying columns of choosing segment s that enter, per {@link ChoiceEntry}. */
+  private List<Column> choosingEntering(List<Column> paying, int s) {
+    int keep = choiceEntry.entering(settings.perRound());
+    if (choiceEntry.byRate()) {
+      double[] rate = new double[paying.size()];
+      Integer[] order = new Integer[paying.size()];
+      for (int i = 0; i < order.length; i++) {
+        Column c = paying.get(i);
+        rate[i] = MasterPool.attraction(space, c.choices(), s) * c.reducedCostAtEntry();
+        order[i] = i;
+      }
+      Arrays.sort(order, (p, q) -> Double.compare(rate[q], rate[p]));
+      List<Column> out = new ArrayList<>();
+      for (int i = 0; i < Math.min(keep, order.length); i++) {
+        out.add(paying.get(order[i]));
+      }
+      return out;
+    }
+    return paying.subList(0, Math.min(keep, paying.size()));
   }
 
   private void announce(List<Column> columns, MasterSolution sol, double bound) {

@@ -1,5 +1,6 @@
 package dev.mixwright.colgen;
 
+import dev.mixwright.choice.Logit;
 import dev.mixwright.master.MasterSolution;
 import dev.mixwright.master.RestrictedMaster;
 import dev.mixwright.space.VariantKey;
@@ -17,7 +18,8 @@ import java.util.Set;
  * pricing must skip (the active columns), where each known variant sits, and the figures for the
  * Lagrangian bound on primitive arrays. A retired column keeps its place (bounds 0, so x stays
  * aligned with the columns) and leaves the skip set; found again, it is revived instead of added
- * twice.
+ * twice. A column of a choosing segment enters with its attraction row and is never retired: its
+ * row's dual β prices it, so it must stay excluded from pricing for as long as the row is there.
  */
 final class MasterPool {
   private final VariantSpace space;
@@ -73,7 +75,12 @@ final class MasterPool {
     if (n == segment.length) {
       grow(2 * n);
     }
-    master.addColumn(c.segment(), c.margin(), c.use(), c.upper());
+    int s = c.segment();
+    if (space.chooses(s)) {
+      master.addChoiceColumn(s, c.margin(), c.use(), attraction(space, c.choices(), s));
+    } else {
+      master.addColumn(s, c.margin(), c.use(), c.upper());
+    }
     columns.add(c);
     segment[n] = c.segment();
     margin[n] = c.margin();
@@ -81,6 +88,11 @@ final class MasterPool {
     bound[n] = c.upper();
     active.get(c.segment()).add(key);
     index.get(c.segment()).put(key, n);
+  }
+
+  /** w_s(v) = exp(u_s(v) − stayOut_s) of a choosing segment s. */
+  static double attraction(VariantSpace space, int[] v, int s) {
+    return Logit.attraction(space.utility(v, s), space.stayOut(s));
   }
 
   private void grow(int cap) {
@@ -105,7 +117,7 @@ final class MasterPool {
     double[] x = sol.x();
     double[] rc = sol.reducedCost();
     for (int j = 0; j < columns.size(); j++) {
-      if (bound[j] == 0) {
+      if (bound[j] == 0 || space.chooses(segment[j])) {
         continue;
       }
       if (x[j] > 0) {

@@ -1,5 +1,6 @@
 package dev.mixwright.master;
 
+import com.google.ortools.linearsolver.MPConstraint;
 import com.google.ortools.linearsolver.MPVariable;
 import java.util.ArrayList;
 import java.util.List;
@@ -31,6 +32,7 @@ public final class PortfolioLp implements AutoCloseable {
   private final double[] demand;
   private final int limit;
   private final List<Block> blocks = new ArrayList<>();
+  private final List<MPConstraint> counts = new ArrayList<>();
 
   private record Block(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
       double minLot, MPVariable y, MPVariable[] x) {}
@@ -66,6 +68,40 @@ public final class PortfolioLp implements AutoCloseable {
   /** Bounds on y_i: {@code 1, 1} offers the variant, {@code 0, 0} leaves it out, {@code 0, 1} relaxes. */
   public void fixIntroduction(int i, double lower, double upper) {
     blocks.get(i).y().setBounds(lower, upper);
+  }
+
+  /**
+   * A new row {@code lo ≤ Σ_{i in the row} y_i + a ≤ hi}, free until {@link #setCountBounds} (a
+   * branching decision on how many variants of some kind are offered); returns its index. The
+   * artificial a ≥ 0 costs {@code artificialCost} per unit: it keeps the restricted master feasible
+   * when the lower side needs variants that pricing has yet to bring in.
+   */
+  public int addCountRow(double artificialCost) {
+    MPConstraint c = rows.solver.makeConstraint(Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
+        "count" + counts.size());
+    MPVariable a = rows.solver.makeNumVar(0.0, Double.POSITIVE_INFINITY, "a" + counts.size());
+    rows.objective.setCoefficient(a, -artificialCost);
+    c.setCoefficient(a, 1.0);
+    counts.add(c);
+    return counts.size() - 1;
+  }
+
+  /** Puts y of block i into count row r with coefficient 1. */
+  public void addToCount(int r, int i) {
+    counts.get(r).setCoefficient(blocks.get(i).y(), 1.0);
+  }
+
+  /** Bounds of count row r; infinite for none. */
+  public void setCountBounds(int r, double lo, double hi) {
+    counts.get(r).setBounds(lo, hi);
+  }
+
+  /**
+   * The dual value of count row r after an optimal solve: ∂z/∂(the active side), so ≥ 0 when its
+   * upper side binds and ≤ 0 when its lower side does.
+   */
+  public double countDual(int r) {
+    return counts.get(r).dualValue();
   }
 
   public int variantCount() {

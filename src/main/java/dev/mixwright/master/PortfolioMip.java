@@ -67,13 +67,21 @@ public final class PortfolioMip implements AutoCloseable {
   private final Map<Integer, MPVariable> tools = new HashMap<>();
   private final List<MPVariable> ys = new ArrayList<>();
   private final List<MPVariable[]> xs = new ArrayList<>();
+  private final boolean wholeUnits;
 
   /**
    * @param variantLimit K, {@code Integer.MAX_VALUE} for none
    * @param toolCost tooling cost per tool id (for the catalog: per flat choice)
    */
   public PortfolioMip(Engine engine, double[] capacity, double[] demand, int variantLimit, double[] toolCost) {
+    this(engine, capacity, demand, variantLimit, toolCost, false);
+  }
+
+  /** As above; {@code wholeUnits}: every sales variable integer (the catalog's whole units). */
+  public PortfolioMip(Engine engine, double[] capacity, double[] demand, int variantLimit, double[] toolCost,
+      boolean wholeUnits) {
     this.engine = engine;
+    this.wholeUnits = wholeUnits;
     this.toolCost = toolCost.clone();
     rows = new Rows(engine.solverId, capacity, demand, variantLimit);
     solver = rows.solver;
@@ -95,6 +103,12 @@ public final class PortfolioMip implements AutoCloseable {
     int i = ys.size();
     MPVariable y = solver.makeBoolVar("y" + i);
     MPVariable[] x = rows.addBlock(i, y, segments, margin, use, upper, fixedCost, minLot);
+    if (wholeUnits) {
+      for (MPVariable xk : x) {
+        xk.setInteger(true);
+        xk.setUb(Math.floor(xk.ub() + 1e-9)); // a share limit of 12.5 units sells at most 12
+      }
+    }
     for (int t : toolIds) {
       if (toolCost[t] <= 0) {
         continue;
@@ -111,6 +125,11 @@ public final class PortfolioMip implements AutoCloseable {
     ys.add(y);
     xs.add(x);
     return i;
+  }
+
+  /** Bounds on y_i: {@code 1, 1} offers the variant, {@code 0, 0} leaves it out. */
+  public void fixIntroduction(int i, double lower, double upper) {
+    ys.get(i).setBounds(lower, upper);
   }
 
   /** A starting solution: y per variant, x per variant and listed segment (null entries for none). */

@@ -131,6 +131,28 @@ final class Rows implements AutoCloseable {
     return x;
   }
 
+  /**
+   * Turns segment row s into the buyers row of a segment that chooses, Σ_j x_j + x_s0 = buyers
+   * (Gallego, Ratliff &amp; Shebalov 2015), and returns its stay-out variable x_s0 ≥ 0 (margin 0).
+   */
+  MPVariable makeBuyersRow(int s, double buyers) {
+    segmentRows[s].setBounds(buyers, buyers);
+    MPVariable stay = solver.makeNumVar(0.0, Double.POSITIVE_INFINITY, "stay" + s);
+    segmentRows[s].setCoefficient(stay, 1.0);
+    return stay;
+  }
+
+  /**
+   * The row of a choosing segment's column, x_j − w_j·x_s0 ≤ 0: the column sells at most w_j times
+   * what stays out, the multinomial logit's ratio (its dual β_j ≥ 0).
+   */
+  MPConstraint addAttractionRow(String name, MPVariable x, MPVariable stay, double attraction) {
+    MPConstraint row = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, name);
+    row.setCoefficient(x, 1.0);
+    row.setCoefficient(stay, -attraction);
+    return row;
+  }
+
   /** Moves the right-hand side of resource row r. */
   void setCapacity(int r, double value) {
     resourceRows[r].setUb(value);
@@ -151,6 +173,25 @@ final class Rows implements AutoCloseable {
     return duals(resourceRows);
   }
 
+  /**
+   * μ_s per segment row, after an optimal LP solve: ≥ 0 for a demand row; as the solver gives it
+   * for a buyers row ({@code free[s]}), an equality whose dual has no sign of its own.
+   */
+  double[] segmentDuals(boolean[] free) {
+    double[] out = duals(segmentRows);
+    for (int s = 0; s < out.length; s++) {
+      if (free[s]) {
+        out[s] = segmentRows[s].dualValue() + 0.0;
+      }
+    }
+    return out;
+  }
+
+  /** A row's dual clamped at 0 (a negative zero or round-off of a ≤ row of a maximisation reads 0). */
+  static double nonNegativeDual(MPConstraint row) {
+    return Math.max(0.0, row.dualValue());
+  }
+
   /** μ_s ≥ 0 per segment row, after an optimal LP solve. */
   double[] segmentDuals() {
     return duals(segmentRows);
@@ -164,7 +205,7 @@ final class Rows implements AutoCloseable {
   private static double[] duals(MPConstraint[] rows) {
     double[] out = new double[rows.length];
     for (int i = 0; i < out.length; i++) {
-      out[i] = Math.max(0.0, rows[i].dualValue());
+      out[i] = nonNegativeDual(rows[i]);
     }
     return out;
   }

@@ -1,14 +1,20 @@
 package dev.mixwright.portfolio;
 
+import dev.mixwright.master.MipSolution;
 import dev.mixwright.master.PortfolioLp;
 import dev.mixwright.master.PortfolioLpSolution;
+import dev.mixwright.master.PortfolioMip;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
 
-/** The best sales for a fixed set of offered variants: an LP with every introduction at 1. */
+/**
+ * The best sales for a fixed set of offered variants: an LP with every introduction at 1, or, when
+ * the catalog sells whole units, the same model with integer sales on SCIP (at most K variants, so a
+ * small MIP).
+ */
 final class FixedPortfolio {
   private FixedPortfolio() {}
 
@@ -21,6 +27,9 @@ final class FixedPortfolio {
     }
     if (m.length > terms.maxVariants()) {
       return null;
+    }
+    if (terms.wholeUnits()) {
+      return wholeUnits(pool, terms, m);
     }
     try (PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), PortfolioTerms.UNLIMITED)) {
       Set<Integer> tools = new HashSet<>();
@@ -46,6 +55,45 @@ final class FixedPortfolio {
       }
       double intro = terms.introductionCost() * m.length;
       return new Plan(m, sales, sol.objective() - tooling, intro, tooling);
+    }
+  }
+
+  private static Plan wholeUnits(Pool pool, PortfolioTerms terms, int[] m) {
+    try (PortfolioMip mip = new PortfolioMip(PortfolioMip.Engine.SCIP, terms.capacity(), terms.demand(),
+        PortfolioTerms.UNLIMITED, terms.choiceCost(), true)) {
+      for (int i : m) {
+        PoolVariant v = pool.get(i);
+        int j = mip.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(),
+            v.tools());
+        mip.fixIntroduction(j, 1, 1);
+      }
+      // K variants with a few integer sales each: quick; a plan found within the limit is feasible
+      // either way, and only serves as an incumbent
+      MipSolution sol = mip.solve(10_000, 0.0);
+      if (!sol.status().hasSolution()) {
+        return null;
+      }
+      List<double[]> sales = new ArrayList<>();
+      double value = 0;
+      Set<Integer> tools = new HashSet<>();
+      for (int j = 0; j < m.length; j++) {
+        PoolVariant v = pool.get(m[j]);
+        double[] x = sol.x()[j].clone();
+        for (int k = 0; k < x.length; k++) {
+          x[k] = Math.rint(x[k]);
+          value += v.margin()[k] * x[k];
+        }
+        sales.add(x);
+        for (int t : v.tools()) {
+          tools.add(t);
+        }
+      }
+      double tooling = 0;
+      for (int t : tools) {
+        tooling += terms.choiceCost()[t];
+      }
+      double intro = terms.introductionCost() * m.length;
+      return new Plan(m, sales, value - intro - tooling, intro, tooling);
     }
   }
 }

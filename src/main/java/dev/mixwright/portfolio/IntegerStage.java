@@ -29,21 +29,21 @@ import java.util.Optional;
  *       with y relaxed, priced over the whole space; gives the bound B and its prices.
  *   <li>Incumbent: {@link Rounding} of the relaxation, then the MIP over the pool ({@link PortfolioMip},
  *       warm-started from it).
- *   <li>Proof (price-and-branch turned exact, in the spirit of the reduced-cost argument of Barnhart
- *       et al. 1998, "Branch-and-price", Operations Research 46(3)): by {@link LagrangianPortfolioBound}, a
- *       portfolio holding w is worth at most B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w); so only variants with
- *       ψ(w) − tooling(w) &gt; θ = value − B(λ̂) + λ̂ can be part of a better portfolio. The exact
- *       variant pricer enumerates them outside the pool (threshold θ, up to the survivor limit); once
- *       all are in the pool, a MIP solved to optimality over the pool is optimal over the whole
- *       space. A better incumbent only raises θ, so the enumeration stays complete.
+ *   <li>Quick proof, when few variants could be part of a better portfolio: they are listed by the
+ *       exact pricer at the relaxation's prices, join the pool, and the MIP over the pool decides.
+ *   <li>Otherwise: {@link BranchAndPrice} over the whole space, from that incumbent and the bound B, with
+ *       the introduction y_v of a variant as the branching decision ({@link VariantBranching}); nodes
+ *       are bounded by column generation with the exact variant pricer, and reduced-cost fixing bars
+ *       the pool variants that cannot be part of a better portfolio below a node.
  * </ol>
  *
- * The bound reported is the least of the LP stage's bound, B, and (when the survivors are complete)
- * the MIP's own bound over the pool; all are valid for the whole space. Time: the relaxation gets up
- * to 30 % of the limit, the first MIP half of what is left, the proof the rest.
+ * The bound reported is the least of the LP stage's bound, B, and the tree's bound (the largest
+ * bound of its open nodes, never below the incumbent) or, after the quick proof, the MIP's bound over
+ * the pool; all are valid for the whole space. The status
+ * is proven when the tree closed, so that the bound meets the value within the gap. Time: the
+ * relaxation gets up to 30 % of the limit, the first MIP half of what is left, the tree the rest.
  */
 public final class IntegerStage {
-  private static final int PROOF_PASSES = 3;
 
   private final VariantSpace space;
   private final PortfolioTerms terms;
@@ -52,6 +52,8 @@ public final class IntegerStage {
   private StageClock clock;
   private int mipSolves;
   private StopCriterion stop = StopCriterion.never();
+  private int workers = BranchAndPrice.defaultWorkers();
+  private boolean quickProof = true;
 
   public IntegerStage(VariantSpace space, PortfolioSettings settings) {
     this.space = space;
@@ -66,6 +68,21 @@ public final class IntegerStage {
    */
   public IntegerStage stopWhen(StopCriterion criterion) {
     this.stop = criterion;
+    return this;
+  }
+
+  /** Threads of the branch-and-price tree (default: one per core, at most two); for tests. */
+  IntegerStage workers(int n) {
+    if (n < 1) {
+      throw new IllegalArgumentException("workers must be >= 1");
+    }
+    this.workers = n;
+    return this;
+  }
+
+  /** Whether the quick proof over the pool may settle the stage before the tree; for tests of the tree. */
+  IntegerStage quickProof(boolean on) {
+    this.quickProof = on;
     return this;
   }
 
@@ -92,6 +109,12 @@ public final class IntegerStage {
     double theta = Double.NaN;
     int added;
     String reason = "";
+    double treeBound = Double.POSITIVE_INFINITY;
+    boolean closed;
+    boolean survivorsProve;
+    long nodes;
+    int openNodes;
+    int workers;
 
     Search(double bound) {
       this.bound = bound;
@@ -117,9 +140,91 @@ public final class IntegerStage {
     RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, clock, clock.phase(0.3))
         .run(pool, lp.duals().resource(), lp.duals().segment());
     Search search = new Search(Math.min(lpBound, rx.bound().value()));
+    int relaxed = pool.size();
     firstIncumbent(pool, rx, search);
-    prove(pool, pricer, rx.bound(), search);
+    if (quickProof) {
+      survivors(pool, pricer, rx.bound(), search);
+    }
+    if (!search.survivorsProve) {
+      tree(pool, search);
+    }
+    search.added = pool.size() - relaxed;
     return outcome(pool, lpBound, rx, search);
+  }
+
+  /**
+   * The quick proof, when it applies: by {@link LagrangianPortfolioBound}, a portfolio holding w is
+   * worth at most B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w), so only variants with ψ(w) − tooling(w) &gt; θ =
+   * value − B(λ̂) + λ̂ can be part of a better portfolio (the reduced-cost argument of Barnhart et al.
+   * 1998 at the relaxation's prices). When the exact pricer lists all of them outside the pool within
+   * the survivor limit, they join the pool, and a MIP solved to optimality over it is optimal over the
+   * whole space. When they are more, nothing is added and the tree takes over.
+   */
+  private void survivors(Pool pool, VariantPricer pricer, LagrangianPortfolioBound b, Search s) {
+    if (!b.isFinite() || clock.signalled().isPresent() || !settings.engine().provesContinuous()) {
+      return;
+    }
+    double[] tooling = terms.hasTooling() ? terms.choiceCost() : null;
+    s.theta = s.incumbent.value() - b.valueAtLambda() + b.lambda();
+    double slack = 1e-7 * (1 + Math.abs(s.incumbent.value()));
+    PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
+        terms.introductionCost(), tooling, s.theta - slack, settings.survivorLimit() + 1, pool.keys(),
+        clock.phase(0.2).deadlineNanos()));
+    s.complete = out.exact() && out.found().size() <= settings.survivorLimit();
+    emit(PortfolioEvent.Kind.SURVIVORS, s.theta, s.bound, pool.size(), out.found().size(), s.complete
+        ? "every variant that could be part of a better portfolio is listed"
+        : "too many variants could be part of a better portfolio to prove it over the pool");
+    if (!s.complete) {
+      return;
+    }
+    for (var f : out.found()) {
+      pool.add(f.choices());
+    }
+    // all the time left: where the survivors are few enough to list, this MIP proved faster than the
+    // tree in every measurement (docs/portfolio.md); stopped early, its bound still counts
+    MipRun again = mip(pool, s.incumbent, clock.msLeft());
+    if (again.plan() != null && again.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
+      s.incumbent = again.plan();
+      emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
+          "MIP over the pool with survivors");
+    }
+    s.mipOptimal = again.status() == MipStatus.OPTIMAL;
+    // every portfolio better than the incumbent lies in the pool, so the MIP's bound over the pool
+    // bounds the whole space even when it stopped early
+    s.mipBound = again.status().hasSolution() ? again.bound() : Double.POSITIVE_INFINITY;
+    if (!s.mipOptimal) {
+      s.reason = "the MIP over the pool with every variant that could be part of a better portfolio was not"
+          + " solved to optimality in the time limit";
+    } else {
+      // every portfolio better than the incumbent lies in the pool, where the MIP bounds it
+      s.survivorsProve = true;
+      s.treeBound = Math.max(s.incumbent.value(), again.bound());
+    }
+  }
+
+  /** The branch-and-price tree over the rest of the time, from the incumbent so far. */
+  private void tree(Pool pool, Search s) {
+    Optional<String> signalled = clock.signalled();
+    if (signalled.isPresent()) {
+      s.reason = signalled.get();
+      return;
+    }
+    PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
+    BranchAndPrice bp = new BranchAndPrice(space, terms, pool, settings, clock, clock.phase(1.0), fan, workers);
+    BranchAndPrice.Result r = bp.run(s.incumbent, s.bound);
+    s.incumbent = r.incumbent();
+    s.treeBound = r.bound();
+    s.closed = r.closed();
+    s.nodes = r.nodes();
+    s.openNodes = r.open();
+    s.workers = r.workers();
+    if (!r.closed() && s.reason.isEmpty()) {
+      s.reason = r.reason();
+    }
+    emit(PortfolioEvent.Kind.TREE, r.incumbent().value(), Math.min(s.bound, r.bound()), pool.size(), (int) Math.min(
+        Integer.MAX_VALUE, r.nodes()), r.closed()
+        ? "branch-and-price closed the tree: no portfolio is better than the incumbent"
+        : r.reason());
   }
 
   /**
@@ -133,7 +238,8 @@ public final class IntegerStage {
     return new PortfolioOutcome(PortfolioStatus.PROVEN, "", new ValueBound(0, 0),
         new PortfolioOutcome.Offer(List.of(), 0, 0), 0, null,
         new PortfolioOutcome.SurvivorProof(Double.NaN, 0, true, 0),
-        new PortfolioOutcome.MipRuns(settings.engine(), 0, true), clock.elapsedMs());
+        new PortfolioOutcome.MipRuns(settings.engine(), 0, true), new PortfolioOutcome.Tree(0, 0, 0),
+        clock.elapsedMs());
   }
 
   /** Rounding of the relaxation, then a MIP over the pool warm-started from it. */
@@ -160,87 +266,21 @@ public final class IntegerStage {
     s.mipBound = proves ? mip.bound() : Double.POSITIVE_INFINITY;
   }
 
-  /** Up to {@link #PROOF_PASSES} rounds of survivor enumeration and MIP over the grown pool. */
-  private void prove(Pool pool, VariantPricer pricer, LagrangianPortfolioBound b, Search s) {
-    double[] tooling = terms.hasTooling() ? terms.choiceCost() : null;
-    for (int pass = 0; pass < PROOF_PASSES; pass++) {
-      Optional<String> signalled = clock.signalled();
-      if (signalled.isPresent()) {
-        s.reason = signalled.get();
-        return;
-      }
-      if (!b.isFinite()) {
-        s.reason = "the relaxation gave no finite bound to rule variants out with";
-        return;
-      }
-      if (!provePass(pool, pricer, b, tooling, s)) {
-        return;
-      }
-    }
-  }
-
-  /** One pass of the proof; false when another pass cannot help. */
-  private boolean provePass(Pool pool, VariantPricer pricer, LagrangianPortfolioBound b, double[] tooling, Search s) {
-    s.theta = s.incumbent.value() - b.valueAtLambda() + b.lambda();
-    double slack = 1e-7 * (1 + Math.abs(s.incumbent.value()));
-    PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
-        terms.introductionCost(), tooling, s.theta - slack, settings.survivorLimit() + 1, pool.keys(),
-        clock.phase(0.5).deadlineNanos()));
-    int before = pool.size();
-    addSurvivors(pool, out, s);
-    if (pool.size() == before && (s.mipOptimal || !s.complete)) {
-      return false;
-    }
-    boolean proves = settings.engine().provesContinuous();
-    MipRun again = mip(pool, s.incumbent, clock.msLeft());
-    s.mipOptimal = proves && again.status() == MipStatus.OPTIMAL;
-    s.mipBound = proves ? again.bound() : Double.POSITIVE_INFINITY;
-    double value = s.incumbent.value();
-    boolean improved = again.plan() != null && again.plan().value() > value + 1e-9 * (1 + Math.abs(value));
-    if (improved) {
-      s.incumbent = again.plan();
-      emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(),
-          s.incumbent.members().length, "MIP over the pool with survivors");
-    }
-    return !s.complete && improved && !clock.pastLimit();
-  }
-
-  /** Adds the survivors found; when they are too many to prove with, only the best few. */
-  private void addSurvivors(Pool pool, PricingOutcome out, Search s) {
-    int cap = settings.survivorLimit();
-    s.complete = out.exact() && out.found().size() <= cap;
-    // Too many to prove with: add only the best few, so that the MIP can still finish and improve.
-    int n = s.complete ? out.found().size() : Math.min(out.found().size(), heuristicShare());
-    int before = pool.size();
-    for (int i = 0; i < n; i++) {
-      pool.add(out.found().get(i).choices());
-    }
-    s.added += pool.size() - before;
-    if (!s.complete) {
-      s.reason = out.exact()
-          ? "more than " + cap + " variants could still be part of a better portfolio (the best "
-              + s.added + " were added to the pool)"
-          : "the time limit stopped the enumeration of the variants that could be part of a better portfolio";
-    }
-    emit(PortfolioEvent.Kind.SURVIVORS, s.theta, s.bound, pool.size(), n, s.complete
-        ? "every variant that could be part of a better portfolio is in the pool" : s.reason);
-  }
-
   private PortfolioOutcome outcome(Pool pool, double lpBound, RelaxationResult rx, Search s) {
     Plan inc = s.incumbent;
-    boolean proven = s.complete && s.mipOptimal;
-    double bound = s.bound;
+    double bound = Math.min(s.bound, s.treeBound);
     if (s.complete && Double.isFinite(s.mipBound)) {
-      // every portfolio better than the incumbent lies in the pool, where the MIP bounds it
       bound = Math.min(bound, Math.max(inc.value(), s.mipBound));
     }
     bound = Math.max(bound, inc.value());
+    boolean proven = (s.closed || s.survivorsProve) && ValueBound.gap(inc.value(), bound) <= settings.gap() * (1 + 1e-9);
     String reason = proven ? "" : whyHeuristic(s.reason);
     PortfolioOutcome o = new PortfolioOutcome(proven ? PortfolioStatus.PROVEN : PortfolioStatus.HEURISTIC, reason,
         new ValueBound(inc.value(), bound),
         new PortfolioOutcome.Offer(offered(pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
         lpBound, rx, new PortfolioOutcome.SurvivorProof(s.theta, s.added, s.complete, pool.size()),
-        new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal), clock.elapsedMs());
+        new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal),
+        new PortfolioOutcome.Tree(s.nodes, s.openNodes, s.workers), clock.elapsedMs());
     emit(PortfolioEvent.Kind.END, o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
         + (reason.isEmpty() ? "" : ": " + reason));
     return o;
@@ -255,15 +295,7 @@ public final class IntegerStage {
     if (!proofReason.isEmpty()) {
       return proofReason;
     }
-    return settings.engine().provesContinuous()
-        ? "the MIP over the pool was not solved to optimality in the time limit"
-        : settings.engine().word() + " solves continuous sales in a scaled integer form, so it proves nothing here";
-  }
-
-  /** Survivors tried when they are too many to prove with: enough for a better incumbent, few enough to solve. */
-  private int heuristicShare() {
-    int k = terms.variantCap() == PortfolioTerms.UNLIMITED ? 50 : terms.variantCap();
-    return Math.min(settings.survivorLimit(), Math.max(200, 20 * k));
+    return "the branch-and-price tree did not close";
   }
 
   private record MipRun(MipStatus status, Plan plan, double bound) {}
@@ -271,7 +303,7 @@ public final class IntegerStage {
   private MipRun mip(Pool pool, Plan hint, long timeMs) {
     mipSolves++;
     try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
-        terms.choiceCost())) {
+        terms.choiceCost(), terms.wholeUnits())) {
       for (PoolVariant v : pool.all()) {
         m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(), v.tools());
       }

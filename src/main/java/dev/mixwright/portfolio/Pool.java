@@ -2,17 +2,24 @@ package dev.mixwright.portfolio;
 
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
-import java.util.ArrayList;
-import java.util.HashSet;
+import java.util.AbstractSet;
+import java.util.Iterator;
 import java.util.List;
+import java.util.Map;
 import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.CopyOnWriteArrayList;
 
-/** The variants the integer stage works with, in the order they joined; no variant twice. */
+/**
+ * The variants the integer stage works with, in the order they joined; no variant twice. Safe for the
+ * two workers of {@link BranchAndPrice}: adds are serialised, reads need no lock, and a variant keeps
+ * its index for good.
+ */
 final class Pool {
   private final VariantSpace space;
   private final PortfolioTerms terms;
-  private final List<PoolVariant> variants = new ArrayList<>();
-  private final Set<VariantKey> keys = new HashSet<>();
+  private final List<PoolVariant> variants = new CopyOnWriteArrayList<>();
+  private final Map<VariantKey, Integer> index = new ConcurrentHashMap<>();
 
   Pool(VariantSpace space, PortfolioTerms terms) {
     this.space = space;
@@ -20,18 +27,25 @@ final class Pool {
   }
 
   /** Adds v unless it is there already or no segment takes it; true when added. */
-  boolean add(int[] v) {
+  synchronized boolean add(int[] v) {
+    int before = variants.size();
+    return indexOrAdd(v) == before;
+  }
+
+  /** The index of v, added when new; −1 when no segment takes it. */
+  synchronized int indexOrAdd(int[] v) {
     VariantKey k = space.key(v);
-    if (keys.contains(k)) {
-      return false;
+    Integer at = index.get(k);
+    if (at != null) {
+      return at;
     }
     PoolVariant p = PoolVariant.of(space, terms, v);
     if (!p.sellable()) {
-      return false;
+      return -1;
     }
-    keys.add(k);
     variants.add(p);
-    return true;
+    index.put(k, variants.size() - 1);
+    return variants.size() - 1;
   }
 
   int size() {
@@ -48,6 +62,35 @@ final class Pool {
 
   /** A live view for exclusion in pricing queries. */
   Set<VariantKey> keys() {
-    return keys;
+    return index.keySet();
+  }
+
+  /**
+   * The keys of the first n variants, as a live view: what a master holding exactly those excludes
+   * from pricing, while the other worker may be adding more.
+   */
+  Set<VariantKey> keysBelow(int n) {
+    return new AbstractSet<>() {
+      @Override
+      public boolean contains(Object o) {
+        Integer at = index.get(o);
+        return at != null && at < n;
+      }
+
+      @Override
+      public boolean isEmpty() {
+        return n == 0;
+      }
+
+      @Override
+      public Iterator<VariantKey> iterator() {
+        return index.entrySet().stream().filter(e -> e.getValue() < n).map(Map.Entry::getKey).iterator();
+      }
+
+      @Override
+      public int size() {
+        return n;
+      }
+    };
   }
 }

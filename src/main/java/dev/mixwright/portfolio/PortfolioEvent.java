@@ -20,6 +20,8 @@ public record PortfolioEvent(
     MIP,
     /** An enumeration of the variants that could be part of a better portfolio: count found, value the threshold. */
     SURVIVORS,
+    /** The branch-and-price tree ended: value the incumbent, bound the tree's, count the nodes solved. */
+    TREE,
     /** The stage ended: value and bound are the outcome's. */
     END;
 

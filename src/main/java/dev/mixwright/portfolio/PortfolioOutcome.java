@@ -27,6 +27,7 @@ public record PortfolioOutcome(
     RelaxationResult relaxation,
     SurvivorProof proof,
     MipRuns solver,
+    Tree tree,
     long elapsedMs) {
 
   /**
@@ -45,6 +46,12 @@ public record PortfolioOutcome(
    * pool; {@code complete}: all of them were; {@code poolSize}: variants in the final pool.
    */
   public record SurvivorProof(double threshold, int added, boolean complete, int poolSize) {}
+
+  /**
+   * The branch-and-price tree: {@code nodes} solved, {@code open} left when it stopped (0 when it
+   * closed), {@code workers} threads.
+   */
+  public record Tree(long nodes, int open, int workers) {}
 
   /** The MIP solves over the pool: how many, and whether the last was solved to optimality. */
   public record MipRuns(PortfolioMip.Engine engine, int solves, boolean lastOptimal) {}

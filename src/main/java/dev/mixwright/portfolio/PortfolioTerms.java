@@ -8,7 +8,8 @@ import dev.mixwright.space.VariantSpace;
  * The integer stage's figures, aligned with the space: F = {@code introductionCost} per distinct
  * variant, L = {@code minLot} (all segments together), the variant limit K, per-segment column
  * bound u_s = maxShare_s·demand_s and demand D_s, per-resource capacity b_r, and a tooling cost per
- * flat choice (0 when the catalog has none; paid once if any offered variant uses the choice).
+ * flat choice (0 when the catalog has none; paid once if any offered variant uses the choice), and
+ * whether sales must be whole units.
  *
  * <p>{@link #variantCap()} is the limit the bounds may use: K, tightened to ⌊Σ_s D_s / L⌋ when L &gt;
  * 0, because every offered variant sells at least L and all of them together sell at most Σ_s D_s.
@@ -20,7 +21,8 @@ public record PortfolioTerms(
     double[] columnBound,
     double[] demand,
     double[] capacity,
-    double[] choiceCost) {
+    double[] choiceCost,
+    boolean wholeUnits) {
 
   /** No limit on the number of variants. */
   public static final int UNLIMITED = Integer.MAX_VALUE;
@@ -53,7 +55,7 @@ public record PortfolioTerms(
         tooling[space.offset(g) + k] = options.get(k).tooling();
       }
     }
-    return new PortfolioTerms(p.introductionCost(), p.maxVariants(), p.minLot(), u, d, b, tooling);
+    return new PortfolioTerms(p.introductionCost(), p.maxVariants(), p.minLot(), u, d, b, tooling, p.wholeUnits());
   }
 
   public int segmentCount() {
@@ -73,6 +75,18 @@ public record PortfolioTerms(
       cap = (long) Math.min(cap, Math.min(byLots, (double) UNLIMITED));
     }
     return (int) cap;
+  }
+
+  /** π·b + μ·D: what the rows' capacities and demands are worth at prices π, μ (the Lagrangian constant). */
+  public double rowValue(double[] pi, double[] mu) {
+    double v = 0;
+    for (int r = 0; r < pi.length; r++) {
+      v += pi[r] * capacity[r];
+    }
+    for (int s = 0; s < mu.length; s++) {
+      v += mu[s] * demand[s];
+    }
+    return v;
   }
 
   /** True when some choice carries a tooling cost. */

@@ -73,13 +73,7 @@ final class Relaxation {
     for (int i = 0; i < out.found().size(); i++) {
       listed[pool.size() + i] = out.found().get(i).reducedCost();
     }
-    double constant = 0;
-    for (int r = 0; r < pi.length; r++) {
-      constant += pi[r] * terms.capacity()[r];
-    }
-    for (int s = 0; s < mu.length; s++) {
-      constant += mu[s] * terms.demand()[s];
-    }
+    double constant = terms.rowValue(pi, mu);
     return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone()),
         out.found(), out.exact());
   }

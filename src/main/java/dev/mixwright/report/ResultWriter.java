@@ -3,11 +3,14 @@ package dev.mixwright.report;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.choice.Logit;
 import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.IterationRecord;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.math.BigInteger;
@@ -25,7 +28,12 @@ public final class ResultWriter {
   private ResultWriter() {}
 
   /** What result.json says about the variant space's size. */
-  public record SpaceSize(BigInteger value, boolean exact) {}
+  public record SpaceSize(SpaceCount count) {
+    /** An exact count, or only an upper bound. */
+    public SpaceSize(BigInteger value, boolean exact) {
+      this(exact ? SpaceCount.exact(value) : SpaceCount.atMost(value));
+    }
+  }
 
   /** Facts about the run that the outcome does not hold. */
   public record RunInfo(String catalogFile, String catalogSha256, String pricer, SpaceSize size, long elapsedMs) {}
@@ -46,8 +54,13 @@ public final class ResultWriter {
     for (int j : sold) {
       Column col = out.columns().get(j);
       double q = out.x()[j];
-      offers.add(new RunResult.Offer(cat.segments().get(col.segment()).id(), space.describe(col.choices()), q,
-          col.margin(), out.reducedCost()[j], q >= col.upper() * (1 - 1e-9), q * col.margin()));
+      int s = col.segment();
+      boolean chooses = space.chooses(s);
+      offers.add(new RunResult.Offer(cat.segments().get(s).id(), space.describe(col.choices()), q,
+          col.margin(), out.reducedCost()[j], !chooses && q >= col.upper() * (1 - 1e-9), q * col.margin(),
+          space.price(col.choices(), s),
+          chooses ? q / space.buyers(s) : null,
+          chooses ? Logit.attraction(space.utility(col.choices(), s), space.stayOut(s)) : null));
       for (int r = 0; r < used.length; r++) {
         used[r] += col.use()[r] * q;
       }
@@ -63,25 +76,62 @@ public final class ResultWriter {
     List<RunResult.SegmentRow> segs = new ArrayList<>();
     for (int s = 0; s < cat.segments().size(); s++) {
       Segment ss = cat.segments().get(s);
+      boolean chooses = space.chooses(s);
       segs.add(new RunResult.SegmentRow(ss.id(), ss.demand(), segSold[s],
-          known(out.duals().segment(s))));
+          known(out.duals().segment(s)),
+          chooses ? space.buyers(s) : null,
+          chooses ? stayingOut(out, space, s, segSold[s]) : null));
     }
     List<RunResult.Round> rounds = new ArrayList<>();
     for (IterationRecord r : out.history()) {
       rounds.add(new RunResult.Round(r.iteration(), r.objective(), Json.num(r.bound()), Json.num(r.gap()),
           r.columns(), r.added(), r.exactPricing(), r.elapsedMs()));
     }
-    boolean exact = info.size().exact();
-    String size = info.size().value().toString();
+    SpaceCount count = info.size().count();
+    boolean exact = count.exact();
+    RunResult.CountEstimate estimate = exact ? null : count.estimate()
+        .map(e -> new RunResult.CountEstimate(e.value().doubleValue(), e.standardError().doubleValue(), e.samples()))
+        .orElse(null);
     return new RunResult(out.status(), out.stopReason(), out.objective(), Json.num(out.bound()),
         Json.num(out.gap()), out.iterations(), out.columnsGenerated(), out.columns().size(),
-        exact ? size : null, exact ? null : size, info.elapsedMs(),
+        exact ? count.upper().toString() : null, exact ? null : count.upper().toString(),
+        exact || count.lower().signum() == 0 ? null : count.lower().toString(), estimate, info.elapsedMs(),
         new RunResult.CatalogRef(cat.name(), info.catalogFile(), info.catalogSha256(), cat.currency(), cat.period()),
         info.pricer(), offers, res, segs, rounds, null, null, null);
   }
 
+  /**
+   * The buyers of choosing segment s who buy none: the master's x_s0 when the run solved one, else
+   * (nothing offered) every buyer who did not buy.
+   */
+  private static double stayingOut(SolveOutcome out, VariantSpace space, int s, double sold) {
+    double x0 = out.master().stayingOut(s);
+    return Double.isNaN(x0) ? space.buyers(s) - sold : x0;
+  }
+
   public static void write(Path runDir, RunResult result) throws IOException {
     result.write(runDir);
+  }
+
+  /**
+   * {@code field}: the count as a decimal string when exact, else null with {@code fieldAtMost} and
+   * {@code fieldAtLeast} (decimal strings) and, when sampled, {@code fieldEstimate}: value, standard
+   * error and number of samples.
+   */
+  public static void putCount(ObjectNode n, String field, SpaceCount count) {
+    if (count.exact()) {
+      n.put(field, count.upper().toString());
+      return;
+    }
+    n.putNull(field);
+    n.put(field + "AtMost", count.upper().toString());
+    n.put(field + "AtLeast", count.lower().toString());
+    count.estimate().ifPresent(e -> {
+      ObjectNode o = n.putObject(field + "Estimate");
+      o.put("value", e.value().doubleValue());
+      o.put("standardError", e.standardError().doubleValue());
+      o.put("samples", e.samples());
+    });
   }
 
   /** A dual value as written: null when the run has none (nothing was solved), never a made-up 0. */

@@ -36,6 +36,8 @@ public record RunResult(
     int columnsInMaster,
     String buildableVariants,
     @JsonInclude(Include.NON_NULL) String buildableVariantsAtMost,
+    @JsonInclude(Include.NON_NULL) String buildableVariantsAtLeast,
+    @JsonInclude(Include.NON_NULL) CountEstimate buildableVariantsEstimate,
     long elapsedMs,
     CatalogRef catalog,
     String pricer,
@@ -56,24 +58,25 @@ public record RunResult(
     rounds = rounds == null ? List.of() : rounds;
   }
 
+  /** A sampled estimate of the number of buildable variants, when no exact count was reached. */
+  public record CountEstimate(double value, double standardError, long samples) {}
+
   public record CatalogRef(String name, String file, String sha256, String currency, String period) {}
 
   /**
-   * One variant sold in one segment. {@code price}: what the segment pays per unit (the chosen price
-   * points plus its value), null in files written before it was recorded. {@code share} (of the
-   * segment's buyers) and {@code attraction} (w = exp(u − stayOut)) only for a segment that chooses.
+   * {@code price}: what the segment pays per unit (the chosen price points plus its value of the
+   * options; absent in files of earlier versions). For a segment that chooses, {@code share} is the offer's share of the segment's
+   * buyers and {@code attraction} its w = exp(u − stayOut); both are absent for a fixed segment.
    */
   public record Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
-      double reducedCost, boolean atLimit, double contribution,
-      @JsonInclude(Include.NON_NULL) Double price,
-      @JsonInclude(Include.NON_NULL) Double share,
-      @JsonInclude(Include.NON_NULL) Double attraction) {
+      double reducedCost, boolean atLimit, double contribution, @JsonInclude(Include.NON_NULL) Double price,
+      @JsonInclude(Include.NON_NULL) Double share, @JsonInclude(Include.NON_NULL) Double attraction) {
 
     public Offer {
       options = options == null ? Map.of() : options;
     }
 
-    /** An offer of a fixed segment whose price is not recorded. */
+    /** An offer of a fixed segment, without its price. */
     public Offer(String segment, Map<String, String> options, double quantity, double unitMargin,
         double reducedCost, boolean atLimit, double contribution) {
       this(segment, options, quantity, unitMargin, reducedCost, atLimit, contribution, null, null, null);
@@ -83,15 +86,14 @@ public record RunResult(
   public record ResourceRow(String id, double capacity, double used, Double shadowPrice, boolean binding) {}
 
   /**
-   * One segment. For a segment that chooses, {@code buyers} and {@code stayOut} (buyers who buy none
-   * of the offered variants) are set and {@code shadowPrice} is the dual of its buyers row; both are
-   * null for a segment with fixed demand.
+   * For a segment that chooses, {@code buyers} (equal to {@code demand}) and {@code stayOut}, the
+   * buyers who buy none of the offers, are present and {@code shadowPrice} is the dual of its buyers
+   * row (free in sign); both are absent for a fixed segment.
    */
   public record SegmentRow(String id, double demand, double sold, Double shadowPrice,
-      @JsonInclude(Include.NON_NULL) Double buyers,
-      @JsonInclude(Include.NON_NULL) Double stayOut) {
+      @JsonInclude(Include.NON_NULL) Double buyers, @JsonInclude(Include.NON_NULL) Double stayOut) {
 
-    /** A segment with fixed demand. */
+    /** A segment with a fixed demand. */
     public SegmentRow(String id, double demand, double sold, Double shadowPrice) {
       this(id, demand, sold, shadowPrice, null, null);
     }
@@ -152,20 +154,20 @@ public record RunResult(
 
   public RunResult withSessions(int n) {
     return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
-        buildableVariants, buildableVariantsAtMost, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
+        buildableVariants, buildableVariantsAtMost, buildableVariantsAtLeast, buildableVariantsEstimate, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
         n, portfolioPending, portfolio);
   }
 
   public RunResult withPortfolioPending(String why) {
     return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
-        buildableVariants, buildableVariantsAtMost, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
+        buildableVariants, buildableVariantsAtMost, buildableVariantsAtLeast, buildableVariantsEstimate, elapsedMs, catalog, pricer, offers, resources, segments, rounds,
         sessions, why, portfolio);
   }
 
   /** This result with the integer stage's section; {@code elapsedMs} then covers both stages. */
   public RunResult withPortfolio(Portfolio p, long totalElapsedMs) {
     return new RunResult(status, stopReason, objective, bound, gap, iterations, columnsGenerated, columnsInMaster,
-        buildableVariants, buildableVariantsAtMost, totalElapsedMs, catalog, pricer, offers, resources, segments,
+        buildableVariants, buildableVariantsAtMost, buildableVariantsAtLeast, buildableVariantsEstimate, totalElapsedMs, catalog, pricer, offers, resources, segments,
         rounds, sessions, portfolioPending, p);
   }
 

@@ -21,6 +21,16 @@ import java.util.function.BooleanSupplier;
 final class PortfolioStep {
   private PortfolioStep() {}
 
+  /** The id of the first segment that chooses, if any. */
+  private static java.util.Optional<String> choosingSegment(VariantSpace space) {
+    for (int s = 0; s < space.segmentCount(); s++) {
+      if (space.chooses(s)) {
+        return java.util.Optional.of(space.catalog().segments().get(s).id());
+      }
+    }
+    return java.util.Optional.empty();
+  }
+
   /**
    * Runs the stage when the catalog has a portfolio section and the options do not skip it, writing
    * {@code portfolio.jsonl}; returns {@code result} with its {@code portfolio} section (or why there
@@ -32,6 +42,13 @@ final class PortfolioStep {
       long startNanos, List<PortfolioListener> watchers, BooleanSupplier stop) throws IOException {
     if (space.catalog().portfolio().isEmpty() || !plan.run()) {
       return result;
+    }
+    if (choosingSegment(space).isPresent()) {
+      // The one place the integer stage is kept from catalogs with segments that choose: it sells
+      // each variant up to a fixed share of demand and has no stay-out, so its plan would be wrong.
+      return result.withPortfolioPending("segment '" + choosingSegment(space).get() + "' chooses by multinomial"
+          + " logit, and this version's integer stage handles fixed demand only; the LP plan above stands,"
+          + " the portfolio is not chosen");
     }
     if (!lp.status().isOptimal()) {
       // A stopped LP stage means a limit or a signal ended the run: the integer stage, which can

@@ -1,13 +1,19 @@
 package dev.mixwright.run;
 
 import dev.mixwright.pricing.Pricer;
-import dev.mixwright.pricing.Pricers;
+import dev.mixwright.pricing.BranchAndBoundPricer;
+import dev.mixwright.pricing.BruteForcePricer;
+import dev.mixwright.pricing.CpSatPricer;
+import dev.mixwright.pricing.HeuristicPricer;
 import dev.mixwright.space.VariantSpace;
 import java.util.Arrays;
 import java.util.Locale;
 import java.util.stream.Collectors;
 
-/** The pricing algorithms a person can name, as a value rather than a string passed around. */
+/**
+ * The pricing algorithms a person can name, as a value rather than a string passed around: the one
+ * place that maps a {@code --pricer} name (as run.json records it) to an implementation.
+ */
 public enum PricerChoice {
   BNB("bnb", true),
   CPSAT("cpsat", true),
@@ -32,8 +38,14 @@ public enum PricerChoice {
     return exact;
   }
 
+  /** A fresh pricer of this kind for the space, with its default limits. */
   public Pricer create(VariantSpace space) {
-    return Pricers.byName(word, space);
+    return switch (this) {
+      case BNB -> BranchAndBoundPricer.withDefaultLimits(space);
+      case CPSAT -> new CpSatPricer(space, 0, 1);
+      case BRUTE -> new BruteForcePricer(space);
+      case HEURISTIC -> new HeuristicPricer(space);
+    };
   }
 
   /** The choice with this name; the message of the exception lists the exact ones. */

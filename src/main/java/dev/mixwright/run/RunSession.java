@@ -1,7 +1,6 @@
 package dev.mixwright.run;
 
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.choice.NotSolvedYet;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
@@ -26,6 +25,8 @@ import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.runfolder.RunManifest;
 import dev.mixwright.runfolder.SnapshotWriter;
+import dev.mixwright.space.CountJob;
+import dev.mixwright.space.SpaceSurvey;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -99,7 +100,6 @@ public final class RunSession {
     if (r.scenarioFile().isPresent()) {
       catalog = Inputs.withScenario(catalog, r.scenarioFile().get());
     }
-    NotSolvedYet.refuseChoiceFeatures(catalog);
     VariantSpace space = new VariantSpace(catalog);
     RunFolder folder = new RunFolder(r.runDir());
     if (!r.replace() && folder.holdsRun()) {
@@ -305,14 +305,16 @@ public final class RunSession {
   private RunOutcome finish(Stage lp, PortfolioPlan plan, Path runDir, boolean resumed, int session)
       throws IOException {
     VariantSpace space = lp.space();
-    SpaceFacts facts = SpaceFacts.of(space);
+    SpaceSurvey facts = SpaceSurvey.of(space);
+    // nothing waits for the count: it runs beside the loop and is taken as far as it got at the end
+    CountJob count = CountJob.whole(space, CountJob.BACKGROUND_BUDGET_MS);
     watcher.loop().forEach(lp.cg()::addListener);
     SolveOutcome outcome = facts.nothingSellable()
         ? SolveOutcomes.infeasible(space, facts.emptyReason(), lp.priorElapsedMs() + sinceMs(lp.startNanos()))
         : lp.cg().run(lp.warm());
     long elapsed = lp.priorElapsedMs() + sinceMs(lp.startNanos());
     ResultWriter.RunInfo info = new ResultWriter.RunInfo(lp.catalogFile(), lp.catalogSha256(), lp.pricer().word(),
-        new ResultWriter.SpaceSize(facts.buildable(), facts.exact()), elapsed);
+        new ResultWriter.SpaceSize(count.finish()), elapsed);
     RunResult lpResult = ResultWriter.build(space, outcome, info);
     if (resumed) {
       lpResult = lpResult.withSessions(session);

@@ -1,44 +1,25 @@
 package dev.mixwright.run;
 
-import dev.mixwright.space.RuleConflict;
+import dev.mixwright.space.BudgetedCount;
 import dev.mixwright.space.RuleNote;
 import dev.mixwright.space.SpaceCount;
-import dev.mixwright.space.SpaceCounter;
 import dev.mixwright.space.SpaceDiagnosis;
+import dev.mixwright.space.SpaceSurvey;
 import dev.mixwright.space.VariantSpace;
-import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Optional;
 
 /**
- * The size of a catalog's space, in total and per segment; when nothing (or a segment) is
- * sellable, which rules cause it.
+ * The size of a catalog's space, in total and per segment, as far as a count within its budget
+ * gets; whether anything (and each segment) is sellable, by search; when not, which rules cause it.
  */
 public record SpaceFacts(SpaceCount total, List<SpaceCount> perSegment, String emptyReason, List<String> segmentNotes) {
 
-  public static SpaceFacts of(VariantSpace space) {
-    SpaceCounter counter = new SpaceCounter(space);
-    SpaceCount total = counter.count();
-    List<SpaceCount> per = counter.perSegment();
-    SpaceDiagnosis diagnosis = new SpaceDiagnosis(space);
-    String reason = "";
-    List<String> segmentNotes = new ArrayList<>();
-    if (total.isEmpty()) {
-      reason = diagnosis.spaceConflict().map(RuleConflict::message).orElse("no variant is buildable under the rules");
-    } else {
-      for (int s = 0; s < per.size(); s++) {
-        if (per.get(s).isEmpty()) {
-          Optional<RuleConflict> c = diagnosis.segmentConflict(s);
-          segmentNotes.add("segments[" + s + "] (" + space.catalog().segments().get(s).id() + "): "
-              + c.map(RuleConflict::message).orElse("accepts no buildable variant") + " — it will sell nothing");
-        }
-      }
-      if (per.stream().allMatch(SpaceCount::isEmpty)) {
-        reason = "no segment accepts any buildable variant: " + String.join("; ", segmentNotes);
-      }
-    }
-    return new SpaceFacts(total, per, reason, segmentNotes);
+  /** @param countBudgetMs time for all counts together; 0 or less for no limit */
+  public static SpaceFacts of(VariantSpace space, long countBudgetMs) {
+    SpaceSurvey survey = SpaceSurvey.of(space);
+    List<SpaceCount> counts = new BudgetedCount(space).wholeAndSegments(countBudgetMs);
+    return new SpaceFacts(counts.get(0), counts.subList(1, counts.size()), survey.emptyReason(), survey.segmentNotes());
   }
 
   /** Rules that can never fire or that forbid their own when; worth a look, not errors. */
@@ -50,14 +31,6 @@ public record SpaceFacts(SpaceCount total, List<SpaceCount> perSegment, String e
       }
     }
     return out;
-  }
-
-  public BigInteger buildable() {
-    return total.value();
-  }
-
-  public boolean exact() {
-    return total.exact();
   }
 
   /** True when nothing at all can be sold. */

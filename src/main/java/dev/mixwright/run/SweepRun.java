@@ -3,7 +3,6 @@ package dev.mixwright.run;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.choice.NotSolvedYet;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
@@ -63,7 +62,6 @@ public final class SweepRun {
     }
     CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile());
     Catalog catalog = read.catalog();
-    NotSolvedYet.refuseChoiceFeatures(catalog);
     SweepPlan plan;
     try {
       plan = plan(r, catalog);

@@ -281,13 +281,14 @@ public record Scenario(String name, List<Change> changes) {
               problem = "gives " + Where.num(v) + "; maxVariants must be a whole number >= 1";
               break;
             }
-            portfolio = new PortfolioSpec(p.introductionCost(), (int) v, p.minLot());
+            portfolio = new PortfolioSpec(p.introductionCost(), (int) v, p.minLot(), p.wholeUnits());
           } else {
             boolean intro = t.field() == Field.INTRODUCTION_COST;
             double base = intro ? p.introductionCost() : p.minLot();
             double v = a.apply(base);
             problem = nonNegative(v, a, base, "a portfolio term");
-            portfolio = new PortfolioSpec(intro ? v : p.introductionCost(), p.maxVariants(), intro ? p.minLot() : v);
+            portfolio = new PortfolioSpec(intro ? v : p.introductionCost(), p.maxVariants(), intro ? p.minLot() : v,
+                p.wholeUnits());
           }
         }
         default -> throw new IllegalStateException("unhandled field " + t.field());

@@ -7,6 +7,8 @@ import java.util.Arrays;
 import java.util.BitSet;
 import java.util.Deque;
 import java.util.List;
+import java.util.Optional;
+import java.util.function.BooleanSupplier;
 
 /**
  * Counts the buildable variants of a {@link VariantSpace} (or of one segment, or of any restriction
@@ -37,8 +39,12 @@ import java.util.List;
  * choices, so it costs a word AND per entry rather than a read per choice.
  *
  * <p>When a table would exceed the limit, the widest nogood among those that fed it is dropped and
- * the component is planned again; the result is then an upper bound ({@link SpaceCount#exact()}
- * false), since dropping a nogood only adds variants.
+ * the component is planned again; the result is then an upper bound ({@link SpaceCount.Bounded}
+ * with lower bound 0), since dropping a nogood only adds variants.
+ *
+ * <p>Every count can be given a stop signal, polled between elimination steps and every 1024
+ * table entries; {@link #count(boolean[], BooleanSupplier)} then answers empty instead of waiting.
+ * {@link BudgetedCount} builds bounds from both sides and an estimate on top of this.
  */
 public final class SpaceCounter {
   /** Default largest table, in entries (32 MiB of longs). */
@@ -70,24 +76,12 @@ public final class SpaceCounter {
 
   /** Number of buildable variants. */
   public SpaceCount count() {
-    boolean[] domain = new boolean[space.totalChoices()];
-    for (int f = 0; f < domain.length; f++) {
-      domain[f] = space.allowed(f);
-    }
-    return countWithin(domain);
+    return countWithin(BudgetedCount.wholeSpace(space), NEVER);
   }
 
   /** Number of variants that are buildable and accepted by segment s. */
   public SpaceCount count(int segment) {
-    if (segment < 0 || segment >= space.segmentCount()) {
-      throw new IllegalArgumentException(
-          "segment index " + segment + " out of range 0.." + (space.segmentCount() - 1));
-    }
-    boolean[] domain = new boolean[space.totalChoices()];
-    for (int f = 0; f < domain.length; f++) {
-      domain[f] = space.allowedIn(segment, f);
-    }
-    return countWithin(domain);
+    return countWithin(BudgetedCount.segment(space, segment), NEVER);
   }
 
   /** {@link #count(int)} for every segment, in catalog order. */
@@ -105,6 +99,14 @@ public final class SpaceCounter {
    * rejects stay out whatever the mark.
    */
   public SpaceCount count(boolean[] domain) {
+    return count(domain, NEVER).orElseThrow();
+  }
+
+  /**
+   * {@link #count(boolean[])}, polling {@code stop}: empty when it said stop before the count was
+   * done.
+   */
+  public Optional<SpaceCount> count(boolean[] domain, BooleanSupplier stop) {
     if (domain.length != space.totalChoices()) {
       throw new IllegalArgumentException(
           "domain has " + domain.length + " entries, the space has " + space.totalChoices() + " choices");
@@ -113,7 +115,26 @@ public final class SpaceCounter {
     for (int f = 0; f < d.length; f++) {
       d[f] = domain[f] && space.allowed(f);
     }
-    return countWithin(d);
+    try {
+      return Optional.of(countWithin(d, stop));
+    } catch (Stopped e) {
+      return Optional.empty();
+    }
+  }
+
+  private static final BooleanSupplier NEVER = () -> false;
+
+  /** Thrown through the elimination when the stop signal is seen; carries no stack. */
+  private static final class Stopped extends RuntimeException {
+    Stopped() {
+      super(null, null, false, false);
+    }
+  }
+
+  private static void poll(BooleanSupplier stop) {
+    if (stop.getAsBoolean()) {
+      throw new Stopped();
+    }
   }
 
   /**
@@ -141,9 +162,9 @@ public final class SpaceCounter {
   /** An elimination order (local indices), or the nogood to drop when some table is too big. */
   private record Plan(int[] order, Local drop) {}
 
-  private static final SpaceCount NONE = new SpaceCount(BigInteger.ZERO, true);
+  private static final SpaceCount NONE = SpaceCount.exact(BigInteger.ZERO);
 
-  private SpaceCount countWithin(boolean[] dom) {
+  private SpaceCount countWithin(boolean[] dom, BooleanSupplier stop) {
     int n = space.groupCount();
     int[] off = space.offsets();
     for (int g = 0; g < n; g++) {
@@ -256,7 +277,7 @@ public final class SpaceCounter {
     while (!work.isEmpty()) {
       List<Local> comp = work.pop();
       int[] groups = groupsOf(comp, n);
-      Plan plan = plan(groups, comp, dsize);
+      Plan plan = plan(groups, comp, dsize, stop);
       if (plan.drop() != null) {
         exact = false;
         List<Local> rest = new ArrayList<>(comp);
@@ -274,13 +295,13 @@ public final class SpaceCounter {
         }
         work.addAll(split(rest, n));
       } else {
-        value = value.multiply(evaluate(groups, comp, plan.order(), dsize));
+        value = value.multiply(evaluate(groups, comp, plan.order(), dsize, stop));
       }
       if (value.signum() == 0) {
         return NONE; // a component with no assignment empties the space whatever was dropped
       }
     }
-    return new SpaceCount(value, exact);
+    return exact ? SpaceCount.exact(value) : SpaceCount.atMost(value);
   }
 
   private static int aliveCount(boolean[] dom, int[] off, int g) {
@@ -379,7 +400,7 @@ public final class SpaceCounter {
    * Simulates the elimination on scopes only: the order when every table fits, else the widest
    * nogood among those that fed the first table too big.
    */
-  private Plan plan(int[] groups, List<Local> comp, int[] dsize) {
+  private Plan plan(int[] groups, List<Local> comp, int[] dsize, BooleanSupplier stop) {
     int c = groups.length;
     int[] where = localIndex(groups, dsize.length);
     int[] dim = new int[c];
@@ -416,6 +437,7 @@ public final class SpaceCounter {
     }
     int[] order = new int[c];
     for (int step = 0; step < c; step++) {
+      poll(stop);
       int v = graph.next();
       BitSet newScope = new BitSet(c);
       BitSet prov = new BitSet(q);
@@ -478,20 +500,20 @@ public final class SpaceCounter {
    * relative error is below (eliminations × (choices + bucket size)) × 2^-53, far less than the
    * factor 2 of margin, since every operation adds or multiplies nonnegative numbers.
    */
-  private BigInteger evaluate(int[] groups, List<Local> comp, int[] order, int[] dsize) {
+  private BigInteger evaluate(int[] groups, List<Local> comp, int[] order, int[] dsize, BooleanSupplier stop) {
     BigInteger bound = BigInteger.ONE;
     for (int g : groups) {
       bound = bound.multiply(BigInteger.valueOf(dsize[g]));
     }
     if (bound.bitLength() <= 62) {
-      return BigInteger.valueOf(eliminate(groups, comp, order, dsize, Mode.EXACT, 0));
+      return BigInteger.valueOf(eliminate(groups, comp, order, dsize, Mode.EXACT, 0, stop));
     }
     double estimate =
-        Double.longBitsToDouble(eliminate(groups, comp, order, dsize, Mode.ESTIMATE, 0));
+        Double.longBitsToDouble(eliminate(groups, comp, order, dsize, Mode.ESTIMATE, 0, stop));
     BigInteger need = bound;
     if (estimate < TWO_POW_62) {
       try {
-        return BigInteger.valueOf(eliminate(groups, comp, order, dsize, Mode.EXACT, 0));
+        return BigInteger.valueOf(eliminate(groups, comp, order, dsize, Mode.EXACT, 0, stop));
       } catch (ArithmeticException overflow) {
         // The estimate was close to 2^62; the bound below still holds.
       }
@@ -502,7 +524,7 @@ public final class SpaceCounter {
     BigInteger modulus = BigInteger.ONE;
     for (int i = 0; modulus.compareTo(need) <= 0; i++) {
       long p = Primes.below31(i);
-      long r = eliminate(groups, comp, order, dsize, Mode.MODULAR, p);
+      long r = eliminate(groups, comp, order, dsize, Mode.MODULAR, p, stop);
       // Chinese remainder step: x' = x + M·((r − x)·M⁻¹ mod p), so x' ≡ x (mod M), x' ≡ r (mod p).
       BigInteger bp = BigInteger.valueOf(p);
       BigInteger t = BigInteger.valueOf(r).subtract(x).multiply(modulus.modInverse(bp)).mod(bp);
@@ -550,7 +572,7 @@ public final class SpaceCounter {
 
   /** One elimination pass; returns the count (raw double bits in ESTIMATE mode, a residue in MODULAR). */
   private static long eliminate(
-      int[] groups, List<Local> comp, int[] order, int[] dsize, Mode mode, long mod) {
+      int[] groups, List<Local> comp, int[] order, int[] dsize, Mode mode, long mod, BooleanSupplier stop) {
     int c = groups.length;
     int[] where = localIndex(groups, dsize.length);
     int[] dim = new int[c];
@@ -572,7 +594,7 @@ public final class SpaceCounter {
       }
       long factor = dim[v];
       if (!bucket.isEmpty()) {
-        Table t = sumOut(bucket, v, dim, mode, mod);
+        Table t = sumOut(bucket, v, dim, mode, mod, stop);
         if (t.vars.length > 0) {
           tables.add(t);
           continue;
@@ -632,7 +654,7 @@ public final class SpaceCounter {
    * tables are first turned into bit masks over v's choices, so that for each entry of the result
    * the live choices of v come from a few word ANDs; only the numeric tables are read per choice.
    */
-  private static Table sumOut(List<Table> bucket, int v, int[] dim, Mode mode, long mod) {
+  private static Table sumOut(List<Table> bucket, int v, int[] dim, Mode mode, long mod, BooleanSupplier stop) {
     BitSet u = new BitSet();
     for (Table t : bucket) {
       for (int x : t.vars) {
@@ -691,6 +713,9 @@ public final class SpaceCounter {
     int[] digit = new int[nv];
     long[] out = new long[size];
     for (int p = 0; p < size; p++) {
+      if ((p & 1023) == 1023) {
+        poll(stop);
+      }
       long sum = 0;
       double sumD = 0;
       for (int w = 0; w < words; w++) {

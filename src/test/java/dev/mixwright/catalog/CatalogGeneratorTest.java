@@ -5,8 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import dev.mixwright.space.SpaceCount;
-import dev.mixwright.space.SpaceCounter;
+import dev.mixwright.space.BudgetedCount;
+import dev.mixwright.space.Existence;
 import dev.mixwright.space.VariantSpace;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
@@ -43,11 +43,131 @@ class CatalogGeneratorTest {
       assertEquals(c, back, "round trip of " + s);
       assertEquals(s.groups(), c.groups().size());
       assertEquals(s.rules(), c.rules().size(), "every requested rule was placed: " + s);
-      VariantSpace space = new VariantSpace(back);
-      SpaceCounter counter = new SpaceCounter(space);
-      assertTrue(!counter.count().isEmpty(), "buildable variants for " + s);
-      for (SpaceCount sc : counter.perSegment()) {
-        assertTrue(!sc.isEmpty(), "every segment accepts a buildable variant: " + s);
+      assertEverySegmentSells(back, s);
+    }
+  }
+
+  /** Sellability by complete search (no node limit), not by counting. */
+  private static void assertEverySegmentSells(Catalog c, CatalogGenerator.Spec s) {
+    VariantSpace space = new VariantSpace(c);
+    assertTrue(Existence.within(space, BudgetedCount.wholeSpace(space), Long.MAX_VALUE).found(),
+        "buildable variants for " + s);
+    for (int seg = 0; seg < space.segmentCount(); seg++) {
+      assertTrue(Existence.within(space, BudgetedCount.segment(space, seg), Long.MAX_VALUE).found(),
+          "segment " + seg + " accepts a buildable variant: " + s);
+    }
+  }
+
+  private static CatalogGenerator.Spec spec(Random rnd, long seed, CatalogGenerator.Family family) {
+    return new CatalogGenerator.Spec(4 + rnd.nextInt(20), 2 + rnd.nextInt(7), 1 + rnd.nextInt(8),
+        1 + rnd.nextInt(6), rnd.nextInt(60), rnd.nextDouble() * 0.6, seed, family);
+  }
+
+  /** Every family writes catalogs that load back unchanged, with every rule placed and every segment selling. */
+  @Test
+  void everyFamilyMakesValidCatalogs() throws CatalogException {
+    for (CatalogGenerator.Family f : CatalogGenerator.Family.values()) {
+      Random rnd = new Random(f.ordinal());
+      for (int i = 0; i < 15; i++) {
+        CatalogGenerator.Spec s = spec(rnd, 300 + i, f);
+        Catalog c = CatalogGenerator.generate(s);
+        Catalog back = CatalogLoader.parse(CatalogWriter.toYaml(c), "x.yaml", null);
+        assertEquals(c, back, "round trip of " + s);
+        assertEquals(s.rules(), c.rules().size(), "every requested rule was placed: " + s);
+        assertEverySegmentSells(back, s);
+        assertEquals(c, CatalogGenerator.generate(s), "same spec, same catalog: " + s);
+      }
+    }
+  }
+
+  @Test
+  void classicIsTheDefaultSoOldSeedsGiveTheSameCatalogs() {
+    CatalogGenerator.Spec old = new CatalogGenerator.Spec(12, 5, 4, 3, 30, 0.2, 9);
+    assertEquals(CatalogGenerator.Family.CLASSIC, old.family());
+    assertEquals(CatalogGenerator.generate(old),
+        CatalogGenerator.generate(new CatalogGenerator.Spec(12, 5, 4, 3, 30, 0.2, 9, CatalogGenerator.Family.CLASSIC)));
+    assertEquals(CatalogGenerator.Family.WIDE, CatalogGenerator.Family.of("wide"));
+    IllegalArgumentException e =
+        assertThrows(IllegalArgumentException.class, () -> CatalogGenerator.Family.of("spiky"));
+    assertTrue(e.getMessage().contains("classic, dense, distant, wide, multi, tight, loose"), e.getMessage());
+  }
+
+  private static Catalog family(CatalogGenerator.Family f, long seed) {
+    return CatalogGenerator.generate(new CatalogGenerator.Spec(20, 6, 6, 4, 60, 0.2, seed, f));
+  }
+
+  private static int distance(Catalog c, java.util.Collection<String> groups) {
+    int lo = Integer.MAX_VALUE;
+    int hi = Integer.MIN_VALUE;
+    for (String g : groups) {
+      lo = Math.min(lo, c.groupIndex(g));
+      hi = Math.max(hi, c.groupIndex(g));
+    }
+    return hi - lo;
+  }
+
+  @Test
+  void wideRulesForbidAcrossThreeToFiveGroups() {
+    for (long seed = 1; seed <= 5; seed++) {
+      for (Rule r : family(CatalogGenerator.Family.WIDE, seed).rules()) {
+        assertTrue(r.isForbid() && r.forbid().size() >= 3 && r.forbid().size() <= 5, "rule " + r);
+      }
+    }
+  }
+
+  @Test
+  void multiRulesHaveSeveralGroupsOnEachSide() {
+    for (long seed = 1; seed <= 5; seed++) {
+      for (Rule r : family(CatalogGenerator.Family.MULTI, seed).rules()) {
+        assertTrue(!r.isForbid() && r.when().size() >= 2 && r.require().size() == 2, "rule " + r);
+      }
+    }
+  }
+
+  @Test
+  void denseRulesForbidLargeBlocksBetweenNeighbours() {
+    for (long seed = 1; seed <= 5; seed++) {
+      Catalog c = family(CatalogGenerator.Family.DENSE, seed);
+      for (Rule r : c.rules()) {
+        assertTrue(r.isForbid() && r.forbid().size() == 2, "rule " + r);
+        assertTrue(distance(c, r.forbid().keySet()) <= 2, "neighbours: " + r);
+        r.forbid().values().forEach(ids -> assertTrue(ids.size() >= 2, "a block of two or more: " + r));
+      }
+    }
+  }
+
+  @Test
+  void distantRulesTieGroupsFarApart() {
+    for (long seed = 1; seed <= 5; seed++) {
+      Catalog c = family(CatalogGenerator.Family.DISTANT, seed);
+      long far = c.rules().stream()
+          .mapToInt(r -> distance(c, r.isForbid() ? r.forbid().keySet() : union(r)))
+          .filter(d -> d > 3).count();
+      // uniform pairs of 20 groups lie more than 3 apart with probability 1 - 3·(2·20 - 4)/(20·19) ≈ 0.72
+      assertTrue(far >= c.rules().size() / 2, far + " of " + c.rules().size() + " rules span more than 3 groups");
+    }
+  }
+
+  private static java.util.Set<String> union(Rule r) {
+    java.util.Set<String> s = new java.util.HashSet<>(r.when().keySet());
+    s.addAll(r.require().keySet());
+    return s;
+  }
+
+  /** Tight and loose draw the classic groups and rules and scale only the capacities. */
+  @Test
+  void tightAndLooseMoveOnlyTheCapacities() {
+    for (long seed = 1; seed <= 5; seed++) {
+      Catalog classic = family(CatalogGenerator.Family.CLASSIC, seed);
+      Catalog tight = family(CatalogGenerator.Family.TIGHT, seed);
+      Catalog loose = family(CatalogGenerator.Family.LOOSE, seed);
+      assertEquals(classic.groups(), tight.groups());
+      assertEquals(classic.rules(), loose.rules());
+      for (int r = 0; r < classic.resources().size(); r++) {
+        double cap = classic.resources().get(r).capacity();
+        // classic scales by 0.4–0.7, tight by 0.15–0.3, loose by 1.1–1.6 (rounded to whole units)
+        assertTrue(tight.resources().get(r).capacity() <= cap, "tight " + r);
+        assertTrue(loose.resources().get(r).capacity() >= cap, "loose " + r);
       }
     }
   }

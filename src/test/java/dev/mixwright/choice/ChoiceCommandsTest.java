@@ -13,7 +13,7 @@ import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
-/** {@code check} describes the choice data; {@code solve} refuses it cleanly, for now. */
+/** {@code check} describes the choice data; {@code solve} plans it; {@code sweep} refuses it cleanly, for now. */
 class ChoiceCommandsTest {
   @TempDir Path dir;
 
@@ -49,11 +49,68 @@ class ChoiceCommandsTest {
     assertEquals(1, n.get("choice").get("pricePointOptions").asInt());
   }
 
+  /**
+   * The solve writes the sales-based LP's plan: per choosing segment its buyers split into sold and
+   * staying out (sold + stayOut = buyers, the buyers row), each offer's share is its quantity over
+   * the buyers, no offer sells above w times what stays out (its own row), and the price shown is
+   * the hull's chosen price point plus the other options' prices (the catalog's figures).
+   */
   @Test
-  void solveRefusesWithWordsAndExitTwo() throws Exception {
-    Ran r = run("solve", boats(), "--out", dir.resolve("run").toString(), "--no-portfolio");
-    assertEquals(2, r.code());
-    assertTrue(r.err().contains("segments that choose are not solved by this version yet"), r.err());
+  void solveWritesTheChoiceFields() throws Exception {
+    Path run = dir.resolve("run");
+    Ran r = run("solve", boats(), "--out", run.toString());
+    assertEquals(0, r.code(), r.err());
+    JsonNode n = new ObjectMapper().readTree(run.resolve("result.json").toFile());
+    assertEquals("optimal", n.get("status").asText());
+    assertFalse(n.has("portfolio"));
+    JsonNode clubs = n.get("segments").get(0);
+    assertEquals("clubs", clubs.get("id").asText());
+    double buyers = clubs.get("buyers").asDouble();
+    assertEquals(900, buyers);
+    assertEquals(buyers, clubs.get("sold").asDouble() + clubs.get("stayOut").asDouble(), 1e-6 * buyers);
+    assertFalse(n.get("segments").get(1).has("buyers"));
+    int clubOffers = 0;
+    for (JsonNode o : n.get("offers")) {
+      assertTrue(o.has("price"), o.toString());
+      if (o.get("segment").asText().equals("clubs")) {
+        clubOffers++;
+        assertEquals(o.get("quantity").asDouble() / buyers, o.get("share").asDouble(), 1e-9);
+        double cap = o.get("attraction").asDouble() * clubs.get("stayOut").asDouble();
+        assertTrue(o.get("quantity").asDouble() <= cap * (1 + 1e-6) + 1e-6, o.toString());
+        String hull = o.get("options").get("hull").asText();
+        double price = hull.startsWith("shell@") ? Double.parseDouble(hull.substring(6)) : 2400;
+        price += o.get("options").get("oars").asText().equals("carbon") ? 650 : 300;
+        price += o.get("options").get("cover").asText().equals("canvas") ? 180 : 0;
+        assertEquals(price, o.get("price").asDouble(), 1e-9, o.toString());
+      } else {
+        assertFalse(o.has("share"));
+      }
+    }
+    assertTrue(clubOffers > 0);
+  }
+
+  /** The integer stage handles fixed demand only: with a portfolio section it is skipped, said in words. */
+  @Test
+  void portfolioIsSkippedWithANote() throws Exception {
+    Path from = Path.of(boats()).getParent();
+    java.nio.file.Files.copy(from.resolve("clubs-utility.csv"), dir.resolve("clubs-utility.csv"));
+    String text = java.nio.file.Files.readString(from.resolve("rowing-boats.yaml"))
+        + "\nportfolio:\n  introductionCost: 1000\n  maxVariants: 3\n";
+    Path catalog = dir.resolve("boats-portfolio.yaml");
+    java.nio.file.Files.writeString(catalog, text);
+    Path run = dir.resolve("run");
+    Ran r = run("solve", catalog.toString(), "--out", run.toString());
+    assertEquals(0, r.code(), r.err());
+    JsonNode n = new ObjectMapper().readTree(run.resolve("result.json").toFile());
+    assertFalse(n.has("portfolio"));
+    assertTrue(n.get("portfolioPending").asText().contains("chooses by multinomial logit"), n.toString());
+  }
+
+  @Test
+  void sweepRefusesWithWordsAndExitTwo() throws Exception {
+    Ran r = run("sweep", boats(), "--out", dir.resolve("sweep").toString(), "--grid", "resources.layup.capacity=5000,6000");
+    assertEquals(2, r.code(), r.out() + r.err());
+    assertTrue(r.err().contains("sweeps over segments that choose are not run by this version yet"), r.err());
     assertFalse(r.err().contains("Exception"), r.err());
   }
 }

@@ -16,7 +16,7 @@ class NotSolvedYetTest {
     CatalogException e =
         assertThrows(
             CatalogException.class,
-            () -> NotSolvedYet.refuseChoiceFeatures(PricePointSpaceTest.boats()));
+            () -> NotSolvedYet.refuseInSweep(PricePointSpaceTest.boats()));
     assertEquals(
         List.of("segments[0].choice", "groups[0].options[1].prices"),
         e.problems().stream().map(CatalogProblem::path).toList());
@@ -26,7 +26,7 @@ class NotSolvedYetTest {
   void todaysCatalogsPass() {
     for (long seed = 0; seed < 10; seed++) {
       long s = seed;
-      assertDoesNotThrow(() -> NotSolvedYet.refuseChoiceFeatures(RandomCatalogs.small(s)));
+      assertDoesNotThrow(() -> NotSolvedYet.refuseInSweep(RandomCatalogs.small(s)));
     }
   }
 }

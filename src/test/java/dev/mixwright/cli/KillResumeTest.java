@@ -8,7 +8,7 @@ import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveSettings;
-import dev.mixwright.pricing.Pricers;
+import dev.mixwright.pricing.BranchAndBoundPricer;
 import dev.mixwright.runfolder.ColumnLogReader;
 import dev.mixwright.runfolder.LoopSnapshot;
 import dev.mixwright.runfolder.RunFolder;
@@ -36,7 +36,7 @@ class KillResumeTest {
   @BeforeAll
   static void solveUninterrupted() throws Exception {
     VariantSpace space = new VariantSpace(CatalogLoader.load(RANGE));
-    uninterrupted = new ColumnGeneration(space, Pricers.byName("bnb", space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
+    uninterrupted = new ColumnGeneration(space, BranchAndBoundPricer.withDefaultLimits(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
         .run().objective();
   }
 

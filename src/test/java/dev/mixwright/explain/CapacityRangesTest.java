@@ -11,7 +11,7 @@ import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.BranchAndBoundPricer;
-import dev.mixwright.pricing.Pricers;
+
 import dev.mixwright.space.VariantSpace;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -163,6 +163,6 @@ class CapacityRangesTest {
     Catalog c = new Catalog(cat.format(), cat.name(), cat.currency(), cat.period(), res, cat.groups(),
         cat.rules(), cat.segments(), cat.portfolio());
     VariantSpace space = new VariantSpace(c);
-    return new ColumnGeneration(space, Pricers.byName("bnb", space), null, s, StopCriterion.never(), System.nanoTime()).run();
+    return new ColumnGeneration(space, BranchAndBoundPricer.withDefaultLimits(space), null, s, StopCriterion.never(), System.nanoTime()).run();
   }
 }

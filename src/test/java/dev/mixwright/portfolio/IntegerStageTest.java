@@ -31,10 +31,14 @@ class IntegerStageTest {
   @Test
   void provenMeansTheEnumeratedOptimumAndTheBoundNeverFallsBelowIt() {
     int proven = 0;
+    int byTree = 0;
     int compared = 0;
     for (int i = 0; i < CASES; i++) {
       VariantSpace space = new VariantSpace(randomCatalog(i));
-      PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
+      // cases on one worker and on two; half of them without the quick proof, which leaves the proof
+      // to the branch-and-price tree: every way must give the enumerated optimum
+      PortfolioOutcome o = new IntegerStage(space, StageRuns.settings()).workers(1 + i % 2).quickProof(i % 4 < 2)
+          .run(StageRuns.lp(space));
       StageRuns.checkFeasible(space, o);
       EnumeratedMip.Result full = EnumeratedMip.solve(space, false, 60_000); // SCIP over all variants
       if (!full.optimal()) {
@@ -47,9 +51,11 @@ class IntegerStageTest {
       assertTrue(o.value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
       if (o.status().isProven()) {
         proven++;
+        byTree += o.tree().nodes() > 0 ? 1 : 0;
         assertEquals(full.value(), o.value(), tol(full.value()), where);
       }
     }
+    assertTrue(byTree >= CASES / 4, "the tree should prove a good share of the cases: " + byTree);
     assertTrue(compared >= CASES * 9 / 10, "the reference should solve nearly every case");
     assertTrue(proven >= compared * 3 / 4, "most small cases should be proven, got " + proven + " of " + compared);
   }
@@ -80,26 +86,61 @@ class IntegerStageTest {
   }
 
   @Test
-  void aProofCutShortStaysHeuristicWithAValidBound() {
-    // a survivor limit of 0 leaves every survivor out of the pool, so only the bounds speak
+  void aStageStoppedAtOnceStaysHeuristicWithAValidBound() {
+    // a stop criterion that fires at its first check (no clock involved): the tree never runs, and
+    // only the bounds found before it speak
     int heuristic = 0;
-    for (int i = 0; i < 30; i++) {
+    for (int i = 0; i < 20; i++) {
       VariantSpace space = new VariantSpace(randomCatalog(200 + i));
-      PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings().withSurvivorLimit(0));
+      PortfolioOutcome o = new IntegerStage(space, StageRuns.settings())
+          .stopWhen(now -> java.util.Optional.of("stopped by the test")).run(StageRuns.lp(space));
       StageRuns.checkFeasible(space, o);
       EnumeratedMip.Result full = EnumeratedMip.solve(space, false, 60_000);
       String where = "case " + (200 + i);
       assertTrue(full.bound() <= o.bound() + tol(full.bound()), where + ": bound below the optimum");
       assertTrue(o.value() <= full.value() + tol(full.value()), where);
-      if (!o.status().isProven()) {
-        heuristic++;
-        assertTrue(o.survivorsAdded() == 0 && !o.survivorsComplete(), where);
+      if (o.status().isProven()) {
+        assertEquals(full.value(), o.value(), tol(full.value()), where);
       } else {
+        heuristic++;
+        assertTrue(o.reason().contains("stopped by the test"), where + ": " + o.reason());
+      }
+    }
+    assertTrue(heuristic >= 10, "a stopped stage proves only what needs no search: " + heuristic);
+  }
+
+  @Test
+  void wholeUnitsMatchTheEnumeratedMipWithIntegerSales() {
+    int proven = 0;
+    for (int i = 0; i < 25; i++) {
+      Random rnd = new Random(7000 + i);
+      Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(2), 4, 1 + rnd.nextInt(2), 1 + rnd.nextInt(3),
+          rnd.nextInt(5), true);
+      var p = c.portfolio().orElseThrow();
+      c = new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(),
+          c.segments(), java.util.Optional.of(new dev.mixwright.catalog.PortfolioSpec(p.introductionCost(),
+              p.maxVariants(), p.minLot(), true)));
+      VariantSpace space = new VariantSpace(c);
+      PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
+      StageRuns.checkFeasible(space, o);
+      for (OfferedVariant v : o.variants()) {
+        for (double q : v.sales()) {
+          assertEquals(Math.rint(q), q, 1e-9, "case " + i + ": whole units only");
+        }
+      }
+      // SCIP over every buildable variant with integer sales (EnumeratedMip reads wholeUnits)
+      EnumeratedMip.Result full = EnumeratedMip.solve(space, false, 60_000);
+      if (!full.optimal()) {
+        continue;
+      }
+      String where = "case " + i + " (" + o.status().word() + " " + o.reason() + ")";
+      assertTrue(full.value() <= o.bound() + tol(full.value()), where + ": bound below the optimum");
+      assertTrue(o.value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
+      if (o.status().isProven()) {
+        proven++;
         assertEquals(full.value(), o.value(), tol(full.value()), where);
       }
     }
-    // With 10 columns per segment per round the LP stage hands over a richer pool, so fewer cases
-    // stay unproven than with 5 (5 of 30 against more before); the point is that the path is taken.
-    assertTrue(heuristic >= 3, "some of these need survivors, so they cannot be proven: " + heuristic);
+    assertTrue(proven >= 5, "some whole-unit cases should be proven: " + proven);
   }
 }

@@ -16,7 +16,7 @@ class PortfolioEventTest {
 
   @Test
   void kindsAreWrittenWithTheirLogWords() {
-    assertEquals(List.of("relaxation", "incumbent", "mip", "survivors", "end"),
+    assertEquals(List.of("relaxation", "incumbent", "mip", "survivors", "tree", "end"),
         Arrays.stream(PortfolioEvent.Kind.values()).map(PortfolioEvent.Kind::word).toList());
     assertTrue(PortfolioEvent.Kind.INCUMBENT.isPortfolio());
     assertFalse(PortfolioEvent.Kind.MIP.isPortfolio());

@@ -39,7 +39,7 @@ class ChoosingViewsTest {
     List<RunResult.SegmentRow> segs = List.of(
         new RunResult.SegmentRow("clubs", buyers, q1 + q2, 950.0, buyers, buyers / d),
         new RunResult.SegmentRow("hire", 120, 60, 0.0));
-    return new RunResult(RunStatus.OPTIMAL, "", q1 * 1800 + q2 * 1000 + 60000, null, null, 3, 4, 6, "14", null, 10,
+    return new RunResult(RunStatus.OPTIMAL, "", q1 * 1800 + q2 * 1000 + 60000, null, null, 3, 4, 6, "14", null, null, null, 10,
         new RunResult.CatalogRef("boats", "boats.yaml", "ab", "EUR", "year"), "bnb", offers,
         List.of(new RunResult.ResourceRow("layup", 5200, 100, 0.0, false)), segs, List.of(), null, null, null);
   }

@@ -83,7 +83,7 @@ class RunResultTest {
   @Test
   void absentOptionalFieldsStayAbsent() throws Exception {
     RunResult r = RunResult.parse(STOPPED, "result.json");
-    RunResult plain = new RunResult(RunStatus.OPTIMAL, "", 1, 1.0, 0.0, 1, 1, 1, "3", null, 1, r.catalog(), "bnb",
+    RunResult plain = new RunResult(RunStatus.OPTIMAL, "", 1, 1.0, 0.0, 1, 1, 1, "3", null, null, null, 1, r.catalog(), "bnb",
         r.offers(), r.resources(), r.segments(), r.rounds(), null, null, null);
     String json = plain.toJson();
     assertTrue(json.contains("\"status\" : \"optimal\""), json);

@@ -9,7 +9,7 @@ import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveSettings;
-import dev.mixwright.pricing.Pricers;
+import dev.mixwright.pricing.BranchAndBoundPricer;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -33,7 +33,7 @@ class ColumnLogReaderTest {
   void writeLog() throws Exception {
     space = new VariantSpace(CatalogLoader.load(Path.of("catalogs/heatpump-starter.yaml")));
     try (ColumnLog log = ColumnLog.open(space, dir, 1, 0)) {
-      objective = new ColumnGeneration(space, Pricers.byName("bnb", space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
+      objective = new ColumnGeneration(space, BranchAndBoundPricer.withDefaultLimits(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
           .addListener(log).run().objective();
     }
     whole = Files.readAllBytes(log());
@@ -127,7 +127,7 @@ class ColumnLogReaderTest {
     var pool = ColumnPool.rebuild(space, e.lines());
     double resumed;
     try (ColumnLog log = ColumnLog.open(space, dir, 2, e.validBytes())) {
-      resumed = new ColumnGeneration(space, Pricers.byName("bnb", space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
+      resumed = new ColumnGeneration(space, BranchAndBoundPricer.withDefaultLimits(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
           .continuing(3, Double.POSITIVE_INFINITY).addListener(log).run(pool.columns()).objective();
     }
     assertEquals(objective, resumed, 1e-6 * Math.abs(objective));

@@ -118,10 +118,10 @@ class SpaceCounterProperties {
       VariantSpace space =
           new VariantSpace(draw(rnd, new int[] {3, 12}, new int[] {2, 6}, new int[] {0, 12}, 2, wide));
       SpaceCounter counter = new SpaceCounter(space);
-      assertEquals(new SpaceCount(BigInteger.valueOf(BruteForce.buildable(space)), true), counter.count());
+      assertEquals(SpaceCount.exact(BigInteger.valueOf(BruteForce.buildable(space))), counter.count());
       for (int s = 0; s < space.segmentCount(); s++) {
         assertEquals(
-            new SpaceCount(BigInteger.valueOf(BruteForce.columns(space, s)), true), counter.count(s));
+            SpaceCount.exact(BigInteger.valueOf(BruteForce.columns(space, s))), counter.count(s));
       }
     });
   }
@@ -166,7 +166,7 @@ class SpaceCounterProperties {
                 }
                 return space.isBuildable(v);
               });
-      assertEquals(new SpaceCount(BigInteger.valueOf(truth), true), new SpaceCounter(space).count(domain));
+      assertEquals(SpaceCount.exact(BigInteger.valueOf(truth)), new SpaceCounter(space).count(domain));
       boolean[] within = domain.clone();
       for (int f = 0; f < within.length; f++) {
         within[f] &= space.allowed(f);

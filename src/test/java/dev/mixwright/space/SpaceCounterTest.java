@@ -41,10 +41,10 @@ class SpaceCounterTest {
     }
     Catalog c = catalog(groups, List.of(), List.of(segment("all", Map.of()), segment("g1", m("g1", "o0,o1"))));
     SpaceCounter counter = new SpaceCounter(new VariantSpace(c));
-    assertEquals(new SpaceCount(product, true), counter.count());
-    assertEquals(new SpaceCount(product, true), counter.count(0));
+    assertEquals(SpaceCount.exact(product), counter.count());
+    assertEquals(SpaceCount.exact(product), counter.count(0));
     // g1 has two options; the segment keeps both, so only a rule-free product again.
-    assertEquals(new SpaceCount(product, true), counter.count(1));
+    assertEquals(SpaceCount.exact(product), counter.count(1));
     assertTrue(product.bitLength() > 63);
   }
 
@@ -69,9 +69,9 @@ class SpaceCounterTest {
     SpaceCounter counter = new SpaceCounter(new VariantSpace(c));
     BigInteger nine29 = BigInteger.valueOf(9).pow(29);
     SpaceCount all = counter.count();
-    assertEquals(new SpaceCount(BigInteger.TEN.multiply(nine29), true), all);
+    assertEquals(SpaceCount.exact(BigInteger.TEN.multiply(nine29)), all);
     assertTrue(all.value().compareTo(BigInteger.valueOf(Long.MAX_VALUE)) > 0);
-    assertEquals(new SpaceCount(BigInteger.TWO.multiply(nine29), true), counter.count(0));
+    assertEquals(SpaceCount.exact(BigInteger.TWO.multiply(nine29)), counter.count(0));
   }
 
   /**
@@ -146,8 +146,8 @@ class SpaceCounterTest {
     }
     assertTrue(total.compareTo(BigInteger.valueOf(Long.MAX_VALUE)) > 0, "test should need > 63 bits: " + total);
     SpaceCounter counter = new SpaceCounter(new VariantSpace(c));
-    assertEquals(new SpaceCount(total, true), counter.count());
-    assertEquals(new SpaceCount(totalSeg, true), counter.count(0));
+    assertEquals(SpaceCount.exact(total), counter.count());
+    assertEquals(SpaceCount.exact(totalSeg), counter.count(0));
   }
 
   /** Group g alone at choice k breaks no rule that names only g. */
@@ -213,7 +213,7 @@ class SpaceCounterTest {
     assertTrue(bound.value().compareTo(truth) >= 0, bound + " below " + truth);
     assertTrue(bound.text().startsWith("at most "));
 
-    assertEquals(new SpaceCount(truth, true), new SpaceCounter(space).count());
+    assertEquals(SpaceCount.exact(truth), new SpaceCounter(space).count());
   }
 
   @Test
@@ -224,9 +224,9 @@ class SpaceCounterTest {
             List.of(forbid(m("a", "x")), when(m("a", "y"), m("b", "p")), forbid(m("a", "y", "b", "p"))),
             List.of(segment("s", m("b", "none"))));
     SpaceCounter counter = new SpaceCounter(new VariantSpace(c));
-    assertEquals(new SpaceCount(BigInteger.ZERO, true), counter.count());
+    assertEquals(SpaceCount.exact(BigInteger.ZERO), counter.count());
     assertTrue(counter.count().isEmpty());
-    assertEquals(List.of(new SpaceCount(BigInteger.ZERO, true)), counter.perSegment());
+    assertEquals(List.of(SpaceCount.exact(BigInteger.ZERO)), counter.perSegment());
   }
 
   @Test
@@ -235,7 +235,7 @@ class SpaceCounterTest {
     assertThrows(IllegalArgumentException.class, () -> new SpaceCounter(space, 0));
     assertThrows(IllegalArgumentException.class, () -> new SpaceCounter(space).count(0));
     assertThrows(IllegalArgumentException.class, () -> new SpaceCounter(space).count(new boolean[2]));
-    assertEquals(new SpaceCount(BigInteger.valueOf(3), true), new SpaceCounter(space).count());
+    assertEquals(SpaceCount.exact(BigInteger.valueOf(3)), new SpaceCounter(space).count());
   }
 
   @Test

@@ -97,7 +97,8 @@ public final class EnumeratedMip {
             continue;
           }
           double u = c.segments().get(s).maxShare() * c.segments().get(s).demand();
-          MPVariable x = solver.makeNumVar(0, Double.POSITIVE_INFINITY, "");
+          MPVariable x = p.wholeUnits() && !relaxed ? solver.makeIntVar(0, Double.POSITIVE_INFINITY, "")
+              : solver.makeNumVar(0, Double.POSITIVE_INFINITY, "");
           obj.setCoefficient(x, space.margin(w, s));
           for (int r = 0; r < res.length; r++) {
             res[r].setCoefficient(x, a[r]);

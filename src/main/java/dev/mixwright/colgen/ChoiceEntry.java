@@ -1,0 +1,58 @@
+package dev.mixwright.colgen;
+
+/**
+ * Which columns of a segment that chooses enter the master in a round, out of those that pay. The
+ * pricer is asked for {@code asked} × perRound columns by reduced cost d; {@code entering} ×
+ * perRound of them enter, ranked by d itself or by w·d — the rate at which raising a column's sales
+ * along its row x_j ≤ w_j·x_s0 improves the master (a column of attraction w can sell only w times
+ * what stays out, so a high d on a tiny w buys little). Exactness does not depend on the choice: the
+ * loop stops on the sign test and the bound in every mode. Fixed segments are not affected.
+ */
+public enum ChoiceEntry {
+  /** The perRound best by d, as for a fixed segment. */
+  BY_REDUCED_COST(1, 1, false, false),
+  /** The 3 × perRound best by d all enter. */
+  MORE_BY_REDUCED_COST(3, 3, false, false),
+  /** Of the 3 × perRound best by d, the perRound best by w·d enter. */
+  BY_RATE(3, 1, true, false),
+  /**
+   * As {@link #BY_RATE}, the candidates widened by a search for high w·d (pricing u + d/D, see
+   * {@code ColumnGeneration.rateSearch}); 2 × perRound enter.
+   */
+  RATE_SEARCH(3, 2, true, true);
+
+  /** Measured on the choosing benchmark pair and the rowing-boats catalog: docs/choice.md. */
+  public static final ChoiceEntry DEFAULT = RATE_SEARCH;
+
+  private final int asked;
+  private final int entering;
+  private final boolean byRate;
+  private final boolean searchesRate;
+
+  ChoiceEntry(int asked, int entering, boolean byRate, boolean searchesRate) {
+    this.asked = asked;
+    this.entering = entering;
+    this.byRate = byRate;
+    this.searchesRate = searchesRate;
+  }
+
+  /** True when extra pricing calls look for columns of high w·d. */
+  boolean searchesRate() {
+    return searchesRate;
+  }
+
+  /** Columns asked of the pricer for a choosing segment, given perRound. */
+  int asked(int perRound) {
+    return asked * perRound;
+  }
+
+  /** Columns of a choosing segment that may enter in a round, given perRound. */
+  int entering(int perRound) {
+    return entering * perRound;
+  }
+
+  /** True when the entering columns are ranked by w·d rather than d. */
+  boolean byRate() {
+    return byRate;
+  }
+}

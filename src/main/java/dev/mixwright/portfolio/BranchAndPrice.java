@@ -1,0 +1,586 @@
+package dev.mixwright.portfolio;
+
+import dev.mixwright.colgen.StopCriterion;
+import dev.mixwright.master.LpStatus;
+import dev.mixwright.master.PortfolioLp;
+import dev.mixwright.master.PortfolioLpSolution;
+import dev.mixwright.pricing.PricedVariant;
+import dev.mixwright.pricing.PricingOutcome;
+import dev.mixwright.space.VariantSpace;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Comparator;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Optional;
+import java.util.PriorityQueue;
+import java.util.Set;
+import java.util.concurrent.atomic.AtomicReference;
+
+/**
+ * The exact integer stage: branch-and-price on (P) (Barnhart, Johnson, Nemhauser, Savelsbergh &amp;
+ * Vance 1998, "Branch-and-price: column generation for solving huge integer programs", Operations
+ * Research 46(3); Desaulniers, Desrosiers &amp; Solomon (eds.) 2005, <i>Column Generation</i>).
+ *
+ * <p>Every node is the relaxation of {@link Relaxation} (one introduction y_v per variant, shared by its
+ * segments) with some pool variants offered (y_v = 1) and some barred (y_v = 0), solved by column
+ * generation with the exact {@link VariantPricer}. The node bound is the Lagrangian bound of {@link
+ * LagrangianPortfolioBound} restricted to the node: for a portfolio S ⊇ I (offered), S ∩ O = ∅ (barred),
+ *
+ * <pre>
+ *   value(S) ≤ π·b + μ·D + Σ_{v∈I} ψ(v) − tooling(I) + λ·(K − |I|) + Σ_{v free} (ψ(v) − λ)⁺
+ * </pre>
+ *
+ * valid at any prices π, μ ≥ 0 and any λ ≥ max(0, rest), because the tooling of the options of
+ * offered variants is certainly paid. The free variants are the pool's undecided ones and the whole
+ * space outside the pool; the pricer lists the latter above the threshold and bounds the rest, so
+ * bounds hold while column generation is still running, and a node is pruned as soon as its bound
+ * falls to the incumbent (plus the gap tolerance). At a solved node, reduced-cost fixing bars every
+ * free pool variant w with bound-with-w − tooling(w) ≤ incumbent in both children (the same
+ * inequality with λ and ψ(w), as in the survivor test of {@link IntegerStage}).
+ *
+ * <p>Branching: {@link VariantBranching}. Node order: best bound first. The global bound is the
+ * largest bound of the open and running nodes (and of the nodes pruned within the tolerance), never
+ * less than the incumbent. Incumbents: the caller's, the LP of the node's offered variants plus those
+ * at y ≥ ½ ({@link FixedPortfolio}), and integral node solutions.
+ *
+ * <p>Two workers when the machine has two cores, each with its own GLOP master and pricer (OR-Tools
+ * solvers are not thread-safe); they share the pool, the open nodes and the incumbent under one lock.
+ * Cost: a node is a few warm-started GLOP solves and exact pricing calls; the tree is exponential in
+ * the worst case ((P) is NP-hard), so time limits and the stop signal end it with the valid bound.
+ */
+final class BranchAndPrice {
+  private static final int BOUND_DEPTH = 64;
+
+  private final VariantSpace space;
+  private final PortfolioTerms terms;
+  private final Pool pool;
+  private final PortfolioSettings settings;
+  private final StageClock clock;
+  private final StopCriterion stop;
+  private final long deadlineNanos;
+  private final PortfolioListener listener;
+  private final int cap;
+
+  private final Object lock = new Object();
+  private final PriorityQueue<TreeNode> open =
+      new PriorityQueue<>(Comparator.comparingDouble(TreeNode::bound).reversed());
+  private final double[] running;
+  private final List<TreeNode> stuck = new ArrayList<>();
+  private Plan incumbent;
+  private double prunedMax = Double.NEGATIVE_INFINITY;
+  private long nodes;
+  private String stopReason = "";
+  private String stuckReason = "";
+  private double artificialCost = 1;
+  private final AtomicReference<RuntimeException> failure = new AtomicReference<>();
+
+  /** How the tree ended. {@code closed}: no node left above the incumbent, so it is optimal within the gap. */
+  record Result(Plan incumbent, double bound, boolean closed, long nodes, int open, int workers, String reason) {}
+
+  /** Runs within {@code phase} (its time limit and the outer signal), with {@code workers} threads. */
+  BranchAndPrice(VariantSpace space, PortfolioTerms terms, Pool pool, PortfolioSettings settings, StageClock clock,
+      StageClock.Phase phase, PortfolioListener listener, int workers) {
+    this.space = space;
+    this.terms = terms;
+    this.pool = pool;
+    this.settings = settings;
+    this.clock = clock;
+    this.stop = phase.stop();
+    this.deadlineNanos = phase.deadlineNanos();
+    this.listener = listener;
+    this.cap = terms.variantCap();
+    this.running = new double[Math.max(1, workers)];
+  }
+
+  /** The workers the machine supports: one per core, at most two. */
+  static int defaultWorkers() {
+    return Math.max(1, Math.min(2, Runtime.getRuntime().availableProcessors()));
+  }
+
+  Result run(Plan start, double rootBound) {
+    incumbent = start;
+    // far above any gain of one more variant, so the artificials of count rows leave the master once
+    // pricing can meet the counts; the bounds do not depend on it
+    artificialCost = 10 * (Math.abs(rootBound) + Math.abs(start.value()) + terms.introductionCost() + 1);
+    Arrays.fill(running, Double.NaN);
+    open.add(TreeNode.root(rootBound));
+    List<Thread> threads = new ArrayList<>();
+    for (int w = 1; w < running.length; w++) {
+      int id = w;
+      Thread t = new Thread(() -> work(id), "mixwright-tree-" + w);
+      t.setDaemon(true);
+      threads.add(t);
+      t.start();
+    }
+    work(0);
+    for (Thread t : threads) {
+      try {
+        t.join();
+      } catch (InterruptedException e) {
+        Thread.currentThread().interrupt();
+      }
+    }
+    if (failure.get() != null) {
+      throw failure.get();
+    }
+    synchronized (lock) {
+      double bound = Math.max(incumbent.value(), prunedMax);
+      for (TreeNode n : open) {
+        bound = Math.max(bound, n.bound());
+      }
+      for (TreeNode n : stuck) {
+        bound = Math.max(bound, n.bound());
+      }
+      boolean closed = open.isEmpty() && stuck.isEmpty() && stopReason.isEmpty();
+      String reason = closed ? "" : !stopReason.isEmpty()
+          ? stopReason + " with " + (open.size() + stuck.size()) + " nodes of the branch-and-price tree open"
+          : stuckReason;
+      return new Result(incumbent, bound, closed, nodes, open.size() + stuck.size(), running.length, reason);
+    }
+  }
+
+  private double tolerance(double value) {
+    return settings.gap() * Math.max(1.0, Math.abs(value));
+  }
+
+  /** True when a node of this bound cannot hold a portfolio better than the incumbent by more than the gap. */
+  private boolean prunable(double bound) {
+    return bound <= incumbent.value() + tolerance(incumbent.value());
+  }
+
+  private void work(int id) {
+    try (Worker w = new Worker()) {
+      while (true) {
+        TreeNode node;
+        synchronized (lock) {
+          while (true) {
+            Optional<String> why = stop.check(clock.now((int) Math.min(Integer.MAX_VALUE, nodes)));
+            if (why.isPresent() && stopReason.isEmpty()) {
+              stopReason = why.get();
+            }
+            if (!stopReason.isEmpty() || failure.get() != null) {
+              lock.notifyAll();
+              return;
+            }
+            node = open.poll();
+            if (node != null) {
+              if (prunable(node.bound())) {
+                prunedMax = Math.max(prunedMax, node.bound());
+                continue;
+              }
+              break;
+            }
+            if (!anyRunning()) {
+              lock.notifyAll();
+              return;
+            }
+            try {
+              lock.wait(50);
+            } catch (InterruptedException e) {
+              Thread.currentThread().interrupt();
+              return;
+            }
+          }
+          running[id] = node.bound();
+          nodes++;
+        }
+        List<TreeNode> children = w.solve(node);
+        synchronized (lock) {
+          running[id] = Double.NaN;
+          open.addAll(children);
+          lock.notifyAll();
+        }
+      }
+    } catch (RuntimeException e) {
+      failure.compareAndSet(null, e);
+      synchronized (lock) {
+        lock.notifyAll();
+      }
+    }
+  }
+
+  private boolean anyRunning() {
+    for (double r : running) {
+      if (!Double.isNaN(r)) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /** The bound of every node in the tree now, for progress: open, running and pruned within the gap. */
+  private double globalBound() {
+    double b = Math.max(incumbent.value(), prunedMax);
+    for (TreeNode n : open) {
+      b = Math.max(b, n.bound());
+    }
+    for (TreeNode n : stuck) {
+      b = Math.max(b, n.bound());
+    }
+    for (double r : running) {
+      if (!Double.isNaN(r)) {
+        b = Math.max(b, r);
+      }
+    }
+    return b;
+  }
+
+  /** Offers a feasible plan as the incumbent; true when it is better. */
+  private boolean offer(Plan p, String how) {
+    if (p == null) {
+      return false;
+    }
+    synchronized (lock) {
+      if (p.value() <= incumbent.value() + 1e-9 * (1 + Math.abs(incumbent.value()))) {
+        return false;
+      }
+      incumbent = p;
+      listener.event(new PortfolioEvent(PortfolioEvent.Kind.INCUMBENT, clock.elapsedMs(), p.value(), globalBound(),
+          pool.size(), p.members().length, how));
+      return true;
+    }
+  }
+
+  /** One worker's master and pricer; a node at a time. */
+  private final class Worker implements AutoCloseable {
+    private PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap);
+    private final VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
+    private int have;
+    private final Set<Integer> fixed = new HashSet<>();
+    /** Count row per flat choice (−1 until needed) and of the total; rows keep their variants for good. */
+    private final int[] rowOf = new int[space.totalChoices()];
+    private int totalRow = -1;
+    private final Set<Integer> boundedRows = new HashSet<>();
+    /** The node's count ranges, per row: lo, hi (hi = +∞ for none). */
+    private final java.util.Map<Integer, double[]> ranges = new java.util.HashMap<>();
+
+    Worker() {
+      Arrays.fill(rowOf, -1);
+    }
+
+    /** A fresh master with the pool's variants and the node's decisions. */
+    private void rebuild(TreeNode node) {
+      lp.close();
+      lp = new PortfolioLp(terms.capacity(), terms.demand(), cap);
+      have = 0;
+      Arrays.fill(rowOf, -1);
+      totalRow = -1;
+      boundedRows.clear();
+      fixed.clear();
+      sync();
+      fix(node);
+    }
+
+    /** Adds the pool variants this master does not hold yet. */
+    private void sync() {
+      int n = pool.size();
+      for (int i = have; i < n; i++) {
+        PoolVariant v = pool.get(i);
+        lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+        if (totalRow >= 0) {
+          lp.addToCount(totalRow, i);
+        }
+        for (int g = 0; g < v.choices().length; g++) {
+          int r = rowOf[space.offset(g) + v.choices()[g]];
+          if (r >= 0) {
+            lp.addToCount(r, i);
+          }
+        }
+      }
+      have = n;
+    }
+
+    /** The count row of a choice ({@link TreeNode#TOTAL} for all), made on first use over the master's variants. */
+    private int row(int choice) {
+      if (choice == TreeNode.TOTAL) {
+        if (totalRow < 0) {
+          totalRow = lp.addCountRow(artificialCost);
+          for (int i = 0; i < have; i++) {
+            lp.addToCount(totalRow, i);
+          }
+        }
+        return totalRow;
+      }
+      if (rowOf[choice] < 0) {
+        rowOf[choice] = lp.addCountRow(artificialCost);
+        for (int i = 0; i < have; i++) {
+          if (TreeNode.uses(pool.get(i).choices(), choice, space.offsets())) {
+            lp.addToCount(rowOf[choice], i);
+          }
+        }
+      }
+      return rowOf[choice];
+    }
+
+    private void fix(TreeNode node) {
+      for (int i : fixed) {
+        lp.fixIntroduction(i, 0, 1);
+      }
+      fixed.clear();
+      for (int i : node.offered()) {
+        lp.fixIntroduction(i, 1, 1);
+        fixed.add(i);
+      }
+      for (int i : node.barred()) {
+        lp.fixIntroduction(i, 0, 0);
+        fixed.add(i);
+      }
+      for (int r : boundedRows) {
+        lp.setCountBounds(r, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY);
+      }
+      boundedRows.clear();
+      ranges.clear();
+      for (TreeNode.Count c : node.counts()) {
+        int[] range = node.range(c.choice());
+        double hi = range[1] == Integer.MAX_VALUE ? Double.POSITIVE_INFINITY : range[1];
+        int r = row(c.choice());
+        lp.setCountBounds(r, range[0], hi);
+        boundedRows.add(r);
+        ranges.put(c.choice(), new double[] {range[0], hi});
+      }
+    }
+
+    /** Solves a node; returns its children (none when it is pruned or closed). */
+    List<TreeNode> solve(TreeNode node) {
+      int[] total = node.range(TreeNode.TOTAL);
+      int limit = Math.min(cap, total[1]);
+      int freeCap = limit == PortfolioTerms.UNLIMITED ? limit : limit - node.offered().length;
+      if (freeCap < 0 || total[0] > limit) {
+        return List.of();
+      }
+      sync();
+      fix(node);
+      double best = node.bound();
+      int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
+      double offeredTooling = offeredTooling(node);
+      NodeProbe last = null;
+      PortfolioLpSolution sol;
+      int round = 0;
+      while (true) {
+        round++;
+        sol = lp.solve();
+        if (sol.status() == LpStatus.FAILED) {
+          // GLOP gave up from its warm start (seen once in a deep node): the same master built afresh
+          rebuild(node);
+          sol = lp.solve();
+        }
+        if (sol.status() == LpStatus.INFEASIBLE) {
+          return List.of(); // the offered variants' lots do not fit: no portfolio in this node
+        }
+        if (!sol.isOptimal()) {
+          return park(node, best, "the relaxation of a node ended " + sol.status() + " in GLOP");
+        }
+        NodeProbe probe = probe(node, sol.resourceDual(), sol.segmentDual(), countPrices(), k, freeCap,
+            offeredTooling);
+        if (probe.bound.value() < best) {
+          best = probe.bound.value();
+          last = probe;
+        } else if (last == null) {
+          last = probe;
+        }
+        synchronized (lock) {
+          if (prunable(best)) {
+            prunedMax = Math.max(prunedMax, best);
+            return List.of();
+          }
+        }
+        double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(sol.objective()));
+        int before = have;
+        int added = 0;
+        for (PricedVariant f : probe.found) {
+          if (f.reducedCost() > entry && added < settings.perRound()) {
+            pool.indexOrAdd(f.choices());
+            added++;
+          }
+        }
+        if (added == 0 && probe.exact) {
+          break;
+        }
+        Optional<String> why = stop.check(clock.now(round));
+        if (why.isPresent()) {
+          return park(node, best, why.get());
+        }
+        sync();
+        if (have == before && !probe.exact) {
+          // the pricer was cut short and found nothing new: keep the node with its valid bound
+          return park(node, best, "pricing at a node did not finish");
+        }
+      }
+      double bound = best;
+      double[] y = sol.y();
+      heuristic(node, y);
+      VariantBranching.Decision d = VariantBranching.choose(node, y, i -> pool.get(i).choices(), space.offsets(),
+          space.totalChoices());
+      if (d == null) {
+        // y is integral and every variant at 1 is offered: the node's best portfolio is its offer
+        Plan p = FixedPortfolio.solve(pool, terms, node.offered());
+        offer(p, "an integral node of the branch-and-price tree");
+        synchronized (lock) {
+          if (prunable(bound)) {
+            prunedMax = Math.max(prunedMax, bound);
+            return List.of();
+          }
+        }
+        return park(node, bound, terms.wholeUnits()
+            ? "whole units: a node's relaxation sells fractions, and its offer in whole units stays below its bound"
+            : "a node's relaxation stays above the value of its own offer");
+      }
+      int[] bar = reducedCostFixing(node, last);
+      TreeNode solved = bar.length == 0 ? node.withBound(bound) : node.barring(bar, bound);
+      if (!d.onCount() && solved.isBarred(d.variant())) {
+        // the barred variant's y was fractional: re-solve the node with the bars (same portfolios of value)
+        return List.of(solved);
+      }
+      return VariantBranching.children(solved, d, bound);
+    }
+
+    /**
+     * The duals of the node's count rows as prices: per flat choice (a penalty on variants using it)
+     * and of the total (part of the charge), each clamped to the sign its binding side allows.
+     */
+    private CountPrices countPrices() {
+      double[] pen = new double[space.totalChoices()];
+      double charge = 0;
+      double constant = 0;
+      boolean any = false;
+      for (java.util.Map.Entry<Integer, double[]> e : ranges.entrySet()) {
+        double dual = lp.countDual(row(e.getKey()));
+        double lo = e.getValue()[0];
+        double hi = e.getValue()[1];
+        // value(S) ≤ ... + δ·(side − count(S)): valid when δ ≥ 0 at a finite upper side, δ ≤ 0 at the lower
+        if (dual > 0 && !Double.isFinite(hi) || !Double.isFinite(dual)) {
+          dual = 0;
+        }
+        if (dual == 0) {
+          continue;
+        }
+        any = true;
+        constant += dual > 0 ? dual * hi : dual * lo;
+        if (e.getKey() == TreeNode.TOTAL) {
+          charge += dual;
+        } else {
+          pen[e.getKey()] += dual;
+        }
+      }
+      return new CountPrices(any ? pen : null, charge, constant);
+    }
+
+    /** A node that cannot be finished: it keeps its bound in the result, and the tree stays open. */
+    private List<TreeNode> park(TreeNode node, double bound, String why) {
+      synchronized (lock) {
+        if (stop.check(clock.now(0)).isPresent()) {
+          open.add(node.withBound(bound));
+          if (stopReason.isEmpty()) {
+            stopReason = stop.check(clock.now(0)).get();
+          }
+        } else {
+          stuck.add(node.withBound(bound));
+          stuckReason = why;
+        }
+      }
+      return List.of();
+    }
+
+    /** The node's offered variants and those at y ≥ ½, as a fixed portfolio. */
+    private void heuristic(TreeNode node, double[] y) {
+      List<Integer> members = new ArrayList<>();
+      for (int i : node.offered()) {
+        members.add(i);
+      }
+      for (int i = 0; i < y.length; i++) {
+        if (y[i] >= 0.5 && !node.isOffered(i) && !node.isBarred(i)) {
+          members.add(i);
+        }
+      }
+      if (members.size() > terms.maxVariants()) {
+        return;
+      }
+      offer(FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray()),
+          "rounding at a node of the branch-and-price tree");
+    }
+
+    /** Free pool variants that cannot be part of a better portfolio in this node's subtree. */
+    private int[] reducedCostFixing(TreeNode node, NodeProbe probe) {
+      if (probe == null || !probe.bound.isFinite()) {
+        return new int[0];
+      }
+      double z;
+      synchronized (lock) {
+        z = incumbent.value() + tolerance(incumbent.value());
+      }
+      List<Integer> out = new ArrayList<>();
+      Set<Integer> paid = offeredTools(node);
+      for (int i = 0; i < probe.psi.length; i++) {
+        if (node.isOffered(i) || node.isBarred(i)) {
+          continue;
+        }
+        double extra = 0;
+        for (int t : pool.get(i).tools()) {
+          if (!paid.contains(t)) {
+            extra += terms.choiceCost()[t];
+          }
+        }
+        if (probe.bound.withVariant(probe.psi[i]) - extra <= z) {
+          out.add(i);
+        }
+      }
+      return out.stream().mapToInt(Integer::intValue).toArray();
+    }
+
+    /** The Lagrangian bound of the node at prices (π, μ): one pricing call outside the master's variants. */
+    private NodeProbe probe(TreeNode node, double[] pi, double[] mu, CountPrices cp, int k, int freeCap,
+        double offeredTooling) {
+      VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
+          pool.keysBelow(have), deadlineNanos);
+      PricingOutcome out = pricer.price(q);
+      double constant = terms.rowValue(pi, mu) + cp.constant() - offeredTooling;
+      double[] psi = new double[have];
+      double[] listed = new double[have + out.found().size()];
+      int n = 0;
+      for (int i = 0; i < have; i++) {
+        psi[i] = VariantPricer.value(space, terms, pool.get(i).choices(), q);
+        if (node.isOffered(i)) {
+          constant += psi[i];
+        } else if (!node.isBarred(i)) {
+          listed[n++] = psi[i];
+        }
+      }
+      for (PricedVariant f : out.found()) {
+        listed[n++] = f.reducedCost();
+      }
+      LagrangianPortfolioBound b = LagrangianPortfolioBound.of(constant, Arrays.copyOf(listed, n), out.restBound(),
+          freeCap, pi.clone(), mu.clone());
+      return new NodeProbe(b, psi, out.found(), out.exact());
+    }
+
+    private double offeredTooling(TreeNode node) {
+      double t = 0;
+      for (int f : offeredTools(node)) {
+        t += terms.choiceCost()[f];
+      }
+      return t;
+    }
+
+    private Set<Integer> offeredTools(TreeNode node) {
+      Set<Integer> tools = new HashSet<>();
+      for (int i : node.offered()) {
+        for (int f : pool.get(i).tools()) {
+          tools.add(f);
+        }
+      }
+      return tools;
+    }
+
+    @Override
+    public void close() {
+      lp.close();
+    }
+  }
+
+  /** Prices of a node's count rows: penalty per flat choice (null for none), added charge, and Σ δ·side. */
+  private record CountPrices(double[] penalty, double charge, double constant) {}
+
+  /** A node bound with the ψ of the master's variants at its prices, and what the pricer found outside. */
+  private record NodeProbe(LagrangianPortfolioBound bound, double[] psi, List<PricedVariant> found, boolean exact) {}
+}

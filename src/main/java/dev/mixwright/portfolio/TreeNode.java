@@ -1,0 +1,112 @@
+package dev.mixwright.portfolio;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.function.ToIntFunction;
+
+/**
+ * A node of the branch-and-price tree: the portfolios that offer every pool variant of
+ * {@code offered}, none of {@code barred} (pool indices, sorted), and satisfy every count range of
+ * {@code counts} (how many offered variants use a choice, or how many are offered at all). Variants
+ * outside the pool are free in every node but for the counts, which the pricer sees as penalties per
+ * choice. {@code bound}: an upper bound on the value of every portfolio of the node (the parent's until
+ * the node is solved); {@code depth}: the number of decisions.
+ */
+record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, int depth) {
+
+  /** Total count: the number of variants offered. */
+  static final int TOTAL = -1;
+
+  /**
+   * lo ≤ (offered variants using flat choice {@code choice}, or all offered when {@link #TOTAL}) ≤ hi.
+   */
+  record Count(int choice, int lo, int hi) {}
+
+  TreeNode {
+    offered = offered.clone();
+    barred = barred.clone();
+    Arrays.sort(offered);
+    Arrays.sort(barred);
+    counts = List.copyOf(counts);
+  }
+
+  static TreeNode root(double bound) {
+    return new TreeNode(new int[0], new int[0], List.of(), bound, 0);
+  }
+
+  /**
+   * True when the portfolio belongs to this node.
+   *
+   * @param portfolio the choices of each offered variant
+   * @param poolIndex the pool index of a variant, −1 outside the pool
+   * @param offsets flat choice offsets of the groups
+   */
+  boolean holds(List<int[]> portfolio, ToIntFunction<int[]> poolIndex, int[] offsets) {
+    List<Integer> members = new ArrayList<>();
+    for (int[] v : portfolio) {
+      members.add(poolIndex.applyAsInt(v));
+    }
+    for (int i : offered) {
+      if (!members.contains(i)) {
+        return false;
+      }
+    }
+    for (int i : barred) {
+      if (members.contains(i)) {
+        return false;
+      }
+    }
+    for (Count c : counts) {
+      int n = 0;
+      for (int[] v : portfolio) {
+        n += c.choice() == TOTAL || uses(v, c.choice(), offsets) ? 1 : 0;
+      }
+      if (n < c.lo() || n > c.hi()) {
+        return false;
+      }
+    }
+    return true;
+  }
+
+  static boolean uses(int[] v, int flat, int[] offsets) {
+    for (int g = 0; g < v.length; g++) {
+      if (offsets[g] + v[g] == flat) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  boolean isOffered(int i) {
+    return Arrays.binarySearch(offered, i) >= 0;
+  }
+
+  boolean isBarred(int i) {
+    return Arrays.binarySearch(barred, i) >= 0;
+  }
+
+  /** The tightest range on the count of {@code choice}: {lo, hi}, hi = Integer.MAX_VALUE for none. */
+  int[] range(int choice) {
+    int lo = 0;
+    int hi = Integer.MAX_VALUE;
+    for (Count c : counts) {
+      if (c.choice() == choice) {
+        lo = Math.max(lo, c.lo());
+        hi = Math.min(hi, c.hi());
+      }
+    }
+    return new int[] {lo, hi};
+  }
+
+  /** This node with more variants barred (ruled out by their reduced cost): the same portfolios of value. */
+  TreeNode barring(int[] more, double newBound) {
+    int[] b = Arrays.copyOf(barred, barred.length + more.length);
+    System.arraycopy(more, 0, b, barred.length, more.length);
+    return new TreeNode(offered, Arrays.stream(b).distinct().toArray(), counts, newBound, depth);
+  }
+
+  TreeNode withBound(double newBound) {
+    return new TreeNode(offered, barred, counts, newBound, depth);
+  }
+}

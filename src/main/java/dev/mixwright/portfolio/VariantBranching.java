@@ -1,0 +1,155 @@
+package dev.mixwright.portfolio;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * The branching rule of the branch-and-price tree, in the order tried:
+ *
+ * <ol>
+ *   <li>On a count (Vanderbeck 2000, "On Dantzig-Wolfe decomposition in integer programming and ways
+ *       to perform branching in a branch-and-price algorithm", Operations Research 48(1)): when the
+ *       relaxation offers a fractional number n of variants in all, or of variants using some option
+ *       (a flat choice), the children hold at most ⌊n⌋ and at least ⌊n⌋ + 1. Many near-identical
+ *       variants share their options, so this splits them as a whole instead of one at a time. The
+ *       row's dual enters pricing as a charge (all variants) or a penalty on the choice, so the pricer
+ *       keeps its structure.
+ *   <li>On one variant's introduction (Barnhart, Johnson, Nemhauser, Savelsbergh &amp; Vance 1998,
+ *       "Branch-and-price", Operations Research 46(3)): the most fractional y_v of a pool variant, into
+ *       "offered" (y_v = 1) and "barred" (y_v = 0). The decision is on the variant, never on a column
+ *       (v, s). A barred pool variant is held at 0 in the node's master; the pricer skips the pool
+ *       anyway.
+ *   <li>When y is integral but a variant at 1 is not yet offered by the node (tooling its members pay,
+ *       whole units), that variant.
+ * </ol>
+ *
+ * Every portfolio of a node lies in exactly one child: a count is either ≤ ⌊n⌋ or ≥ ⌊n⌋ + 1, and a
+ * variant is either offered or not.
+ */
+final class VariantBranching {
+  private VariantBranching() {}
+
+  /** Values within this of a whole number count as integral. */
+  static final double INTEGRAL = 1e-6;
+
+  /** A branching decision: a count (choice, or {@link TreeNode#TOTAL}) split at {@code at}, or a variant. */
+  record Decision(boolean onCount, int choice, int floor, int variant) {
+    static Decision count(int choice, int floor) {
+      return new Decision(true, choice, floor, -1);
+    }
+
+    static Decision variant(int v) {
+      return new Decision(false, 0, 0, v);
+    }
+  }
+
+  /**
+   * What to branch on, or null when y is integral and every variant at 1 is already offered.
+   *
+   * @param y the node relaxation's y per pool index
+   * @param choices the choices of pool variant i
+   * @param offsets flat choice offsets of the groups; totalChoices the number of flat choices
+   */
+  static Decision choose(TreeNode node, double[] y, java.util.function.IntFunction<int[]> choices, int[] offsets,
+      int totalChoices) {
+    double total = 0;
+    double[] byChoice = new double[totalChoices];
+    for (int i = 0; i < y.length; i++) {
+      if (y[i] <= INTEGRAL) {
+        continue;
+      }
+      total += y[i];
+      int[] v = choices.apply(i);
+      for (int g = 0; g < v.length; g++) {
+        byChoice[offsets[g] + v[g]] += y[i];
+      }
+    }
+    if (fraction(total) > INTEGRAL && splits(node, TreeNode.TOTAL, total)) {
+      return Decision.count(TreeNode.TOTAL, (int) Math.floor(total));
+    }
+    int bestF = -1;
+    double bestFrac = INTEGRAL;
+    for (int f = 0; f < totalChoices; f++) {
+      double fr = fraction(byChoice[f]);
+      if (fr > bestFrac && splits(node, f, byChoice[f])) {
+        bestFrac = fr;
+        bestF = f;
+      }
+    }
+    if (bestF >= 0) {
+      return Decision.count(bestF, (int) Math.floor(byChoice[bestF]));
+    }
+    int v = chooseVariant(node, y);
+    return v < 0 ? null : Decision.variant(v);
+  }
+
+  /**
+   * True when splitting the count at ⌊n⌋ gives two nonempty children inside the node's range; false
+   * when n lies outside it (the master's artificial fills the count), where the split would repeat
+   * the node.
+   */
+  private static boolean splits(TreeNode node, int choice, double n) {
+    int[] range = node.range(choice);
+    int floor = (int) Math.floor(n);
+    return floor >= range[0] && floor + 1 <= range[1];
+  }
+
+  /** Distance to the nearest whole number. */
+  private static double fraction(double x) {
+    return Math.abs(x - Math.rint(x));
+  }
+
+  /**
+   * The pool variant to branch on, or −1 when y is integral and every variant at 1 is already
+   * offered by the node.
+   */
+  static int chooseVariant(TreeNode node, double[] y) {
+    int best = -1;
+    double bestScore = -1;
+    for (int i = 0; i < y.length; i++) {
+      if (node.isOffered(i) || node.isBarred(i)) {
+        continue;
+      }
+      double f = Math.min(y[i], 1 - y[i]);
+      if (f > INTEGRAL) {
+        double score = f + 1e-3 * y[i];
+        if (score > bestScore) {
+          bestScore = score;
+          best = i;
+        }
+      }
+    }
+    if (best >= 0) {
+      return best;
+    }
+    for (int i = 0; i < y.length; i++) {
+      if (!node.isOffered(i) && !node.isBarred(i) && y[i] >= 1 - INTEGRAL) {
+        return i;
+      }
+    }
+    return -1;
+  }
+
+  /** The two children of {@code node} on the decision, both with {@code bound} until solved. */
+  static List<TreeNode> children(TreeNode node, Decision d, double bound) {
+    if (d.onCount()) {
+      List<TreeNode.Count> low = new ArrayList<>(node.counts());
+      low.add(new TreeNode.Count(d.choice(), 0, d.floor()));
+      List<TreeNode.Count> high = new ArrayList<>(node.counts());
+      high.add(new TreeNode.Count(d.choice(), d.floor() + 1, Integer.MAX_VALUE));
+      return List.of(new TreeNode(node.offered(), node.barred(), low, bound, node.depth() + 1),
+          new TreeNode(node.offered(), node.barred(), high, bound, node.depth() + 1));
+    }
+    int v = d.variant();
+    if (node.isOffered(v) || node.isBarred(v)) {
+      throw new IllegalArgumentException("variant " + v + " is already decided at this node");
+    }
+    int[] in = Arrays.copyOf(node.offered(), node.offered().length + 1);
+    in[in.length - 1] = v;
+    int[] out = Arrays.copyOf(node.barred(), node.barred().length + 1);
+    out[out.length - 1] = v;
+    return List.of(new TreeNode(in, node.barred(), node.counts(), bound, node.depth() + 1),
+        new TreeNode(node.offered(), out, node.counts(), bound, node.depth() + 1));
+  }
+}

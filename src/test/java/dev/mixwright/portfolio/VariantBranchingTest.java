@@ -1,0 +1,150 @@
+package dev.mixwright.portfolio;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotNull;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The branching rule itself: every portfolio of a node lies in exactly one of its children, checked
+ * by listing every portfolio of a small space (brute force) at random nodes reached by random
+ * decisions; and the choice of decision on hand-made relaxed solutions.
+ */
+class VariantBranchingTest {
+  /** Two groups of 3 and 2 choices: flat choices 0..2 and 3..4, six variants. */
+  private static final int[] OFFSETS = {0, 3, 5};
+
+  private static List<int[]> variants() {
+    List<int[]> out = new ArrayList<>();
+    for (int a = 0; a < 3; a++) {
+      for (int b = 0; b < 2; b++) {
+        out.add(new int[] {a, b});
+      }
+    }
+    return out;
+  }
+
+  /** Every subset of the six variants, as lists of choices. */
+  private static List<List<int[]>> portfolios(List<int[]> vs) {
+    List<List<int[]>> out = new ArrayList<>();
+    for (int mask = 0; mask < 1 << vs.size(); mask++) {
+      List<int[]> p = new ArrayList<>();
+      for (int i = 0; i < vs.size(); i++) {
+        if ((mask & 1 << i) != 0) {
+          p.add(vs.get(i));
+        }
+      }
+      out.add(p);
+    }
+    return out;
+  }
+
+  @Test
+  void everyPortfolioOfANodeLiesInExactlyOneChild() {
+    List<int[]> vs = variants();
+    List<List<int[]>> all = portfolios(vs);
+    // the first four variants are in the pool, the last two outside it (index -1)
+    java.util.function.ToIntFunction<int[]> poolIndex = v -> {
+      for (int i = 0; i < 4; i++) {
+        if (Arrays.equals(vs.get(i), v)) {
+          return i;
+        }
+      }
+      return -1;
+    };
+    for (int seed = 0; seed < 300; seed++) {
+      Random rnd = new Random(seed);
+      TreeNode node = TreeNode.root(0);
+      int depth = rnd.nextInt(4);
+      for (int step = 0; step <= depth; step++) {
+        VariantBranching.Decision d = randomDecision(node, rnd);
+        if (d == null) {
+          break;
+        }
+        List<TreeNode> kids = VariantBranching.children(node, d, 0);
+        assertEquals(2, kids.size());
+        for (List<int[]> p : all) {
+          boolean inNode = node.holds(p, poolIndex, OFFSETS);
+          int in = 0;
+          for (TreeNode k : kids) {
+            in += k.holds(p, poolIndex, OFFSETS) ? 1 : 0;
+          }
+          assertEquals(inNode ? 1 : 0, in, "seed " + seed + ": a portfolio of the node in " + in + " children");
+        }
+        node = kids.get(rnd.nextInt(2));
+      }
+    }
+  }
+
+  private static VariantBranching.Decision randomDecision(TreeNode node, Random rnd) {
+    if (rnd.nextBoolean()) {
+      int choice = rnd.nextInt(6) - 1; // −1 is the total
+      return VariantBranching.Decision.count(choice, rnd.nextInt(4));
+    }
+    List<Integer> free = new ArrayList<>();
+    for (int i = 0; i < 4; i++) {
+      if (!node.isOffered(i) && !node.isBarred(i)) {
+        free.add(i);
+      }
+    }
+    return free.isEmpty() ? null : VariantBranching.Decision.variant(free.get(rnd.nextInt(free.size())));
+  }
+
+  @Test
+  void reducedCostBarsKeepThePortfoliosThatHoldNoBarredVariant() {
+    TreeNode node = TreeNode.root(5).barring(new int[] {2, 0}, 4);
+    assertTrue(node.isBarred(0) && node.isBarred(2) && !node.isBarred(1));
+    assertEquals(4, node.bound());
+  }
+
+  private static int[] choicesOf(int i) {
+    return variants().get(i);
+  }
+
+  @Test
+  void aFractionalTotalIsSplitFirst() {
+    // y = (0.5, 0.5, 0.7): 1.7 variants in all → at most 1 / at least 2
+    VariantBranching.Decision d = VariantBranching.choose(TreeNode.root(0), new double[] {0.5, 0.5, 0.7},
+        VariantBranchingTest::choicesOf, OFFSETS, 5);
+    assertNotNull(d);
+    assertTrue(d.onCount());
+    assertEquals(TreeNode.TOTAL, d.choice());
+    assertEquals(1, d.floor());
+  }
+
+  @Test
+  void thenTheMostFractionalChoiceCount() {
+    // variants 0 = (a0,b0), 1 = (a0,b1), 2 = (a1,b0) at y = (0.5, 0.5, 1): total 2; choice a0 counts 1,
+    // b0 counts 1.5, b1 0.5, a1 1 → split on b0 (flat 3) or b1 (flat 4); both are 0.5 away, the first wins
+    VariantBranching.Decision d = VariantBranching.choose(TreeNode.root(0), new double[] {0.5, 0.5, 1},
+        VariantBranchingTest::choicesOf, OFFSETS, 5);
+    assertNotNull(d);
+    assertTrue(d.onCount());
+    assertEquals(3, d.choice());
+    assertEquals(1, d.floor());
+  }
+
+  @Test
+  void integralCountsLeaveTheVariantsAndAnIntegralOfferEndsIt() {
+    // variants 0 = (a0,b0), 3 = (a1,b1) half each, 1 = (a0,b1), 2 = (a1,b0) half each: every count
+    // is whole (a0: 1, a1: 1, b0: 1, b1: 1, total 2), so the rule falls back to a variant
+    double[] y = {0.5, 0.5, 0.5, 0.5};
+    VariantBranching.Decision d = VariantBranching.choose(TreeNode.root(0), y, VariantBranchingTest::choicesOf,
+        OFFSETS, 5);
+    assertNotNull(d);
+    assertTrue(!d.onCount());
+    // integral y with the variant at 1 not yet offered: branch on it; once offered, nothing is left
+    double[] whole = {0, 1, 0, 0};
+    d = VariantBranching.choose(TreeNode.root(0), whole, VariantBranchingTest::choicesOf, OFFSETS, 5);
+    assertNotNull(d);
+    assertEquals(1, d.variant());
+    TreeNode offered = VariantBranching.children(TreeNode.root(0), d, 0).get(0);
+    assertNull(VariantBranching.choose(offered, whole, VariantBranchingTest::choicesOf, OFFSETS, 5));
+  }
+}
