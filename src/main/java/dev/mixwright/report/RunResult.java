@@ -102,6 +102,11 @@ public record RunResult(
     public SegmentRow(String id, double demand, double sold, Double shadowPrice) {
       this(id, demand, sold, shadowPrice, null, null);
     }
+
+    /** True for a segment that chooses by multinomial logit. */
+    public boolean chooses() {
+      return buyers != null;
+    }
   }
 
   public record Round(int iteration, double objective, Double bound, Double gap, int columns, int added,

@@ -3,7 +3,6 @@ package dev.mixwright.run;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.choice.NotSolvedYet;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
@@ -64,7 +63,6 @@ public final class SweepRun {
     }
     CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile());
     Catalog catalog = read.catalog();
-    NotSolvedYet.refuseInSweep(catalog);
     SweepPlan plan;
     try {
       plan = plan(r, catalog);
@@ -118,6 +116,10 @@ public final class SweepRun {
       });
       boolean complete = table.rows().size() == plan.points().size()
           && table.rows().values().stream().noneMatch(SweepTable::stopped);
+      table.bestRow().ifPresent(b -> watcher.note(String.format(java.util.Locale.ROOT,
+          "best price of the sweep: %s (objective %,.2f); a segment that chooses buys less as the price"
+              + " rises, so the objective is a curve over the price", b.path("name").asText(),
+          b.path("objective").asDouble())));
       return new Outcome(table, plan, catalog, rows.size(), done.size(), complete);
     }
   }

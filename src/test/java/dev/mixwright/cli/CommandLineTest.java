@@ -18,7 +18,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** The commands end to end, through picocli with captured output, on the small demo catalog. */
 class CommandLineTest {
-  static final Path STARTER = Paths.get("catalogs", "heatpump-starter.yaml");
+  static final Path STARTER = Paths.get("src/test/resources/fixed-demand", "heatpump-starter.yaml");
   static final ObjectMapper JSON = new ObjectMapper();
 
   @TempDir static Path shared;
@@ -182,7 +182,7 @@ class CommandLineTest {
   @Test
   void iterationLimitStopsWithExitOneAndAValidBound(@TempDir Path dir) throws IOException {
     Path out = dir.resolve("r");
-    CliRun s = CliRun.of("solve", Paths.get("catalogs", "heatpump-range.yaml").toString(), "--out",
+    CliRun s = CliRun.of("solve", Paths.get("src/test/resources/fixed-demand", "heatpump-range.yaml").toString(), "--out",
         out.toString(), "--max-iterations", "2");
     assertEquals(1, s.code(), s.err());
     JsonNode r = JSON.readTree(out.resolve("result.json").toFile());

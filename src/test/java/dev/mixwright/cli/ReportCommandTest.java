@@ -17,7 +17,7 @@ class ReportCommandTest {
   @BeforeAll
   static void solveStarter() {
     run = tmp.resolve("starter");
-    CliRun solve = CliRun.of("solve", "catalogs/heatpump-starter.yaml", "--out", run.toString());
+    CliRun solve = CliRun.of("solve", "src/test/resources/fixed-demand/heatpump-starter.yaml", "--out", run.toString());
     assertEquals(0, solve.code(), solve::toString);
   }
 

@@ -27,7 +27,10 @@ class HtmlReportTest {
     run = tmp.resolve("starter");
     StringWriter out = new StringWriter();
     StringWriter err = new StringWriter();
-    int code = Main.run(new String[] {"solve", "catalogs/heatpump-starter.yaml", "--out", run.toString()},
+    // the fixed-demand copy of the starter: this page has an integer portfolio (ChoosingViewsTest and
+    // ChoosingRunCommandsTest draw pages of segments that choose)
+    int code = Main.run(new String[] {"solve", "src/test/resources/fixed-demand/heatpump-starter.yaml", "--out",
+        run.toString()},
         new PrintWriter(out), new PrintWriter(err));
     assertEquals(0, code, () -> out + "\n" + err);
     result = Json.pretty().readTree(run.resolve(ResultWriter.FILE).toFile());
