@@ -46,8 +46,8 @@ import picocli.CommandLine.Option;
 @Command(
     name = "bench",
     description = {
-      "Measures column generation against listing every column and solving the whole LP,",
-      "on generated catalogs, and prints the tables of docs/performance.md (Markdown).",
+      "Measures column generation against solving the whole LP with every column listed.",
+      "Runs on generated catalogs and prints the tables of docs/performance.md (Markdown).",
       "Takes minutes; --quick runs the small sizes only."
     })
 final class BenchCommand extends SubCommand {

@@ -55,12 +55,43 @@ final class CheckCommand extends CatalogCommand {
       notes.add("the counts stopped after " + countTime + " with bounds; 'check --count-time 60s' counts for a"
           + " minute, and 'check --count-to-end' until they are exact or no table fits");
     }
+    List<String> problems = problems(facts);
     if (json) {
-      out.println(Json.pretty().writeValueAsString(toJson(catalog, space, facts, notes).set("choice", choices.json())));
+      ObjectNode n = toJson(catalog, space, facts, notes);
+      n.put("valid", problems.isEmpty());
+      problems.forEach(n.putArray("problems")::add);
+      out.println(Json.pretty().writeValueAsString(n.set("choice", choices.json())));
     } else {
-      print(out, catalog, space, facts, notes, choices.lines());
+      print(out, catalog, space, facts, notes, choices.lines(), problems.isEmpty());
     }
-    return facts.nothingSellable() ? ExitCodes.STOPPED : ExitCodes.OK;
+    out.flush();
+    if (problems.isEmpty()) {
+      return ExitCodes.OK;
+    }
+    PrintWriter err = spec.commandLine().getErr();
+    err.println("mixwright: the catalog loads, but " + (problems.size() == 1 ? "one problem keeps" : problems.size()
+        + " problems keep") + " it from being solved as meant:");
+    problems.forEach(p -> err.println("  " + p));
+    err.flush();
+    return ExitCodes.BAD_INPUT;
+  }
+
+  /**
+   * What makes a catalog that loads unfit to solve: rules that leave no buildable variant, or a segment
+   * whose {@code accepts} (with the rules) leaves it none — it would sell nothing, which is never
+   * what its author meant. Each names its path and, where the diagnosis finds them, the rules at fault.
+   */
+  static List<String> problems(SpaceFacts facts) {
+    List<String> out = new ArrayList<>();
+    if (facts.total().isEmpty()) {
+      out.add("rules: " + facts.emptyReason() + " — loosen or remove one of the rules named");
+      return out;
+    }
+    for (String note : facts.segmentNotes()) {
+      out.add(note.replaceFirst("^(segments\\[\\d+\\])", "$1.accepts")
+          + "; widen its accepts or loosen the rules named, or remove the segment");
+    }
+    return out;
   }
 
   private static long countBudget(String text) {
@@ -109,8 +140,8 @@ final class CheckCommand extends CatalogCommand {
   }
 
   private static void print(PrintWriter out, Catalog c, VariantSpace space, SpaceFacts facts, List<String> notes,
-      List<String> choiceLines) {
-    out.println(c.name() + " — valid");
+      List<String> choiceLines, boolean usable) {
+    out.println(c.name() + (usable ? " — valid" : " — loads, but cannot be solved as meant (see the problems)"));
     out.println(String.format(Locale.ROOT, "  %d option groups, %d choices in all", c.groups().size(), space.totalChoices()));
     for (Group g : c.groups()) {
       out.println(String.format(Locale.ROOT, "    %-16s %2d options%s", g.id(), g.options().size(),
@@ -120,7 +151,7 @@ final class CheckCommand extends CatalogCommand {
         c.rules().size(), space.nogoodCount()));
     out.println("  " + c.resources().size() + " resources");
     for (Resource r : c.resources()) {
-      out.println(String.format(Locale.ROOT, "    %-16s capacity %s %s", r.id(), Numbers.qty(r.capacity()),
+      out.println(String.format(Locale.ROOT, "    %-16s capacity %s %s", r.id(), Numbers.units(r.capacity()),
           r.unit() == null ? "" : r.unit()));
     }
     out.println("  buildable variants: " + facts.total().text());
@@ -128,13 +159,13 @@ final class CheckCommand extends CatalogCommand {
     for (int s = 0; s < c.segments().size(); s++) {
       Segment seg = c.segments().get(s);
       out.println(String.format(Locale.ROOT, "    %-16s %s, accepts %s variants", seg.id(), seg.chooses()
-          ? "chooses (see below)" : "demand " + Numbers.qty(seg.demand()) + ", max share " + Numbers.qty(seg.maxShare()),
+          ? "chooses (see below)" : "demand " + Numbers.units(seg.demand()) + ", max share " + Numbers.percent(seg.maxShare()),
           facts.perSegment().get(s).text()));
     }
     c.portfolio().ifPresent(p -> out.println(String.format(Locale.ROOT,
         "  portfolio: introduction cost %s per variant, at most %s variants, minimum lot %s",
         Numbers.money(p.introductionCost()), p.maxVariants() == Integer.MAX_VALUE ? "unlimited" : p.maxVariants(),
-        Numbers.qty(p.minLot()))));
+        Numbers.units(p.minLot()))));
     choiceLines.forEach(out::println);
     for (String note : notes) {
       out.println("  note: " + note);

@@ -23,7 +23,7 @@ import picocli.CommandLine.Parameters;
     name = "compare",
     description = {
       "Shows what changed from run A to run B.",
-      "Objective and bound, the catalog figures that differ, offers that are new, dropped or sold in another quantity, and the shadow prices of resources and segments."
+      "Objective and bound, the catalog figures that differ, offers that are new, dropped or sold in another quantity, and the shadow prices of resources and segments; for segments that choose, their buyers, those who stay out and each offer's share."
     })
 final class CompareCommand extends SubCommand {
   @Parameters(index = "0", paramLabel = "RUN_A", description = "a run folder (the before)")
@@ -77,7 +77,9 @@ final class CompareCommand extends SubCommand {
       return null;
     }
     try {
-      return CatalogLoader.load(f);
+      return CatalogLoader.parse(new RunFolder(run).verifiedCatalogCopy(), f.toString(), null);
+    } catch (IOException e) {
+      throw new UserError(e.getMessage());
     } catch (CatalogException e) {
       return null; // the figures are then compared through result.json only
     }
@@ -124,6 +126,7 @@ final class CompareCommand extends SubCommand {
     }
     section(out, "shadow prices of resources", c.path("resources"), "capacity", "used");
     section(out, "shadow prices of segments", c.path("segments"), "demand", "sold");
+    choosing(out, c.path("choosing"));
     out.flush();
   }
 
@@ -146,6 +149,31 @@ final class CompareCommand extends SubCommand {
     }
     if (hidden > 0) {
       out.println("  (" + hidden + " unchanged; --all shows them)");
+    }
+  }
+
+  /** Segments that choose: who buys and who stays out, and each offer's share of the buyers. */
+  private void choosing(PrintWriter out, JsonNode segs) {
+    if (!segs.isArray() || segs.isEmpty()) {
+      return;
+    }
+    out.println("segments that choose (multinomial logit):");
+    for (JsonNode s : segs) {
+      out.println(String.format(Locale.ROOT, "  %-14s buyers %s, buy %s, stay out %s, shadow price of a buyer %s -> %s",
+          s.path("id").asText(), arrow(s.path("buyers")), arrow(s.path("sold")), arrow(s.path("stayOut")),
+          money(s.path("shadowPrice").path("a")), money(s.path("shadowPrice").path("b"))));
+      int hidden = 0;
+      for (JsonNode o : s.path("offers")) {
+        if (!all && Math.abs(o.path("shareA").asDouble() - o.path("shareB").asDouble()) <= 5e-4) {
+          hidden++;
+          continue;
+        }
+        out.println(String.format(Locale.ROOT, "    share %6.1f%% -> %6.1f%%  %s", 100 * o.path("shareA").asDouble(),
+            100 * o.path("shareB").asDouble(), RunComparison.variant(o.path("options"))));
+      }
+      if (hidden > 0) {
+        out.println("    (" + hidden + (hidden == 1 ? " offer's" : " offers'") + " share unchanged; --all shows them)");
+      }
     }
   }
 

@@ -4,6 +4,7 @@ import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogProblem;
 import dev.mixwright.run.InputError;
 import dev.mixwright.run.RunOutcome;
+import dev.mixwright.runfolder.RunFileDamaged;
 import java.io.PrintWriter;
 import picocli.CommandLine;
 import picocli.CommandLine.ParseResult;
@@ -33,6 +34,12 @@ public final class ExitCodes {
       for (CatalogProblem p : ce.problems()) {
         err.println("  " + p.path() + ": " + p.message());
       }
+      err.flush();
+      return BAD_INPUT;
+    }
+    Throwable damaged = e instanceof java.io.UncheckedIOException u ? u.getCause() : e;
+    if (damaged instanceof RunFileDamaged) {
+      err.println("mixwright: " + damaged.getMessage());
       err.flush();
       return BAD_INPUT;
     }

@@ -9,6 +9,8 @@ import dev.mixwright.explain.Explainer;
 import dev.mixwright.explain.Explanation;
 import dev.mixwright.explain.PriceRange;
 import dev.mixwright.report.PortfolioPending;
+import dev.mixwright.explain.Substitution;
+import dev.mixwright.report.RunComparison;
 import dev.mixwright.report.RunReader;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.runfolder.Json;
@@ -27,7 +29,7 @@ import picocli.CommandLine.Option;
 @Command(
     name = "explain",
     description = {
-      "Shows why a variant pays or not in a segment at the run's shadow prices: its margin, what each resource and the segment's demand charge it, its reduced cost, and the price change at which it would enter the plan."
+      "Shows why a variant pays or not in a segment at the run's shadow prices: its margin, what each resource and the segment's demand charge it, its reduced cost, and the price change at which it would enter the plan. In a segment that chooses, also what the variant sells by the multinomial logit and whose buyers it takes."
     })
 final class ExplainCommand extends RunDirCommand {
   @Option(names = "--segment", paramLabel = "S", description = "segment id")
@@ -67,7 +69,7 @@ final class ExplainCommand extends RunDirCommand {
       throw new UserError("give --segment S --variant G=O,... to explain a variant, or --capacity-ranges for"
           + " the range of each shadow price");
     }
-    Catalog catalog = CatalogLoader.load(folder.catalogCopy());
+    Catalog catalog = CatalogLoader.parse(folder.verifiedCatalogCopy(), folder.catalogCopy().toString(), null);
     List<CapacityRanges.Range> ranges = capacityRanges
         ? CapacityRangeReport.compute(folder, catalog, resources, spec.commandLine().getErr()) : null;
     if (segmentId == null) {
@@ -97,6 +99,14 @@ final class ExplainCommand extends RunDirCommand {
     double qty = run.quantity(segmentId, space.describe(v));
     var verdict = PortfolioExplainView.verdict(space, v, run.result());
     String pending = PortfolioPending.line(run.result());
+    boolean chooses = space.chooses(s);
+    if (leavePrice && chooses) {
+      throw new UserError("--leave-price: segment '" + segmentId + "' chooses, so a price change there also"
+          + " changes the variant's attraction and its sales; sweep its price instead, e.g. --grid"
+          + " options.GROUP.OPTION.price=-200,-100,+0,+100");
+    }
+    Substitution sub = chooses && e.sellable()
+        ? new Explainer(space).substitution(v, s, offered(space, run.result(), segmentId)) : null;
     PriceRange.Leave leave = null;
     if (leavePrice && qty > 0 && e.sellable()) {
       leave = new PriceRange(space, CapacityRangeReport.runPricer(folder)::create, CapacityRangeReport.RESOLVE,
@@ -104,6 +114,9 @@ final class ExplainCommand extends RunDirCommand {
     }
     if (json) {
       ObjectNode n = toJson(space, e, qty, run);
+      if (sub != null) {
+        n.set("choice", toJson(space, sub, qty, space.price(v, s)));
+      }
       if (leave != null) {
         n.put("priceCutToLeave", leave.cut());
         n.put("resolves", leave.solves());
@@ -121,6 +134,9 @@ final class ExplainCommand extends RunDirCommand {
         out.println(pending);
       }
       print(out, space, e, qty, run);
+      if (sub != null) {
+        print(out, space, sub, qty, space.price(v, s));
+      }
       if (leave != null) {
         out.println(String.format(Locale.ROOT,
             "  leaves the plan if its price falls by more than %.4f per unit (margin %.4f), found by %d"
@@ -183,7 +199,11 @@ final class ExplainCommand extends RunDirCommand {
     n.put("reducedCost", e.reducedCost());
     n.put("quantity", qty);
     n.put("inPlan", qty > 0);
-    n.put("priceRiseToEnter", qty > 0 ? 0.0 : e.priceRiseToEnter());
+    if (e.sellable()) {
+      n.put("priceRiseToEnter", qty > 0 ? 0.0 : e.priceRiseToEnter());
+    } else {
+      n.putNull("priceRiseToEnter"); // no price makes a variant a rule or the segment forbids enter
+    }
     n.put("runStatus", run.status().word());
     return n;
   }
@@ -205,12 +225,18 @@ final class ExplainCommand extends RunDirCommand {
       out.println(String.format(Locale.ROOT, "  - %-20s %s  (%s used x shadow price %s)", c.resource(),
           fmt(c.amount()), fmt(c.use()), fmt(c.shadowPrice())));
     }
-    out.println(String.format(Locale.ROOT, "  - %-20s %s  (segment shadow price)", "demand of " + seg, fmt(e.segmentCharge())));
+    boolean chooses = space.chooses(e.segment());
+    out.println(String.format(Locale.ROOT, "  - %-20s %s  (%s)", (chooses ? "buyers of " : "demand of ") + seg,
+        fmt(e.segmentCharge()), chooses ? "shadow price of the segment's buyers" : "segment shadow price"));
     out.println("  = reduced cost         " + fmt(e.reducedCost()));
     if (run.status() != RunStatus.INFEASIBLE) {
       if (qty > 0) {
-        out.println("  in the plan: " + Numbers.qty(qty) + " units"
-            + (e.reducedCost() > 1e-7 ? " (at its share limit: it pays more than its resources' worth)" : ""));
+        out.println("  in the plan: " + Numbers.qty(qty) + " units" + (e.reducedCost() <= 1e-7 ? ""
+            : chooses ? " (held by its attraction: it pays more than its resources' worth, but sells only as"
+                + " many as the logit lets it)"
+            : " (at its share limit: it pays more than its resources' worth)"));
+      } else if (!e.sellable()) {
+        out.println("  not in the plan, and no price puts it there: a rule or the segment's accepts forbids it");
       } else if (e.reducedCost() < -1e-9) {
         out.println(String.format(Locale.ROOT,
             "  not in the plan: it would enter if its price rose by more than %.4f per unit", -e.reducedCost()));
@@ -221,6 +247,85 @@ final class ExplainCommand extends RunDirCommand {
     if (!run.status().isOptimal()) {
       out.println("  note: the run ended " + run.status().word() + "; shadow prices are those of its last master");
     }
+  }
+
+  /** The plan's offers in the segment as variants of this space. */
+  private static List<int[]> offered(VariantSpace space, RunResult result, String segmentId) {
+    List<int[]> out = new ArrayList<>();
+    for (RunResult.Offer o : result.offers()) {
+      if (o.segment().equals(segmentId)) {
+        out.add(space.parse(o.options()));
+      }
+    }
+    return out;
+  }
+
+  private static ObjectNode toJson(VariantSpace space, Substitution sub, double qty, double price) {
+    ObjectNode c = Json.pretty().createObjectNode();
+    c.put("price", price);
+    c.put("buyers", sub.buyers());
+    c.put("attraction", sub.attraction());
+    c.put("offered", sub.offered());
+    c.put("planShare", qty / sub.buyers());
+    c.put("othersAttraction", sub.othersAttraction());
+    c.put("logitSales", sub.sales());
+    c.put("logitShare", sub.share());
+    var takes = c.putArray("takes");
+    for (Substitution.Taken t : sub.others()) {
+      ObjectNode o = takes.addObject();
+      ObjectNode opts = o.putObject("options");
+      space.describe(t.choices()).forEach(opts::put);
+      o.put("attraction", t.attraction());
+      o.put("salesWithout", t.salesWithout());
+      o.put("taken", t.taken());
+    }
+    c.put("stayingOutWithout", sub.stayingOutWithout());
+    c.put("fromStayingOut", sub.fromStayingOut());
+    return c;
+  }
+
+  private static void print(PrintWriter out, VariantSpace space, Substitution sub, double qty, double price) {
+    String seg = space.catalog().segments().get(sub.segment()).id();
+    out.println(String.format(Locale.ROOT, "  segment %s chooses by multinomial logit: at the price it pays"
+        + " here, %s, its attraction against staying out is w = %s", seg, Numbers.money(price), w(sub.attraction())));
+    if (sub.offered()) {
+      out.println(String.format(Locale.ROOT, "  the plan sells it to %s of %s buyers (%s); with the plan's %d other"
+              + " offers (W = %s) the logit gives it %s buyers (%s), taken as follows:",
+          Numbers.qty(qty), Numbers.qty(sub.buyers()), pct(qty / sub.buyers()), sub.others().size(),
+          w(sub.othersAttraction()), Numbers.qty(sub.sales()), pct(sub.share())));
+    } else {
+      out.println(String.format(Locale.ROOT, "  added to the plan's %d offers here (W = %s), the logit gives it %s"
+              + " buyers (%s of %s), taken as follows:", sub.others().size(), w(sub.othersAttraction()),
+          Numbers.qty(sub.sales()), pct(sub.share()), Numbers.qty(sub.buyers())));
+    }
+    List<Substitution.Taken> most = new ArrayList<>(sub.others());
+    most.sort((a, b) -> Double.compare(b.taken(), a.taken()));
+    for (Substitution.Taken t : most.subList(0, Math.min(SHOWN, most.size()))) {
+      out.println(String.format(Locale.ROOT, "    %12s  from %s (w %s; %s -> %s)", Numbers.qty(t.taken()),
+          RunComparison.variant(space.describe(t.choices())), w(t.attraction()),
+          Numbers.qty(t.salesWithout()), Numbers.qty(t.salesWithout() - t.taken())));
+    }
+    if (most.size() > SHOWN) {
+      double rest = most.subList(SHOWN, most.size()).stream().mapToDouble(Substitution.Taken::taken).sum();
+      out.println(String.format(Locale.ROOT, "    %12s  from the %d other offers (see --json)", Numbers.qty(rest),
+          most.size() - SHOWN));
+    }
+    out.println(String.format(Locale.ROOT, "    %12s  from staying out (%s -> %s)", Numbers.qty(sub.fromStayingOut()),
+        Numbers.qty(sub.stayingOutWithout()), Numbers.qty(sub.stayingOutWithout() - sub.fromStayingOut())));
+    out.println("  every alternative loses the same fraction of its buyers (the logit's proportional"
+        + " substitution); these are the logit's figures, and where a resource binds the plan may sell less"
+        + " than this");
+  }
+
+  /** Offers named one by one in the substitution list; the rest are summed. */
+  private static final int SHOWN = 8;
+
+  private static String w(double attraction) {
+    return String.format(Locale.ROOT, "%.4g", attraction);
+  }
+
+  private static String pct(double share) {
+    return String.format(Locale.ROOT, "%.1f%%", 100 * share);
   }
 
   private static String fmt(double v) {

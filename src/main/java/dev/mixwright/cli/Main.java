@@ -14,7 +14,7 @@ import picocli.CommandLine.ScopeType;
     description = "Designs a product range over the whole space of buildable variants by column generation.",
     subcommands = {CheckCommand.class, SolveCommand.class, ExplainCommand.class, LogCommand.class,
         ResumeCommand.class, SweepCommand.class, CompareCommand.class, GenerateCommand.class,
-        BenchCommand.class, ReportCommand.class},
+        BenchCommand.class, ReportCommand.class, ExportCommand.class},
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
       "0:success",

@@ -3,6 +3,7 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import dev.mixwright.report.HtmlReport;
 import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.runfolder.RunLock;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -19,7 +20,12 @@ final class ReportCommand extends RunDirCommand {
 
   @Override
   public Integer call() throws IOException {
-    Path result = new RunFolder(runDir).result();
+    RunFolder folder = new RunFolder(runDir);
+    if (RunLock.busy(folder)) {
+      throw new UserError("the run in " + runDir + " is still running (another mixwright process holds its lock);"
+          + " make the page when it has ended, or stop it with Ctrl-C and report the stopped run");
+    }
+    Path result = folder.result();
     if (!Files.isRegularFile(result)) {
       throw new UserError("no result.json in " + runDir + " — give a folder written by 'mixwright solve --out'"
           + " after the run has finished");

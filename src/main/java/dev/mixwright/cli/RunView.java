@@ -21,18 +21,29 @@ final class RunView {
 
   /** Runs the job and prints its outcome; returns the exit code. */
   static int run(CommandLine cl, Boolean progress, Job job) throws Exception {
+    return run(cl, progress, false, job);
+  }
+
+  /** As {@link #run(CommandLine, Boolean, Job)}; {@code allOffers} lists every variant of the plan. */
+  static int run(CommandLine cl, Boolean progress, boolean allOffers, Job job) throws Exception {
     PrintWriter out = cl.getOut();
     PrintWriter err = cl.getErr();
     try (StopSignals signals = StopSignals.install(err)) {
       RunOutcome o = job.run(new RunSession(signals.flag(), new Watcher(out, err, progress)));
-      print(out, o);
-      return ExitCodes.of(o);
+      print(out, o, allOffers);
+      // A signal stops the integer stage too, which then ends with its best portfolio so far: the run
+      // was still stopped, whatever the LP stage proved.
+      return signals.flag().get() ? ExitCodes.STOPPED : ExitCodes.of(o);
     }
   }
 
   static void print(PrintWriter out, RunOutcome o) {
+    print(out, o, false);
+  }
+
+  static void print(PrintWriter out, RunOutcome o, boolean allOffers) {
     if (o instanceof RunOutcome.Solved s) {
-      Summary.print(out, s.space(), s.lp(), s.result(), s.runDir());
+      Summary.print(out, s.space(), s.lp(), s.result(), s.runDir(), allOffers);
     } else if (o instanceof RunOutcome.AlreadyOptimal a) {
       out.println(a.runDir() + ": the run is already optimal (objective " + Numbers.money(a.objective())
           + "); nothing to resume");

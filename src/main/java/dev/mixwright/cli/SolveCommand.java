@@ -24,6 +24,9 @@ final class SolveCommand extends CatalogCommand {
       description = "solve the catalog changed by this scenario file (capacities, prices, costs, demand, rules)")
   Path scenarioFile;
 
+  @Option(names = "--all-offers", description = "list every variant of the plan in the summary, not the first eight")
+  boolean allOffers;
+
   @Mixin SolveOptions solve;
 
   @Mixin PortfolioOptions portfolio;
@@ -34,6 +37,6 @@ final class SolveCommand extends CatalogCommand {
   public Integer call() throws Exception {
     RunSession.SolveRequest request = new RunSession.SolveRequest(catalogFile, Optional.ofNullable(scenarioFile),
         runDir, replace, solve.settings(), solve.loop.pricer, portfolio.plan());
-    return RunView.run(spec.commandLine(), progress.asked, session -> session.solve(request));
+    return RunView.run(spec.commandLine(), progress.asked, allOffers, session -> session.solve(request));
   }
 }

@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.pricing.Cancellation;
 import java.io.PrintWriter;
 import java.lang.reflect.Constructor;
 import java.lang.reflect.Method;
@@ -12,7 +13,8 @@ import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
 
 /**
- * Turns Ctrl-C (SIGINT) and SIGTERM into a request to stop: the loop finishes its round, the run's
+ * Turns Ctrl-C (SIGINT) and SIGTERM into a request to stop: the pricing searches under way are
+ * abandoned ({@code pricing.Cancellation}), the loop ends its round, the run's
  * state and result.json are written with status {@code stopped}, and the command exits 1 — a run
  * that {@code mixwright resume} continues. A second signal quits at once (exit 1); the column log is
  * safe either way, since every line is on disk before the next is written.
@@ -87,6 +89,7 @@ final class StopSignals implements AutoCloseable {
   private void installHook() {
     hook = new Thread(() -> {
       stop.set(true);
+      Cancellation.request();
       try {
         // Let the loop finish its round and write result.json before the JVM goes.
         done.await(120, TimeUnit.SECONDS);
@@ -100,6 +103,8 @@ final class StopSignals implements AutoCloseable {
   private void onSignal() {
     if (received.incrementAndGet() == 1) {
       stop.set(true);
+      // Searches under way end within a few thousand nodes, not at the end of the round.
+      Cancellation.request();
       err.println();
       err.println("mixwright: stopping after the current round; the run can be resumed"
           + " (signal again to quit at once)");
@@ -115,6 +120,7 @@ final class StopSignals implements AutoCloseable {
   @Override
   public void close() {
     done.countDown();
+    Cancellation.clear();
     for (Object[] r : restore) {
       try {
         handle.invoke(null, r[0], r[1]);

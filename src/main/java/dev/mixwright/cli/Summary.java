@@ -3,6 +3,8 @@ package dev.mixwright.cli;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
+import dev.mixwright.export.MatrixView;
+import dev.mixwright.export.VariantCodes;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
@@ -10,13 +12,21 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 
 /** The few lines a person reads after a solve. */
 final class Summary {
   private Summary() {}
 
+  /** Rows of the matrix view shown unless every offer is asked for. */
+  static final int SHOWN_VARIANTS = 8;
+
   static void print(PrintWriter out, VariantSpace space, SolveOutcome o, RunResult result, Path runDir) {
+    print(out, space, o, result, runDir, false);
+  }
+
+  /** The summary; {@code allOffers} shows every variant of the plan instead of the first eight. */
+  static void print(PrintWriter out, VariantSpace space, SolveOutcome o, RunResult result, Path runDir,
+      boolean allOffers) {
     String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();
     out.println(space.catalog().name() + ": " + o.status().word()
         + (o.stopReason().isEmpty() ? "" : " (" + o.stopReason() + ")"));
@@ -24,27 +34,24 @@ final class Summary {
         ? "at most " + result.buildableVariantsAtMost() : result.buildableVariants()));
     out.println("  LP objective        " + Numbers.money(o.objective()) + cur);
     out.println("  proven bound        " + Numbers.money(o.bound()) + cur + "   gap " + Numbers.percent(o.gap()));
-    out.println(String.format(Locale.ROOT, "  rounds %d, columns generated %d, LP stage %s",
+    out.println(String.format(Locale.ROOT, "  rounds %d, columns %d (seed included), LP stage %s",
         o.iterations(), o.columnsGenerated(), Durations.format(o.elapsedMs())));
     List<String> binding = new ArrayList<>();
     for (RunResult.ResourceRow r : result.resources()) {
       if (r.shadowPrice() != null && r.shadowPrice() > 1e-9) {
-        binding.add(r.id() + " " + Numbers.money(r.shadowPrice()));
+        binding.add(r.id() + " " + Numbers.price(r.shadowPrice()));
       }
     }
     out.println("  shadow prices       " + (binding.isEmpty() ? "none (no resource limits the plan)" : String.join(", ", binding)));
-    List<RunResult.Offer> offers = result.offers();
-    out.println("  offers              " + offers.size() + " (variant, segment) pairs");
-    int shown = 0;
-    for (RunResult.Offer off : offers) {
-      if (shown++ == 8) {
-        out.println("    ... " + (offers.size() - 8) + " more in result.json");
-        break;
-      }
-      out.println(String.format(Locale.ROOT, "    %-14s %10s x %s", off.segment(),
-          Numbers.qty(off.quantity()), chosen(off.options())));
+    MatrixView matrix = MatrixView.of(result, space.catalog());
+    VariantCodes codes = VariantCodes.of(result);
+    out.println("  offers              " + result.offers().size() + " (variant, segment) pairs, "
+        + matrix.rows().size() + " variants, units by segment:");
+    matrix(out, matrix, allOffers ? Integer.MAX_VALUE : SHOWN_VARIANTS, "    ");
+    if (!allOffers && matrix.rows().size() > SHOWN_VARIANTS) {
+      out.println("    (every variant: solve with --all-offers, or mixwright export " + runDir + " --format text)");
     }
-    printPortfolio(out, space, result);
+    printPortfolio(out, space, result, codes, allOffers);
     out.println("  written to          " + runDir);
     if (o.status() == RunStatus.STOPPED) {
       out.println("  continue with       mixwright resume " + runDir);
@@ -52,19 +59,14 @@ final class Summary {
     out.flush();
   }
 
-  /** group=option for every group with an option chosen, comma-separated. */
-  static String chosen(Map<String, String> options) {
-    StringBuilder v = new StringBuilder();
-    options.forEach((g, c) -> {
-      if (!c.equals("none")) {
-        v.append(v.length() == 0 ? "" : ",").append(g).append('=').append(c);
-      }
-    });
-    return v.toString();
+  /** The matrix view's lines, each indented. */
+  static void matrix(PrintWriter out, MatrixView m, int maxRows, String indent) {
+    m.lines(Numbers::units, maxRows).forEach(line -> out.println(indent + line));
   }
 
   /** The summary lines of the integer stage, when the result has one. */
-  private static void printPortfolio(PrintWriter out, VariantSpace space, RunResult result) {
+  private static void printPortfolio(PrintWriter out, VariantSpace space, RunResult result, VariantCodes codes,
+      boolean all) {
     RunResult.Portfolio p = result.portfolio();
     if (result.portfolioPending() != null) {
       out.println("  integer portfolio   " + (p == null ? "not run: " : "not final: ") + result.portfolioPending());
@@ -85,14 +87,14 @@ final class Summary {
         proof.survivorsComplete() ? " (all)" : "", Durations.format(p.elapsedMs())));
     int shown = 0;
     for (RunResult.PortfolioVariant v : p.variants()) {
-      if (shown++ == 8) {
-        out.println("      ... " + (p.variants().size() - 8) + " more in result.json");
+      if (!all && shown++ == SHOWN_VARIANTS) {
+        out.println("      ... " + (p.variants().size() - SHOWN_VARIANTS) + " more in result.json");
         break;
       }
       StringBuilder sales = new StringBuilder();
       v.sales().forEach((s, q) -> sales.append(sales.length() == 0 ? "" : ", ").append(s).append(' ')
-          .append(Numbers.qty(q)));
-      out.println("      " + chosen(v.options()) + "  [" + sales + "]");
+          .append(Numbers.units(q)));
+      out.println("      " + codes.code(v.options()) + "  " + sales);
     }
   }
 

@@ -22,7 +22,17 @@ import picocli.CommandLine.Option;
     name = "sweep",
     description = {
       "Solves a grid or list of scenarios and writes one table of the results.",
-      "Each scenario is solved to its proven LP optimum; the table holds the objective, bound, binding resources and shadow prices of each scenario per scenario (OUT/sweep.csv and OUT/sweep.json, rewritten after every scenario). Neighbouring scenarios start from each other's columns. Along a capacity or demand axis the table holds the value per extra unit between neighbouring points: the capacity value curve, found by re-running the search. Run it again with the same arguments to finish a sweep that was stopped or cut off.  Grid axes (--grid, repeatable, crossed with each other): resources.ID.capacity=10000..16000:1000   figures, FROM..TO:STEP options.GROUP.OPTION.cost=-10%%..+10%%:10%%  changes in percent options.GROUP.OPTION.price=+0,+50,+100    changes, listed segments.ID.demand=8000,9000              also segments.ID.maxShare rules.ID=on,off                           a rule switched portfolio.minLot=...                      also portfolio.introductionCost, portfolio.maxVariants "
+      "Each scenario is solved to its proven LP optimum; the table holds the objective, bound, binding resources and shadow prices of each scenario (OUT/sweep.csv and OUT/sweep.json, rewritten after every scenario). Neighbouring scenarios start from each other's columns. Along a capacity or demand axis the table holds the value per extra unit between neighbouring points: the capacity value curve, found by re-running the search. Run it again with the same arguments to finish a sweep that was stopped or cut off.",
+      "",
+      "Grid axes (--grid, repeatable, crossed with each other):",
+      "  resources.ID.capacity=10000..16000:1000    figures, FROM..TO:STEP",
+      "  options.GROUP.OPTION.cost=-10%%..+10%%:10%%    changes in percent",
+      "  options.GROUP.OPTION.price=+0,+50,+100     changes, listed",
+      "  segments.ID.demand=8000,9000               also segments.ID.maxShare",
+      "  rules.ID=on,off                            a rule switched",
+      "  portfolio.minLot=...                       also portfolio.introductionCost,",
+      "                                             portfolio.maxVariants",
+      ""
     })
 final class SweepCommand extends CatalogCommand {
   @Option(names = "--grid", paramLabel = "PATH=VALUES", description = "one axis of the grid (see above)")

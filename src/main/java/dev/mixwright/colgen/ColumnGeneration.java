@@ -88,6 +88,8 @@ public final class ColumnGeneration {
    * GLOP's round-off.
    */
   private final double entryTolerance;
+  /** Differences below this are round-off for this catalog; see {@link ValueBound#floorOf}. */
+  private final double gapFloor;
   private LoopCounters counters = new LoopCounters();
   private RunStats stats;
   private int priorIterations;
@@ -136,6 +138,7 @@ public final class ColumnGeneration {
     }
     this.entryTolerance = 1e-9 * marginScale * Math.max(1, space.groupCount());
     this.lagrangian = new LagrangianLpBound(capacity, demand);
+    this.gapFloor = ValueBound.floorOf(space);
   }
 
   public ColumnGeneration addListener(ColGenListener l) {
@@ -225,14 +228,14 @@ public final class ColumnGeneration {
       Round round = price(pool, sol, smoothing, iteration);
       bestBound = Math.min(bestBound, round.bound().best());
       IterationRecord rec = new IterationRecord(iteration, sol.objective(), bestBound,
-          ValueBound.gap(sol.objective(), bestBound), pool.size(), round.found().size(), round.exact(),
+          ValueBound.gap(sol.objective(), bestBound, gapFloor), pool.size(), round.found().size(), round.exact(),
           elapsedMs());
       history.add(rec);
       listeners.forEach(l -> l.iteration(rec));
       Optional<Ending> end = verdict(sol, round, rec);
       if (end.isPresent()) {
         return ended(new SolveOutcome(end.get().status(), end.get().reason(),
-            new ValueBound(sol.objective(), bestBound), iteration,
+            new ValueBound(sol.objective(), bestBound, gapFloor), iteration,
             new MasterColumns(pool.columns(), sol.x(), sol.reducedCost(), sol.columnDual(), sol.stayingOut()),
             new Duals(sol.resourceDual(), sol.segmentDual()), history, elapsedMs()));
       }
@@ -252,9 +255,16 @@ public final class ColumnGeneration {
   private record Round(List<Column> found, boolean exact, RoundBound bound) {}
 
   private Optional<Ending> verdict(MasterSolution sol, Round round, IterationRecord rec) {
-    boolean dualsProven = ValueBound.gap(sol.objective(), round.bound().lasdon()) <= settings.gapTolerance();
-    if (dualsProven || (round.found().isEmpty() && round.exact())) {
+    boolean dualsProven = ValueBound.gap(sol.objective(), round.bound().lasdon(), gapFloor) <= settings.gapTolerance();
+    // Optimal only when the bound itself meets the objective: an exact round that finds nothing to
+    // enter proves no more than its bound (columns paying less than the entry tolerance stay out).
+    if (dualsProven || (round.found().isEmpty() && round.exact() && rec.gap() <= settings.gapTolerance())) {
       return Optional.of(new Ending(RunStatus.OPTIMAL, ""));
+    }
+    if (round.found().isEmpty() && round.exact()) {
+      return Optional.of(new Ending(RunStatus.STOPPED, "no column pays enough to enter, yet the proven bound "
+          + rec.bound() + " stays " + Math.round(rec.gap() * 1000) / 10.0 + " % above the objective; the LP"
+          + " optimum is not proven"));
     }
     if (round.found().isEmpty()) {
       // Only possible with a pricer that proves nothing and finds nothing: give up honestly.

@@ -3,6 +3,7 @@ package dev.mixwright.explain;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Rule;
+import dev.mixwright.choice.Logit;
 import dev.mixwright.space.Nogood;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
@@ -26,9 +27,8 @@ public final class Explainer {
     double margin = 0;
     for (int g = 0; g < space.groupCount(); g++) {
       Group group = cat.groups().get(g);
+      // A choice index is an option index only without price points: the space maps it.
       int f = space.offset(g) + v[g];
-      // With price points a group has more choices than options: the space maps a choice to its
-      // option and price point (a none choice has price and cost 0).
       Explanation.MarginPart p = new Explanation.MarginPart(group.id(), space.choiceId(g, v[g]),
           space.choicePrice(f), space.choiceCost(f), space.choiceValue(s, f));
       parts.add(p);
@@ -46,6 +46,49 @@ public final class Explainer {
     return new Explanation(s, v.clone(), margin, parts, charges, mu[s], d, problems(v, s));
   }
 
+  /**
+   * What v would sell in choosing segment s next to the plan's other offers there, and whose buyers it
+   * takes (see {@link Substitution}). {@code offered} are the plan's offers in s; v itself among them
+   * is left out of the others, so an offered variant is measured against the plan without it. Log
+   * attractions throughout, so that neither a huge nor a tiny w overflows: O(|offered| · groups).
+   */
+  public Substitution substitution(int[] v, int s, List<int[]> offered) {
+    if (!space.chooses(s)) {
+      throw new IllegalArgumentException("segment '" + space.catalog().segments().get(s).id() + "' does not choose");
+    }
+    double stayOut = space.stayOut(s);
+    double buyers = space.buyers(s);
+    double logW = space.utility(v, s) - stayOut;
+    var key = space.key(v);
+    List<int[]> others = new ArrayList<>();
+    boolean isOffered = false;
+    for (int[] u : offered) {
+      if (space.key(u).equals(key)) {
+        isOffered = true;
+      } else {
+        others.add(u);
+      }
+    }
+    double[] logOthers = new double[others.size()];
+    for (int i = 0; i < logOthers.length; i++) {
+      logOthers[i] = space.utility(others.get(i), s) - stayOut;
+    }
+    double logWithout = Logit.logDenominator(logOthers);
+    double[] withV = java.util.Arrays.copyOf(logOthers, logOthers.length + 1);
+    withV[logOthers.length] = logW;
+    double logWith = Logit.logDenominator(withV);
+    // 1/(1+W) − 1/(1+W+w) = w / ((1+W)(1+W+w)), the fraction of its sales every alternative loses
+    double logLoss = logW - logWith;
+    List<Substitution.Taken> taken = new ArrayList<>();
+    for (int i = 0; i < logOthers.length; i++) {
+      taken.add(new Substitution.Taken(others.get(i).clone(), Math.exp(logOthers[i]),
+          buyers * Math.exp(logOthers[i] - logWithout), buyers * Math.exp(logOthers[i] + logLoss - logWithout)));
+    }
+    double share = Math.exp(logW - logWith);
+    return new Substitution(s, buyers, Math.exp(logW), Math.expm1(logWithout), buyers * share, share, taken,
+        buyers * Math.exp(logLoss - logWithout), isOffered);
+  }
+
   /** Why v cannot be sold in s: the rules it breaks and the segment's accepts it fails. */
   public List<String> problems(int[] v, int s) {
     Catalog cat = space.catalog();
@@ -54,7 +97,7 @@ public final class Explainer {
       int f = space.offset(g) + v[g];
       String choice = cat.groups().get(g).id() + "=" + space.choiceId(g, v[g]);
       if (!space.allowed(f)) {
-        out.add(choice + " is ruled out by " + singleGroupRules(g, v[g]));
+        out.add(choice + " is ruled out by " + singleGroupRules(f));
       } else if (!space.allowedIn(s, f)) {
         out.add("segment " + cat.segments().get(s).id() + " does not accept " + choice
             + " (its accepts." + cat.groups().get(g).id() + ")");
@@ -75,9 +118,8 @@ public final class Explainer {
    * allowed choices, so each rule is compiled on its own to see which ones do it (explain runs once,
    * and compiling one rule costs little).
    */
-  private String singleGroupRules(int g, int k) {
+  private String singleGroupRules(int f) {
     Catalog cat = space.catalog();
-    int f = space.offset(g) + k;
     List<String> hits = new ArrayList<>();
     for (int r = 0; r < cat.rules().size(); r++) {
       Rule rule = cat.rules().get(r);

@@ -462,7 +462,7 @@ public final class BucketEliminationPricer extends NodeLimitedPricer {
       if (!(b + slack(b) > run.cutoff())) {
         break;
       }
-      if (run.nodes >= budget) {
+      if (run.spent(budget)) {
         run.leaveOpen(b);
         return false;
       }

@@ -281,7 +281,7 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
         if (head + restBefore <= cutoff) {
           break; // later choices weigh no more
         }
-        if (run.nodes >= limit) {
+        if (run.spent(limit)) {
           run.leaveOpen(head + restBefore); // covers the later siblings too
           return false;
         }

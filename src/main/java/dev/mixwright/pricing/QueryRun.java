@@ -37,6 +37,17 @@ final class QueryRun {
     return top.cutoff(threshold);
   }
 
+  /**
+   * Whether the search must stop before its next node: the node limit is reached, or a {@link
+   * Cancellation} was requested (looked at every 4096 nodes, a few microseconds apart). A query with
+   * no threshold (the loop's seed, which needs one column per segment) is cancelled only once it holds
+   * a variant, so that a signal never makes a sellable segment look empty.
+   */
+  boolean spent(long limit) {
+    return nodes >= limit || ((nodes & 0xFFF) == 0 && Cancellation.requested()
+        && (threshold != Double.NEGATIVE_INFINITY || top.size() > 0));
+  }
+
   /** Records a part left unexplored whose variants score at most {@code bound}. */
   void leaveOpen(double bound) {
     openBound = Math.max(openBound, bound);

@@ -1,5 +1,6 @@
 package dev.mixwright.report;
 
+import dev.mixwright.explain.Substitution;
 import dev.mixwright.runfolder.AtomicFiles;
 import java.io.IOException;
 import java.nio.file.Path;
@@ -24,6 +25,9 @@ public final class HtmlReport {
   private static final String TEAL = "#0f8b8d";
   private static final String AMBER = "#d98e04";
   private static final String TRACK = "#edf1f5";
+
+  /** Offers with a row and a column of their own in a substitution table; the rest are summed. */
+  private static final int SUBSTITUTION_MAX = 8;
 
   private HtmlReport() {}
 
@@ -305,12 +309,23 @@ public final class HtmlReport {
     for (RunResult.SegmentRow s : segs) {
       String id = s.id();
       h.append("<h3>Segment ").append(escape(id)).append("</h3>\n");
-      h.append("<p class=\"note\">demand ").append(qty(s.demand())).append(", sold ")
-          .append(qty(s.sold())).append(", shadow price ").append(s.shadowPrice() == null ? "unknown" : money(s.shadowPrice()))
-          .append(unit(currency)).append("</p>\n");
+      if (s.chooses()) {
+        h.append("<p class=\"note\">chooses by multinomial logit: ").append(qty(s.buyers())).append(" buyers, ")
+            .append(qty(s.sold())).append(" buy, ").append(qty(s.stayOut() == null ? 0 : s.stayOut()))
+            .append(" stay out; shadow price of a buyer ")
+            .append(s.shadowPrice() == null ? "unknown" : money(s.shadowPrice())).append(unit(currency)).append("</p>\n");
+      } else {
+        h.append("<p class=\"note\">demand ").append(qty(s.demand())).append(", sold ")
+            .append(qty(s.sold())).append(", shadow price ").append(s.shadowPrice() == null ? "unknown" : money(s.shadowPrice()))
+            .append(unit(currency)).append("</p>\n");
+      }
       List<RunResult.Offer> offers = bySegment.get(id);
       if (offers.isEmpty()) {
         h.append("<p>No variant is offered in this segment.</p>\n");
+        continue;
+      }
+      if (s.chooses()) {
+        choosing(h, s, offers, currency);
         continue;
       }
       h.append("<table>\n<tr><th>variant</th><th class=\"n\">quantity</th><th class=\"n\">unit margin</th></tr>\n");
@@ -321,6 +336,122 @@ public final class HtmlReport {
       }
       h.append("</table>\n");
     }
+  }
+
+  // ---- segments that choose -------------------------------------------------------------------
+
+  /**
+   * A choosing segment: a bar of its buyers split by offer and staying out, the share table (price,
+   * attraction, share of the buyers), the price points the plan chose, and the substitution table:
+   * the buyers each offer takes from each other one and from staying out, by the logit's
+   * proportional substitution (Train, Discrete Choice Methods with Simulation, ch. 3), measured
+   * against the plan's offers without it.
+   */
+  private static void choosing(StringBuilder h, RunResult.SegmentRow s, List<RunResult.Offer> offers, String currency) {
+    double buyers = s.buyers();
+    double out = s.stayOut() == null ? Math.max(0, buyers - s.sold()) : s.stayOut();
+    String[] colours = {TEAL, "#3b82a0", "#6a9f3a", "#8d6cb3", "#c2572f", "#b38b2e", "#4d7c8a"};
+    int w = 760;
+    int barW = 720;
+    h.append(svgOpen(w, 64, "Buyers of " + s.id() + " by offer and staying out"));
+    double x = 20;
+    for (int i = 0; i < offers.size(); i++) {
+      double bw = buyers > 0 ? barW * offers.get(i).quantity() / buyers : 0;
+      h.append("<rect x=\"").append(f(x)).append("\" y=\"8\" width=\"").append(f(bw)).append("\" height=\"24\" fill=\"")
+          .append(colours[i % colours.length]).append("\" stroke=\"#fff\"><title>")
+          .append(escape(variant(offers.get(i).options()))).append(": ").append(pct(offers.get(i).quantity() / buyers))
+          .append("</title></rect>\n");
+      if (bw > 34) {
+        h.append("<text x=\"").append(f(x + bw / 2)).append("\" y=\"25\" text-anchor=\"middle\" style=\"fill:#fff\">")
+            .append(i + 1).append("</text>\n");
+      }
+      x += bw;
+    }
+    double ow = buyers > 0 ? barW * out / buyers : 0;
+    h.append(rect(x, 8, ow, 24, TRACK));
+    h.append(text(20, 52, "start", "offers 1–" + offers.size() + " as numbered below; the pale part: "
+        + pct(out / buyers) + " stay out"));
+    h.append("</svg>\n");
+
+    boolean known = offers.stream().allMatch(o -> o.attraction() != null);
+    h.append("<table>\n<tr><th>#</th><th>variant</th><th class=\"n\">price</th><th class=\"n\">attraction</th>"
+        + "<th class=\"n\">buyers</th><th class=\"n\">share</th><th class=\"n\">unit margin</th></tr>\n");
+    int i = 0;
+    for (RunResult.Offer o : offers) {
+      i++;
+      h.append("<tr><td>").append(i).append("</td><td><code>").append(escape(variant(o.options()))).append("</code></td>")
+          .append("<td class=\"n\">").append(o.price() == null ? "—" : money(o.price())).append("</td>")
+          .append("<td class=\"n\">").append(o.attraction() == null ? "—" : sig(o.attraction())).append("</td>")
+          .append("<td class=\"n\">").append(qty(o.quantity())).append("</td>")
+          .append("<td class=\"n\">").append(pct(o.share() != null ? o.share() : o.quantity() / buyers)).append("</td>")
+          .append("<td class=\"n\">").append(money(o.unitMargin())).append("</td></tr>\n");
+    }
+    h.append("<tr><td></td><td>stay out (buy none of these)</td><td></td><td class=\"n\">1</td><td class=\"n\">")
+        .append(qty(out)).append("</td><td class=\"n\">").append(pct(out / buyers)).append("</td><td></td></tr>\n");
+    h.append("</table>\n");
+    pricePoints(h, offers, currency);
+    if (!known || offers.size() < 1) {
+      return;
+    }
+    double total = 0;
+    for (RunResult.Offer o : offers) {
+      total += o.attraction();
+    }
+    h.append("<p class=\"note\">Who takes buyers from whom: each row is an offer (numbered as above), each cell"
+        + " the buyers it takes from the offer of that column (or from staying out), that is, what the column would"
+        + " gain if the row's offer were dropped. By the logit every alternative loses the same fraction of its buyers; these are the"
+        + " logit's figures, and where a resource binds the plan may sell less.</p>\n");
+    int k = Math.min(offers.size(), SUBSTITUTION_MAX);
+    boolean cut = k < offers.size();
+    h.append("<table>\n<tr><th>offer</th>");
+    for (int c = 1; c <= k; c++) {
+      h.append("<th class=\"n\">from ").append(c).append("</th>");
+    }
+    if (cut) {
+      h.append("<th class=\"n\">from ").append(k + 1).append("–").append(offers.size()).append("</th>");
+    }
+    h.append("<th class=\"n\">from staying out</th></tr>\n");
+    for (int r = 0; r < k; r++) {
+      double wr = offers.get(r).attraction();
+      double lost = Substitution.lostFraction(wr, total - wr);
+      h.append("<tr><th>").append(r + 1).append("</th>");
+      for (int c = 0; c < k; c++) {
+        h.append("<td class=\"n\">").append(c == r ? "" : qty(buyers * offers.get(c).attraction() * lost)).append("</td>");
+      }
+      if (cut) {
+        double rest = 0;
+        for (int c = k; c < offers.size(); c++) {
+          rest += offers.get(c).attraction();
+        }
+        h.append("<td class=\"n\">").append(qty(buyers * rest * lost)).append("</td>");
+      }
+      h.append("<td class=\"n\">").append(qty(buyers * lost)).append("</td></tr>\n");
+    }
+    h.append("</table>\n");
+    if (cut) {
+      h.append("<p class=\"note\">Rows for offers ").append(k + 1).append("–").append(offers.size())
+          .append(" are left out to keep the table readable; <code>mixwright explain</code> gives any one of them.</p>\n");
+    }
+  }
+
+  /** The price points the plan chose in a segment, with the units sold at each. */
+  private static void pricePoints(StringBuilder h, List<RunResult.Offer> offers, String currency) {
+    Map<String, Double> sold = new LinkedHashMap<>();
+    for (RunResult.Offer o : offers) {
+      o.options().forEach((g, c) -> {
+        if (c.indexOf('@') > 0) {
+          sold.merge(g + "=" + c, o.quantity(), Double::sum);
+        }
+      });
+    }
+    if (sold.isEmpty()) {
+      return;
+    }
+    StringBuilder sb = new StringBuilder();
+    sold.entrySet().stream().sorted(Map.Entry.comparingByKey()).forEach(e -> sb.append(sb.length() == 0 ? "" : "; ")
+        .append("<code>").append(escape(e.getKey())).append("</code> ").append(qty(e.getValue())).append(" units"));
+    h.append("<p><b>Price points chosen:</b> ").append(sb).append(" (the price after <code>@</code>"
+        + unit(currency) + ")</p>\n");
   }
 
   // ---- portfolio --------------------------------------------------------------------------------
@@ -447,6 +578,15 @@ public final class HtmlReport {
       return String.format(Locale.ROOT, "%.1e", g);
     }
     return String.format(Locale.ROOT, "%.3f%%", g * 100);
+  }
+
+  private static String pct(double share) {
+    return Double.isFinite(share) ? String.format(Locale.ROOT, "%.1f%%", 100 * share) : "—";
+  }
+
+  /** An attraction: four significant digits, as small ones matter. */
+  private static String sig(double v) {
+    return String.format(Locale.ROOT, "%.4g", v);
   }
 
   /** Axis labels short enough to fit: 29.9M rather than 29,900,000. */

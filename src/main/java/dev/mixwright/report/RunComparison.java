@@ -48,6 +48,10 @@ public final class RunComparison {
     n.set("resources", byId(rows(a.resources()), rows(b.resources()), List.of("capacity", "used", "shadowPrice")));
     n.set("segments", byId(rows(a.segments()), rows(b.segments()),
         List.of("demand", "sold", "shadowPrice")));
+    ArrayNode choosing = choosing(a, b);
+    if (!choosing.isEmpty()) {
+      n.set("choosing", choosing);
+    }
     return n;
   }
 
@@ -67,6 +71,62 @@ public final class RunComparison {
       o.put(f, i);
     } else {
       o.put(f, v.doubleValue());
+    }
+  }
+
+  /**
+   * Per segment that chooses in either run: buyers, those who buy, those who stay out and the
+   * buyers-row shadow price, each as {a, b, change}, and every offer's share of the buyers in A and
+   * B (0 where it is not offered). Absent when no segment chooses, so fixed-demand comparisons read
+   * as before.
+   */
+  private static ArrayNode choosing(RunResult a, RunResult b) {
+    ArrayNode out = Json.pretty().createArrayNode();
+    Map<String, RunResult.SegmentRow> sa = new LinkedHashMap<>();
+    Map<String, RunResult.SegmentRow> sb = new LinkedHashMap<>();
+    a.segments().forEach(s -> sa.put(s.id(), s));
+    b.segments().forEach(s -> sb.put(s.id(), s));
+    Set<String> ids = new LinkedHashSet<>(sa.keySet());
+    ids.addAll(sb.keySet());
+    for (String id : ids) {
+      RunResult.SegmentRow x = sa.get(id);
+      RunResult.SegmentRow y = sb.get(id);
+      boolean xc = x != null && x.chooses();
+      boolean yc = y != null && y.chooses();
+      if (!xc && !yc) {
+        continue;
+      }
+      ObjectNode o = out.addObject();
+      o.put("id", id);
+      pair(o.putObject("buyers"), xc ? x.buyers() : null, yc ? y.buyers() : null);
+      pair(o.putObject("sold"), xc ? x.sold() : null, yc ? y.sold() : null);
+      pair(o.putObject("stayOut"), xc ? x.stayOut() : null, yc ? y.stayOut() : null);
+      pair(o.putObject("shadowPrice"), xc ? x.shadowPrice() : null, yc ? y.shadowPrice() : null);
+      Map<String, double[]> shares = new LinkedHashMap<>();
+      Map<String, Map<String, String>> options = new LinkedHashMap<>();
+      collectShares(a, id, xc ? x.buyers() : Double.NaN, 0, shares, options);
+      collectShares(b, id, yc ? y.buyers() : Double.NaN, 1, shares, options);
+      ArrayNode offers = o.putArray("offers");
+      shares.forEach((k, v) -> {
+        ObjectNode r = offers.addObject();
+        ObjectNode opts = r.putObject("options");
+        options.get(k).forEach(opts::put);
+        r.put("shareA", v[0]);
+        r.put("shareB", v[1]);
+      });
+    }
+    return out;
+  }
+
+  private static void collectShares(RunResult r, String segment, double buyers, int side,
+      Map<String, double[]> shares, Map<String, Map<String, String>> options) {
+    for (RunResult.Offer o : r.offers()) {
+      if (o.segment().equals(segment)) {
+        String k = variant(o.options());
+        options.putIfAbsent(k, o.options());
+        double share = o.share() != null ? o.share() : o.quantity() / buyers;
+        shares.computeIfAbsent(k, x -> new double[2])[side] = share;
+      }
     }
   }
 

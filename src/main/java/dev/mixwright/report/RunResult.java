@@ -12,8 +12,12 @@ import com.fasterxml.jackson.databind.json.JsonMapper;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.portfolio.PortfolioStatus;
 import dev.mixwright.runfolder.AtomicFiles;
+import dev.mixwright.runfolder.RunFileDamaged;
+import dev.mixwright.runfolder.RunFolder;
+import dev.mixwright.runfolder.SealedJson;
 import java.io.IOException;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
@@ -74,6 +78,7 @@ public record RunResult(
 
     public Offer {
       options = options == null ? Map.of() : options;
+      unitMargin = Figures.catalogSum(unitMargin);
     }
 
     /** An offer of a fixed segment, without its price. */
@@ -96,6 +101,11 @@ public record RunResult(
     /** A segment with a fixed demand. */
     public SegmentRow(String id, double demand, double sold, Double shadowPrice) {
       this(id, demand, sold, shadowPrice, null, null);
+    }
+
+    /** True for a segment that chooses by multinomial logit. */
+    public boolean chooses() {
+      return buyers != null;
     }
   }
 
@@ -200,23 +210,33 @@ public record RunResult(
 
   /** The text of result.json; the exception's message says in words what is wrong. */
   public static RunResult parse(String text, String where) throws IOException {
+    RunResult r;
     try {
-      return READER.readValue(text);
+      r = READER.readValue(text);
     } catch (JsonProcessingException e) {
-      throw new IOException(where + " is not a result this version reads (" + e.getOriginalMessage() + ")", e);
+      throw new RunFileDamaged(where + " is not a result this version reads (" + e.getOriginalMessage() + ")");
     }
+    if (r == null || r.status() == null || r.catalog() == null) {
+      throw new RunFileDamaged(where + " lacks the status or catalog of a result");
+    }
+    return r;
   }
 
+  /**
+   * Reads result.json after checking its checksum ({@link SealedJson}; a folder written before
+   * checksums is read unchecked). A damaged file is a {@link RunFileDamaged} that says so.
+   */
   public static RunResult read(Path runDir) throws IOException {
     Path f = runDir.resolve(ResultWriter.FILE);
-    if (!Files.isRegularFile(f)) {
-      throw new IOException("no " + ResultWriter.FILE + " in " + runDir
+    if (!Files.exists(f, LinkOption.NOFOLLOW_LINKS)) {
+      throw new RunFileDamaged("no " + ResultWriter.FILE + " in " + runDir
           + " — is this a run folder made by 'mixwright solve --out'?");
     }
-    return parse(Files.readString(f), f.toString());
+    return parse(new RunFolder(runDir).readSealed(ResultWriter.FILE), f.toString());
   }
 
+  /** Writes result.json atomically, its checksum as the last field. */
   public void write(Path runDir) throws IOException {
-    AtomicFiles.write(runDir.resolve(ResultWriter.FILE), toJson());
+    AtomicFiles.write(runDir.resolve(ResultWriter.FILE), SealedJson.seal(toJson()));
   }
 }

@@ -101,9 +101,57 @@ public final class SweepTable {
       ObjectNode x = segs.putObject(ss.id());
       x.put("demand", ss.demand());
       Json.putNum(x, "shadowPrice", o.duals().segment(s).orElse(Double.NaN));
+      if (ss.chooses()) {
+        x.put("buyers", ss.demand());
+        x.put("sold", sold(o, s));
+      }
     }
     rows.put(p.index(), n);
     return n;
+  }
+
+  /** Units the outcome's plan sells in segment s. */
+  private static double sold(SolveOutcome o, int s) {
+    double q = 0;
+    for (int j = 0; j < o.x().length; j++) {
+      if (o.columns().get(j).segment() == s) {
+        q += o.x()[j];
+      }
+    }
+    return q;
+  }
+
+  /**
+   * True for a sweep whose one axis is an option's price on a catalog with a segment that chooses:
+   * there the objective is a curve over the price with a best point (higher prices sell to fewer
+   * buyers), and the table marks it. Fixed-demand sweeps keep their columns as they were.
+   */
+  public boolean marksBest() {
+    return plan.axes().size() == 1 && plan.axes().get(0).target().field() == Scenario.Field.PRICE
+        && base.segments().stream().anyMatch(Segment::chooses);
+  }
+
+  /** Sets {@code best} on every row: true on the solved row of largest objective, the first of ties. */
+  private void best() {
+    if (!marksBest()) {
+      return;
+    }
+    ObjectNode top = null;
+    for (ObjectNode n : rows.values()) {
+      n.remove("best");
+      if (solved(n) && (top == null || n.path("objective").asDouble() > top.path("objective").asDouble())) {
+        top = n;
+      }
+    }
+    for (ObjectNode n : rows.values()) {
+      n.put("best", n == top);
+    }
+  }
+
+  /** The row marked best, if the sweep marks one and any row is solved. */
+  public Optional<ObjectNode> bestRow() {
+    best();
+    return rows.values().stream().filter(n -> n.path("best").asBoolean()).findFirst();
   }
 
   private static void putFigure(ObjectNode ax, Scenario.Target t, Catalog c) {
@@ -177,6 +225,7 @@ public final class SweepTable {
 
   public ObjectNode toJson() {
     slopes();
+    best();
     ObjectNode n = header.deepCopy();
     ArrayNode axes = n.putArray("axes");
     for (SweepPlan.Axis a : plan.axes()) {
@@ -190,6 +239,8 @@ public final class SweepTable {
   /** One CSV line per row; columns named as in sweep.json, nested fields joined with dots. */
   public String toCsv() {
     slopes();
+    best();
+    List<Segment> choosing = base.segments().stream().filter(Segment::chooses).toList();
     List<String> head = new ArrayList<>(List.of("index", "name"));
     for (SweepPlan.Axis a : plan.axes()) {
       head.add(a.target().path());
@@ -211,6 +262,12 @@ public final class SweepTable {
         slopeCols.add(a.target().path());
         head.add("valuePerUnit." + a.target().path());
       }
+    }
+    for (Segment c : choosing) {
+      head.add("sold." + c.id());
+    }
+    if (marksBest()) {
+      head.add("best");
     }
     head.add("problem");
     StringBuilder sb = new StringBuilder();
@@ -240,6 +297,12 @@ public final class SweepTable {
       }
       for (String p : slopeCols) {
         cells.add(text(n.path("valuePerUnit").path(p)));
+      }
+      for (Segment c : choosing) {
+        cells.add(text(n.path("segments").path(c.id()).path("sold")));
+      }
+      if (marksBest()) {
+        cells.add(text(n.path("best")));
       }
       cells.add(n.path("problem").asText(""));
       line(sb, cells);

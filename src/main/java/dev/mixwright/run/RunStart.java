@@ -5,7 +5,7 @@ import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
 import dev.mixwright.runfolder.PortfolioCheckpoint;
-import dev.mixwright.runfolder.PortfolioLog;
+import dev.mixwright.runfolder.RunFileDamaged;
 import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.runfolder.RunManifest;
@@ -50,11 +50,14 @@ public final class RunStart {
   static RunManifest begin(RunFolder folder, Catalog catalog, RunManifest.Source catalogSource,
       RunManifest.Source scenarioSource, RunManifest.Settings settings) throws IOException {
     Files.createDirectories(folder.dir());
-    Files.deleteIfExists(folder.manifest());
-    Files.deleteIfExists(folder.result());
-    Files.deleteIfExists(folder.snapshot());
-    Files.deleteIfExists(folder.columnLog());
-    Files.deleteIfExists(folder.dir().resolve(PortfolioLog.FILE));
+    try {
+      folder.claim(RunFolder.Kind.SOLVE);
+      if (folder.holdsRun()) {
+        folder.clearForReplace();
+      }
+    } catch (RunFileDamaged e) {
+      throw new InputError(e.getMessage());
+    }
     PortfolioCheckpoint.delete(folder);
     String copy = CatalogWriter.toJson(catalog);
     AtomicFiles.write(folder.catalogCopy(), copy);

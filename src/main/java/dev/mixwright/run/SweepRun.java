@@ -3,7 +3,6 @@ package dev.mixwright.run;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.choice.NotSolvedYet;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
@@ -14,6 +13,7 @@ import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
 import dev.mixwright.runfolder.Json;
+import dev.mixwright.runfolder.RunFileDamaged;
 import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.scenario.Scenario;
@@ -63,7 +63,6 @@ public final class SweepRun {
     }
     CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile());
     Catalog catalog = read.catalog();
-    NotSolvedYet.refuseInSweep(catalog);
     SweepPlan plan;
     try {
       plan = plan(r, catalog);
@@ -75,6 +74,7 @@ public final class SweepRun {
     }
     ObjectNode header = Json.pretty().createObjectNode();
     header.put("format", 1);
+    header.put("kind", RunFolder.Kind.SWEEP.word());
     header.put("sweep", plan.name());
     ObjectNode cat = header.putObject("catalog");
     cat.put("name", catalog.name());
@@ -87,6 +87,11 @@ public final class SweepRun {
     SweepTable table = new SweepTable(plan, catalog, header);
 
     Files.createDirectories(r.outDir());
+    try {
+      new RunFolder(r.outDir()).claim(RunFolder.Kind.SWEEP);
+    } catch (RunFileDamaged e) {
+      throw new InputError(e.getMessage());
+    }
     try (RunLock lock = RunStart.lock(new RunFolder(r.outDir()))) {
       Set<Integer> done = keepEarlierRows(r, table, header, watcher);
       AtomicFiles.write(r.outDir().resolve(RunFolder.CATALOG_COPY), CatalogWriter.toJson(catalog));
@@ -111,6 +116,10 @@ public final class SweepRun {
       });
       boolean complete = table.rows().size() == plan.points().size()
           && table.rows().values().stream().noneMatch(SweepTable::stopped);
+      table.bestRow().ifPresent(b -> watcher.note(String.format(java.util.Locale.ROOT,
+          "best price of the sweep: %s (objective %,.2f); a segment that chooses buys less as the price"
+              + " rises, so the objective is a curve over the price", b.path("name").asText(),
+          b.path("objective").asDouble())));
       return new Outcome(table, plan, catalog, rows.size(), done.size(), complete);
     }
   }

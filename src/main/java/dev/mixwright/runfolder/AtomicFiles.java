@@ -6,6 +6,7 @@ import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
@@ -22,11 +23,30 @@ public final class AtomicFiles {
   }
 
   public static void write(Path target, byte[] bytes) throws IOException {
+    write(target, bytes, false);
+  }
+
+  /**
+   * As {@link #write(Path, byte[])}; {@code shared}: the file gets the process's default permissions
+   * (0644 under umask 022) rather than {@code createTempFile}'s owner-only 0600, for files made to be
+   * handed on (exports).
+   */
+  public static void write(Path target, byte[] bytes, boolean shared) throws IOException {
     Path dir = target.toAbsolutePath().getParent();
     Files.createDirectories(dir);
-    Path tmp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
+    if (Files.isSymbolicLink(target)) {
+      throw new RunFileDamaged(target + " is a symbolic link; mixwright never writes through a link (its target"
+          + " would be overwritten) — remove the link or choose another folder");
+    }
+    // A fresh name created here (CREATE_NEW), opened without following links, then renamed over the
+    // target: the rename replaces a directory entry and never writes into a link's target. A shared
+    // file (an export) gets the default permissions; createTempFile would give 0600.
+    Path tmp = shared
+        ? Files.createFile(dir.resolve("." + target.getFileName() + "." + System.nanoTime() + ".tmp"))
+        : Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
     try {
-      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
+      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING,
+          LinkOption.NOFOLLOW_LINKS)) {
         ByteBuffer buf = ByteBuffer.wrap(bytes);
         while (buf.hasRemaining()) {
           ch.write(buf);

@@ -12,6 +12,7 @@ import java.nio.ByteBuffer;
 import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import java.util.List;
@@ -57,7 +58,10 @@ public final class ColumnLog implements ColGenListener, AutoCloseable {
     Files.createDirectories(runDir);
     Path file = runDir.resolve(FILE);
     boolean existed = Files.exists(file);
-    channel = FileChannel.open(file, StandardOpenOption.CREATE, StandardOpenOption.WRITE);
+    if (Files.isSymbolicLink(file)) {
+      throw new RunFileDamaged(file + " is a symbolic link; mixwright never writes through a link — remove it");
+    }
+    channel = FileChannel.open(file, StandardOpenOption.CREATE, StandardOpenOption.WRITE, LinkOption.NOFOLLOW_LINKS);
     if (keepBytes >= 0 && keepBytes < channel.size()) {
       channel.truncate(keepBytes);
     }

@@ -13,8 +13,9 @@ import java.util.Optional;
  * {@code state.json}: the loop's state after a round — the round number, the master objective, the
  * best bound proven so far (+∞ for none), the gap, columns in the master, elapsed time over all
  * sessions and the settings — and its status ({@code running} until the session ends). Written by temp file, sync and
- * rename after every round, so it is whole or absent; one found damaged anyway (copied half, edited)
- * is set aside with a reason and the state is taken from the column log instead.
+ * rename after every round, so it is whole or absent, its checksum the last field ({@link
+ * SealedJson}); one found damaged anyway (copied half, a flipped byte, edited) is set aside with the
+ * reason in words and the state is taken from the column log, the run's authority, instead.
  */
 public record LoopSnapshot(
     String runId, int session, String status, int iteration, double objective, double bound,
@@ -32,7 +33,7 @@ public record LoopSnapshot(
   /** Writes state.json, with the run's settings beside the state when given. */
   public void write(RunFolder folder, RunManifest.Settings settings) throws IOException {
     ObjectNode n = Json.pretty().createObjectNode();
-    n.put("format", 1);
+    n.put("format", 2);
     n.put("runId", runId);
     n.put("session", session);
     n.put("status", status);
@@ -46,13 +47,15 @@ public record LoopSnapshot(
     if (settings != null) {
       settings.putInto(n.putObject("settings"));
     }
-    AtomicFiles.write(folder.snapshot(), Json.pretty().writeValueAsString(n) + "\n");
+    AtomicFiles.write(folder.snapshot(), SealedJson.seal(Json.pretty().writeValueAsString(n)));
   }
 
   public static Loaded read(RunFolder folder) {
     String text;
     try {
-      text = Files.readString(folder.snapshot());
+      text = folder.readSealed(RunFolder.SNAPSHOT);
+    } catch (RunFileDamaged e) {
+      return new Loaded(Optional.empty(), RunFolder.SNAPSHOT + " is damaged (" + e.getMessage() + ")");
     } catch (NoSuchFileException e) {
       return new Loaded(Optional.empty(), "no " + RunFolder.SNAPSHOT + " (the run ended before its first round)");
     } catch (IOException e) {

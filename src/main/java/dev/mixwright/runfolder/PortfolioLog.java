@@ -8,6 +8,7 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 
@@ -23,8 +24,13 @@ public final class PortfolioLog implements PortfolioListener, AutoCloseable {
 
   public PortfolioLog(Path runDir) throws IOException {
     Files.createDirectories(runDir);
-    out = Files.newBufferedWriter(runDir.resolve(FILE), StandardCharsets.UTF_8,
-        StandardOpenOption.CREATE, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING);
+    Path file = runDir.resolve(FILE);
+    if (Files.isSymbolicLink(file)) {
+      throw new RunFileDamaged(file + " is a symbolic link; mixwright never writes through a link (its target"
+          + " would be truncated) — remove it");
+    }
+    out = Files.newBufferedWriter(file, StandardCharsets.UTF_8, StandardOpenOption.CREATE,
+        StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING, LinkOption.NOFOLLOW_LINKS);
   }
 
   @Override

@@ -7,6 +7,7 @@ import java.nio.channels.FileLock;
 import java.nio.channels.OverlappingFileLockException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.StandardOpenOption;
 
 /**
@@ -27,8 +28,9 @@ public final class RunLock implements AutoCloseable {
   /** Takes the lock, or throws an IOException saying that another process holds it. */
   public static RunLock acquire(RunFolder folder) throws IOException {
     Files.createDirectories(folder.dir());
+    folder.refuseLinks();
     FileChannel ch = FileChannel.open(folder.lock(), StandardOpenOption.CREATE, StandardOpenOption.READ,
-        StandardOpenOption.WRITE);
+        StandardOpenOption.WRITE, LinkOption.NOFOLLOW_LINKS);
     FileLock lock;
     try {
       lock = ch.tryLock();
@@ -50,6 +52,30 @@ public final class RunLock implements AutoCloseable {
     ch.truncate(0);
     ch.write(ByteBuffer.wrap(Long.toString(ProcessHandle.current().pid()).getBytes(StandardCharsets.UTF_8)), 0);
     return new RunLock(ch, lock);
+  }
+
+  /**
+   * Whether a process is working on the run now (it holds the lock): a page or a comparison made
+   * meanwhile would show a run that is not finished. Takes and drops the lock to find out; never
+   * creates the lock file.
+   */
+  public static boolean busy(RunFolder folder) {
+    if (!Files.isRegularFile(folder.lock(), LinkOption.NOFOLLOW_LINKS)) {
+      return false;
+    }
+    try (FileChannel ch = FileChannel.open(folder.lock(), StandardOpenOption.READ, StandardOpenOption.WRITE,
+        LinkOption.NOFOLLOW_LINKS)) {
+      FileLock l = ch.tryLock();
+      if (l == null) {
+        return true;
+      }
+      l.release();
+      return false;
+    } catch (OverlappingFileLockException e) {
+      return true;
+    } catch (IOException e) {
+      return false;
+    }
   }
 
   @Override

@@ -29,7 +29,13 @@ public record RunManifest(
     Settings settings,
     List<Session> sessions) {
 
-  public static final int FORMAT = 1;
+  /**
+   * 2: the manifest names its kind and every JSON file of the folder carries a checksum ({@link
+   * SealedJson}). 1: written before; still read (without checksums) and kept at 1 when resumed, so
+   * the older unchecked files beside it stay readable.
+   */
+  public static final int FORMAT = 2;
+  static final int LEGACY_FORMAT = 1;
 
   /** A file the run was made from: its path as given (made absolute) and its SHA-256. */
   public record Source(String path, String sha256) {}
@@ -96,12 +102,16 @@ public record RunManifest(
   }
 
   public void write(RunFolder folder) throws IOException {
-    AtomicFiles.write(folder.manifest(), Json.pretty().writeValueAsString(toJson()) + "\n");
+    String text = Json.pretty().writeValueAsString(toJson()) + "\n";
+    AtomicFiles.write(folder.manifest(), format >= FORMAT ? SealedJson.seal(text) : text);
   }
 
   public ObjectNode toJson() {
     ObjectNode n = Json.pretty().createObjectNode();
     n.put("format", format);
+    if (format >= FORMAT) {
+      n.put("kind", RunFolder.Kind.SOLVE.word());
+    }
     n.put("runId", runId);
     n.put("createdAt", createdAt);
     putSource(n, "catalog", catalog);
@@ -134,20 +144,25 @@ public record RunManifest(
     String name = RunFolder.MANIFEST;
     JsonNode n;
     try {
-      n = Json.pretty().readTree(Files.readString(folder.manifest()));
+      n = Json.pretty().readTree(folder.readSealed(name));
     } catch (NoSuchFileException e) {
-      throw new IOException("no " + name + " in " + folder.dir() + " — it is not a run folder, or the"
+      throw new RunFileDamaged("no " + name + " in " + folder.dir() + " — it is not a run folder, or the"
           + " run was cut off before it began (solve it again)");
     } catch (JsonProcessingException e) {
-      throw new IOException(name + " in " + folder.dir() + " is damaged (not JSON: "
+      throw new RunFileDamaged(name + " in " + folder.dir() + " is damaged (not JSON: "
           + e.getOriginalMessage() + "); it is written atomically, so something else changed it");
     }
     if (n == null || !n.isObject()) {
-      throw new IOException(name + " in " + folder.dir() + " is not a JSON object");
+      throw new RunFileDamaged(name + " in " + folder.dir() + " is not a JSON object");
     }
     int format = need(n, "format", name).asInt();
-    if (format != FORMAT) {
-      throw new IOException(name + ": format " + format + " is not one this version reads (" + FORMAT + ")");
+    if (format != FORMAT && format != LEGACY_FORMAT) {
+      throw new RunFileDamaged(name + " in " + folder.dir() + ": format " + format + " is not one this version"
+          + " reads (" + LEGACY_FORMAT + " or " + FORMAT + "); use the mixwright version that wrote it");
+    }
+    if (format >= FORMAT && !RunFolder.Kind.SOLVE.word().equals(n.path("kind").asText())) {
+      throw new RunFileDamaged(folder.dir() + " holds a " + n.path("kind").asText("(unnamed)") + " run, not a"
+          + " solve; only a solve run can be resumed or explained");
     }
     JsonNode s = need(n, "settings", name);
     Settings settings = new Settings(
@@ -165,6 +180,11 @@ public record RunManifest(
       sessions.add(new Session(x.path("number").asInt(), x.path("kind").asText(),
           x.path("startedAt").asText(), x.path("note").asText("")));
     }
+    if (Files.exists(folder.catalogCopy())) {
+      // Its SHA-256 is checked by whoever reads it (a changed copy may be re-priced); bytes that are
+      // not text at all are damage no reader can handle, refused here before anyone reads them.
+      folder.readText(RunFolder.CATALOG_COPY);
+    }
     return new RunManifest(format, need(n, "runId", name).asText(), n.path("createdAt").asText(),
         source(need(n, "catalog", name), name + " catalog"),
         n.has("scenario") ? source(n.get("scenario"), name + " scenario") : null,
@@ -178,7 +198,7 @@ public record RunManifest(
   private static JsonNode need(JsonNode n, String field, String where) throws IOException {
     JsonNode v = n.get(field);
     if (v == null || v.isNull()) {
-      throw new IOException(where + ": field '" + field + "' is missing");
+      throw new RunFileDamaged(where + ": field '" + field + "' is missing");
     }
     return v;
   }

@@ -18,7 +18,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** The commands end to end, through picocli with captured output, on the small demo catalog. */
 class CommandLineTest {
-  static final Path STARTER = Paths.get("catalogs", "heatpump-starter.yaml");
+  static final Path STARTER = Paths.get("src/test/resources/fixed-demand", "heatpump-starter.yaml");
   static final ObjectMapper JSON = new ObjectMapper();
 
   @TempDir static Path shared;
@@ -41,6 +41,9 @@ class CommandLineTest {
       assertTrue(r.has(f), "result.json lacks " + f);
     }
     assertTrue(r.get("gap").asDouble() <= 1e-6);
+    // every line of the column log is a column counted, the seed columns included
+    assertEquals(Files.readAllLines(run.resolve("columns.jsonl")).size(), r.get("columnsGenerated").asInt());
+    assertTrue(solved.out().contains("V01 "), "the summary names variants by code: " + solved.out());
     // Counted by the demo author by brute force (catalog header comment).
     assertEquals("2244", r.get("buildableVariants").asText());
     assertTrue(r.get("bound").asDouble() >= r.get("objective").asDouble() - 1e-6);
@@ -179,7 +182,7 @@ class CommandLineTest {
   @Test
   void iterationLimitStopsWithExitOneAndAValidBound(@TempDir Path dir) throws IOException {
     Path out = dir.resolve("r");
-    CliRun s = CliRun.of("solve", Paths.get("catalogs", "heatpump-range.yaml").toString(), "--out",
+    CliRun s = CliRun.of("solve", Paths.get("src/test/resources/fixed-demand", "heatpump-range.yaml").toString(), "--out",
         out.toString(), "--max-iterations", "2");
     assertEquals(1, s.code(), s.err());
     JsonNode r = JSON.readTree(out.resolve("result.json").toFile());
@@ -205,6 +208,16 @@ class CommandLineTest {
     JsonNode p = done.get("portfolio");
     assertTrue(p != null && p.get("value").asDouble() > 0, done.toString());
     assertTrue(p.get("bound").asDouble() >= p.get("value").asDouble() - 1e-6);
+  }
+
+  @Test
+  void helpTextsKeepTheirTablesAndOneLineSummaries() {
+    CliRun sweep = CliRun.of("sweep", "--help");
+    assertTrue(sweep.out().contains("\n  rules.ID=on,off                            a rule switched\n"), sweep.out());
+    assertTrue(sweep.out().contains("\n  options.GROUP.OPTION.cost=-10%..+10%:10%    changes in percent\n"), sweep.out());
+    CliRun main = CliRun.of("--help");
+    String bench = main.out().substring(main.out().indexOf("  bench "));
+    assertTrue(bench.substring(0, bench.indexOf("  report ")).trim().endsWith("listed."), main.out());
   }
 
   @Test
@@ -257,7 +270,25 @@ class CommandLineTest {
     assertTrue(r.get("stopReason").asText().contains("rules[0]") && r.get("stopReason").asText().contains("rules[1]"),
         r.get("stopReason").asText());
     CliRun c = CliRun.of("check", f.toString());
-    assertEquals(1, c.code());
+    assertEquals(2, c.code(), "nothing buildable is bad input for check");
     assertTrue(c.out().contains("rules[0]") && c.out().contains("rules[1]"), c.out());
+    assertFalse(c.out().contains("valid"), c.out());
+    assertTrue(c.err().contains("rules: ") && c.err().contains("rules[0]"), c.err());
+  }
+
+  @Test
+  void checkRefusesASegmentWhoseAcceptsLeavesNoBuildableVariant(@TempDir Path dir) throws IOException {
+    Path f = dir.resolve("narrow.yaml");
+    // the clash catalog with one of its two rules gone: body b is still unbuildable, and 'picky' takes only b
+    Files.writeString(f, Catalogs.NOTHING_BUILDABLE.replace("- {id: no-a, forbid: {body: [a], trim: [x]}}", "")
+        .replace("segments: [{id: all, demand: 10}]",
+            "segments: [{id: all, demand: 10}, {id: picky, demand: 5, accepts: {body: [b]}}]"));
+    CliRun c = CliRun.of("check", f.toString());
+    assertEquals(2, c.code(), c.out() + c.err());
+    assertTrue(c.err().contains("segments[1].accepts") && c.err().contains("picky"), c.err());
+    assertFalse(c.err().contains("at dev.mixwright"), c.err());
+    CliRun j = CliRun.of("check", "--json", f.toString());
+    assertEquals(2, j.code());
+    assertTrue(j.out().contains("\"valid\" : false"), j.out());
   }
 }

@@ -16,7 +16,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** sweep, compare and explain --capacity-ranges through the command line. */
 class OvernightCommandsTest {
-  static final String STARTER = "catalogs/heatpump-starter.yaml";
+  static final String STARTER = "src/test/resources/fixed-demand/heatpump-starter.yaml";
 
   @TempDir Path dir;
 

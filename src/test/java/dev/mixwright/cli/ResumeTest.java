@@ -20,7 +20,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** {@code mixwright resume} in this JVM: stopped and damaged runs continue to the uninterrupted optimum. */
 class ResumeTest {
-  static final Path STARTER = Path.of("catalogs/heatpump-starter.yaml");
+  static final Path STARTER = Path.of("src/test/resources/fixed-demand/heatpump-starter.yaml");
   static double uninterrupted;
 
   @TempDir Path dir;
@@ -139,8 +139,8 @@ class ResumeTest {
 
   @Test
   void aChangedOptionTableIsRefusedThoughTheCatalogFileIsTheSame() throws Exception {
-    Files.copy(Path.of("catalogs/heatpump-range.yaml"), dir.resolve("range.yaml"));
-    Files.copy(Path.of("catalogs/heatpump-range-casings.csv"), dir.resolve("heatpump-range-casings.csv"));
+    Files.copy(Path.of("src/test/resources/fixed-demand/heatpump-range.yaml"), dir.resolve("range.yaml"));
+    Files.copy(Path.of("src/test/resources/fixed-demand/heatpump-range-casings.csv"), dir.resolve("heatpump-range-casings.csv"));
     Path run = dir.resolve("run");
     assertEquals(1, CliRun.of("solve", dir.resolve("range.yaml").toString(), "--out", run.toString(),
         "--max-iterations", "1").code());

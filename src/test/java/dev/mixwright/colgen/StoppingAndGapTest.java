@@ -41,11 +41,11 @@ class StoppingAndGapTest {
   }
 
   @Test
-  void theGapIsRelativeToTheValueButNotBelowOne() {
-    assertEquals(0.25, ValueBound.gap(400, 500), 1e-15);
+  void theGapIsRelativeToTheLargerOfValueAndBound() {
+    assertEquals(0.2, ValueBound.gap(400, 500), 1e-15);
     assertEquals(0.25, ValueBound.gap(-400, -300), 1e-15);
-    // near zero the scale is 1, so a bound 0.5 above a value of 0.1 is a gap of 0.5
-    assertEquals(0.5, ValueBound.gap(0.1, 0.6), 1e-15);
+    // small figures keep their relative gap (a fixed scale of 1 once made this 0.5)
+    assertEquals(0.5 / 0.6, ValueBound.gap(0.1, 0.6), 1e-15);
     assertEquals(0.0, ValueBound.gap(500, 499), 0.0, "a bound below the value (round-off) is no gap");
     assertEquals(Double.POSITIVE_INFINITY, ValueBound.gap(500, Double.POSITIVE_INFINITY));
     assertEquals(Double.POSITIVE_INFINITY, new ValueBound(500, Double.NaN).gap());

@@ -29,7 +29,7 @@ class ScenariosTest {
 
   @BeforeAll
   static void load() throws Exception {
-    starter = CatalogLoader.load(Path.of("catalogs/heatpump-starter.yaml"));
+    starter = CatalogLoader.load(Path.of("src/test/resources/fixed-demand/heatpump-starter.yaml"));
   }
 
   private Path file(String name, String text) throws Exception {

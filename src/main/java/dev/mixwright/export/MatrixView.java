@@ -1,0 +1,218 @@
+package dev.mixwright.export;
+
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Group;
+import dev.mixwright.catalog.Option;
+import dev.mixwright.report.RunResult;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.function.DoubleFunction;
+
+/**
+ * A run's variants as a matrix: one row per variant (by its {@link VariantCodes code}), one column per
+ * option group in which the variants differ, then the units each segment buys in the LP plan, their
+ * total, and the units of the integer portfolio. The choices every variant shares are factored out
+ * above the table, so a range of twelve variants that differ in two groups reads as a 12 × 2 table.
+ * Group and option labels of the catalog are used where it gives them, ids otherwise.
+ */
+public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<String> segments,
+    boolean hasPortfolio, List<Row> rows) {
+
+  public MatrixView {
+    shared = List.copyOf(shared);
+    groups = List.copyOf(groups);
+    segments = List.copyOf(segments);
+    rows = List.copyOf(rows);
+  }
+
+  /** A choice every variant holds: group id and heading, choice id and its text. */
+  public record Shared(String group, String groupHead, String choice, String choiceText) {}
+
+  /** A group in which the variants differ: id and heading. */
+  public record GroupColumn(String id, String head) {}
+
+  /**
+   * A variant: code, its choices (group id to choice id), the text of its choice per {@link #groups},
+   * LP units per segment (aligned with {@link #segments}), their total, and its units in the integer
+   * portfolio (NaN when the run has no portfolio; 0 when the portfolio leaves it out).
+   */
+  public record Row(String code, Map<String, String> options, List<String> cells, double[] units, double total,
+      double portfolioUnits) {
+    public Row {
+      cells = List.copyOf(cells);
+      units = units.clone();
+    }
+
+    @Override
+    public double[] units() {
+      return units.clone();
+    }
+  }
+
+  /** The matrix of a run; {@code catalog} (the run's catalog.json) gives labels and may be null. */
+  public static MatrixView of(RunResult result, Catalog catalog) {
+    VariantCodes codes = VariantCodes.of(result);
+    List<String> segments = new ArrayList<>();
+    result.segments().forEach(s -> segments.add(s.id()));
+    result.offers().forEach(o -> {
+      if (!segments.contains(o.segment())) {
+        segments.add(o.segment());
+      }
+    });
+    List<String> groupIds = new ArrayList<>();
+    if (catalog != null) {
+      catalog.groups().forEach(g -> groupIds.add(g.id()));
+    }
+    codes.variants().forEach(v -> v.keySet().forEach(g -> {
+      if (!groupIds.contains(g)) {
+        groupIds.add(g);
+      }
+    }));
+    List<Shared> shared = new ArrayList<>();
+    List<GroupColumn> varying = new ArrayList<>();
+    for (String g : groupIds) {
+      String first = codes.size() == 0 ? null : codes.variants().get(0).get(g);
+      boolean same = codes.size() > 1 && codes.variants().stream().allMatch(v -> eq(v.get(g), first));
+      if (same && first != null) {
+        shared.add(new Shared(g, groupHead(catalog, g), first, choiceText(catalog, g, first)));
+      } else {
+        varying.add(new GroupColumn(g, groupHead(catalog, g)));
+      }
+    }
+    Map<String, double[]> units = new LinkedHashMap<>();
+    for (RunResult.Offer o : result.offers()) {
+      units.computeIfAbsent(codes.code(o.options()), k -> new double[segments.size()])[segments.indexOf(o.segment())]
+          += o.quantity();
+    }
+    Map<String, Double> inPortfolio = new LinkedHashMap<>();
+    if (result.portfolio() != null) {
+      result.portfolio().variants().forEach(v -> inPortfolio.merge(codes.code(v.options()), v.units(), Double::sum));
+    }
+    List<Row> rows = new ArrayList<>();
+    for (int i = 0; i < codes.size(); i++) {
+      Map<String, String> v = codes.variants().get(i);
+      String code = codes.codeAt(i);
+      List<String> cells = new ArrayList<>();
+      for (GroupColumn g : varying) {
+        String c = v.get(g.id());
+        cells.add(c == null ? "" : choiceText(catalog, g.id(), c));
+      }
+      double[] u = units.getOrDefault(code, new double[segments.size()]);
+      rows.add(new Row(code, v, cells, u, Arrays.stream(u).sum(),
+          result.portfolio() == null ? Double.NaN : inPortfolio.getOrDefault(code, 0.0)));
+    }
+    return new MatrixView(shared, varying, segments, result.portfolio() != null, rows);
+  }
+
+  /** The table's heading: the code, the varying groups, the segments, total and portfolio. */
+  public List<String> header() {
+    List<String> h = new ArrayList<>();
+    h.add("variant");
+    groups.forEach(g -> h.add(g.head()));
+    h.addAll(segments);
+    h.add("LP total");
+    if (hasPortfolio) {
+      h.add("portfolio");
+    }
+    return h;
+  }
+
+  /**
+   * The view as text lines: the shared choices, then the table with at most {@code maxRows} rows
+   * (a line says how many more there are); {@code units} formats a number of units.
+   */
+  public List<String> lines(DoubleFunction<String> units, int maxRows) {
+    List<String> out = new ArrayList<>();
+    if (!shared.isEmpty()) {
+      StringBuilder b = new StringBuilder("all variants: ");
+      for (int i = 0; i < shared.size(); i++) {
+        Shared s = shared.get(i);
+        b.append(i == 0 ? "" : ", ").append(s.groupHead()).append(' ').append(s.choiceText());
+      }
+      out.add(b.toString());
+    }
+    List<String> head = header();
+    List<List<String>> cells = new ArrayList<>();
+    int shown = Math.min(rows.size(), maxRows);
+    for (int i = 0; i < shown; i++) {
+      Row r = rows.get(i);
+      List<String> line = new ArrayList<>();
+      line.add(r.code());
+      line.addAll(r.cells());
+      for (double u : r.units) {
+        line.add(u == 0 ? "-" : units.apply(u));
+      }
+      line.add(r.total() == 0 ? "-" : units.apply(r.total()));
+      if (hasPortfolio) {
+        line.add(r.portfolioUnits() == 0 ? "-" : units.apply(r.portfolioUnits()));
+      }
+      cells.add(line);
+    }
+    int[] width = new int[head.size()];
+    for (int c = 0; c < width.length; c++) {
+      width[c] = head.get(c).length();
+      for (List<String> line : cells) {
+        width[c] = Math.max(width[c], line.get(c).length());
+      }
+    }
+    int textColumns = 1 + groups.size();
+    out.add(row(head, width, textColumns));
+    cells.forEach(line -> out.add(row(line, width, textColumns)));
+    if (rows.size() > shown) {
+      out.add("... " + (rows.size() - shown) + " more variants");
+    }
+    return out;
+  }
+
+  /** Text columns left-aligned, number columns right-aligned, two spaces apart. */
+  private static String row(List<String> cells, int[] width, int textColumns) {
+    StringBuilder b = new StringBuilder();
+    for (int c = 0; c < cells.size(); c++) {
+      String s = cells.get(c);
+      String pad = " ".repeat(width[c] - s.length());
+      b.append(c == 0 ? "" : "  ").append(c < textColumns ? s + pad : pad + s);
+    }
+    return b.toString().stripTrailing();
+  }
+
+  static String groupHead(Catalog catalog, String groupId) {
+    if (catalog != null) {
+      int g = catalog.groupIndex(groupId);
+      if (g >= 0 && hasText(catalog.groups().get(g).label())) {
+        return catalog.groups().get(g).label();
+      }
+    }
+    return groupId;
+  }
+
+  /** The option's label (with its price point, {@code 28 in deck @820}), or the choice id. */
+  static String choiceText(Catalog catalog, String groupId, String choice) {
+    if (catalog == null) {
+      return choice;
+    }
+    int g = catalog.groupIndex(groupId);
+    if (g < 0) {
+      return choice;
+    }
+    int at = choice.indexOf(Option.PRICE_MARK);
+    String optionId = at < 0 ? choice : choice.substring(0, at);
+    Group group = catalog.groups().get(g);
+    for (Option o : group.options()) {
+      if (o.id().equals(optionId) && hasText(o.label())) {
+        return at < 0 ? o.label() : o.label() + " " + choice.substring(at);
+      }
+    }
+    return choice;
+  }
+
+  private static boolean hasText(String s) {
+    return s != null && !s.isBlank();
+  }
+
+  private static boolean eq(String a, String b) {
+    return a == null ? b == null : a.equals(b);
+  }
+}
