@@ -11,16 +11,11 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
-import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
-import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 @Command(
     name = "export",
-    mixinStandardHelpOptions = true,
     description = {
       "Writes a finished run in a form to keep or hand on.",
       "csv: offers.csv, portfolio.csv (when the run has a portfolio), resources.csv, segments.csv,"
@@ -30,12 +25,7 @@ import picocli.CommandLine.Model.CommandSpec;
       "Variants are named by short codes (V01 sells most in the LP plan), the same in every export and"
           + " summary of the run. Text that a spreadsheet would read as a formula is written as text."
     })
-final class ExportCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
-
-  @Parameters(index = "0", paramLabel = "RUN_DIR", description = "a folder written by 'mixwright solve --out'")
-  Path runDir;
-
+final class ExportCommand extends RunDirCommand {
   @Option(names = "--format", required = true, paramLabel = "FORMAT", description = "csv, xlsx, mps or text")
   String format;
 
