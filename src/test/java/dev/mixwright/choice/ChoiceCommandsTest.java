@@ -109,10 +109,12 @@ class ChoiceCommandsTest {
   }
 
   @Test
-  void sweepRefusesWithWordsAndExitTwo() throws Exception {
-    Ran r = run("sweep", boats(), "--out", dir.resolve("sweep").toString(), "--grid", "resources.layup.capacity=5000,6000");
-    assertEquals(2, r.code(), r.out() + r.err());
-    assertTrue(r.err().contains("sweeps over segments that choose are not run by this version yet"), r.err());
+  void sweepRunsOverSegmentsThatChoose() throws Exception {
+    Path out = dir.resolve("sweep");
+    Ran r = run("sweep", boats(), "--out", out.toString(), "--grid", "resources.layup.capacity=5000,6000");
+    assertEquals(0, r.code(), r.out() + r.err());
     assertFalse(r.err().contains("Exception"), r.err());
+    // a header and one row per grid point
+    assertEquals(3, java.nio.file.Files.readAllLines(out.resolve("sweep.csv")).size());
   }
 }
