@@ -23,7 +23,7 @@ final class FixedPortfolio {
     int[] m = members.clone();
     Arrays.sort(m);
     if (m.length == 0) {
-      return Plan.empty();
+      return Plan.empty(pool);
     }
     if (m.length > terms.maxVariants()) {
       return null;
@@ -35,7 +35,7 @@ final class FixedPortfolio {
       Set<Integer> tools = new HashSet<>();
       for (int i : m) {
         PoolVariant v = pool.get(i);
-        int j = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+        int j = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot());
         lp.fixIntroduction(j, 1, 1);
         for (int t : v.tools()) {
           tools.add(t);
@@ -53,8 +53,8 @@ final class FixedPortfolio {
       for (double[] x : sol.x()) {
         sales.add(x.clone());
       }
-      double intro = terms.introductionCost() * m.length;
-      return new Plan(m, sales, sol.objective() - tooling, intro, tooling);
+      double intro = introduction(pool, m);
+      return new Plan(m, sales, sol.objective() - tooling + pool.current().constant(), intro, tooling);
     }
   }
 
@@ -63,7 +63,7 @@ final class FixedPortfolio {
         PortfolioTerms.UNLIMITED, terms.choiceCost(), true)) {
       for (int i : m) {
         PoolVariant v = pool.get(i);
-        int j = mip.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(),
+        int j = mip.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot(),
             v.tools());
         mip.fixIntroduction(j, 1, 1);
       }
@@ -92,8 +92,21 @@ final class FixedPortfolio {
       for (int t : tools) {
         tooling += terms.choiceCost()[t];
       }
-      double intro = terms.introductionCost() * m.length;
-      return new Plan(m, sales, value - intro - tooling, intro, tooling);
+      double intro = introduction(pool, m);
+      double fixed = 0;
+      for (int i : m) {
+        fixed += pool.get(i).fixedCost();
+      }
+      return new Plan(m, sales, value - fixed - tooling + pool.current().constant(), intro, tooling);
     }
+  }
+
+  /** Introduction costs paid: F for every new variant (a current one pays none). */
+  private static double introduction(Pool pool, int[] m) {
+    double intro = 0;
+    for (int i : m) {
+      intro += Math.max(0.0, pool.get(i).fixedCost());
+    }
+    return intro;
   }
 }
