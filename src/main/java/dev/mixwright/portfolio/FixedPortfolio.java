@@ -20,12 +20,17 @@ final class FixedPortfolio {
 
   /** The plan of offering exactly {@code members}, or null when their minimum lots cannot all be met. */
   static Plan solve(Pool pool, PortfolioTerms terms, int[] members) {
+    return solve(pool, terms, members, true);
+  }
+
+  /** With {@code limited} false the variant limit is not checked: today's range may hold more than it. */
+  static Plan solve(Pool pool, PortfolioTerms terms, int[] members, boolean limited) {
     int[] m = members.clone();
     Arrays.sort(m);
     if (m.length == 0) {
       return Plan.empty(pool);
     }
-    if (m.length > terms.maxVariants()) {
+    if (limited && m.length > terms.maxVariants()) {
       return null;
     }
     if (terms.wholeUnits()) {

@@ -248,7 +248,7 @@ public final class IntegerStage {
         new PortfolioOutcome.Offer(List.of(), 0, 0), 0, null,
         new PortfolioOutcome.SurvivorProof(Double.NaN, 0, true, 0),
         new PortfolioOutcome.MipRuns(settings.engine(), 0, true), new PortfolioOutcome.Tree(0, 0, 0),
-        clock.elapsedMs(), RangeChange.of(space, pool, Plan.empty(pool), null));
+        clock.elapsedMs(), RangeChange.of(space, pool, Plan.empty(pool), current.isEmpty() ? null : todaysRange(pool)));
   }
 
   /** Rounding of the relaxation, then a MIP over the pool warm-started from it. */
@@ -357,7 +357,14 @@ public final class IntegerStage {
   }
 
   /** Today's range as a fixed portfolio: every current variant some segment takes, nothing else; null when it does not fit. */
-  private Plan todaysRange(Pool pool) {
+  private Plan todaysRange(Pool stagePool) {
+    Pool pool = stagePool;
+    if (!space.catalog().exclude().isEmpty()) {
+      // a variant on sale today may be excluded from the new range; today's range still sells it
+      var all = space.catalog();
+      VariantSpace unbarred = new VariantSpace(all.withCurrentRange(all.current(), List.of()));
+      pool = new Pool(unbarred, terms, new CurrentRange(unbarred));
+    }
     CurrentRange cr = pool.current();
     List<Integer> members = new ArrayList<>();
     for (int i = 0; i < cr.size(); i++) {
@@ -366,7 +373,7 @@ public final class IntegerStage {
         members.add(at);
       }
     }
-    return FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray());
+    return FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray(), false);
   }
 
   static List<OfferedVariant> offered(VariantSpace space, Pool pool, Plan p) {
