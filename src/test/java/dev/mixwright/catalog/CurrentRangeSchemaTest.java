@@ -1,5 +1,6 @@
 package dev.mixwright.catalog;
 
+import static org.junit.jupiter.api.Assertions.assertDoesNotThrow;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -29,6 +30,8 @@ class CurrentRangeSchemaTest {
     assertEquals(0, c.current().get(1).discontinue());
     assertTrue(!c.current().get(1).keep());
     assertEquals(List.of(Map.of("frame", "low", "bell", "ring")), c.exclude());
+    // canonical JSON (the run folder's copy) carries both sections and reads back to the same catalog
+    assertEquals(c, assertDoesNotThrow(() -> CatalogLoader.parse(CatalogWriter.toJson(c), "x.json", null)));
   }
 
   @Test
