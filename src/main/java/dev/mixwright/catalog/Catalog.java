@@ -16,13 +16,28 @@ public record Catalog(
     List<Group> groups,
     List<Rule> rules,
     List<Segment> segments,
-    Optional<PortfolioSpec> portfolio) {
+    Optional<PortfolioSpec> portfolio,
+    List<CurrentVariant> current,
+    List<Map<String, String>> exclude) {
 
   public Catalog {
+    current = current == null ? List.of() : List.copyOf(current);
+    exclude = exclude == null ? List.of() : exclude.stream().map(Catalog::orderedChoices).toList();
     resources = List.copyOf(resources);
     groups = List.copyOf(groups);
     rules = List.copyOf(rules);
     segments = List.copyOf(segments);
+  }
+
+  /** A catalog without a current range or exclusions (the form before issue 10). */
+  public Catalog(int format, String name, String currency, String period, List<Resource> resources,
+      List<Group> groups, List<Rule> rules, List<Segment> segments, Optional<PortfolioSpec> portfolio) {
+    this(format, name, currency, period, resources, groups, rules, segments, portfolio, List.of(), List.of());
+  }
+
+  /** This catalog with a current range and exclusions (replacing any it had). */
+  public Catalog withCurrentRange(List<CurrentVariant> current, List<Map<String, String>> exclude) {
+    return new Catalog(format, name, currency, period, resources, groups, rules, segments, portfolio, current, exclude);
   }
 
   public int resourceIndex(String id) {
@@ -60,6 +75,10 @@ public record Catalog(
   /** True when some option lists several price points. */
   public boolean hasPricePoints() {
     return groups.stream().flatMap(g -> g.options().stream()).anyMatch(Option::hasPricePoints);
+  }
+
+  static Map<String, String> orderedChoices(Map<String, String> m) {
+    return Collections.unmodifiableMap(new LinkedHashMap<>(m));
   }
 
   static Map<String, List<String>> orderedCopy(Map<String, List<String>> m) {

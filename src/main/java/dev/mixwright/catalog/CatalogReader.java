@@ -32,7 +32,9 @@ final class CatalogReader {
           "groups",
           "rules",
           "segments",
-          "portfolio");
+          "portfolio",
+          "current",
+          "exclude");
   private static final List<String> RESOURCE_FIELDS = List.of("id", "label", "unit", "capacity");
   private static final List<String> GROUP_FIELDS =
       List.of("id", "label", "required", "options", "optionsFile");
@@ -172,8 +174,10 @@ final class CatalogReader {
     if (!problems.isEmpty()) {
       throw new CatalogException(problems);
     }
-    return new Catalog(
+    Catalog catalog = new Catalog(
         format, name, currency, period, resources, groups, rules, segments, portfolio);
+    // current range (issue 10): read once the groups and rules it refers to are known
+    return CurrentRangeReader.read(root, catalog);
   }
 
   // ---------------------------------------------------------------- sections

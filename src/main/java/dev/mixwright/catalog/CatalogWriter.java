@@ -166,6 +166,22 @@ public final class CatalogWriter {
                 n.put("wholeUnits", true);
               }
             });
+    // current range (issue 10)
+    if (!c.current().isEmpty()) {
+      var list = root.putArray("current");
+      for (CurrentVariant cv : c.current()) {
+        ObjectNode n = list.addObject();
+        cv.variant().forEach(n.putObject("variant")::put);
+        putNumber(n, "discontinue", cv.discontinue());
+        if (cv.keep()) {
+          n.put("keep", true);
+        }
+      }
+    }
+    if (!c.exclude().isEmpty()) {
+      var list = root.putArray("exclude");
+      c.exclude().forEach(e -> e.forEach(list.addObject()::put));
+    }
     return root;
   }
 

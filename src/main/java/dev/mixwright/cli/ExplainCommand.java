@@ -145,6 +145,10 @@ final class ExplainCommand extends RunDirCommand {
         out.println("  (--leave-price: the plan does not sell this variant here, so there is nothing to leave)");
       }
       PortfolioExplainView.print(out, space, verdict);
+      if (verdict != null) {
+        // issue 10: a variant on sale today, kept or dropped
+        new dev.mixwright.explain.PortfolioExplainer(space).currentRangeWords(v, verdict).forEach(w -> out.println("    " + w));
+      }
       if (ranges != null) {
         CapacityRangeReport.print(out, ranges, run.result());
       }

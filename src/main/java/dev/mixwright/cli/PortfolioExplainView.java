@@ -100,8 +100,10 @@ final class PortfolioExplainView {
           + " units, so it cannot be offered at all");
       return;
     }
-    out.println("    its best lot earns " + Numbers.money(e.lotValue()) + ", minus introduction cost "
-        + Numbers.money(cat.portfolio().get().introductionCost()) + " = " + Numbers.money(e.psi())
+    // a variant on sale today carries −discontinue instead of the introduction cost (issue 10)
+    out.println("    its best lot earns " + Numbers.money(e.lotValue()) + ", minus "
+        + (e.lotValue() - e.psi() == cat.portfolio().get().introductionCost() ? "introduction cost " : "its fixed cost ")
+        + Numbers.money(e.lotValue() - e.psi()) + " = " + Numbers.money(e.psi())
         + (e.tooling() > 0 ? " (and its options' tooling " + Numbers.money(e.tooling()) + ")" : ""));
     if (e.ruledOut()) {
       out.println("    so any portfolio holding it is worth at most " + Numbers.money(e.boundWith())

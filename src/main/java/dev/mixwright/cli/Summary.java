@@ -82,9 +82,16 @@ final class Summary {
     out.println("    bound             " + Numbers.money(orNaN(p.bound())) + cur
         + "   gap " + Numbers.percent(orNaN(p.gap())));
     RunResult.Proof proof = p.proof();
-    out.println(String.format(Locale.ROOT, "    %d variants, MIP %s, pool %d, survivors added %d%s, time %s",
-        p.variants().size(), p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
+    String change = p.kept() == null ? "" : String.format(Locale.ROOT, " (kept %d, dropped %d, added %d)",
+        p.kept().size(), p.dropped().size(), p.added().size());
+    out.println(String.format(Locale.ROOT, "    %d variants%s, MIP %s, pool %d, survivors added %d%s, time %s",
+        p.variants().size(), change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
         proof.survivorsComplete() ? " (all)" : "", Durations.format(p.elapsedMs())));
+    if (p.kept() != null) {
+      out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"
+          : Numbers.money(p.currentRangeValue()) + cur + " as a fixed portfolio") + "; discontinue costs paid "
+          + Numbers.money(p.discontinueCosts() == null ? 0 : p.discontinueCosts()) + cur);
+    }
     int shown = 0;
     for (RunResult.PortfolioVariant v : p.variants()) {
       if (!all && shown++ == SHOWN_VARIANTS) {

@@ -107,7 +107,10 @@ public final class Explainer {
     for (int i = 0; i < space.nogoodCount(); i++) {
       Nogood n = space.nogood(i);
       if (n.violatedBy(v, off)) {
-        out.add("rules[" + n.rule() + "] " + describe(cat.rules().get(n.rule())) + " forbids this combination");
+        out.add(n.rule() >= cat.rules().size()
+            ? "exclude[" + (n.rule() - cat.rules().size()) + "] " + cat.exclude().get(n.rule() - cat.rules().size())
+                + " may not be offered"
+            : "rules[" + n.rule() + "] " + describe(cat.rules().get(n.rule())) + " forbids this combination");
       }
     }
     return out.stream().distinct().toList();

@@ -1,11 +1,13 @@
 package dev.mixwright.explain;
 
+import dev.mixwright.catalog.CurrentVariant;
 import dev.mixwright.portfolio.LotValue;
 import dev.mixwright.portfolio.PortfolioTerms;
 import dev.mixwright.portfolio.VariantPricer;
 import dev.mixwright.space.VariantSpace;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 
 /**
  * Explains a variant against a run's integer portfolio with the argument of the proof
@@ -48,7 +50,7 @@ public final class PortfolioExplainer {
     }
     double[] d = VariantPricer.reducedCosts(space, v, f.resourcePrice(), f.segmentPrice());
     double g = LotValue.best(d, terms.columnBound(), terms.minLot());
-    double psi = g - terms.introductionCost();
+    double psi = g - fixedCost(v);
     double tooling = terms.toolingOf(space, v);
     double with = Double.isFinite(f.boundAtLambda())
         ? f.boundAtLambda() - Math.max(0.0, f.lambda() - psi) - tooling
@@ -57,6 +59,45 @@ public final class PortfolioExplainer {
         || with <= f.value() + 1e-7 * (1 + Math.abs(f.value()));
     return new PortfolioVerdict(false, new double[space.segmentCount()], 0, d, g, psi, tooling, with, f.value(),
         ruledOut, f.proven());
+  }
+
+  /** F for a new variant; for one on sale today −discontinue (0 when pinned): keeping it saves that cost. */
+  private double fixedCost(int[] v) {
+    for (CurrentVariant c : space.catalog().current()) {
+      if (Arrays.equals(space.parse(c.variant()), v)) {
+        return c.keep() ? 0.0 : -c.discontinue();
+      }
+    }
+    return terms.introductionCost();
+  }
+
+  /**
+   * Words for a variant on sale today, empty for a new one: whether the portfolio keeps it and, when
+   * it drops it, its value in the plan (its best lot at the relaxation's prices) against the
+   * discontinue cost it saves, and what a new variant would pay to be introduced instead.
+   */
+  public List<String> currentRangeWords(int[] v, PortfolioVerdict verdict) {
+    for (CurrentVariant c : space.catalog().current()) {
+      if (!Arrays.equals(space.parse(c.variant()), v)) {
+        continue;
+      }
+      String intro = String.format(Locale.ROOT, "%,.2f", terms.introductionCost());
+      String disc = String.format(Locale.ROOT, "%,.2f", c.discontinue());
+      if (verdict.offered()) {
+        return List.of("on sale today and kept" + (c.keep() ? " (pinned)" : "") + ": it pays no introduction cost"
+            + " (a new variant pays " + intro + "), and dropping it would cost " + disc);
+      }
+      if (!space.isBuildable(v)) {
+        return List.of("on sale today and dropped: an exclude entry or a rule bars it from the new range;"
+            + " dropping it costs " + disc);
+      }
+      return List.of(String.format(Locale.ROOT, "on sale today and dropped: its best lot earns %,.2f at the"
+          + " relaxation's prices; keeping it would save the discontinue cost %s, so it is worth %,.2f kept,"
+          + " against the variants introduced elsewhere at %s each; a portfolio keeping it is worth at most %,.2f,"
+          + " and the portfolio found, %,.2f, pays the %s", verdict.lotValue(), disc, verdict.psi(), intro,
+          verdict.boundWith(), verdict.portfolioValue(), disc));
+    }
+    return List.of();
   }
 
   public PortfolioTerms terms() {

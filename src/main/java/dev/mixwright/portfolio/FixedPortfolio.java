@@ -20,12 +20,17 @@ final class FixedPortfolio {
 
   /** The plan of offering exactly {@code members}, or null when their minimum lots cannot all be met. */
   static Plan solve(Pool pool, PortfolioTerms terms, int[] members) {
+    return solve(pool, terms, members, true);
+  }
+
+  /** With {@code limited} false the variant limit is not checked: today's range may hold more than it. */
+  static Plan solve(Pool pool, PortfolioTerms terms, int[] members, boolean limited) {
     int[] m = members.clone();
     Arrays.sort(m);
     if (m.length == 0) {
-      return Plan.empty();
+      return Plan.empty(pool);
     }
-    if (m.length > terms.maxVariants()) {
+    if (limited && m.length > terms.maxVariants()) {
       return null;
     }
     if (terms.wholeUnits()) {
@@ -36,7 +41,7 @@ final class FixedPortfolio {
       Set<Integer> tools = new HashSet<>();
       for (int i : m) {
         PoolVariant v = pool.get(i);
-        int j = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+        int j = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot());
         pool.choice().attract(lp, j, v);
         lp.fixIntroduction(j, 1, 1);
         for (int t : v.tools()) {
@@ -55,8 +60,8 @@ final class FixedPortfolio {
       for (double[] x : sol.x()) {
         sales.add(x.clone());
       }
-      double intro = terms.introductionCost() * m.length;
-      return new Plan(m, sales, sol.objective() - tooling, intro, tooling);
+      double intro = introduction(pool, m);
+      return new Plan(m, sales, sol.objective() - tooling + pool.current().constant(), intro, tooling);
     }
   }
 
@@ -66,7 +71,7 @@ final class FixedPortfolio {
       pool.choice().enter(mip);
       for (int i : m) {
         PoolVariant v = pool.get(i);
-        int j = mip.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(),
+        int j = mip.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot(),
             v.tools());
         pool.choice().attract(mip, j, v);
         mip.fixIntroduction(j, 1, 1);
@@ -96,8 +101,21 @@ final class FixedPortfolio {
       for (int t : tools) {
         tooling += terms.choiceCost()[t];
       }
-      double intro = terms.introductionCost() * m.length;
-      return new Plan(m, sales, value - intro - tooling, intro, tooling);
+      double intro = introduction(pool, m);
+      double fixed = 0;
+      for (int i : m) {
+        fixed += pool.get(i).fixedCost();
+      }
+      return new Plan(m, sales, value - fixed - tooling + pool.current().constant(), intro, tooling);
     }
+  }
+
+  /** Introduction costs paid: F for every new variant (a current one pays none). */
+  private static double introduction(Pool pool, int[] m) {
+    double intro = 0;
+    for (int i : m) {
+      intro += Math.max(0.0, pool.get(i).fixedCost());
+    }
+    return intro;
   }
 }

@@ -214,7 +214,13 @@ public final class IntegerStage {
   public PortfolioOutcome run(SolveOutcome lp) {
     clock = new StageClock(settings.timeLimitMs(), stop);
     mipSolves = 0;
-    Pool pool = new Pool(space, terms);
+    CurrentRange current = new CurrentRange(space);
+    Pool pool = new Pool(space, terms, current);
+    // current variants are always in the pool, so the pricer (which skips the pool and charges F)
+    // only ever prices new variants, and every bound sees a current variant with its own fixed cost
+    for (int i = 0; i < current.size(); i++) {
+      pool.add(current.variant(i));
+    }
     if (!lp.status().isInfeasible()) {
       for (Column c : lp.columns()) {
         pool.add(c.choices());
@@ -224,7 +230,7 @@ public final class IntegerStage {
       }
     }
     if (pool.size() == 0 || terms.variantCap() == 0) {
-      return nothingToOffer(pool);
+      return nothingToOffer(pool, current);
     }
     double lpBound = Double.isFinite(lp.bound()) ? lp.bound() : Double.POSITIVE_INFINITY;
     VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
@@ -242,9 +248,11 @@ public final class IntegerStage {
       survivors(pool, pricer, rx.bound(), search);
       checkpoint(pool, search.incumbent, search.bound);
     }
-    if (!search.survivorsProve) {
+    if (!search.survivorsProve && current.isEmpty()) {
       tree(pool, search);
       checkpoint(pool, search.incumbent, Math.min(search.bound, search.treeBound));
+    } else if (!search.survivorsProve && search.reason.isEmpty()) {
+      search.reason = "the branch-and-price tree does not take a current range yet, and the quick proof did not settle it";
     }
     search.added = pool.size() - relaxed;
     return outcome(pool, lpBound, rx, search);
@@ -329,15 +337,16 @@ public final class IntegerStage {
    * No segment takes any buildable variant, or no lot fits the demand: every portfolio that can be
    * offered is empty.
    */
-  private PortfolioOutcome nothingToOffer(Pool pool) {
-    emit(PortfolioEvent.Kind.END, 0, 0, 0, 0, pool.size() == 0
+  private PortfolioOutcome nothingToOffer(Pool pool, CurrentRange current) {
+    double v = current.constant();
+    emit(PortfolioEvent.Kind.END, v, v, 0, 0, pool.size() == 0
         ? "nothing can be sold: the empty portfolio is optimal"
         : "the minimum lot exceeds all demand together: the empty portfolio is optimal");
-    return new PortfolioOutcome(PortfolioStatus.PROVEN, "", new ValueBound(0, 0),
+    return new PortfolioOutcome(PortfolioStatus.PROVEN, "", new ValueBound(v, v),
         new PortfolioOutcome.Offer(List.of(), 0, 0), 0, null,
         new PortfolioOutcome.SurvivorProof(Double.NaN, 0, true, 0),
         new PortfolioOutcome.MipRuns(settings.engine(), 0, true), new PortfolioOutcome.Tree(0, 0, 0),
-        clock.elapsedMs());
+        clock.elapsedMs(), RangeChange.of(space, pool, Plan.empty(pool), current.isEmpty() ? null : todaysRange(pool)));
   }
 
   /** Rounding of the relaxation, then a MIP over the pool warm-started from it. */
@@ -347,7 +356,8 @@ public final class IntegerStage {
     VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), terms.introductionCost(), null,
         Double.NEGATIVE_INFINITY, 1, null, 0);
     for (int i = 0; i < score.length; i++) {
-      score[i] = VariantPricer.value(space, terms, pool.get(i).choices(), at);
+      score[i] = VariantPricer.value(space, terms, pool.get(i).choices(), at) + terms.introductionCost()
+          - pool.get(i).fixedCost();
     }
     Plan inc = Rounding.greedy(pool, terms, rx.y(), score, clock, clock.phase(0.2));
     emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
@@ -382,10 +392,11 @@ public final class IntegerStage {
     String reason = proven ? "" : whyHeuristic(s.reason);
     PortfolioOutcome o = new PortfolioOutcome(proven ? PortfolioStatus.PROVEN : PortfolioStatus.HEURISTIC, reason,
         new ValueBound(inc.value(), bound),
-        new PortfolioOutcome.Offer(offered(pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
+        new PortfolioOutcome.Offer(offered(space, pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
         lpBound, rx, new PortfolioOutcome.SurvivorProof(s.theta, s.added, s.complete, pool.size()),
         new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal),
-        new PortfolioOutcome.Tree(s.nodes, s.openNodes, s.workers), clock.elapsedMs());
+        new PortfolioOutcome.Tree(s.nodes, s.openNodes, s.workers), clock.elapsedMs(),
+        RangeChange.of(space, pool, inc, pool.current().isEmpty() ? null : todaysRange(pool)));
     emit(PortfolioEvent.Kind.END, o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
         + (reason.isEmpty() ? "" : ": " + reason));
     return o;
@@ -411,9 +422,12 @@ public final class IntegerStage {
         terms.choiceCost(), terms.wholeUnits())) {
       pool.choice().enter(m);
       for (PoolVariant v : pool.all()) {
-        int i = m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot(),
+        int i = m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot(),
             v.tools());
         pool.choice().attract(m, i, v);
+        if (v.pinned()) {
+          m.fixIntroduction(i, 1, 1);
+        }
       }
       double[] y = new double[pool.size()];
       double[][] x = new double[pool.size()][];
@@ -441,7 +455,8 @@ public final class IntegerStage {
         // the MIP's choice failed the exact LP of its portfolio (round-off at a minimum lot): use nothing of it
         status = MipStatus.FAILED;
       }
-      double mb = status.hasSolution() ? sol.bound() : Double.POSITIVE_INFINITY;
+      // the MIP's objective leaves out the discontinue costs of the current range (a constant)
+      double mb = status.hasSolution() ? sol.bound() + pool.current().constant() : Double.POSITIVE_INFINITY;
       emit(PortfolioEvent.Kind.MIP, plan == null ? Double.NaN : plan.value(), mb, pool.size(), sol.y().length,
           settings.engine().word() + " " + sol.status().name().toLowerCase(Locale.ROOT) + " in " + sol.wallMs() + " ms, "
               + sol.nodes() + " nodes (bound over the pool only)");
@@ -449,7 +464,27 @@ public final class IntegerStage {
     }
   }
 
-  private List<OfferedVariant> offered(Pool pool, Plan p) {
+  /** Today's range as a fixed portfolio: every current variant some segment takes, nothing else; null when it does not fit. */
+  private Plan todaysRange(Pool stagePool) {
+    Pool pool = stagePool;
+    if (!space.catalog().exclude().isEmpty()) {
+      // a variant on sale today may be excluded from the new range; today's range still sells it
+      var all = space.catalog();
+      VariantSpace unbarred = new VariantSpace(all.withCurrentRange(all.current(), List.of()));
+      pool = new Pool(unbarred, terms, new CurrentRange(unbarred));
+    }
+    CurrentRange cr = pool.current();
+    List<Integer> members = new ArrayList<>();
+    for (int i = 0; i < cr.size(); i++) {
+      int at = pool.indexOrAdd(cr.variant(i));
+      if (at >= 0) {
+        members.add(at);
+      }
+    }
+    return FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray(), false);
+  }
+
+  static List<OfferedVariant> offered(VariantSpace space, Pool pool, Plan p) {
     List<OfferedVariant> out = new ArrayList<>();
     for (int j = 0; j < p.members().length; j++) {
       PoolVariant v = pool.get(p.members()[j]);

@@ -11,4 +11,9 @@ record Plan(int[] members, List<double[]> sales, double value, double introducti
   static Plan empty() {
     return new Plan(new int[0], List.of(), 0.0, 0.0, 0.0);
   }
+
+  /** Nothing offered from the pool: every unpinned current variant is dropped and pays its discontinue cost. */
+  static Plan empty(Pool pool) {
+    return new Plan(new int[0], List.of(), pool.current().constant(), 0.0, 0.0);
+  }
 }

@@ -18,19 +18,34 @@ import java.util.concurrent.CopyOnWriteArrayList;
 final class Pool {
   private final VariantSpace space;
   private final PortfolioTerms terms;
+  private final CurrentRange current;
   private final List<PoolVariant> variants = new CopyOnWriteArrayList<>();
   private final Map<VariantKey, Integer> index = new ConcurrentHashMap<>();
   private final ChoiceRows choice;
 
   Pool(VariantSpace space, PortfolioTerms terms) {
+    this(space, terms, new CurrentRange(space));
+  }
+
+  Pool(VariantSpace space, PortfolioTerms terms, CurrentRange current) {
     this.space = space;
     this.terms = terms;
     this.choice = new ChoiceRows(space);
+    this.current = current;
   }
 
   /** The rows of segments that choose, for every master built over this pool. */
   ChoiceRows choice() {
     return choice;
+  }
+
+  CurrentRange current() {
+    return current;
+  }
+
+  /** The pool indices of the pinned variants. */
+  int[] pinned() {
+    return java.util.stream.IntStream.range(0, variants.size()).filter(i -> variants.get(i).pinned()).toArray();
   }
 
   /** Adds v unless it is there already or no segment takes it; true when added. */
@@ -46,7 +61,8 @@ final class Pool {
     if (at != null) {
       return at;
     }
-    PoolVariant p = PoolVariant.of(space, terms, v);
+    PoolVariant p = PoolVariant.of(space, terms, v, current.fixedCost(k, terms.introductionCost()),
+        current.isPinned(k));
     if (!p.sellable()) {
       return -1;
     }

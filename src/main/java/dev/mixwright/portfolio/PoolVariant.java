@@ -6,13 +6,20 @@ import java.util.Arrays;
 
 /**
  * A variant in the integer stage's pool, with what the masters need: the segments that accept it,
- * its unit margin and column bound in each, its resource use per unit, and the flat choices it uses
- * that carry a tooling cost.
+ * its unit margin and column bound in each, its resource use per unit, the flat choices it uses
+ * that carry a tooling cost, its fixed cost F_v ({@link CurrentRange}: the introduction cost for a
+ * new variant, −discontinue for a current one) and whether it is pinned (y fixed at 1).
  */
 public record PoolVariant(
-    int[] choices, VariantKey key, int[] segments, double[] margin, double[] upper, double[] use, int[] tools) {
+    int[] choices, VariantKey key, int[] segments, double[] margin, double[] upper, double[] use, int[] tools,
+    double fixedCost, boolean pinned) {
 
+  /** A new variant: fixed cost F, not pinned. */
   public static PoolVariant of(VariantSpace space, PortfolioTerms terms, int[] v) {
+    return of(space, terms, v, terms.introductionCost(), false);
+  }
+
+  static PoolVariant of(VariantSpace space, PortfolioTerms terms, int[] v, double fixedCost, boolean pinned) {
     int[] v2 = v.clone();
     int n = 0;
     int[] segs = new int[space.segmentCount()];
@@ -39,7 +46,8 @@ public record PoolVariant(
         tools[t++] = f;
       }
     }
-    return new PoolVariant(v2, space.key(v2), segs, m, u, space.use(v2), Arrays.copyOf(tools, t));
+    return new PoolVariant(v2, space.key(v2), segs, m, u, space.use(v2), Arrays.copyOf(tools, t),
+        fixedCost, pinned);
   }
 
   /** True when some segment accepts it, so that it can be offered at all. */

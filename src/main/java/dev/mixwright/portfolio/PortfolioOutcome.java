@@ -16,6 +16,7 @@ import java.util.List;
  *       variants cannot be part of a better portfolio; null when there was nothing to relax.
  *   <li>{@code proof}: the enumeration of the variants that could be part of a better portfolio.
  *   <li>{@code solver}: the MIP runs over the pool.
+ *   <li>{@code range}: what the portfolio keeps, drops and adds against the range on sale today.
  * </ul>
  */
 public record PortfolioOutcome(
@@ -28,7 +29,8 @@ public record PortfolioOutcome(
     SurvivorProof proof,
     MipRuns solver,
     Tree tree,
-    long elapsedMs) {
+    long elapsedMs,
+    RangeChange range) {
 
   /**
    * The variants offered; {@code introductionCosts}: introduction cost × their number plus

@@ -68,12 +68,14 @@ final class Relaxation {
     PricingOutcome out = pricer.price(q);
     double[] listed = new double[pool.size() + out.found().size()];
     for (int i = 0; i < pool.size(); i++) {
-      listed[i] = VariantPricer.value(space, terms, pool.get(i).choices(), q);
+      // the query charges F; a current variant carries its own fixed cost (CurrentRange)
+      listed[i] = VariantPricer.value(space, terms, pool.get(i).choices(), q) + terms.introductionCost()
+          - pool.get(i).fixedCost();
     }
     for (int i = 0; i < out.found().size(); i++) {
       listed[pool.size() + i] = out.found().get(i).reducedCost();
     }
-    double constant = terms.rowValue(pi, mu);
+    double constant = terms.rowValue(pi, mu) + pool.current().constant();
     return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone()),
         out.found(), out.exact());
   }
@@ -103,7 +105,7 @@ final class Relaxation {
         if (probe.bound().value() < best.value()) {
           best = probe.bound();
         }
-        double z = sol.objective();
+        double z = sol.objective() + pool.current().constant();
         double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(z));
         List<PricedVariant> entering = new ArrayList<>();
         for (PricedVariant f : probe.found()) {
@@ -129,13 +131,15 @@ final class Relaxation {
         }
       }
       double[] y = sol.y().clone();
-      return new RelaxationResult(sol.objective(), best, converged, round, y, lpPriceBound,
+      return new RelaxationResult(sol.objective() + pool.current().constant(), best, converged, round, y, lpPriceBound,
           clock.elapsedMs() - t0);
     }
   }
 
   private void add(PortfolioLp lp, Pool pool, PoolVariant v) {
-    int i = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+    // pinned variants stay free here: dropping the pin only widens (R), so its bound stays valid,
+    // and pinned lots that do not fit cannot make the relaxation infeasible
+    int i = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot());
     pool.choice().attract(lp, i, v);
   }
 }

@@ -10,7 +10,8 @@ import java.util.List;
  * introduction y_v (then their relaxed sales), each kept when offering it as well raises the value of
  * the fixed portfolio's LP; then a pass that drops any variant whose removal raises it. Every trial
  * is one small LP over the chosen variants only, so this costs O(pool) LPs of at most K variants.
- * The empty portfolio (value 0) is the start, so the result is never worse than offering nothing.
+ * The empty portfolio (value 0) is the start, so the result is never worse than offering nothing;
+ * with pinned current variants the start is those alone, and they are never dropped.
  */
 final class Rounding {
   private Rounding() {}
@@ -24,9 +25,17 @@ final class Rounding {
     }
     Arrays.sort(order, Comparator.comparingDouble((Integer i) -> -(i < y.length ? y[i] : 0))
         .thenComparingDouble(i -> -score[i]));
-    Plan best = Plan.empty();
     List<Integer> chosen = new ArrayList<>();
+    for (int i : pool.pinned()) {
+      chosen.add(i);
+    }
+    Plan start = FixedPortfolio.solve(pool, terms, toArray(chosen));
+    // pinned lots that do not fit leave no feasible start: the value −∞ lets any plan replace it
+    Plan best = start != null ? start : new Plan(toArray(chosen), List.of(), Double.NEGATIVE_INFINITY, 0, 0);
     for (int i : order) {
+      if (pool.get(i).pinned()) {
+        continue;
+      }
       if (chosen.size() >= terms.maxVariants() || phase.stop().fired(clock.now(chosen.size()))) {
         break;
       }
@@ -45,6 +54,9 @@ final class Rounding {
     while (improved && !phase.stop().fired(clock.now(chosen.size()))) {
       improved = false;
       for (int j = 0; j < chosen.size(); j++) {
+        if (pool.get(chosen.get(j)).pinned()) {
+          continue;
+        }
         List<Integer> fewer = new ArrayList<>(chosen);
         fewer.remove(j);
         Plan p = FixedPortfolio.solve(pool, terms, toArray(fewer));

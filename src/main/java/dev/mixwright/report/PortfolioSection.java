@@ -5,6 +5,7 @@ import dev.mixwright.portfolio.LagrangianPortfolioBound;
 import dev.mixwright.portfolio.OfferedVariant;
 import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.portfolio.PortfolioTerms;
+import dev.mixwright.portfolio.RangeChange;
 import dev.mixwright.portfolio.RelaxationResult;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.space.VariantSpace;
@@ -28,15 +29,12 @@ public final class PortfolioSection {
     Catalog cat = space.catalog();
     List<RunResult.PortfolioVariant> variants = new ArrayList<>();
     Set<Integer> tools = new HashSet<>();
+    Set<dev.mixwright.space.VariantKey> kept = new HashSet<>();
+    o.range().kept().forEach(v -> kept.add(space.key(v.choices())));
     for (OfferedVariant v : o.variants()) {
-      Map<String, Double> sales = new LinkedHashMap<>();
-      for (int s = 0; s < v.sales().length; s++) {
-        if (v.sales()[s] > ResultWriter.QUANTITY_EPS) {
-          sales.put(cat.segments().get(s).id(), v.sales()[s]);
-        }
-      }
+      Map<String, Double> sales = sales(cat, v);
       variants.add(new RunResult.PortfolioVariant(space.describe(v.choices()), sales, v.units(), v.margin(),
-          terms.introductionCost()));
+          kept.contains(space.key(v.choices())) ? 0.0 : terms.introductionCost()));
       for (int g = 0; g < v.choices().length; g++) {
         int f = space.offset(g) + v.choices()[g];
         if (terms.choiceCost()[f] > 0) {
@@ -78,6 +76,35 @@ public final class PortfolioSection {
     return new RunResult.Portfolio(o.status(), o.reason(), o.value(), Json.num(o.bound()), Json.num(o.gap()),
         variants, o.introductionCosts(), o.toolingCosts(), toolingPaid, tn, Json.num(o.lpBound()), relaxation,
         new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize()),
-        new RunResult.Solver(o.engine(), o.mipSolves(), o.mipOptimal()), o.elapsedMs());
+        new RunResult.Solver(o.engine(), o.mipSolves(), o.mipOptimal()), o.elapsedMs(),
+        range(space, o.range(), r -> r.kept()), range(space, o.range(), null), range(space, o.range(), r -> r.added()),
+        o.range().hasCurrentRange() ? o.range().discontinueCosts() : null,
+        o.range().hasCurrentRange() ? Json.num(o.range().currentRangeValue()) : null);
+  }
+
+  /** Kept or added (with sales) or, with no getter, dropped (options only); null without a current range. */
+  private static List<RunResult.RangeVariant> range(VariantSpace space, RangeChange r,
+      java.util.function.Function<RangeChange, List<OfferedVariant>> which) {
+    if (!r.hasCurrentRange()) {
+      return null;
+    }
+    List<RunResult.RangeVariant> out = new ArrayList<>();
+    if (which == null) {
+      r.dropped().forEach(v -> out.add(new RunResult.RangeVariant(space.describe(v), null)));
+    } else {
+      which.apply(r).forEach(v -> out.add(new RunResult.RangeVariant(space.describe(v.choices()),
+          sales(space.catalog(), v))));
+    }
+    return out;
+  }
+
+  private static Map<String, Double> sales(Catalog cat, OfferedVariant v) {
+    Map<String, Double> sales = new LinkedHashMap<>();
+    for (int s = 0; s < v.sales().length; s++) {
+      if (v.sales()[s] > ResultWriter.QUANTITY_EPS) {
+        sales.put(cat.segments().get(s).id(), v.sales()[s]);
+      }
+    }
+    return sales;
   }
 }

@@ -128,13 +128,29 @@ public record RunResult(
       @JsonInclude(Include.NON_NULL) Relaxation relaxation,
       Proof proof,
       Solver solver,
-      long elapsedMs) {
+      long elapsedMs,
+      @JsonInclude(Include.NON_NULL) List<RangeVariant> kept,
+      @JsonInclude(Include.NON_NULL) List<RangeVariant> dropped,
+      @JsonInclude(Include.NON_NULL) List<RangeVariant> added,
+      @JsonInclude(Include.NON_NULL) Double discontinueCosts,
+      @JsonInclude(Include.NON_NULL) Double currentRangeValue) {
 
     public Portfolio {
       reason = reason == null ? "" : reason;
       variants = variants == null ? List.of() : variants;
     }
+
+    /** A portfolio of a catalog without a current range. */
+    public Portfolio(PortfolioStatus status, String reason, double value, Double bound, Double gap,
+        List<PortfolioVariant> variants, double introductionCosts, double toolingCosts, Map<String, Double> toolingPaid,
+        Terms terms, Double lpBound, Relaxation relaxation, Proof proof, Solver solver, long elapsedMs) {
+      this(status, reason, value, bound, gap, variants, introductionCosts, toolingCosts, toolingPaid, terms, lpBound,
+          relaxation, proof, solver, elapsedMs, null, null, null, null, null);
+    }
   }
+
+  /** A variant of the current range's comparison: its options, and its sales where it is offered. */
+  public record RangeVariant(Map<String, String> options, @JsonInclude(Include.NON_NULL) Map<String, Double> sales) {}
 
   public record PortfolioVariant(Map<String, String> options, Map<String, Double> sales, double units,
       double margin, double introductionCost) {

@@ -104,6 +104,11 @@ public final class VariantSpace {
     for (int r = 0; r < catalog.rules().size(); r++) {
       compileRule(catalog.rules().get(r), r, compiled);
     }
+    // exclude entries are forbid rules in all but name, numbered after the rules, so that every
+    // pricer (they all read these nogoods) skips what may not be offered
+    for (int e = 0; e < catalog.exclude().size(); e++) {
+      addNogood(excludeClause(catalog.exclude().get(e)), null, -1, catalog.rules().size() + e, compiled);
+    }
     nogoods = compiled.toArray(new Nogood[0]);
     nogoodsOfGroup = new int[groupCount][];
     for (int g = 0; g < groupCount; g++) {
@@ -183,6 +188,16 @@ public final class VariantSpace {
       }
     }
     return m;
+  }
+
+  /** An exclude entry as a forbid clause: an option named without a price covers all its price points. */
+  private Map<String, List<String>> excludeClause(Map<String, String> entry) {
+    Map<String, List<String>> clause = new java.util.LinkedHashMap<>();
+    entry.forEach((gid, choice) -> {
+      int mark = choice.indexOf(Option.PRICE_MARK);
+      clause.put(gid, List.of(mark > 0 ? choice.substring(0, mark) : choice));
+    });
+    return clause;
   }
 
   private void compileRule(Rule rule, int index, List<Nogood> out) {

@@ -6,6 +6,7 @@ import com.google.ortools.linearsolver.MPSolver;
 import com.google.ortools.linearsolver.MPSolverParameters;
 import com.google.ortools.linearsolver.MPVariable;
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CurrentVariant;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.PortfolioSpec;
 import dev.mixwright.master.Natives;
@@ -31,6 +32,11 @@ import java.util.Map;
  * x_s0 ≥ 0, and every x_vs gets x_vs ≤ exp(u_s(v) − stayOut_s)·x_s0 (the sales-based LP of Gallego,
  * Ratliff &amp; Shebalov 2015, Operations Research 63(1)), its link x_vs ≤ buyers_s·y_v: no tighter
  * cap of the project's own.
+ *
+ * With a current range (PRODUCT.md "Current range"), written from the spec's words and not from the
+ * project's reformulation: a current variant c pays no F, dropping it costs disc_c (objective term
+ * −disc_c·(1 − y_c)), a pinned one has y_c = 1, and a variant holding every option of an exclude
+ * entry is left out of the listing (checked here on the option ids, not through the space's nogoods).
  */
 public final class EnumeratedMip {
   private EnumeratedMip() {}
@@ -54,7 +60,7 @@ public final class EnumeratedMip {
       for (int s = 0; s < space.segmentCount(); s++) {
         sold |= space.isColumn(v, s);
       }
-      if (sold) {
+      if (sold && !excluded(space, v)) {
         variants.add(v.clone());
       }
       int g = groups - 1;
@@ -95,10 +101,34 @@ public final class EnumeratedMip {
           : solver.makeConstraint(Double.NEGATIVE_INFINITY, p.maxVariants());
       Map<Integer, MPVariable> tools = new HashMap<>();
       List<MPVariable> ys = new ArrayList<>();
+      Map<String, CurrentVariant> current = new HashMap<>();
+      for (CurrentVariant cv : c.current()) {
+        current.put(java.util.Arrays.toString(space.parse(cv.variant())), cv);
+      }
+      double constant = 0;
+      java.util.Set<String> listed = new java.util.HashSet<>();
       for (int[] w : variants) {
+        listed.add(java.util.Arrays.toString(w));
+      }
+      for (Map.Entry<String, CurrentVariant> e : current.entrySet()) {
+        if (!listed.contains(e.getKey()) && !e.getValue().keep()) {
+          constant -= e.getValue().discontinue(); // no segment takes it: dropped
+        }
+      }
+      for (int[] w : variants) {
+        CurrentVariant cur = current.get(java.util.Arrays.toString(w));
         MPVariable y = relaxed ? solver.makeNumVar(0, 1, "") : solver.makeBoolVar("");
         ys.add(y);
-        obj.setCoefficient(y, -p.introductionCost());
+        if (cur == null) {
+          obj.setCoefficient(y, -p.introductionCost());
+        } else {
+          // −disc·(1 − y) = −disc + disc·y
+          obj.setCoefficient(y, cur.discontinue());
+          constant -= cur.discontinue();
+          if (cur.keep()) {
+            y.setLb(1);
+          }
+        }
         if (limit != null) {
           limit.setCoefficient(y, 1);
         }
@@ -157,12 +187,31 @@ public final class EnumeratedMip {
           offered.add(variants.get(i));
         }
       }
-      double value = obj.value();
-      double bound = relaxed ? value : obj.bestBound();
+      double value = obj.value() + constant;
+      double bound = (relaxed ? obj.value() : obj.bestBound()) + constant;
       return new Result(value, bound, st == MPSolver.ResultStatus.OPTIMAL, offered);
     } finally {
       params.delete();
       solver.delete();
     }
+  }
+
+  /** True when v holds every option of some exclude entry (an option named without a price covers its price points). */
+  public static boolean excluded(VariantSpace space, int[] v) {
+    Catalog c = space.catalog();
+    for (Map<String, String> entry : c.exclude()) {
+      boolean all = true;
+      for (Map.Entry<String, String> e : entry.entrySet()) {
+        int g = c.groupIndex(e.getKey());
+        String held = space.optionId(g, space.optionOf(space.offset(g) + v[g]));
+        String named = e.getValue();
+        int mark = named.indexOf(Option.PRICE_MARK);
+        all &= held.equals(mark > 0 ? named.substring(0, mark) : named);
+      }
+      if (all) {
+        return true;
+      }
+    }
+    return false;
   }
 }
