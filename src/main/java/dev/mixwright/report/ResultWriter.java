@@ -13,7 +13,6 @@ import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
-import java.math.BigInteger;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Comparator;
@@ -28,12 +27,7 @@ public final class ResultWriter {
   private ResultWriter() {}
 
   /** What result.json says about the variant space's size. */
-  public record SpaceSize(SpaceCount count) {
-    /** An exact count, or only an upper bound. */
-    public SpaceSize(BigInteger value, boolean exact) {
-      this(exact ? SpaceCount.exact(value) : SpaceCount.atMost(value));
-    }
-  }
+  public record SpaceSize(SpaceCount count) {}
 
   /** Facts about the run that the outcome does not hold. */
   public record RunInfo(String catalogFile, String catalogSha256, String pricer, SpaceSize size, long elapsedMs) {}
