@@ -357,25 +357,33 @@ final class BranchAndPrice {
       }
       sync();
       fix(node);
+      NodeLp relaxed = relax(node, freeCap);
+      return relaxed.ended() != null ? relaxed.ended() : branch(node, relaxed);
+    }
+
+    /**
+     * The node's relaxation, priced until no variant of the whole space pays under the node's
+     * duals (or the node is pruned or parked, then {@code ended} holds its children: none or itself).
+     */
+    private NodeLp relax(TreeNode node, int freeCap) {
       double best = node.bound();
       int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
       double offeredTooling = offeredTooling(node);
       NodeProbe last = null;
-      PortfolioLpSolution sol;
       int round = 0;
       while (true) {
         round++;
-        sol = lp.solve();
+        PortfolioLpSolution sol = lp.solve();
         if (sol.status() == LpStatus.FAILED) {
           // GLOP gave up from its warm start (seen once in a deep node): the same master built afresh
           rebuild(node);
           sol = lp.solve();
         }
         if (sol.status() == LpStatus.INFEASIBLE) {
-          return List.of(); // the offered variants' lots do not fit: no portfolio in this node
+          return NodeLp.ending(List.of()); // the offered variants' lots do not fit: no portfolio in this node
         }
         if (!sol.isOptimal()) {
-          return park(node, best, "the relaxation of a node ended " + sol.status() + " in GLOP");
+          return NodeLp.ending(park(node, best, "the relaxation of a node ended " + sol.status() + " in GLOP"));
         }
         NodeProbe probe = probe(node, sol.resourceDual(), sol.segmentDual(), countPrices(), k, freeCap,
             offeredTooling);
@@ -388,7 +396,7 @@ final class BranchAndPrice {
         synchronized (lock) {
           if (prunable(best)) {
             prunedMax = Math.max(prunedMax, best);
-            return List.of();
+            return NodeLp.ending(List.of());
           }
         }
         double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(sol.objective()));
@@ -401,20 +409,24 @@ final class BranchAndPrice {
           }
         }
         if (added == 0 && probe.exact) {
-          break;
+          return new NodeLp(sol, best, last, null);
         }
         Optional<String> why = stop.check(clock.now(round));
         if (why.isPresent()) {
-          return park(node, best, why.get());
+          return NodeLp.ending(park(node, best, why.get()));
         }
         sync();
         if (have == before && !probe.exact) {
           // the pricer was cut short and found nothing new: keep the node with its valid bound
-          return park(node, best, "pricing at a node did not finish");
+          return NodeLp.ending(park(node, best, "pricing at a node did not finish"));
         }
       }
-      double bound = best;
-      double[] y = sol.y();
+    }
+
+    /** After a node's relaxation is proven: an incumbent from it, then its children or its closing. */
+    private List<TreeNode> branch(TreeNode node, NodeLp relaxed) {
+      double bound = relaxed.best();
+      double[] y = relaxed.sol().y();
       heuristic(node, y);
       VariantBranching.Decision d = VariantBranching.choose(node, y, i -> pool.get(i).choices(), space.offsets(),
           space.totalChoices());
@@ -432,7 +444,7 @@ final class BranchAndPrice {
             ? "whole units: a node's relaxation sells fractions, and its offer in whole units stays below its bound"
             : "a node's relaxation stays above the value of its own offer");
       }
-      int[] bar = reducedCostFixing(node, last);
+      int[] bar = reducedCostFixing(node, relaxed.last());
       TreeNode solved = bar.length == 0 ? node.withBound(bound) : node.barring(bar, bound);
       if (!d.onCount() && solved.isBarred(d.variant())) {
         // the barred variant's y was fractional: re-solve the node with the bars (same portfolios of value)
@@ -589,4 +601,14 @@ final class BranchAndPrice {
 
   /** A node bound with the ψ of the master's variants at its prices, and what the pricer found outside. */
   private record NodeProbe(LagrangianPortfolioBound bound, double[] psi, List<PricedVariant> found, boolean exact) {}
+
+  /**
+   * A node's relaxation: its last solution, the best bound of its rounds and the probe that gave it;
+   * or, when the node ended before its relaxation was proven, the children it ends with.
+   */
+  private record NodeLp(PortfolioLpSolution sol, double best, NodeProbe last, List<TreeNode> ended) {
+    static NodeLp ending(List<TreeNode> children) {
+      return new NodeLp(null, Double.NaN, null, children);
+    }
+  }
 }
