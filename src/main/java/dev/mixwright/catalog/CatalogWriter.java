@@ -7,6 +7,7 @@ import com.fasterxml.jackson.core.util.Separators;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.ObjectWriter;
 import com.fasterxml.jackson.databind.json.JsonMapper;
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
@@ -84,23 +85,17 @@ public final class CatalogWriter {
     putText(root, "period", c.period());
     ArrayNode resources = root.putArray("resources");
     for (Resource r : c.resources()) {
-      ObjectNode n = resources.addObject();
-      n.put("id", r.id());
-      putText(n, "label", r.label());
+      ObjectNode n = item(resources, r.id(), r.label());
       putText(n, "unit", r.unit());
       putNumber(n, "capacity", r.capacity());
     }
     ArrayNode groups = root.putArray("groups");
     for (Group g : c.groups()) {
-      ObjectNode n = groups.addObject();
-      n.put("id", g.id());
-      putText(n, "label", g.label());
+      ObjectNode n = item(groups, g.id(), g.label());
       n.put("required", g.required());
       ArrayNode options = n.putArray("options");
       for (Option o : g.options()) {
-        ObjectNode on = options.addObject();
-        on.put("id", o.id());
-        putText(on, "label", o.label());
+        ObjectNode on = item(options, o.id(), o.label());
         if (o.hasPricePoints()) {
           ArrayNode prices = on.putArray("prices");
           o.prices().forEach(x -> addNumber(prices, x));
@@ -108,10 +103,7 @@ public final class CatalogWriter {
           putNumber(on, "price", o.price());
         }
         putNumber(on, "cost", o.cost());
-        ObjectNode uses = on.putObject("uses");
-        for (String key : inResourceOrder(c, o.uses())) {
-          putNumber(uses, key, o.uses().get(key));
-        }
+        putNumbers(on.putObject("uses"), inResourceOrder(c, o.uses()), o.uses());
         if (o.tooling() != 0) {
           putNumber(on, "tooling", o.tooling());
         }
@@ -127,19 +119,14 @@ public final class CatalogWriter {
     }
     ArrayNode segments = root.putArray("segments");
     for (Segment s : c.segments()) {
-      ObjectNode n = segments.addObject();
-      n.put("id", s.id());
-      putText(n, "label", s.label());
+      ObjectNode n = item(segments, s.id(), s.label());
       if (!s.chooses()) {
         putNumber(n, "demand", s.demand());
         putNumber(n, "maxShare", s.maxShare());
       }
       ObjectNode accepts = n.putObject("accepts");
       s.accepts().forEach((g, choices) -> choices.forEach(accepts.putArray(g)::add));
-      ObjectNode value = n.putObject("value");
-      for (String key : inChoiceOrder(c, s.value())) {
-        putNumber(value, key, s.value().get(key));
-      }
+      putNumbers(n.putObject("value"), inChoiceOrder(c, s.value()), s.value());
       s.choice()
           .ifPresent(
               ch -> {
@@ -147,10 +134,7 @@ public final class CatalogWriter {
                 putNumber(cn, "buyers", ch.buyers());
                 putNumber(cn, "stayOut", ch.stayOut());
                 putNumber(cn, "priceWeight", ch.priceWeight());
-                ObjectNode utility = cn.putObject("utility");
-                for (String key : inChoiceOrder(c, ch.utility())) {
-                  putNumber(utility, key, ch.utility().get(key));
-                }
+                putNumbers(cn.putObject("utility"), inChoiceOrder(c, ch.utility()), ch.utility());
               });
     }
     c.portfolio()
@@ -185,6 +169,18 @@ public final class CatalogWriter {
     return root;
   }
 
+  /** A new entry of a list with its id and, when it has one, its label. */
+  private static ObjectNode item(ArrayNode list, String id, String label) {
+    ObjectNode n = list.addObject();
+    n.put("id", id);
+    putText(n, "label", label);
+    return n;
+  }
+
+  private static void putNumbers(ObjectNode n, List<String> keys, Map<String, Double> figures) {
+    keys.forEach(key -> putNumber(n, key, figures.get(key)));
+  }
+
   private static void putText(ObjectNode n, String field, String text) {
     if (text != null) {
       n.put(field, text);
@@ -200,24 +196,17 @@ public final class CatalogWriter {
 
   /** 520 rather than 520.0; -0.0 keeps its sign so that it reads back equal. */
   private static void putNumber(ObjectNode n, String field, double x) {
-    if (asLong(x)) {
-      n.put(field, (long) x);
-    } else {
-      n.put(field, x);
-    }
+    n.set(field, number(x));
   }
 
   private static void addNumber(ArrayNode a, double x) {
-    if (asLong(x)) {
-      a.add((long) x);
-    } else {
-      a.add(x);
-    }
+    a.add(number(x));
   }
 
-  private static boolean asLong(double x) {
+  private static JsonNode number(double x) {
     boolean negativeZero = x == 0 && Double.doubleToRawLongBits(x) != 0;
-    return x == Math.rint(x) && Math.abs(x) <= EXACT_LONG && !negativeZero;
+    boolean whole = x == Math.rint(x) && Math.abs(x) <= EXACT_LONG && !negativeZero;
+    return whole ? NODES.numberNode((long) x) : NODES.numberNode(x);
   }
 
   /** Keys of a uses map in the catalog's resource order; unknown keys after, sorted. */

@@ -131,13 +131,13 @@ final class BenchCommand extends SubCommand {
       FullRun a = withFull ? fullLp(in) : null;
       CgRun b = colgen(in, SolveSettings.defaults());
       outcomes.add(b.outcome);
-      double rel = a == null ? Double.NaN : Math.abs(a.objective - b.outcome.objective()) / Math.max(1, Math.abs(a.objective));
+      double rel = a == null ? Double.NaN : Math.abs(a.objective - b.outcome.result().value()) / Math.max(1, Math.abs(a.objective));
       line(String.format(Locale.ROOT, "| %s | %s | %s | %s | %s | %s | %s | %s | %s | %d | %d | %s | %s | %s |",
           in.label, sci(in.variants.value()), sci(in.columns),
           a == null ? "–" : secs(a.buildNanos + a.solveNanos) + " (" + secs(a.buildNanos) + " + " + secs(a.solveNanos) + ")",
-          secs(b.nanos) + " (" + b.outcome.status().word() + ", gap " + sci(b.outcome.gap()) + ")",
+          secs(b.nanos) + " (" + b.outcome.status().word() + ", gap " + sci(b.outcome.result().gap()) + ")",
           a == null ? "–" : String.format(Locale.ROOT, "%.1f", (double) (a.buildNanos + a.solveNanos) / b.nanos),
-          a == null ? "–" : money(a.objective), money(b.outcome.objective()),
+          a == null ? "–" : money(a.objective), money(b.outcome.result().value()),
           a == null ? "–" : sci(rel),
           b.outcome.iterations(), b.outcome.columnsGenerated(),
           a == null ? "–" : mib(a.peakHeap) + " MiB", mib(b.peakHeap) + " MiB",
@@ -204,9 +204,9 @@ final class BenchCommand extends SubCommand {
     for (int i = 0; i < 2; i++) {
       CgRun r = colgen(pair[i], SolveSettings.defaults());
       nanos[i] = r.nanos;
-      long sold = java.util.Arrays.stream(r.outcome.x()).filter(x -> x > 1e-6).count();
+      long sold = java.util.Arrays.stream(r.outcome.master().x()).filter(x -> x > 1e-6).count();
       line(String.format(Locale.ROOT, "| %s | %s | %s (%s) | %d | %d | %d |", pair[i].label, sci(pair[i].variants.value()),
-          secs(r.nanos), r.outcome.status().word(), r.outcome.iterations(), r.outcome.columns().size(), sold));
+          secs(r.nanos), r.outcome.status().word(), r.outcome.iterations(), r.outcome.master().columns().size(), sold));
     }
     line("");
     line(String.format(Locale.ROOT, "Ratio choosing/fixed: %.1f. Catalog: `generate --groups %d --options %d"
@@ -347,7 +347,7 @@ final class BenchCommand extends SubCommand {
     for (int s = 0; s < space.segmentCount(); s++) {
       inMaster.add(new HashSet<>());
     }
-    o.columns().forEach(c -> inMaster.get(c.segment()).add(space.key(c.choices())));
+    o.master().columns().forEach(c -> inMaster.get(c.segment()).add(space.key(c.choices())));
     List<PricingQuery> round = new ArrayList<>();
     for (int s = 0; s < space.segmentCount(); s++) {
       round.add(ReducedCosts.query(space, s, o.duals().resource(), o.duals().segment()[s], SolveSettings.DEFAULT_PER_ROUND,
@@ -462,7 +462,7 @@ final class BenchCommand extends SubCommand {
         line(String.format(Locale.ROOT, "| %s | %s | %s | %d | %s | %s / %s | %s | %d | %d | %d | %d | %s |",
             in.label, names.get(i), r.outcome.status().word(), r.outcome.iterations(), secs(r.nanos),
             secs(st.exactNanos()), secs(st.heuristicNanos()), secs(st.masterNanos()), st.exactRounds(),
-            st.mispricings(), st.retired(), r.outcome.columns().size(), money(r.outcome.objective())));
+            st.mispricings(), st.retired(), r.outcome.master().columns().size(), money(r.outcome.result().value())));
         out.flush();
       }
     }

@@ -32,8 +32,8 @@ final class Summary {
         + (o.stopReason().isEmpty() ? "" : " (" + o.stopReason() + ")"));
     out.println("  buildable variants  " + (result.buildableVariants() == null
         ? "at most " + result.buildableVariantsAtMost() : result.buildableVariants()));
-    out.println("  LP objective        " + Numbers.money(o.objective()) + cur);
-    out.println("  proven bound        " + Numbers.money(o.bound()) + cur + "   gap " + Numbers.percent(o.gap()));
+    out.println("  LP objective        " + Numbers.money(o.result().value()) + cur);
+    out.println("  proven bound        " + Numbers.money(o.result().bound()) + cur + "   gap " + Numbers.percent(o.result().gap()));
     out.println(String.format(Locale.ROOT, "  rounds %d, columns %d (seed included), LP stage %s",
         o.iterations(), o.columnsGenerated(), Durations.format(o.elapsedMs())));
     List<String> binding = new ArrayList<>();

@@ -82,7 +82,7 @@ final class SweepCommand extends CatalogCommand {
         public void solved(Sweep.Row row) {
           if (progress != null && progress || Progress.stderrIsTerminal() && progress == null) {
             err.println("  " + row.point().name() + ": " + (row.outcome() == null ? "invalid"
-                : row.outcome().status().word() + ", objective " + Numbers.money(row.outcome().objective())));
+                : row.outcome().status().word() + ", objective " + Numbers.money(row.outcome().result().value())));
             err.flush();
           }
         }

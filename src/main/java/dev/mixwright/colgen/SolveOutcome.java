@@ -28,30 +28,6 @@ public record SolveOutcome(
         Duals.unknown(), List.of(), elapsedMs);
   }
 
-  public double objective() {
-    return result.value();
-  }
-
-  public double bound() {
-    return result.bound();
-  }
-
-  public double gap() {
-    return result.gap();
-  }
-
-  public List<Column> columns() {
-    return master.columns();
-  }
-
-  public double[] x() {
-    return master.x();
-  }
-
-  public double[] reducedCost() {
-    return master.reducedCost();
-  }
-
   /**
    * Every column the run put in its master, the seed columns (iteration 0 in the column log) included,
    * so that it equals the number of lines of columns.jsonl.

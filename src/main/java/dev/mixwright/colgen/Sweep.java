@@ -104,7 +104,7 @@ public final class Sweep {
       rows.add(row);
       listener.solved(row);
       prevSpace = space;
-      prevColumns = out.columns();
+      prevColumns = out.master().columns();
     }
     return rows;
   }
@@ -112,10 +112,10 @@ public final class Sweep {
   /** Resource use of the outcome's plan. */
   public static double[] used(VariantSpace space, SolveOutcome out) {
     double[] used = new double[space.resourceCount()];
-    for (int j = 0; j < out.x().length; j++) {
-      Column col = out.columns().get(j);
+    for (int j = 0; j < out.master().x().length; j++) {
+      Column col = out.master().columns().get(j);
       for (int r = 0; r < used.length; r++) {
-        used[r] += col.use()[r] * out.x()[j];
+        used[r] += col.use()[r] * out.master().x()[j];
       }
     }
     return used;

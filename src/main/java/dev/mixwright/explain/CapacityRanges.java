@@ -224,8 +224,8 @@ public final class CapacityRanges {
         throw new IllegalStateException("the re-solve at capacity " + capacity + " ended " + out.status().word()
             + " (" + out.stopReason() + ")");
       }
-      addAll(out.columns());
-      return new Point(capacity, out.objective(), out.duals().resource()[resource]);
+      addAll(out.master().columns());
+      return new Point(capacity, out.result().value(), out.duals().resource()[resource]);
     }
   }
 }

@@ -111,10 +111,10 @@ public final class PriceRange {
     }
     VariantKey key = space.key(v);
     double x = 0;
-    for (int j = 0; j < out.columns().size(); j++) {
-      Column c = out.columns().get(j);
+    for (int j = 0; j < out.master().columns().size(); j++) {
+      Column c = out.master().columns().get(j);
       if (c.segment() == s && space.key(c.choices()).equals(key)) {
-        x = out.x()[j];
+        x = out.master().x()[j];
       } else {
         remember(c);
       }

@@ -222,7 +222,7 @@ public final class IntegerStage {
       pool.add(current.variant(i));
     }
     if (!lp.status().isInfeasible()) {
-      for (Column c : lp.columns()) {
+      for (Column c : lp.master().columns()) {
         pool.add(c.choices());
       }
       if (warm != null) {
@@ -232,7 +232,7 @@ public final class IntegerStage {
     if (pool.size() == 0 || terms.variantCap() == 0) {
       return nothingToOffer(pool, current);
     }
-    double lpBound = Double.isFinite(lp.bound()) ? lp.bound() : Double.POSITIVE_INFINITY;
+    double lpBound = Double.isFinite(lp.result().bound()) ? lp.result().bound() : Double.POSITIVE_INFINITY;
     VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
     // Columns came from the LP stage, so its duals are known: they are the relaxation's first prices.
@@ -397,7 +397,7 @@ public final class IntegerStage {
         new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal),
         new PortfolioOutcome.Tree(s.nodes, s.openNodes, s.workers), clock.elapsedMs(),
         RangeChange.of(space, pool, inc, pool.current().isEmpty() ? null : todaysRange(pool)));
-    emit(PortfolioEvent.Kind.END, o.value(), o.bound(), pool.size(), o.variants().size(), o.status().word()
+    emit(PortfolioEvent.Kind.END, o.result().value(), o.result().bound(), pool.size(), o.offer().variants().size(), o.status().word()
         + (reason.isEmpty() ? "" : ": " + reason));
     return o;
   }

@@ -58,56 +58,8 @@ public record PortfolioOutcome(
   /** The MIP solves over the pool: how many, and whether the last was solved to optimality. */
   public record MipRuns(PortfolioMip.Engine engine, int solves, boolean lastOptimal) {}
 
-  public double value() {
-    return result.value();
-  }
-
-  public double bound() {
-    return result.bound();
-  }
-
-  public double gap() {
-    return result.gap();
-  }
-
-  public List<OfferedVariant> variants() {
-    return offer.variants();
-  }
-
-  public double introductionCosts() {
-    return offer.introductionCosts();
-  }
-
-  public double toolingCosts() {
-    return offer.toolingCosts();
-  }
-
-  public double survivorThreshold() {
-    return proof.threshold();
-  }
-
-  public int survivorsAdded() {
-    return proof.added();
-  }
-
-  public boolean survivorsComplete() {
-    return proof.complete();
-  }
-
-  public int poolSize() {
-    return proof.poolSize();
-  }
-
   /** The MIP engine's word, as written to result.json. */
   public String engine() {
     return solver.engine().word();
-  }
-
-  public int mipSolves() {
-    return solver.solves();
-  }
-
-  public boolean mipOptimal() {
-    return solver.lastOptimal();
   }
 }

@@ -31,7 +31,7 @@ public final class PortfolioSection {
     Set<Integer> tools = new HashSet<>();
     Set<dev.mixwright.space.VariantKey> kept = new HashSet<>();
     o.range().kept().forEach(v -> kept.add(space.key(v.choices())));
-    for (OfferedVariant v : o.variants()) {
+    for (OfferedVariant v : o.offer().variants()) {
       Map<String, Double> sales = sales(cat, v);
       variants.add(new RunResult.PortfolioVariant(space.describe(v.choices()), sales, v.units(), v.margin(),
           kept.contains(space.key(v.choices())) ? 0.0 : terms.introductionCost()));
@@ -73,10 +73,10 @@ public final class PortfolioSection {
           Json.num(rx.lpPriceBound()), new RunResult.Prices(pr, ps), Json.num(b.lambda()),
           Json.num(b.valueAtLambda()), rx.elapsedMs());
     }
-    return new RunResult.Portfolio(o.status(), o.reason(), o.value(), Json.num(o.bound()), Json.num(o.gap()),
-        variants, o.introductionCosts(), o.toolingCosts(), toolingPaid, tn, Json.num(o.lpBound()), relaxation,
-        new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize()),
-        new RunResult.Solver(o.engine(), o.mipSolves(), o.mipOptimal()), o.elapsedMs(),
+    return new RunResult.Portfolio(o.status(), o.reason(), o.result().value(), Json.num(o.result().bound()), Json.num(o.result().gap()),
+        variants, o.offer().introductionCosts(), o.offer().toolingCosts(), toolingPaid, tn, Json.num(o.lpBound()), relaxation,
+        new RunResult.Proof(Json.num(o.proof().threshold()), o.proof().added(), o.proof().complete(), o.proof().poolSize()),
+        new RunResult.Solver(o.engine(), o.solver().solves(), o.solver().lastOptimal()), o.elapsedMs(),
         range(space, o.range(), r -> r.kept()), range(space, o.range(), null), range(space, o.range(), r -> r.added()),
         o.range().hasCurrentRange() ? o.range().discontinueCosts() : null,
         o.range().hasCurrentRange() ? Json.num(o.range().currentRangeValue()) : null);

@@ -35,23 +35,23 @@ public final class ResultWriter {
   public static RunResult build(VariantSpace space, SolveOutcome out, RunInfo info) {
     Catalog cat = space.catalog();
     List<Integer> sold = new ArrayList<>();
-    for (int j = 0; j < out.x().length; j++) {
-      if (out.x()[j] > QUANTITY_EPS) {
+    for (int j = 0; j < out.master().x().length; j++) {
+      if (out.master().x()[j] > QUANTITY_EPS) {
         sold.add(j);
       }
     }
-    sold.sort(Comparator.comparingInt((Integer j) -> out.columns().get(j).segment())
-        .thenComparing(j -> -out.x()[j] * out.columns().get(j).margin()));
+    sold.sort(Comparator.comparingInt((Integer j) -> out.master().columns().get(j).segment())
+        .thenComparing(j -> -out.master().x()[j] * out.master().columns().get(j).margin()));
     double[] used = new double[cat.resources().size()];
     double[] segSold = new double[cat.segments().size()];
     List<RunResult.Offer> offers = new ArrayList<>();
     for (int j : sold) {
-      Column col = out.columns().get(j);
-      double q = out.x()[j];
+      Column col = out.master().columns().get(j);
+      double q = out.master().x()[j];
       int s = col.segment();
       boolean chooses = space.chooses(s);
       offers.add(new RunResult.Offer(cat.segments().get(s).id(), space.describe(col.choices()), q,
-          col.margin(), out.reducedCost()[j], !chooses && q >= col.upper() * (1 - 1e-9), q * col.margin(),
+          col.margin(), out.master().reducedCost()[j], !chooses && q >= col.upper() * (1 - 1e-9), q * col.margin(),
           space.price(col.choices(), s),
           chooses ? q / space.buyers(s) : null,
           chooses ? Logit.attraction(space.utility(col.choices(), s), space.stayOut(s)) : null));
@@ -86,8 +86,8 @@ public final class ResultWriter {
     RunResult.CountEstimate estimate = exact ? null : count.estimate()
         .map(e -> new RunResult.CountEstimate(e.value().doubleValue(), e.standardError().doubleValue(), e.samples()))
         .orElse(null);
-    return new RunResult(out.status(), out.stopReason(), out.objective(), Json.num(out.bound()),
-        Json.num(out.gap()), out.iterations(), out.columnsGenerated(), out.columns().size(),
+    return new RunResult(out.status(), out.stopReason(), out.result().value(), Json.num(out.result().bound()),
+        Json.num(out.result().gap()), out.iterations(), out.columnsGenerated(), out.master().columns().size(),
         exact ? count.upper().toString() : null, exact ? null : count.upper().toString(),
         exact || count.lower().signum() == 0 ? null : count.lower().toString(), estimate, info.elapsedMs(),
         new RunResult.CatalogRef(cat.name(), info.catalogFile(), info.catalogSha256(), cat.currency(), cat.period()),

@@ -75,9 +75,9 @@ public final class SweepTable {
     if (!o.stopReason().isEmpty()) {
       n.put("stopReason", o.stopReason());
     }
-    n.put("objective", o.objective());
-    Json.putNum(n, "bound", o.bound());
-    Json.putNum(n, "gap", o.gap());
+    n.put("objective", o.result().value());
+    Json.putNum(n, "bound", o.result().bound());
+    Json.putNum(n, "gap", o.result().gap());
     n.put("iterations", o.iterations());
     n.put("columnsGenerated", o.columnsGenerated());
     n.put("warmStartColumns", r.warmColumns());
@@ -113,9 +113,9 @@ public final class SweepTable {
   /** Units the outcome's plan sells in segment s. */
   private static double sold(SolveOutcome o, int s) {
     double q = 0;
-    for (int j = 0; j < o.x().length; j++) {
-      if (o.columns().get(j).segment() == s) {
-        q += o.x()[j];
+    for (int j = 0; j < o.master().x().length; j++) {
+      if (o.master().columns().get(j).segment() == s) {
+        q += o.master().x()[j];
       }
     }
     return q;

@@ -29,8 +29,8 @@ public final class SnapshotWriter implements ColGenListener {
 
   @Override
   public void ended(SolveOutcome o) {
-    write(new LoopSnapshot(runId, session, o.status().word(), o.iterations(), o.objective(), o.bound(),
-        o.gap(), o.columns().size(), o.elapsedMs()));
+    write(new LoopSnapshot(runId, session, o.status().word(), o.iterations(), o.result().value(), o.result().bound(),
+        o.result().gap(), o.master().columns().size(), o.elapsedMs()));
   }
 
   private void write(LoopSnapshot s) {

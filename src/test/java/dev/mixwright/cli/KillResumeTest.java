@@ -40,7 +40,7 @@ class KillResumeTest {
   static void solveUninterrupted() throws Exception {
     VariantSpace space = new VariantSpace(CatalogLoader.load(RANGE));
     uninterrupted = new ColumnGeneration(space, BranchAndBoundPricer.withDefaultLimits(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
-        .run().objective();
+        .run().result().value();
   }
 
   private static String[] solve(Path run) {

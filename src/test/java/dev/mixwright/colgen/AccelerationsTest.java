@@ -57,10 +57,10 @@ class AccelerationsTest {
         String what = "seed " + seed + ", " + s;
         assertEquals(RunStatus.OPTIMAL, o.status(), what);
         double tol = 1e-6 * Math.max(1, Math.abs(ref.objective()));
-        assertEquals(ref.objective(), o.objective(), tol, what);
+        assertEquals(ref.objective(), o.result().value(), tol, what);
         // the proven bound is a true upper bound and meets the objective
-        assertTrue(o.bound() >= ref.objective() - tol, what + ": bound " + o.bound());
-        assertTrue(o.gap() <= s.gapTolerance(), what);
+        assertTrue(o.result().bound() >= ref.objective() - tol, what + ": bound " + o.result().bound());
+        assertTrue(o.result().gap() <= s.gapTolerance(), what);
       }
     }
     assertTrue(checked >= 30, "only " + checked + " catalogs had columns");
@@ -76,7 +76,7 @@ class AccelerationsTest {
       SolveOutcome o = solve(space, s);
       assertEquals(RunStatus.OPTIMAL, o.status(), s.toString());
       // both are within the 1e-6 relative gap of the same optimum
-      assertEquals(plain.objective(), o.objective(), 2e-6 * Math.max(1, Math.abs(plain.objective())), s.toString());
+      assertEquals(plain.result().value(), o.result().value(), 2e-6 * Math.max(1, Math.abs(plain.result().value())), s.toString());
     }
   }
 
@@ -88,6 +88,6 @@ class AccelerationsTest {
     SolveOutcome plain = solve(space, PLAIN.withPerRound(5));
     SolveOutcome smoothed = solve(space, PLAIN.withPerRound(5).withSmoothing(0.3));
     assertEquals(RunStatus.OPTIMAL, smoothed.status());
-    assertEquals(plain.objective(), smoothed.objective(), 2e-6 * Math.max(1, Math.abs(plain.objective())));
+    assertEquals(plain.result().value(), smoothed.result().value(), 2e-6 * Math.max(1, Math.abs(plain.result().value())));
   }
 }

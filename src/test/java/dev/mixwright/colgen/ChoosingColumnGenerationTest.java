@@ -67,7 +67,7 @@ class ChoosingColumnGenerationTest {
       SolveOutcome out = run.outcome();
       assertEquals(RunStatus.OPTIMAL, out.status(), () -> "seed " + s0);
       // source: Commons Math SimplexSolver on the enumerated SBLP
-      assertEquals(ref.objective(), out.objective(), tol(ref.objective()), () -> "seed " + s0 + ": objective");
+      assertEquals(ref.objective(), out.result().value(), tol(ref.objective()), () -> "seed " + s0 + ": objective");
       for (IterationRecord r : run.rounds()) {
         assertTrue(r.bound() >= ref.objective() - tol(ref.objective()),
             () -> "seed " + s0 + ": round " + r.iteration() + " bound " + r.bound() + " < " + ref.objective());
@@ -92,8 +92,8 @@ class ChoosingColumnGenerationTest {
       double[] pi = out.duals().resource();
       double[] mu = out.duals().segment();
       Map<Integer, Map<VariantKey, Integer>> present = new HashMap<>();
-      for (int j = 0; j < out.columns().size(); j++) {
-        Column c = out.columns().get(j);
+      for (int j = 0; j < out.master().columns().size(); j++) {
+        Column c = out.master().columns().get(j);
         present.computeIfAbsent(c.segment(), k -> new HashMap<>()).put(space.key(c.choices()), j);
       }
       double[] beta = out.master().columnDual();
@@ -138,7 +138,7 @@ class ChoosingColumnGenerationTest {
         }
       }
       // LP duality: a feasible dual's objective bounds the optimum, and equals it at optimal duals
-      assertEquals(out.objective(), dualObjective, tol(out.objective()) * 10, () -> "seed " + s0 + ": dual objective");
+      assertEquals(out.result().value(), dualObjective, tol(out.result().value()) * 10, () -> "seed " + s0 + ": dual objective");
     }
   }
 
@@ -155,7 +155,7 @@ class ChoosingColumnGenerationTest {
       double cdlp = OfferSetLp.solve(space).objective();
       SolveOutcome out = solve(space, new Random(seed)).outcome();
       // source: the offer-set LP of Liu & van Ryzin 2008 on Commons Math
-      assertEquals(cdlp, out.objective(), tol(cdlp), () -> "seed " + s0);
+      assertEquals(cdlp, out.result().value(), tol(cdlp), () -> "seed " + s0);
     }
   }
 
@@ -167,12 +167,12 @@ class ChoosingColumnGenerationTest {
       VariantSpace space = new VariantSpace(RandomChoiceCatalogs.tiny(seed, true));
       SolveOutcome out = solve(space, new Random(seed)).outcome();
       double[] sold = new double[space.segmentCount()];
-      for (int j = 0; j < out.columns().size(); j++) {
-        Column c = out.columns().get(j);
-        sold[c.segment()] += out.x()[j];
+      for (int j = 0; j < out.master().columns().size(); j++) {
+        Column c = out.master().columns().get(j);
+        sold[c.segment()] += out.master().x()[j];
         if (space.chooses(c.segment())) {
           double cap = MasterPool.attraction(space, c.choices(), c.segment()) * out.master().stayingOut(c.segment());
-          assertTrue(out.x()[j] <= cap + tol(space.buyers(c.segment())), () -> "seed " + s0 + ": sells above w·x_s0");
+          assertTrue(out.master().x()[j] <= cap + tol(space.buyers(c.segment())), () -> "seed " + s0 + ": sells above w·x_s0");
         }
       }
       for (int s = 0; s < sold.length; s++) {

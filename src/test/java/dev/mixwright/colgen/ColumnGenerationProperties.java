@@ -62,9 +62,9 @@ class ColumnGenerationProperties {
 
       assertEquals(RunStatus.OPTIMAL, out.status());
       double scale = Math.max(1.0, Math.abs(ref.objective()));
-      assertEquals(ref.objective(), out.objective(), 1e-6 * scale, "objective vs Commons Math");
-      assertTrue(out.bound() >= ref.objective() - 1e-6 * scale, "the bound must hold");
-      assertTrue(out.gap() <= 1e-6);
+      assertEquals(ref.objective(), out.result().value(), 1e-6 * scale, "objective vs Commons Math");
+      assertTrue(out.result().bound() >= ref.objective() - 1e-6 * scale, "the bound must hold");
+      assertTrue(out.result().gap() <= 1e-6);
 
       // The final duals leave no enumerated column with a positive reduced cost, unless it is in the
       // master (a master column at its upper bound keeps d > 0 legitimately).
@@ -72,7 +72,7 @@ class ColumnGenerationProperties {
       for (int s = 0; s < space.segmentCount(); s++) {
         inMaster.add(new HashSet<>());
       }
-      for (Column c : out.columns()) {
+      for (Column c : out.master().columns()) {
         inMaster.get(c.segment()).add(space.key(c.choices()));
       }
       double[] best = ref.maxReducedCost(out.duals().resource(), out.duals().segment(), inMaster);

@@ -60,12 +60,12 @@ class HonestOptimumTest {
       checked++;
       SolveOutcome out = new ColumnGeneration(space, new BruteForcePricer(space), null,
           SolveSettings.defaults().withGapTolerance(1e-4), StopCriterion.never(), System.nanoTime()).run();
-      String at = "seed " + seed + ": objective " + out.objective() + " vs Commons Math " + ref.objective();
-      assertTrue(out.gap() <= 1e-4 || !out.status().isOptimal(), at + ": optimal with gap " + out.gap());
+      String at = "seed " + seed + ": objective " + out.result().value() + " vs Commons Math " + ref.objective();
+      assertTrue(out.result().gap() <= 1e-4 || !out.status().isOptimal(), at + ": optimal with gap " + out.result().gap());
       if (out.status().isOptimal()) {
-        assertTrue(out.objective() >= ref.objective() * (1 - 1e-4) - 1e-12, at);
+        assertTrue(out.result().value() >= ref.objective() * (1 - 1e-4) - 1e-12, at);
       }
-      assertTrue(out.bound() >= ref.objective() * (1 - 1e-9), at + ": the bound must hold");
+      assertTrue(out.result().bound() >= ref.objective() * (1 - 1e-9), at + ": the bound must hold");
     }
     assertTrue(checked >= 10, "too few catalogs with something to sell: " + checked);
   }

@@ -70,7 +70,7 @@ class StoppingAndGapTest {
     SolveOutcome o = SolveOutcome.infeasible("nothing to sell", 12);
     assertTrue(o.status().isInfeasible() && o.status().isFinished() && !o.status().isStopped());
     assertFalse(o.duals().known());
-    assertEquals(0.0, o.gap());
-    assertEquals(0, o.columns().size());
+    assertEquals(0.0, o.result().gap());
+    assertEquals(0, o.master().columns().size());
   }
 }

@@ -63,17 +63,17 @@ class SweepTest {
     int samePrice = 0;
     int sameBindingAndPrice = 0;
     for (int i = 0; i < warm.size(); i++) {
-      double z = warm.get(i).outcome().objective();
+      double z = warm.get(i).outcome().result().value();
       // A warm start changes the work, never the answer: independent cold re-solves agree.
-      assertEquals(cold.get(i).outcome().objective(), z, 1e-9 * z, warm.get(i).point().name());
+      assertEquals(cold.get(i).outcome().result().value(), z, 1e-9 * z, warm.get(i).point().name());
       assertTrue(warm.get(i).warmColumns() > 0 || i == 0);
       if (i == 0) {
         continue;
       }
       Sweep.Row a = warm.get(i - 1);
       Sweep.Row b = warm.get(i);
-      double za = a.outcome().objective();
-      double zb = b.outcome().objective();
+      double za = a.outcome().result().value();
+      double zb = b.outcome().result().value();
       double db = b.catalog().resources().get(r).capacity() - a.catalog().resources().get(r).capacity();
       double slope = (zb - za) / db;
       double pa = a.outcome().duals().resource()[r];
@@ -114,7 +114,7 @@ class SweepTest {
         }
         // Apache Commons Math SimplexSolver over every (variant, segment) column, via EnumeratedLp.
         double ref = EnumeratedLp.solve(new VariantSpace(row.catalog())).objective();
-        double z = row.outcome().objective();
+        double z = row.outcome().result().value();
         assertEquals(ref, z, 1e-6 * Math.max(1, Math.abs(ref)), "seed " + seed + " " + row.point().name());
         assertTrue(z >= prev - 1e-6 * Math.max(1, Math.abs(z)));
         prev = z;
@@ -134,8 +134,8 @@ class SweepTest {
       List<Sweep.Row> rows = sweep(starter, plan, true);
       assertOptimal(rows);
       for (int i = 1; i < rows.size(); i++) {
-        double za = rows.get(i - 1).outcome().objective();
-        double zb = rows.get(i).outcome().objective();
+        double za = rows.get(i - 1).outcome().result().value();
+        double zb = rows.get(i).outcome().result().value();
         boolean ordered = plan == price || (i != 2); // rule grid: on,on / on,off / off,on / off,off
         if (ordered) {
           assertTrue(zb >= za - 1e-9 * za, rows.get(i - 1).point().name() + " -> " + rows.get(i).point().name());
@@ -164,8 +164,8 @@ class SweepTest {
     assertEquals(all.size() - 3, rest.size());
     for (Sweep.Row r : rest) {
       assertTrue(!done.contains(r.point().index()));
-      assertEquals(all.get(r.point().index()).outcome().objective(), r.outcome().objective(),
-          1e-9 * r.outcome().objective());
+      assertEquals(all.get(r.point().index()).outcome().result().value(), r.outcome().result().value(),
+          1e-9 * r.outcome().result().value());
     }
   }
 }

@@ -133,14 +133,14 @@ class CapacityRangesTest {
         // Cold, independent solves: no columns shared with the search.
         SolveOutcome o = solveCold(cat, r, b, tight);
         double line = p0.objective() + p0.price() * (b - p0.capacity());
-        assertEquals(line, o.objective(), 1e-7 * Math.abs(line), "on the piece at " + b);
+        assertEquals(line, o.result().value(), 1e-7 * Math.abs(line), "on the piece at " + b);
         checked++;
       }
       double width = hi - range.low();
       if (Double.isFinite(range.high())) {
         double b = range.high() + 0.02 * width;
         double line = p0.objective() + p0.price() * (b - p0.capacity());
-        double z = solveCold(cat, r, b, tight).objective();
+        double z = solveCold(cat, r, b, tight).result().value();
         assertTrue(z < line - 1e-7 * Math.abs(line), "the piece ends at " + range.high() + ": " + z + " vs " + line);
         // Concave: beyond the end the curve rises no faster than the price reported above it.
         double slope = (z - (p0.objective() + p0.price() * (range.high() - p0.capacity()))) / (b - range.high());
@@ -149,7 +149,7 @@ class CapacityRangesTest {
       if (range.low() > 0) {
         double b = range.low() - 0.02 * width;
         double line = p0.objective() + p0.price() * (b - p0.capacity());
-        double z = solveCold(cat, r, b, tight).objective();
+        double z = solveCold(cat, r, b, tight).result().value();
         assertTrue(z < line - 1e-7 * Math.abs(line), "the piece starts at " + range.low());
       }
     }

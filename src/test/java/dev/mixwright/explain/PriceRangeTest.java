@@ -33,7 +33,7 @@ class PriceRangeTest {
     int others = book.segmentIndex("others");
     for (String product : List.of("desk", "chair")) {
       int[] v = space.parse(Map.of("product", product));
-      PriceRange.Leave leave = new PriceRange(space, BranchAndBoundPricer::withDefaultLimits, SolveSettings.defaults(), run.columns()).leave(v, others, 1e-7);
+      PriceRange.Leave leave = new PriceRange(space, BranchAndBoundPricer::withDefaultLimits, SolveSettings.defaults(), run.master().columns()).leave(v, others, 1e-7);
       double price = book.groups().get(0).options().get(v[0]).price();
       double eps = 1e-3 * price;
       // Commons Math on the whole LP: a little less cut keeps it in the plan, a little more drops it.
@@ -49,7 +49,7 @@ class PriceRangeTest {
     VariantSpace space = new VariantSpace(book);
     SolveOutcome run = new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
     int[] table = space.parse(Map.of("product", "table"));
-    PriceRange r = new PriceRange(space, BranchAndBoundPricer::withDefaultLimits, SolveSettings.defaults(), run.columns());
+    PriceRange r = new PriceRange(space, BranchAndBoundPricer::withDefaultLimits, SolveSettings.defaults(), run.master().columns());
     try {
       r.leave(table, book.segmentIndex("tables"), 1e-6);
       throw new AssertionError("tables are not sold at price 30 (Winston: reduced cost -5)");

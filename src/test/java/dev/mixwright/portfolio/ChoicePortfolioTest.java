@@ -96,13 +96,13 @@ class ChoicePortfolioTest {
     double tol = 1e-5 * (1 + Math.abs(ref.value()));
     StageRuns.checkFeasible(space, o);
     checkChoiceRows(space, o);
-    assertTrue(o.bound() >= ref.value() - tol, "bound " + o.bound() + " below the optimum " + ref.value());
-    assertTrue(o.value() <= ref.value() + tol, "value " + o.value() + " above the optimum " + ref.value());
+    assertTrue(o.result().bound() >= ref.value() - tol, "bound " + o.result().bound() + " below the optimum " + ref.value());
+    assertTrue(o.result().value() <= ref.value() + tol, "value " + o.result().value() + " above the optimum " + ref.value());
     if (o.status() != PortfolioStatus.PROVEN) {
       assertTrue(!o.reason().isEmpty(), "a heuristic portfolio says why");
       return false;
     }
-    assertEquals(ref.value(), o.value(), tol, "proven but not the enumerated optimum");
+    assertEquals(ref.value(), o.result().value(), tol, "proven but not the enumerated optimum");
     return true;
   }
 
@@ -113,12 +113,12 @@ class ChoicePortfolioTest {
         continue;
       }
       double sold = 0;
-      for (OfferedVariant v : o.variants()) {
+      for (OfferedVariant v : o.offer().variants()) {
         sold += v.sales()[s];
       }
       double out = space.buyers(s) - sold;
       assertTrue(out >= -1e-6 * space.buyers(s), "segment " + s + " sells more than its buyers");
-      for (OfferedVariant v : o.variants()) {
+      for (OfferedVariant v : o.offer().variants()) {
         double w = Math.exp(space.utility(v.choices(), s) - space.stayOut(s));
         assertTrue(v.sales()[s] <= w * out + 1e-6 * (1 + space.buyers(s)),
             "segment " + s + " buys more of a variant than its logit ratio allows");
@@ -161,17 +161,17 @@ class ChoicePortfolioTest {
     }
     Plan fixed = FixedPortfolio.solve(pool, terms, new int[] {0, 1, 2});
     PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
-    assertEquals(3, o.variants().size());
+    assertEquals(3, o.offer().variants().size());
     for (int k = 0; k < 3; k++) {
       double logit = buyers * w[k] / (1 + sum); // Train (2009), ch. 3
       assertEquals(logit, fixed.sales().get(k)[0], 1e-6 * buyers, "fixed offer set, option " + k);
-      for (OfferedVariant v : o.variants()) {
+      for (OfferedVariant v : o.offer().variants()) {
         if (v.choices()[0] == k) {
           assertEquals(logit, v.sales()[0], 1e-6 * buyers, "stage, option " + k);
         }
       }
     }
-    assertEquals(40 * buyers * sum / (1 + sum), o.value(), 1e-6 * buyers * 40);
+    assertEquals(40 * buyers * sum / (1 + sum), o.result().value(), 1e-6 * buyers * 40);
     assertEquals(PortfolioStatus.PROVEN, o.status(), o.reason());
   }
 }

@@ -54,7 +54,7 @@ class CurrentRangePortfolioTest {
     PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
     assertTrue(o.status().isProven(), o.reason());
     // the fully enumerated MIP (SCIP) agrees with the hand computation
-    assertEquals(EnumeratedMip.solve(space, false, 0).value(), o.value(), 1e-6);
+    assertEquals(EnumeratedMip.solve(space, false, 0).value(), o.result().value(), 1e-6);
     return o;
   }
 
@@ -70,7 +70,7 @@ class CurrentRangePortfolioTest {
     Catalog c = catalog(100, 50, 100, 10, List.of(current("c", 0, true)));
     PortfolioOutcome o = proven(c);
     VariantSpace space = new VariantSpace(c);
-    assertEquals(1480, o.value(), 1e-6);
+    assertEquals(1480, o.result().value(), 1e-6);
     assertEquals(List.of("model=c"), labels(space, o.range().kept()));
     assertEquals(List.of("model=a", "model=b"), labels(space, o.range().added()));
     assertTrue(o.range().dropped().isEmpty());
@@ -85,12 +85,12 @@ class CurrentRangePortfolioTest {
     Catalog free = catalog(80, 5, 100, 5, List.of(current("b", 0, false)));
     PortfolioOutcome o = proven(free);
     VariantSpace space = new VariantSpace(free);
-    assertEquals(1500, o.value(), 1e-6);
+    assertEquals(1500, o.result().value(), 1e-6);
     assertEquals(1, o.range().dropped().size());
     // with discontinue 100, dropping b gives 1,500 − 100 = 1,400 < 1,475: b is kept
     Catalog costly = catalog(80, 5, 100, 5, List.of(current("b", 100, false)));
     PortfolioOutcome p = proven(costly);
-    assertEquals(1475, p.value(), 1e-6);
+    assertEquals(1475, p.result().value(), 1e-6);
     assertEquals(List.of("model=b"), labels(space, p.range().kept()));
     assertEquals(List.of("model=a"), labels(space, p.range().added()));
     assertEquals(0, p.range().discontinueCosts(), 1e-12);
@@ -173,14 +173,14 @@ class CurrentRangePortfolioTest {
       compared++;
       PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
       String where = "seed " + seed + " (" + o.status().word() + " " + o.reason() + ")";
-      assertTrue(full.value() <= o.bound() + tol(full.value()), where + ": bound " + o.bound()
+      assertTrue(full.value() <= o.result().bound() + tol(full.value()), where + ": bound " + o.result().bound()
           + " below the enumerated optimum " + full.value());
-      assertTrue(o.value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
+      assertTrue(o.result().value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
       if (o.status().isProven()) {
         proven++;
-        assertEquals(full.value(), o.value(), tol(full.value()), where);
+        assertEquals(full.value(), o.result().value(), tol(full.value()), where);
       }
-      for (OfferedVariant v : o.variants()) {
+      for (OfferedVariant v : o.offer().variants()) {
         assertFalse(EnumeratedMip.excluded(space, v.choices()), where + ": offers an excluded variant");
       }
       if (cur.get(0).keep()) {

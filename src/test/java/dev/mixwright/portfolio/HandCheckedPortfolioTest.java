@@ -48,16 +48,16 @@ class HandCheckedPortfolioTest {
     StageRuns.checkFeasible(space, o);
     assertTrue(o.status().isProven(), o.reason());
     // the fully enumerated MIP (SCIP) agrees with the hand computation too
-    assertEquals(EnumeratedMip.solve(space, false, 0).value(), o.value(), 1e-6);
+    assertEquals(EnumeratedMip.solve(space, false, 0).value(), o.result().value(), 1e-6);
     return o;
   }
 
   private static String models(VariantSpace space, PortfolioOutcome o) {
-    return o.variants().stream().map(v -> space.label(v.choices())).sorted().toList().toString();
+    return o.offer().variants().stream().map(v -> space.label(v.choices())).sorted().toList().toString();
   }
 
   private static double sold(PortfolioOutcome o, VariantSpace space, String label, int segment) {
-    return o.variants().stream().filter(v -> space.label(v.choices()).equals(label))
+    return o.offer().variants().stream().filter(v -> space.label(v.choices()).equals(label))
         .mapToDouble(v -> v.sales()[segment]).sum();
   }
 
@@ -66,22 +66,22 @@ class HandCheckedPortfolioTest {
     // F = 100: both, 1,900 − 200 = 1,700 (a alone 1,600 − 100 = 1,500)
     Catalog low = catalog(100, Integer.MAX_VALUE, 0, 0, false);
     PortfolioOutcome o = solve(low);
-    assertEquals(1700, o.value(), 1e-6);
-    assertEquals(200, o.introductionCosts(), 1e-9);
+    assertEquals(1700, o.result().value(), 1e-6);
+    assertEquals(200, o.offer().introductionCosts(), 1e-9);
     // F = 800: both 1,900 − 1,600 = 300, a alone 1,600 − 800 = 800, b alone 750 − 800 < 0: a alone
     Catalog high = catalog(800, Integer.MAX_VALUE, 0, 0, false);
     PortfolioOutcome p = solve(high);
-    assertEquals(800, p.value(), 1e-6);
+    assertEquals(800, p.result().value(), 1e-6);
     assertEquals("[model=a]", models(new VariantSpace(high), p));
   }
 
   @Test
   void theVariantLimitCanLeaveAPayingVariantOut() {
     // K = 2 as without a limit: 1,700; K = 1: a alone (1,500) beats b alone (50·15 − 100 = 650)
-    assertEquals(1700, solve(catalog(100, 2, 0, 0, false)).value(), 1e-6);
+    assertEquals(1700, solve(catalog(100, 2, 0, 0, false)).result().value(), 1e-6);
     Catalog one = catalog(100, 1, 0, 0, false);
     PortfolioOutcome o = solve(one);
-    assertEquals(1500, o.value(), 1e-6);
+    assertEquals(1500, o.result().value(), 1e-6);
     assertEquals("[model=a]", models(new VariantSpace(one), o));
   }
 
@@ -91,13 +91,13 @@ class HandCheckedPortfolioTest {
     Catalog thirty = catalog(100, Integer.MAX_VALUE, 30, 0, false);
     VariantSpace s30 = new VariantSpace(thirty);
     PortfolioOutcome o = solve(thirty);
-    assertEquals(1650, o.value(), 1e-6);
+    assertEquals(1650, o.result().value(), 1e-6);
     assertEquals(70, sold(o, s30, "model=a", 0), 1e-6);
     assertEquals(30, sold(o, s30, "model=b", 1), 1e-6);
     // lot 60: south buys only 50, so b can never reach its lot: a alone, 80·20 − 100 = 1,500
     Catalog sixty = catalog(100, Integer.MAX_VALUE, 60, 0, false);
     PortfolioOutcome p = solve(sixty);
-    assertEquals(1500, p.value(), 1e-6);
+    assertEquals(1500, p.result().value(), 1e-6);
     assertEquals("[model=a]", models(new VariantSpace(sixty), p));
   }
 
@@ -106,16 +106,16 @@ class HandCheckedPortfolioTest {
     // tooling 1,200 on a: both 1,700 − 1,200 = 500, a alone 300, b alone 50·15 − 100 = 650: b alone
     Catalog toolA = catalog(100, Integer.MAX_VALUE, 0, 1200, false);
     PortfolioOutcome o = solve(toolA);
-    assertEquals(650, o.value(), 1e-6);
+    assertEquals(650, o.result().value(), 1e-6);
     assertEquals("[model=b]", models(new VariantSpace(toolA), o));
     // with a finish group, gloss (+5 a unit, tooling 150) on both models: 80·25 + 20·20 − 200 − 150
     // = 2,050; gloss on a only 2,000 + 300 − 200 − 150 = 1,950; plain only 1,700. Gloss's tooling is
     // paid once although two variants use it (twice would leave 1,900, below 1,950).
     Catalog fin = catalog(100, Integer.MAX_VALUE, 0, 0, true);
     PortfolioOutcome p = solve(fin);
-    assertEquals(2050, p.value(), 1e-6);
-    assertEquals(150, p.toolingCosts(), 1e-9);
-    assertEquals(350, p.introductionCosts(), 1e-9);
+    assertEquals(2050, p.result().value(), 1e-6);
+    assertEquals(150, p.offer().toolingCosts(), 1e-9);
+    assertEquals(350, p.offer().introductionCosts(), 1e-9);
     assertEquals("[model=a,finish=gloss, model=b,finish=gloss]", models(new VariantSpace(fin), p));
   }
 }

@@ -46,13 +46,13 @@ class IntegerStageTest {
       }
       compared++;
       String where = "case " + i + " (" + o.status().word() + " " + o.reason() + ")";
-      assertTrue(full.value() <= o.bound() + tol(full.value()), where + ": bound " + o.bound()
+      assertTrue(full.value() <= o.result().bound() + tol(full.value()), where + ": bound " + o.result().bound()
           + " below the enumerated optimum " + full.value());
-      assertTrue(o.value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
+      assertTrue(o.result().value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
       if (o.status().isProven()) {
         proven++;
         byTree += o.tree().nodes() > 0 ? 1 : 0;
-        assertEquals(full.value(), o.value(), tol(full.value()), where);
+        assertEquals(full.value(), o.result().value(), tol(full.value()), where);
       }
     }
     assertTrue(byTree >= CASES / 4, "the tree should prove a good share of the cases: " + byTree);
@@ -69,7 +69,7 @@ class IntegerStageTest {
       EnumeratedMip.Result mip = EnumeratedMip.solve(space, false, 60_000);
       EnumeratedMip.Result lp = EnumeratedMip.solve(space, true, 0); // GLOP, y in [0, 1]
       String where = "case " + (100 + i);
-      double relaxBound = o.relaxation() == null ? o.bound() : o.relaxation().bound().value();
+      double relaxBound = o.relaxation() == null ? o.result().bound() : o.relaxation().bound().value();
       assertTrue(mip.bound() <= relaxBound + tol(mip.bound()), where + ": relaxation bound " + relaxBound
           + " below the integer optimum " + mip.bound());
       PortfolioTerms t = PortfolioTerms.of(space);
@@ -97,10 +97,10 @@ class IntegerStageTest {
       StageRuns.checkFeasible(space, o);
       EnumeratedMip.Result full = EnumeratedMip.solve(space, false, 60_000);
       String where = "case " + (200 + i);
-      assertTrue(full.bound() <= o.bound() + tol(full.bound()), where + ": bound below the optimum");
-      assertTrue(o.value() <= full.value() + tol(full.value()), where);
+      assertTrue(full.bound() <= o.result().bound() + tol(full.bound()), where + ": bound below the optimum");
+      assertTrue(o.result().value() <= full.value() + tol(full.value()), where);
       if (o.status().isProven()) {
-        assertEquals(full.value(), o.value(), tol(full.value()), where);
+        assertEquals(full.value(), o.result().value(), tol(full.value()), where);
       } else {
         heuristic++;
         assertTrue(o.reason().contains("stopped by the test"), where + ": " + o.reason());
@@ -123,7 +123,7 @@ class IntegerStageTest {
       VariantSpace space = new VariantSpace(c);
       PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
       StageRuns.checkFeasible(space, o);
-      for (OfferedVariant v : o.variants()) {
+      for (OfferedVariant v : o.offer().variants()) {
         for (double q : v.sales()) {
           assertEquals(Math.rint(q), q, 1e-9, "case " + i + ": whole units only");
         }
@@ -134,11 +134,11 @@ class IntegerStageTest {
         continue;
       }
       String where = "case " + i + " (" + o.status().word() + " " + o.reason() + ")";
-      assertTrue(full.value() <= o.bound() + tol(full.value()), where + ": bound below the optimum");
-      assertTrue(o.value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
+      assertTrue(full.value() <= o.result().bound() + tol(full.value()), where + ": bound below the optimum");
+      assertTrue(o.result().value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
       if (o.status().isProven()) {
         proven++;
-        assertEquals(full.value(), o.value(), tol(full.value()), where);
+        assertEquals(full.value(), o.result().value(), tol(full.value()), where);
       }
     }
     assertTrue(proven >= 5, "some whole-unit cases should be proven: " + proven);

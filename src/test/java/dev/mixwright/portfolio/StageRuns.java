@@ -68,8 +68,8 @@ final class StageRuns {
     double[] sold = new double[c.segments().size()];
     double value = 0;
     java.util.Set<Integer> tools = new java.util.HashSet<>();
-    assertTrue(o.variants().size() <= p.maxVariants(), "variant limit");
-    for (OfferedVariant v : o.variants()) {
+    assertTrue(o.offer().variants().size() <= p.maxVariants(), "variant limit");
+    for (OfferedVariant v : o.offer().variants()) {
       assertTrue(space.isBuildable(v.choices()), "buildable");
       double units = 0;
       double[] a = space.use(v.choices());
@@ -111,6 +111,6 @@ final class StageRuns {
       double d = c.segments().get(s).demand();
       assertTrue(sold[s] <= d * (1 + tol) + tol, "demand of " + c.segments().get(s).id());
     }
-    assertEquals(value, o.value(), 1e-6 * (1 + Math.abs(value)), "value from the catalog figures");
+    assertEquals(value, o.result().value(), 1e-6 * (1 + Math.abs(value)), "value from the catalog figures");
   }
 }

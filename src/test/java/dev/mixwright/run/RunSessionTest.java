@@ -57,7 +57,7 @@ class RunSessionTest {
     });
     RunOutcome.Solved resumed = assertInstanceOf(RunOutcome.Solved.class, watched.resume(resume(run)));
     assertEquals(RunStatus.OPTIMAL, resumed.lp().status());
-    assertEquals(f.lp().objective(), resumed.lp().objective(), 1e-6 * Math.abs(f.lp().objective()));
+    assertEquals(f.lp().result().value(), resumed.lp().result().value(), 1e-6 * Math.abs(f.lp().result().value()));
     assertEquals(2, resumed.result().sessions());
     assertEquals(1, points.size());
     assertEquals(2, points.get(0).session());
@@ -65,7 +65,7 @@ class RunSessionTest {
 
     RunOutcome again = watched.resume(resume(run));
     RunOutcome.AlreadyOptimal done = assertInstanceOf(RunOutcome.AlreadyOptimal.class, again);
-    assertEquals(resumed.lp().objective(), done.objective(), 1e-9);
+    assertEquals(resumed.lp().result().value(), done.objective(), 1e-9);
   }
 
   @Test

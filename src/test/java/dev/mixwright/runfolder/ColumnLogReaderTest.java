@@ -34,7 +34,7 @@ class ColumnLogReaderTest {
     space = new VariantSpace(CatalogLoader.load(Path.of("catalogs/heatpump-starter.yaml")));
     try (ColumnLog log = ColumnLog.open(space, dir, 1, 0)) {
       objective = new ColumnGeneration(space, BranchAndBoundPricer.withDefaultLimits(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
-          .addListener(log).run().objective();
+          .addListener(log).run().result().value();
     }
     whole = Files.readAllBytes(log());
     lines = ColumnLogReader.read(log()).lines().size();
@@ -128,7 +128,7 @@ class ColumnLogReaderTest {
     double resumed;
     try (ColumnLog log = ColumnLog.open(space, dir, 2, e.validBytes())) {
       resumed = new ColumnGeneration(space, BranchAndBoundPricer.withDefaultLimits(space), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime())
-          .continuing(3, Double.POSITIVE_INFINITY).addListener(log).run(pool.columns()).objective();
+          .continuing(3, Double.POSITIVE_INFINITY).addListener(log).run(pool.columns()).result().value();
     }
     assertEquals(objective, resumed, 1e-6 * Math.abs(objective));
     ColumnLogReader.Entries after = ColumnLogReader.read(log());
