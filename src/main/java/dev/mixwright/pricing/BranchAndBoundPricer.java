@@ -16,11 +16,10 @@ import java.util.Optional;
  * answers. Cost per query: the smaller budget of forward checking plus, when it runs out, the
  * tables' cost.
  */
-public final class BranchAndBoundPricer implements Pricer {
+public final class BranchAndBoundPricer extends SpacePricer {
   /** Largest total size of the bucket-elimination tables, in doubles (8 MiB). */
   public static final long DEFAULT_TABLE_LIMIT = 1L << 20;
 
-  private final VariantSpace space;
   private final long nodeLimit;
   private final ForwardCheckingPricer forward;
   private final Optional<BucketEliminationPricer> tables;
@@ -38,18 +37,13 @@ public final class BranchAndBoundPricer implements Pricer {
   }
 
   public BranchAndBoundPricer(VariantSpace space, long nodeLimit, long tableLimit) {
+    super(space, "bnb");
     if (tableLimit < 0) {
       throw new IllegalArgumentException("tableLimit must be >= 0");
     }
-    this.space = space;
     this.nodeLimit = nodeLimit;
     this.forward = new ForwardCheckingPricer(space, nodeLimit);
     this.tables = BucketEliminationPricer.fitting(space, nodeLimit, tableLimit);
-  }
-
-  @Override
-  public String name() {
-    return "bnb";
   }
 
   /** Whether the exact bucket-elimination bound is used (its tables fit the limit). */
@@ -58,8 +52,7 @@ public final class BranchAndBoundPricer implements Pricer {
   }
 
   @Override
-  public PricingOutcome price(PricingQuery q) {
-    QueryChecks.check(space, q);
+  PricingOutcome search(PricingQuery q) {
     if (tables.isEmpty()) {
       return forward.price(q, nodeLimit);
     }

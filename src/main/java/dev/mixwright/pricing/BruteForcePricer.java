@@ -7,11 +7,10 @@ import dev.mixwright.space.VariantSpace;
  * checked against the rules with {@link VariantSpace#isBuildable}. Exact by construction; time
  * Θ(Π_g |usable choices of g| · (groups + rule size)), so it refuses spaces above a size limit.
  */
-public final class BruteForcePricer implements Pricer {
+public final class BruteForcePricer extends SpacePricer {
   /** Default most combinations one query may enumerate. */
   public static final long DEFAULT_MAX_COMBINATIONS = 20_000_000L;
 
-  private final VariantSpace space;
   private final long maxCombinations;
 
   public BruteForcePricer(VariantSpace space) {
@@ -20,21 +19,15 @@ public final class BruteForcePricer implements Pricer {
 
   /** @param maxCombinations most combinations of usable choices one query may enumerate (≥ 1) */
   public BruteForcePricer(VariantSpace space, long maxCombinations) {
+    super(space, "brute");
     if (maxCombinations < 1) {
       throw new IllegalArgumentException("maxCombinations must be >= 1");
     }
-    this.space = space;
     this.maxCombinations = maxCombinations;
   }
 
   @Override
-  public String name() {
-    return "brute";
-  }
-
-  @Override
-  public PricingOutcome price(PricingQuery q) {
-    QueryChecks.check(space, q);
+  PricingOutcome search(PricingQuery q) {
     int groups = space.groupCount();
     double[] w = q.weight();
     int[][] usable = new int[groups][];

@@ -65,7 +65,7 @@ public final class BucketEliminationPricer extends NodeLimitedPricer {
 
   private BucketEliminationPricer(
       VariantSpace space, long nodeLimit, int[] elimination, int[][] scope, long entries) {
-    super(space, nodeLimit);
+    super(space, "bucket-elimination", nodeLimit);
     this.groups = space.groupCount();
     this.offset = space.offsets();
     this.nogoods = space.nogoods();
@@ -276,11 +276,6 @@ public final class BucketEliminationPricer extends NodeLimitedPricer {
       graph.eliminate(x);
     }
     return Optional.of(new BucketEliminationPricer(space, nodeLimit, elimination, scope, entries));
-  }
-
-  @Override
-  public String name() {
-    return "bucket-elimination";
   }
 
   /** Doubles the tables hold in all: their filling is the fixed cost of a query. */

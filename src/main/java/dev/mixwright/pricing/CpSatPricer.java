@@ -14,8 +14,7 @@ import java.util.Optional;
  * at most k + |excluded| solves. Exact when every solve ends OPTIMAL; optimality is that of CP-SAT's
  * scaled objective, which agrees with the double sums to about 1e-9 relative on the tests' data.
  */
-public final class CpSatPricer implements Pricer {
-  private final VariantSpace space;
+public final class CpSatPricer extends SpacePricer {
   private final double timeLimitSeconds;
   private final int workers;
   private final int[] offset;
@@ -26,24 +25,18 @@ public final class CpSatPricer implements Pricer {
    * @param workers CP-SAT search workers; 1 keeps results reproducible
    */
   public CpSatPricer(VariantSpace space, double timeLimitSeconds, int workers) {
+    super(space, "cpsat");
     if (!(timeLimitSeconds >= 0) || workers < 1) {
       throw new IllegalArgumentException("timeLimitSeconds must be >= 0 and workers >= 1");
     }
-    this.space = space;
     this.timeLimitSeconds = timeLimitSeconds;
     this.workers = workers;
     this.offset = space.offsets();
   }
 
   @Override
-  public String name() {
-    return "cpsat";
-  }
-
-  @Override
-  public PricingOutcome price(PricingQuery q) {
+  PricingOutcome search(PricingQuery q) {
     long start = System.nanoTime();
-    QueryChecks.check(space, q);
     double[] w = q.weight();
     boolean[] usable = new boolean[w.length];
     for (int f = 0; f < w.length; f++) {

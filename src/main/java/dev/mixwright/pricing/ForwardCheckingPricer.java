@@ -72,7 +72,7 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
    *     the outcome is not exact but keeps a valid upper bound. {@code Long.MAX_VALUE} for none.
    */
   public ForwardCheckingPricer(VariantSpace space, long nodeLimit) {
-    super(space, nodeLimit);
+    super(space, "forward-checking", nodeLimit);
     this.groups = space.groupCount();
     this.offset = space.offsets();
     int total = space.totalChoices();
@@ -94,11 +94,6 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
     v = new int[groups];
     tailSol = new int[groups];
     tailFound = new double[maxChoices];
-  }
-
-  @Override
-  public String name() {
-    return "forward-checking";
   }
 
   /** The group order of the search (a copy), for logs and tests. */

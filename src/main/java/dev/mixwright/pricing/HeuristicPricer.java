@@ -20,11 +20,10 @@ import java.util.Set;
  * product-line pricing (Bront, Méndez-Díaz &amp; Vulcano 2009, Operations Research 57(3)). Per restart
  * O(budget + rounds · Σ_g d_g · (G + rule work)).
  */
-public final class HeuristicPricer implements Pricer {
+public final class HeuristicPricer extends SpacePricer {
   public static final int DEFAULT_RESTARTS = 8;
   public static final long DEFAULT_SEED = 1L;
 
-  private final VariantSpace space;
   private final int restarts;
   private final long seed;
   private final int groups;
@@ -42,10 +41,10 @@ public final class HeuristicPricer implements Pricer {
    * @param seed seed of the perturbations; the same seed gives the same answers
    */
   public HeuristicPricer(VariantSpace space, int restarts, long seed) {
+    super(space, "heuristic");
     if (restarts < 1) {
       throw new IllegalArgumentException("restarts must be >= 1");
     }
-    this.space = space;
     this.restarts = restarts;
     this.seed = seed;
     this.groups = space.groupCount();
@@ -65,15 +64,8 @@ public final class HeuristicPricer implements Pricer {
   }
 
   @Override
-  public String name() {
-    return "heuristic";
-  }
-
-  @Override
-  public PricingOutcome price(PricingQuery q) {
-    QueryChecks.check(space, q);
-    Run run = new Run(q);
-    return run.solve();
+  PricingOutcome search(PricingQuery q) {
+    return new Run(q).solve();
   }
 
   /** The state of one query. */

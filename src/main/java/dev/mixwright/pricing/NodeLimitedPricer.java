@@ -6,28 +6,26 @@ import dev.mixwright.space.VariantSpace;
  * An exact search that may be stopped after a number of nodes, keeping a valid upper bound; the
  * policy of {@link BranchAndBoundPricer} runs such searches on budgets of its own.
  */
-abstract class NodeLimitedPricer implements Pricer {
-  final VariantSpace space;
+abstract class NodeLimitedPricer extends SpacePricer {
   private final long nodeLimit;
 
   /**
    * @param nodeLimit most search nodes per query; when reached the outcome is not exact but keeps a
    *     valid upper bound. {@code Long.MAX_VALUE} for none.
    */
-  NodeLimitedPricer(VariantSpace space, long nodeLimit) {
+  NodeLimitedPricer(VariantSpace space, String name, long nodeLimit) {
+    super(space, name);
     if (nodeLimit < 1) {
       throw new IllegalArgumentException("nodeLimit must be >= 1");
     }
-    this.space = space;
     this.nodeLimit = nodeLimit;
   }
 
   @Override
-  public final PricingOutcome price(PricingQuery q) {
-    QueryChecks.check(space, q);
+  final PricingOutcome search(PricingQuery q) {
     return price(q, nodeLimit);
   }
 
-  /** {@link #price(PricingQuery)} on a node budget of its own, for a query already checked. */
+  /** {@link #search(PricingQuery)} on a node budget of its own, for a query already checked. */
   abstract PricingOutcome price(PricingQuery q, long nodeBudget);
 }
