@@ -85,21 +85,13 @@ final class CapacityRangeReport {
       n.put("capacity", r.capacity());
       n.put("shadowPrice", r.price());
       n.put("holdsFrom", r.low());
-      putNum(n, "holdsTo", r.high());
-      putNum(n, "priceBelow", r.priceBelow());
-      putNum(n, "priceAbove", r.priceAbove());
+      Json.putNum(n, "holdsTo", r.high());
+      Json.putNum(n, "priceBelow", r.priceBelow());
+      Json.putNum(n, "priceAbove", r.priceAbove());
       n.put("exact", r.exact());
       n.put("solves", r.solves());
     }
     return a;
-  }
-
-  private static void putNum(ObjectNode n, String f, double v) {
-    if (Double.isFinite(v)) {
-      n.put(f, v);
-    } else {
-      n.putNull(f);
-    }
   }
 
   static void print(PrintWriter out, List<CapacityRanges.Range> ranges, RunResult result) {

@@ -3,21 +3,15 @@ package dev.mixwright.colgen;
 /** How a solve ended. */
 public enum RunStatus {
   /** The gap target was met: the LP optimum over the whole space is proven. */
-  OPTIMAL("optimal"),
+  OPTIMAL,
   /** A limit or a signal ended the run first; the bound still holds and the run can resume. */
-  STOPPED("stopped"),
+  STOPPED,
   /** Nothing can be sold: no buildable variant, or no segment accepts one. */
-  INFEASIBLE("infeasible");
+  INFEASIBLE;
 
-  private final String word;
-
-  RunStatus(String word) {
-    this.word = word;
-  }
-
-  /** The word written to result.json. */
+  /** The word written to result.json: the name in lower case. */
   public String word() {
-    return word;
+    return name().toLowerCase(java.util.Locale.ROOT);
   }
 
   public boolean isOptimal() {

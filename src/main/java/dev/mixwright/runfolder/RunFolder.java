@@ -31,16 +31,11 @@ public record RunFolder(Path dir) {
 
   /** What a folder holds: one kind of run only, so that one never overwrites the other's files. */
   public enum Kind {
-    SOLVE("solve"), SWEEP("sweep");
+    SOLVE, SWEEP;
 
-    private final String word;
-
-    Kind(String word) {
-      this.word = word;
-    }
-
+    /** The word run.json and sweep.json record: the name in lower case. */
     public String word() {
-      return word;
+      return name().toLowerCase(java.util.Locale.ROOT);
     }
   }
 
