@@ -1,5 +1,6 @@
 package dev.mixwright.runfolder;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
@@ -76,7 +77,9 @@ public record RunManifest(
   }
 
   /** One process working on the run: 1 is the solve, each resume adds one. */
-  public record Session(int number, String kind, String startedAt, String note) {}
+  /** One solve or resume of the run; {@code note} is left out of run.json when empty. */
+  public record Session(int number, String kind, String startedAt,
+      @JsonInclude(JsonInclude.Include.NON_EMPTY) String note) {}
 
   public RunManifest {
     sessions = List.copyOf(sessions);
@@ -121,15 +124,7 @@ public record RunManifest(
     n.put("catalogCopySha256", catalogCopySha256);
     settings.putInto(n.putObject("settings"));
     ArrayNode a = n.putArray("sessions");
-    for (Session x : sessions) {
-      ObjectNode o = a.addObject();
-      o.put("number", x.number());
-      o.put("kind", x.kind());
-      o.put("startedAt", x.startedAt());
-      if (!x.note().isEmpty()) {
-        o.put("note", x.note());
-      }
-    }
+    sessions.forEach(x -> a.add(Json.pretty().<JsonNode>valueToTree(x)));
     return n;
   }
 

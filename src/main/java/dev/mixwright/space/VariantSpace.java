@@ -423,12 +423,7 @@ public final class VariantSpace {
 
   /** price_s(v): the chosen price points plus segment s's value of the chosen options. */
   public double price(int[] v, int s) {
-    double p = 0;
-    for (int g = 0; g < groupCount; g++) {
-      int f = offset[g] + v[g];
-      p += price[f] + segmentValue[s][f];
-    }
-    return p;
+    return withSegmentValue(price, v, s);
   }
 
   /** Use of resource r by a flat choice. */
@@ -495,12 +490,17 @@ public final class VariantSpace {
 
   /** margin(v, s) of PRODUCT.md: price minus cost over the groups plus segment s's value. */
   public double margin(int[] v, int s) {
-    double m = 0;
+    return withSegmentValue(margin, v, s);
+  }
+
+  /** Σ_g of a per-choice figure plus segment s's value, over the choices of v. */
+  private double withSegmentValue(double[] perChoice, int[] v, int s) {
+    double sum = 0;
     for (int g = 0; g < groupCount; g++) {
       int f = offset[g] + v[g];
-      m += margin[f] + segmentValue[s][f];
+      sum += perChoice[f] + segmentValue[s][f];
     }
-    return m;
+    return sum;
   }
 
   /** Resource use of one unit of v, written into {@code out} (length resourceCount). */
