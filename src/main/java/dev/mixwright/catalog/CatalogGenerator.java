@@ -19,7 +19,7 @@ import java.util.Random;
  *       that trading tiers moves load between resources).
  *   <li>Each group draws on one to three resources; every resource is used by some group.
  *   <li>Rules are pairwise, mostly between groups close in catalog order (related parts sit
- *       together, e.g. motor and battery), a few between any two groups: {@code forbid} of one or
+ *       together, e.g. capacity and compressor), a few between any two groups: {@code forbid} of one or
  *       two options against one or two, and {@code when}/{@code require} of one option against a
  *       subset of another group.
  *   <li>Segments buy a volume, cap the share of one variant, may accept only part of one group and

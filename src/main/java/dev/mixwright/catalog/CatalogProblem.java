@@ -1,7 +1,7 @@
 package dev.mixwright.catalog;
 
 /**
- * One thing wrong with a catalog: where it is ({@code groups[2].options[4].uses.weld}, or a file
+ * One thing wrong with a catalog: where it is ({@code groups[2].options[4].uses.brazing}, or a file
  * position such as {@code range.yaml line 3 column 7}) and what is wrong with it, in words that
  * suggest the fix.
  */

@@ -60,17 +60,17 @@ final class CatalogReader {
   /** The parts of a rule or segment that map groups to lists of choices. */
   private enum Clause {
     WHEN(
-        "the condition of the rule, e.g. when: {motor: [mid750]}",
+        "the condition of the rule, e.g. when: {refrigerant: [r290]}",
         "the rule can never fire; list the choices of '%s' that trigger it, or drop '%s'"),
     REQUIRE(
-        "what must hold when the rule fires, e.g. require: {battery: [b625, b750]}",
+        "what must hold when the rule fires, e.g. require: {topology: [monobloc, hybrid]}",
         "it can never be satisfied, so every variant matching when would be forbidden; list the"
             + " allowed choices of '%s', or drop '%s' (to rule a combination out, use forbid)"),
     FORBID(
-        "the combination never offered, e.g. forbid: {frame: [cargo], wheel: [w20]}",
+        "the combination never offered, e.g. forbid: {casing: [slim], coil: [oversized]}",
         "it forbids nothing; list the choices of '%s' to rule out, or drop '%s'"),
     ACCEPTS(
-        "the choices a variant sold here must have, e.g. accepts: {frame: [step, low]}",
+        "the choices a variant sold here must have, e.g. accepts: {compressor: [scroll, eviscroll]}",
         "the segment would accept no variant; list the accepted choices of '%s', or drop '%s'"
             + " to accept any");
 
@@ -212,14 +212,14 @@ final class CatalogReader {
     if (!v.isArray()) {
       problem(
           "resources",
-          "must be a list of resources, e.g. [{id: weld, capacity: 14000}], got "
+          "must be a list of resources, e.g. [{id: brazing, capacity: 48000}], got "
               + Where.describe(v));
       return out;
     }
     for (int i = 0; i < v.size(); i++) {
       String path = Where.index("resources", i);
       JsonNode r = v.get(i);
-      if (!isMapping(r, path, "{id: weld, capacity: 14000}")) {
+      if (!isMapping(r, path, "{id: brazing, capacity: 48000}")) {
         continue;
       }
       unknownFields(r, path, RESOURCE_FIELDS, "a resource");
@@ -245,7 +245,7 @@ final class CatalogReader {
 
   private List<Group> readGroups(JsonNode v) {
     List<Group> out = new ArrayList<>();
-    String example = "[{id: frame, options: [{id: step, price: 520, cost: 210}]}]";
+    String example = "[{id: compressor, options: [{id: scroll, price: 520, cost: 480}]}]";
     if (v == null) {
       problem(
           "groups", "missing — a catalog needs at least one option group, e.g. groups: " + example);
@@ -266,7 +266,7 @@ final class CatalogReader {
     for (int i = 0; i < v.size(); i++) {
       String path = Where.index("groups", i);
       JsonNode g = v.get(i);
-      if (!isMapping(g, path, "{id: frame, options: [...]}")) {
+      if (!isMapping(g, path, "{id: compressor, options: [...]}")) {
         continue;
       }
       unknownFields(g, path, GROUP_FIELDS, "a group");
@@ -287,15 +287,15 @@ final class CatalogReader {
       if (inline == null && file == null) {
         problem(
             optionsPath,
-            "missing — list the group's options, e.g. options: [{id: step, price: 520, cost: 210}],"
-                + " or name a CSV table of them with optionsFile: frame.csv");
+            "missing — list the group's options, e.g. options: [{id: scroll, price: 520, cost: 480}],"
+                + " or name a CSV table of them with optionsFile: heatpump-range-casings.csv");
         complete = false;
       }
       if (inline != null) {
         if (!inline.isArray()) {
           problem(
               optionsPath,
-              "must be a list of options, e.g. [{id: step, price: 520, cost: 210}], got "
+              "must be a list of options, e.g. [{id: scroll, price: 520, cost: 480}], got "
                   + Where.describe(inline));
           complete = false;
         } else if (inline.size() > Limits.MAX_OPTIONS_PER_GROUP) {
@@ -315,7 +315,7 @@ final class CatalogReader {
         if (!file.isTextual() || file.textValue().isBlank()) {
           problem(
               filePath,
-              "must be the name of a CSV file next to the catalog, e.g. optionsFile: frame.csv, got"
+              "must be the name of a CSV file next to the catalog, e.g. optionsFile: heatpump-range-casings.csv, got"
                   + " "
                   + Where.describe(file));
           complete = false;
@@ -356,7 +356,7 @@ final class CatalogReader {
   }
 
   private Option readOption(JsonNode o, String path, GroupRef ref) {
-    if (!isMapping(o, path, "{id: step, price: 520, cost: 210}")) {
+    if (!isMapping(o, path, "{id: scroll, price: 520, cost: 480}")) {
       return null;
     }
     unknownFields(o, path, OPTION_FIELDS, "an option");
@@ -444,7 +444,7 @@ final class CatalogReader {
     if (!v.isObject()) {
       problem(
           path,
-          "must be a mapping of resource to amount per unit, e.g. uses: {weld: 1.6}, got "
+          "must be a mapping of resource to amount per unit, e.g. uses: {brazing: 0.85}, got "
               + Where.describe(v));
       return null;
     }
@@ -478,7 +478,7 @@ final class CatalogReader {
     if (!v.isArray()) {
       problem(
           "rules",
-          "must be a list of rules, e.g. [{when: {motor: [mid750]}, require: {battery: [b750]}}],"
+          "must be a list of rules, e.g. [{when: {refrigerant: [r290]}, require: {topology: [monobloc]}}],"
               + " got "
               + Where.describe(v));
       return out;
@@ -486,7 +486,7 @@ final class CatalogReader {
     for (int i = 0; i < v.size(); i++) {
       String path = Where.index("rules", i);
       JsonNode r = v.get(i);
-      if (!isMapping(r, path, "{when: {motor: [mid750]}, require: {battery: [b750]}}")) {
+      if (!isMapping(r, path, "{when: {refrigerant: [r290]}, require: {topology: [monobloc]}}")) {
         continue;
       }
       int before = problems.size();
@@ -541,7 +541,7 @@ final class CatalogReader {
 
   private List<Segment> readSegments(JsonNode v) {
     List<Segment> out = new ArrayList<>();
-    String example = "[{id: commuters, demand: 9000}]";
+    String example = "[{id: retrofit, demand: 9000}]";
     if (v == null) {
       problem(
           "segments",
@@ -561,7 +561,7 @@ final class CatalogReader {
     for (int i = 0; i < v.size(); i++) {
       String path = Where.index("segments", i);
       JsonNode s = v.get(i);
-      if (!isMapping(s, path, "{id: commuters, demand: 9000}")) {
+      if (!isMapping(s, path, "{id: retrofit, demand: 9000}")) {
         continue;
       }
       int before = problems.size();
@@ -621,7 +621,7 @@ final class CatalogReader {
         v,
         path,
         "must be a mapping of group.option to the extra value per unit, e.g. value:"
-            + " {\"battery.b750\": 90}, got ",
+            + " {\"warranty.w5\": 90}, got ",
         "what this segment pays extra per unit for the choice (negative: pays less), e.g. 90",
         Figure.SIGNED_MONEY);
   }
@@ -662,7 +662,7 @@ final class CatalogReader {
   }
 
   private static final String CHOICE_EXAMPLE =
-      "{buyers: 60000, stayOut: 1.2, priceWeight: -0.0045, utility: {\"deck.d28\": 0.7}}";
+      "{buyers: 60000, stayOut: 1.2, priceWeight: -0.0045, utility: {\"capacity.c12\": 0.7}}";
 
   /** The {@code choice} section of a segment; null when it is wrong (the problems are recorded). */
   private Choice readChoice(JsonNode segment, JsonNode ch, String path) {
@@ -733,7 +733,7 @@ final class CatalogReader {
       readPerChoice(
               u,
               uPath,
-              "must be a mapping of group.option to the part-worth, e.g. utility: {\"deck.d28\": 0.7,"
+              "must be a mapping of group.option to the part-worth, e.g. utility: {\"capacity.c12\": 0.7,"
                   + " \"app.none\": -0.4}, got ",
               "the part-worth of the choice for this segment, e.g. 0.7",
               Figure.UTILITY)
@@ -805,7 +805,7 @@ final class CatalogReader {
     if (owners.size() == 1) {
       return "e.g. \"" + owners.get(0) + "." + bare + "\" (the group, a dot, the option)";
     }
-    return "e.g. \"battery.b750\" (the group, a dot, the option)";
+    return "e.g. \"warranty.w5\" (the group, a dot, the option)";
   }
 
   private Optional<PortfolioSpec> readPortfolio(JsonNode v) {
@@ -943,7 +943,7 @@ final class CatalogReader {
       String fix =
           v.isTextual()
               ? " — write it as a list: [" + v.textValue() + "]"
-              : " — write a list of choices, e.g. [step, low]";
+              : " — write a list of choices, e.g. [scroll, eviscroll]";
       problem(path, "must be a list of choices, got " + Where.describe(v) + fix);
       return null;
     }

@@ -14,11 +14,11 @@ final class Checks {
 
   /** The kinds of id a catalog declares, with the word and an example used in messages. */
   enum IdKind {
-    RESOURCE("resource", "weld"),
-    GROUP("group", "frame"),
-    OPTION("option", "step"),
-    SEGMENT("segment", "commuters"),
-    RULE("rule", "cargo-needs-big-battery");
+    RESOURCE("resource", "brazing"),
+    GROUP("group", "compressor"),
+    OPTION("option", "scroll"),
+    SEGMENT("segment", "retrofit"),
+    RULE("rule", "big-units-no-single-rotary");
 
     final String noun;
     final String example;
@@ -70,7 +70,7 @@ final class Checks {
     }
     if (kind == IdKind.OPTION && id.equals(Group.NONE)) {
       return "'none' is reserved for the absent choice of an optional group — rename this option"
-          + " (e.g. 'no-rack'), or drop it and make the group optional with required: false";
+          + " (e.g. 'no-tank'), or drop it and make the group optional with required: false";
     }
     return null;
   }

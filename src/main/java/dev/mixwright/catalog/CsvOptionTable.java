@@ -19,7 +19,7 @@ import java.util.Map;
 /**
  * An option table in a CSV file next to the catalog: a header {@code id,price,cost[,label]
  * [,uses.<resource>...]} (columns in any order) and one row per option. Problems are named {@code
- * groups[2].optionsFile frame.csv line 5 column uses.weld}; lines count from 1 at the header, blank
+ * groups[4].optionsFile heatpump-range-casings.csv line 5 column uses.brazing}; lines count from 1 at the header, blank
  * lines are skipped, cells are trimmed, an empty {@code uses.*} cell means zero use.
  */
 final class CsvOptionTable {

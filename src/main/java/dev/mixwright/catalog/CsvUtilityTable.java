@@ -86,12 +86,12 @@ final class CsvUtilityTable {
       String utilityText = row.cells().get(column.get("utility"));
       boolean rowOk = true;
       if (group.isEmpty()) {
-        reader.problem(lineAt + " column group", "empty — give the group id, e.g. deck");
+        reader.problem(lineAt + " column group", "empty — give the group id, e.g. capacity");
         rowOk = false;
       }
       if (option.isEmpty()) {
         reader.problem(
-            lineAt + " column option", "empty — give the option id, e.g. d28 (or none for an optional group)");
+            lineAt + " column option", "empty — give the option id, e.g. c12 (or none for an optional group)");
         rowOk = false;
       }
       if (rowOk) {

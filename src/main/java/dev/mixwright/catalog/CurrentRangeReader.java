@@ -40,7 +40,7 @@ final class CurrentRangeReader {
       return out;
     }
     if (!v.isArray()) {
-      problem("exclude", "must be a list of option combinations, e.g. [{deck: d36, nav: wire}], got "
+      problem("exclude", "must be a list of option combinations, e.g. [{refrigerant: r290, mounting: roof}], got "
           + Where.describe(v));
       return out;
     }
@@ -49,7 +49,7 @@ final class CurrentRangeReader {
       Map<String, String> m = choices(v.get(i), path, false);
       if (m != null) {
         if (m.isEmpty()) {
-          problem(path, "empty — name the options a variant may not hold together, e.g. {deck: d36, nav: wire}");
+          problem(path, "empty — name the options a variant may not hold together, e.g. {refrigerant: r290, mounting: roof}");
         } else {
           out.add(m);
         }
@@ -64,8 +64,8 @@ final class CurrentRangeReader {
       return out;
     }
     if (!v.isArray()) {
-      problem("current", "must be a list of the variants on sale today, e.g. [{variant: {frame: step,"
-          + " motor: hub250}, discontinue: 40000}], got " + Where.describe(v));
+      problem("current", "must be a list of the variants on sale today, e.g. [{variant: {capacity: c8,"
+          + " compressor: rotary}, discontinue: 40000}], got " + Where.describe(v));
       return out;
     }
     Map<String, String> seen = new LinkedHashMap<>();
@@ -74,7 +74,7 @@ final class CurrentRangeReader {
       String path = Where.index("current", i);
       JsonNode c = v.get(i);
       if (c == null || !c.isObject()) {
-        problem(path, "must be a mapping, e.g. {variant: {frame: step, motor: hub250}, discontinue: 40000},"
+        problem(path, "must be a mapping, e.g. {variant: {capacity: c8, compressor: rotary}, discontinue: 40000},"
             + " got " + Where.describe(c));
         continue;
       }
@@ -111,7 +111,7 @@ final class CurrentRangeReader {
       JsonNode vv = c.get("variant");
       String vpath = Where.field(path, "variant");
       if (vv == null || vv.isNull()) {
-        problem(vpath, "missing — give the variant's options, e.g. variant: {frame: step, motor: hub250}");
+        problem(vpath, "missing — give the variant's options, e.g. variant: {capacity: c8, compressor: rotary}");
         continue;
       }
       Map<String, String> m = choices(vv, vpath, true);
@@ -153,7 +153,7 @@ final class CurrentRangeReader {
    */
   private Map<String, String> choices(JsonNode v, String path, boolean complete) {
     if (v == null || !v.isObject()) {
-      problem(path, "must be a mapping of group to option, e.g. {deck: d36, nav: wire}, got " + Where.describe(v));
+      problem(path, "must be a mapping of group to option, e.g. {refrigerant: r290, mounting: roof}, got " + Where.describe(v));
       return null;
     }
     Map<String, String> out = new LinkedHashMap<>();

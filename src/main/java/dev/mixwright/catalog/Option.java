@@ -74,13 +74,13 @@ public record Option(
   }
 
   /**
-   * How point k is written in a variant: {@code d28@820} for an option with several price points,
+   * How point k is written in a variant: {@code c12@5300} for an option with several price points,
    * the bare id otherwise.
    */
   public String pointId(int k) {
     return hasPricePoints() ? id + PRICE_MARK + Where.num(prices.get(k)) : id;
   }
 
-  /** Separates an option id from its price point in a variant: {@code deck=d28@820}. */
+  /** Separates an option id from its price point in a variant: {@code capacity=c12@5300}. */
   public static final char PRICE_MARK = '@';
 }

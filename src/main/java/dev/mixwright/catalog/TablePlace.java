@@ -38,7 +38,7 @@ final class TablePlace {
               + "' is an absolute path — "
               + kind
               + " must lie in the catalog's folder or below it; give the name relative to the"
-              + " catalog file, e.g. frame.csv"
+              + " catalog file, e.g. heatpump-range-casings.csv"
               + WIDEN);
       return null;
     }

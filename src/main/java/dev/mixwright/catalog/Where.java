@@ -133,8 +133,8 @@ public final class Where {
     return c == null ? "" : " — did you mean '" + c + "'?";
   }
 
-  // Edit distance with adjacent transpositions (optimal string alignment), O(|a|·|b|): "wled" is
-  // one step from "weld". Words here are short ids and field names.
+  // Edit distance with adjacent transpositions (optimal string alignment), O(|a|·|b|): "brazign" is
+  // one step from "brazing". Words here are short ids and field names.
   private static int editDistance(String a, String b) {
     int[][] d = new int[a.length() + 1][b.length() + 1];
     for (int i = 0; i <= a.length(); i++) {

@@ -188,7 +188,7 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
     return groupId;
   }
 
-  /** The option's label (with its price point, {@code 28 in deck @820}), or the choice id. */
+  /** The option's label (with its price point, {@code 12 kW @5300}), or the choice id. */
   static String choiceText(Catalog catalog, String groupId, String choice) {
     if (catalog == null) {
       return choice;

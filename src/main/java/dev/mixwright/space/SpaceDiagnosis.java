@@ -315,7 +315,7 @@ public final class SpaceDiagnosis {
     return id == null ? "rules[" + r + "]" : "rules[" + r + "] (" + id + ")";
   }
 
-  /** The rule in the catalog's own terms, e.g. "when motor=mid750 require battery in [b625, b750]". */
+  /** The rule in the catalog's own terms, e.g. "when refrigerant=r290 require topology in [monobloc, hybrid]". */
   private String summary(int r) {
     Rule rule = catalog.rules().get(r);
     if (rule.isForbid()) {

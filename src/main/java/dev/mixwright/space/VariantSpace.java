@@ -20,7 +20,7 @@ import java.util.StringJoiner;
  * single group becomes a restriction of that group's choices ({@link #allowed(int)}) instead.
  *
  * <p>Each price point of an option is a choice of its own: an option with {@code prices: [760, 820]}
- * gives two consecutive choices, written {@code d28@760} and {@code d28@820}, so a group's choice
+ * gives two consecutive choices, written {@code c12@5100} and {@code c12@5300}, so a group's choice
  * count is the number of its price points (plus {@code none}). Rules, {@code accepts}, {@code value}
  * and part-worths name the option and are compiled onto every price point of it; counting the space
  * counts each price point as a distinct variant. {@link #optionOf} and {@link #pricePointOf} map a
@@ -536,7 +536,7 @@ public final class VariantSpace {
   }
 
   /**
-   * Group id to choice id ({@link #choiceId}: {@code d28@820} for a price point), in group order;
+   * Group id to choice id ({@link #choiceId}: {@code c12@5300} for a price point), in group order;
    * includes {@code none} for an absent optional group. {@link #parse} reads it back.
    */
   public Map<String, String> describe(int[] v) {
@@ -556,7 +556,7 @@ public final class VariantSpace {
 
   /**
    * Parses group id to choice id into a variant; a price point is written {@code option@price}
-   * (the price as in the catalog, e.g. {@code d28@820}). Groups left out of an optional group mean
+   * (the price as in the catalog, e.g. {@code c12@5300}). Groups left out of an optional group mean
    * {@code none}. Throws {@link IllegalArgumentException} naming the group or option that is wrong.
    */
   public int[] parse(Map<String, String> choices) {

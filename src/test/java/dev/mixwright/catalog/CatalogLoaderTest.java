@@ -150,26 +150,26 @@ class CatalogLoaderTest {
   static Stream<Arguments> missingFields() {
     return Stream.of(
         Arguments.of(
-            "{id: press, capacity: 500}", "{capacity: 500}", "resources[2].id", "id: weld"),
+            "{id: press, capacity: 500}", "{capacity: 500}", "resources[2].id", "id: brazing"),
         Arguments.of(
             "{id: press, capacity: 500}",
             "{id: press}",
             "resources[2].capacity",
             "capacity: 14000"),
-        Arguments.of("- id: bell\n", "- label: Bell\n", "groups[2].id", "id: frame"),
+        Arguments.of("- id: bell\n", "- label: Bell\n", "groups[2].id", "id: compressor"),
         Arguments.of(
             "    options:\n      - {id: ring, price: 15, cost: 4}\n",
             "",
             "groups[2].options",
             "optionsFile"),
-        Arguments.of("{id: ring, price: 15,", "{price: 15,", "groups[2].options[0].id", "id: step"),
+        Arguments.of("{id: ring, price: 15,", "{price: 15,", "groups[2].options[0].id", "id: scroll"),
         Arguments.of("price: 15, cost: 4", "cost: 4", "groups[2].options[0].price", "price: 520"),
         Arguments.of("price: 15, cost: 4}", "price: 15}", "groups[2].options[0].cost", "cost: 210"),
         Arguments.of(
             "  - id: families\n    demand: 2500\n",
             "  - demand: 2500\n",
             "segments[1].id",
-            "id: commuters"),
+            "id: retrofit"),
         Arguments.of(
             "  - id: families\n    demand: 2500\n",
             "  - id: families\n",
@@ -299,7 +299,7 @@ class CatalogLoaderTest {
     says(
         onlyProblem(base("- id: families", "- id: \"  \""), "segments[1].id"),
         "must not be empty",
-        "e.g. commuters");
+        "e.g. retrofit");
   }
 
   @Test
@@ -567,7 +567,7 @@ class CatalogLoaderTest {
     says(
         onlyProblem(base("when: {frame: [low]}", "when: {}"), "rules[0].when"),
         "names no group",
-        "when: {motor: [mid750]}");
+        "when: {refrigerant: [r290]}");
     says(
         onlyProblem(
             base("accepts: {frame: [step, low]}", "accepts: {frame: []}"),
@@ -616,7 +616,7 @@ class CatalogLoaderTest {
     says(
         onlyProblem(base("uses: {weld: 1.6}", "uses: [weld]"), "groups[0].options[0].uses"),
         "must be a mapping of resource to amount",
-        "uses: {weld: 1.6}");
+        "uses: {brazing: 0.85}");
     says(
         onlyProblem(base("  - {id: press, capacity: 500}\n", "  - press\n"), "resources[2]"),
         "must be a mapping such as",
