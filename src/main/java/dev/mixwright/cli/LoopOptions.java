@@ -7,7 +7,7 @@ import picocli.CommandLine.Option;
 /** The loop's options every solving command shares (solve, sweep), as a mixin. */
 final class LoopOptions {
   @Option(names = "--gap", paramLabel = "REL", defaultValue = "1e-6", converter = Converters.Gap.class,
-      description = "stop when (bound - objective) / max(1, |objective|) <= REL, e.g. 1e-6 or 0.1%% (default ${DEFAULT-VALUE})")
+      description = "stop when (bound - objective) / max(|objective|, |bound|) <= REL, e.g. 1e-6 or 0.1%% (default ${DEFAULT-VALUE})")
   double gap;
 
   @Option(names = "--pricer", paramLabel = "NAME", defaultValue = "bnb", converter = Converters.ExactPricer.class,

@@ -1,7 +1,7 @@
 package dev.mixwright.colgen;
 
 /**
- * How a solve runs. {@code gapTolerance}: stop once (bound − objective) / max(1, |objective|) is at
+ * How a solve runs. {@code gapTolerance}: stop once the gap of {@link ValueBound#gap()} (bound − objective over the larger of the two) is at
  * most this. {@code perRound}: columns asked of the pricer per segment per round. {@code timeLimitMs},
  * {@code maxIterations}: limits (0 for none). {@code heuristicFirst}: price with the heuristic first
  * and go exact only for segments where it finds nothing (the last round is always exact).
