@@ -8,7 +8,7 @@ import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.choice.ChoiceDescription;
 import dev.mixwright.colgen.Durations;
-import dev.mixwright.report.ResultWriter;
+import dev.mixwright.report.CountFields;
 import dev.mixwright.run.Inputs;
 import dev.mixwright.run.SpaceFacts;
 import dev.mixwright.runfolder.Json;
@@ -127,12 +127,12 @@ final class CheckCommand extends CatalogCommand {
     n.put("choices", space.totalChoices());
     n.put("rules", c.rules().size());
     n.put("resources", c.resources().size());
-    ResultWriter.putCount(n, "buildableVariants", facts.total());
+    CountFields.of(facts.total()).putInto(n, "buildableVariants");
     ArrayNode segs = n.putArray("segments");
     for (int s = 0; s < c.segments().size(); s++) {
       ObjectNode o = segs.addObject();
       o.put("id", c.segments().get(s).id());
-      ResultWriter.putCount(o, "acceptedVariants", facts.perSegment().get(s));
+      CountFields.of(facts.perSegment().get(s)).putInto(o, "acceptedVariants");
     }
     ArrayNode ns = n.putArray("notes");
     notes.forEach(ns::add);

@@ -6,7 +6,6 @@ import dev.mixwright.catalog.Segment;
 import dev.mixwright.choice.Logit;
 import dev.mixwright.colgen.Column;
 import dev.mixwright.colgen.IterationRecord;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.runfolder.RunFolder;
@@ -81,15 +80,10 @@ public final class ResultWriter {
       rounds.add(new RunResult.Round(r.iteration(), r.objective(), Json.num(r.bound()), Json.num(r.gap()),
           r.columns(), r.added(), r.exactPricing(), r.elapsedMs()));
     }
-    SpaceCount count = info.size().count();
-    boolean exact = count.exact();
-    RunResult.CountEstimate estimate = exact ? null : count.estimate()
-        .map(e -> new RunResult.CountEstimate(e.value().doubleValue(), e.standardError().doubleValue(), e.samples()))
-        .orElse(null);
+    CountFields count = CountFields.of(info.size().count());
     return new RunResult(out.status(), out.stopReason(), out.result().value(), Json.num(out.result().bound()),
         Json.num(out.result().gap()), out.iterations(), out.columnsGenerated(), out.master().columns().size(),
-        exact ? count.upper().toString() : null, exact ? null : count.upper().toString(),
-        exact || count.lower().signum() == 0 ? null : count.lower().toString(), estimate, info.elapsedMs(),
+        count.exact(), count.atMost(), count.atLeast(), count.estimate(), info.elapsedMs(),
         new RunResult.CatalogRef(cat.name(), info.catalogFile(), info.catalogSha256(), cat.currency(), cat.period()),
         info.pricer(), offers, res, segs, rounds, null, null, null);
   }
@@ -105,27 +99,6 @@ public final class ResultWriter {
 
   public static void write(Path runDir, RunResult result) throws IOException {
     result.write(runDir);
-  }
-
-  /**
-   * {@code field}: the count as a decimal string when exact, else null with {@code fieldAtMost} and
-   * {@code fieldAtLeast} (decimal strings) and, when sampled, {@code fieldEstimate}: value, standard
-   * error and number of samples.
-   */
-  public static void putCount(ObjectNode n, String field, SpaceCount count) {
-    if (count.exact()) {
-      n.put(field, count.upper().toString());
-      return;
-    }
-    n.putNull(field);
-    n.put(field + "AtMost", count.upper().toString());
-    n.put(field + "AtLeast", count.lower().toString());
-    count.estimate().ifPresent(e -> {
-      ObjectNode o = n.putObject(field + "Estimate");
-      o.put("value", e.value().doubleValue());
-      o.put("standardError", e.standardError().doubleValue());
-      o.put("samples", e.samples());
-    });
   }
 
   /** A dual value as written: null when the run has none (nothing was solved), never a made-up 0. */
