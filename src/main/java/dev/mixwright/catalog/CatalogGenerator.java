@@ -214,7 +214,7 @@ public final class CatalogGenerator {
             }
           }
           margin[g][o] = price - cost;
-          opts.add(new Option("o" + (o + 1), null, price, cost, uses));
+          opts.add(new Option("o" + (o + 1), null, price, cost, uses, 0.0)); // the generator draws no tooling
         }
         out.add(new Group(groupId[g], null, !optional[g], opts));
       }

@@ -17,17 +17,17 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * An option table in a CSV file next to the catalog: a header {@code id,price,cost[,label]
+ * An option table in a CSV file next to the catalog: a header {@code id,price,cost[,label][,tooling]
  * [,uses.<resource>...]} (columns in any order) and one row per option. Problems are named {@code
  * groups[4].optionsFile heatpump-range-casings.csv line 5 column uses.brazing}; lines count from 1 at the header, blank
- * lines are skipped, cells are trimmed, an empty {@code uses.*} cell means zero use.
+ * lines are skipped, cells are trimmed, an empty {@code uses.*} or {@code tooling} cell means zero.
  */
 final class CsvOptionTable {
   private static final CsvMapper CSV = new CsvMapper();
   private static final java.util.regex.Pattern COLUMN_NAME =
       java.util.regex.Pattern.compile("[A-Za-z0-9_.\\-]{1,60}");
-  private static final String HEADER_FORM = "id,price,cost[,label][,uses.<resource>...]";
-  private static final List<String> FIXED = List.of("id", "price", "cost", "label");
+  private static final String HEADER_FORM = "id,price,cost[,label][,tooling][,uses.<resource>...]";
+  private static final List<String> FIXED = List.of("id", "price", "cost", "label", "tooling");
 
   private CsvOptionTable() {}
 
@@ -102,7 +102,7 @@ final class CsvOptionTable {
         reader.resourceIds().forEach(r -> allowed.add("uses." + r));
         reader.problem(
             colAt,
-            "unknown column (columns: id, price, cost, label, uses.<resource> — here "
+            "unknown column (columns: id, price, cost, label, tooling, uses.<resource> — here "
                 + Where.list(allowed)
                 + ")"
                 + Where.didYouMean(name, allowed));
@@ -230,6 +230,17 @@ final class CsvOptionTable {
             "the variable cost this option adds, e.g. 210",
             true,
             Figure.MONEY);
+    Integer toolingColumn = column.get("tooling");
+    Double tooling = toolingColumn == null
+        ? Double.valueOf(0)
+        : cell(reader, lineAt, "tooling", cells.get(toolingColumn),
+            "the one-off cost of offering this option at all, e.g. 40000 (an empty cell means none)", false,
+            Figure.MONEY);
+    if (toolingColumn != null && tooling == null) {
+      // an empty cell means no tooling; a bad one has been named
+      ok &= cells.get(toolingColumn).isEmpty();
+      tooling = 0.0;
+    }
     Integer labelColumn = column.get("label");
     String label =
         labelColumn == null || cells.get(labelColumn).isEmpty() ? null : cells.get(labelColumn);
@@ -259,7 +270,7 @@ final class CsvOptionTable {
         uses.put(u.getKey(), x);
       }
     }
-    return ok && price != null && cost != null ? new Option(id, label, price, cost, uses) : null;
+    return ok && price != null && cost != null ? new Option(id, label, price, cost, uses, tooling) : null;
   }
 
   private static Double cell(

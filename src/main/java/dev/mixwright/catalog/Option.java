@@ -34,10 +34,6 @@ public record Option(
     this(id, label, List.of(price), cost, uses, tooling);
   }
 
-  public Option(String id, String label, double price, double cost, Map<String, Double> uses) {
-    this(id, label, List.of(price), cost, uses, 0.0);
-  }
-
   /**
    * This option with other price points and every other field kept. Scenarios change options only
    * through here and {@link #withCost}, so a field added to this record is carried over in one place.

@@ -41,7 +41,7 @@ class CatalogLoaderTest {
     assertTrue(frame.required(), "required defaults to true");
     assertFalse(c.groups().get(1).required());
     assertEquals(
-        new Option("low", null, 480, 190, Map.of("weld", 1.4, "paint", 0.5)),
+        new Option("low", null, 480, 190, Map.of("weld", 1.4, "paint", 0.5), 0.0),
         frame.options().get(1));
     assertEquals(Map.of("frame", List.of("low")), c.rules().get(0).when());
     assertEquals(

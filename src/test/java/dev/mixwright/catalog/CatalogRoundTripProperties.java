@@ -92,7 +92,7 @@ class CatalogRoundTripProperties {
             uses.put(r.id(), nonNegative(rnd));
           }
         }
-        options.add(new Option(oid, text(rnd), nonNegative(rnd), nonNegative(rnd), uses));
+        options.add(new Option(oid, text(rnd), nonNegative(rnd), nonNegative(rnd), uses, 0.0));
       }
       groups.add(new Group(gid, text(rnd), rnd.nextBoolean(), options));
     }

@@ -59,7 +59,7 @@ class ChoiceSchemaTest {
     assertFalse(c.hasChoosingSegments());
     assertFalse(c.hasPricePoints());
     assertEquals(
-        new Option("step", null, 520, 210, Map.of("weld", 1.6)), c.groups().get(0).options().get(0));
+        new Option("step", null, 520, 210, Map.of("weld", 1.6), 0.0), c.groups().get(0).options().get(0));
     assertEquals(new Segment("families", null, 2500, 1, Map.of(), Map.of()), c.segments().get(1));
   }
 

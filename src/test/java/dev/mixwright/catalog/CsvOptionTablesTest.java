@@ -61,6 +61,24 @@ class CsvOptionTablesTest {
   private static final String PREFIX = "groups[2].optionsFile frame.csv";
 
   @Test
+  void aToolingColumnLoadsLikeToolingInline() throws Exception {
+    Catalog fromCsv = load(CATALOG, "id,price,cost,tooling\nstep,520,210,40000\nlow,480,190,\ncargo,900,420,0\n");
+    Catalog inline = load(CATALOG.replace("    optionsFile: frame.csv\n", """
+    options:
+      - {id: step, price: 520, cost: 210, tooling: 40000}
+      - {id: low, price: 480, cost: 190}
+      - {id: cargo, price: 900, cost: 420}
+"""), "unused\n");
+    assertEquals(inline.groups().get(2).options(), fromCsv.groups().get(2).options());
+    assertEquals(40000, fromCsv.groups().get(2).options().get(0).tooling());
+    assertEquals(0, fromCsv.groups().get(2).options().get(1).tooling(), "an empty cell means no tooling");
+
+    List<CatalogProblem> ps = problems("id,price,cost,tooling\nstep,520,210,lots\nlow,480,190,-5\n");
+    says(at(ps, PREFIX + " line 2 column tooling"), "not a number");
+    says(at(ps, PREFIX + " line 3 column tooling"), "-5");
+  }
+
+  @Test
   void optionTableLoadsLikeTheSameOptionsInline() throws Exception {
     String csv =
         "\uFEFFid,price,cost,label,uses.weld,uses.paint\n"
@@ -94,7 +112,7 @@ class CsvOptionTablesTest {
     Group frame = c.groups().get(2);
     assertEquals(
         List.of("cargo", "step", "low"), frame.options().stream().map(Option::id).toList());
-    assertEquals(new Option("step", null, 520, 210, Map.of()), frame.options().get(1));
+    assertEquals(new Option("step", null, 520, 210, Map.of(), 0.0), frame.options().get(1));
   }
 
   @Test
@@ -144,7 +162,7 @@ class CsvOptionTablesTest {
     says(
         at(ps, PREFIX + " line 1 column colour"),
         "unknown column",
-        "id, price, cost, label, uses.<resource>",
+        "id, price, cost, label, tooling, uses.<resource>",
         "uses.weld");
     says(
         at(ps, PREFIX + " line 1"),

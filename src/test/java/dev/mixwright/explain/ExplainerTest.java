@@ -20,9 +20,9 @@ class ExplainerTest {
 
   private static Catalog catalog() {
     Group body = new Group("body", null, true, List.of(
-        new Option("a", null, 10, 5, Map.of()), new Option("b", null, 12, 6, Map.of())));
+        new Option("a", null, 10, 5, Map.of(), 0.0), new Option("b", null, 12, 6, Map.of(), 0.0)));
     Group trim = new Group("trim", null, true, List.of(
-        new Option("x", null, 3, 1, Map.of()), new Option("y", null, 4, 1, Map.of())));
+        new Option("x", null, 3, 1, Map.of(), 0.0), new Option("y", null, 4, 1, Map.of(), 0.0)));
     List<Rule> rules = List.of(
         // names body=b together with trim=x: forbids that pair, not body=b as such
         new Rule("pair", Map.of(), Map.of(), Map.of("body", List.of("b"), "trim", List.of("x"))),

@@ -63,7 +63,7 @@ class PriceRangeTest {
     Group g = book.groups().get(0);
     List<Option> opts = new ArrayList<>();
     for (Option o : g.options()) {
-      opts.add(o.id().equals(product) ? new Option(o.id(), o.label(), price, o.cost(), o.uses()) : o);
+      opts.add(o.id().equals(product) ? new Option(o.id(), o.label(), price, o.cost(), o.uses(), 0.0) : o);
     }
     Catalog c = new Catalog(book.format(), book.name(), book.currency(), book.period(), book.resources(),
         List.of(new Group(g.id(), g.label(), g.required(), opts)), book.rules(), book.segments(),

@@ -136,8 +136,8 @@ class ChoicePortfolioTest {
   @Test
   void fixedOfferSetSellsTheLogitShares() {
     Map<String, Double> uses = Map.of("bench", 1.0);
-    Group g = new Group("hull", null, true, List.of(new Option("a", null, 100, 60, uses),
-        new Option("b", null, 100, 60, uses), new Option("c", null, 100, 60, uses)));
+    Group g = new Group("hull", null, true, List.of(new Option("a", null, 100, 60, uses, 0.0),
+        new Option("b", null, 100, 60, uses, 0.0), new Option("c", null, 100, 60, uses, 0.0)));
     Map<String, Double> partWorth = Map.of("hull.a", 0.2, "hull.b", 1.0, "hull.c", -0.3);
     double buyers = 1000;
     double stayOut = 0.5;

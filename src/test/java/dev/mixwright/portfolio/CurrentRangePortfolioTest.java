@@ -35,9 +35,9 @@ class CurrentRangePortfolioTest {
    */
   private static Catalog catalog(double hours, double south, double f, double lot, List<CurrentVariant> current) {
     List<Group> groups = List.of(new Group("model", null, true, List.of(
-        new Option("a", null, 30, 10, Map.of("hours", 1.0)),
-        new Option("b", null, 25, 10, Map.of("hours", 1.0)),
-        new Option("c", null, 8, 10, Map.of("hours", 1.0)))));
+        new Option("a", null, 30, 10, Map.of("hours", 1.0), 0.0),
+        new Option("b", null, 25, 10, Map.of("hours", 1.0), 0.0),
+        new Option("c", null, 8, 10, Map.of("hours", 1.0), 0.0))));
     List<Segment> segments = List.of(
         new Segment("north", null, 80, 1.0, Map.of("model", List.of("a", "c")), Map.of()),
         new Segment("south", null, south, 1.0, Map.of("model", List.of("b")), Map.of()));

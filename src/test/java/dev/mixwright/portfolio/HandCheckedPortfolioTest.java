@@ -29,10 +29,10 @@ class HandCheckedPortfolioTest {
     List<Group> groups = new ArrayList<>();
     groups.add(new Group("model", null, true, List.of(
         new Option("a", null, 30, 10, Map.of("hours", 1.0), toolingA),
-        new Option("b", null, 25, 10, Map.of("hours", 1.0)))));
+        new Option("b", null, 25, 10, Map.of("hours", 1.0), 0.0))));
     if (finishes) {
       groups.add(new Group("finish", null, true, List.of(
-          new Option("plain", null, 0, 0, Map.of()),
+          new Option("plain", null, 0, 0, Map.of(), 0.0),
           new Option("gloss", null, 5, 0, Map.of(), 150))));
     }
     List<Segment> segments = List.of(

@@ -152,7 +152,7 @@ final class PricingCases {
                 null,
                 cost + rnd.nextInt(60) - 10,
                 cost,
-                Map.of("r0", (double) rnd.nextInt(4), "r1", (double) rnd.nextInt(3))));
+                Map.of("r0", (double) rnd.nextInt(4), "r1", (double) rnd.nextInt(3)), 0.0));
       }
       gs.add(new Group("g" + g, null, true, opts));
     }

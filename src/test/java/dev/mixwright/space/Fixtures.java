@@ -18,7 +18,7 @@ final class Fixtures {
   static Group group(String id, boolean required, String... optionIds) {
     List<Option> opts = new ArrayList<>();
     for (String o : optionIds) {
-      opts.add(new Option(o, null, 100, 60, Map.of()));
+      opts.add(new Option(o, null, 100, 60, Map.of(), 0.0));
     }
     return new Group(id, null, required, opts);
   }

@@ -71,7 +71,7 @@ public final class RandomCatalogs {
             uses.put("r" + r, (double) rnd.nextInt(5));
           }
         }
-        opts.add(new Option("o" + k, null, price, cost, uses));
+        opts.add(new Option("o" + k, null, price, cost, uses, 0.0));
       }
       gs.add(new Group("g" + g, null, required, opts));
     }

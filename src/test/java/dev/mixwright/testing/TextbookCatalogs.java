@@ -32,8 +32,8 @@ public final class TextbookCatalogs {
     Group product =
         new Group("product", null, true,
             List.of(
-                new Option("doors", null, 3, 0, Map.of("plant1", 1.0, "plant3", 3.0)),
-                new Option("windows", null, 5, 0, Map.of("plant2", 2.0, "plant3", 2.0))));
+                new Option("doors", null, 3, 0, Map.of("plant1", 1.0, "plant3", 3.0), 0.0),
+                new Option("windows", null, 5, 0, Map.of("plant2", 2.0, "plant3", 2.0), 0.0)));
     List<Segment> segs = List.of(new Segment("market", null, 1000, 1.0, Map.of(), Map.of()));
     return new Catalog(1, "Wyndor Glass", "kUSD", "week", res, List.of(product), List.of(), segs,
         Optional.empty());
@@ -58,11 +58,11 @@ public final class TextbookCatalogs {
         new Group("product", null, true,
             List.of(
                 new Option("desk", null, 60, 0,
-                    Map.of("lumber", 8.0, "finishing", 4.0, "carpentry", 2.0)),
+                    Map.of("lumber", 8.0, "finishing", 4.0, "carpentry", 2.0), 0.0),
                 new Option("table", null, tableMargin, 0,
-                    Map.of("lumber", 6.0, "finishing", 2.0, "carpentry", 1.5)),
+                    Map.of("lumber", 6.0, "finishing", 2.0, "carpentry", 1.5), 0.0),
                 new Option("chair", null, 20, 0,
-                    Map.of("lumber", 1.0, "finishing", 1.5, "carpentry", 0.5))));
+                    Map.of("lumber", 1.0, "finishing", 1.5, "carpentry", 0.5), 0.0)));
     Segment tables =
         limitAsBound
             ? new Segment("tables", null, 10, 0.5, Map.of("product", List.of("table")), Map.of())
