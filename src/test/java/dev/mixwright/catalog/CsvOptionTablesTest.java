@@ -167,7 +167,7 @@ class CsvOptionTablesTest {
     says(
         at(ps, PREFIX + " line 1"),
         "missing column 'cost'",
-        "id,price,cost[,label][,uses.<resource>...]");
+        "id,price,cost[,label][,tooling][,uses.<resource>...]");
     says(at(problems("id;price;cost\nstep;1;1\n"), PREFIX + " line 1"), "commas, not semicolons");
     says(
         at(problems("id,price,cost,id\nstep,1,1,x\n"), PREFIX + " line 1 column id"),
