@@ -326,7 +326,7 @@ public final class RunSession {
       throws IOException {
     Path runDir = cp.folder().dir();
     VariantSpace space = lp.space();
-    SpaceSurvey facts = SpaceSurvey.of(space);
+    SpaceSurvey facts = SpaceSurvey.of(space, lp.cg()::limitReached);
     // nothing waits for the count: it runs beside the loop and is taken as far as it got at the end
     CountJob count = CountJob.whole(space, CountJob.BACKGROUND_BUDGET_MS);
     watcher.loop().forEach(lp.cg()::addListener);
