@@ -274,10 +274,12 @@ public final class ColumnGeneration {
   private record Round(List<Column> found, boolean exact, RoundBound bound) {}
 
   private Optional<Ending> verdict(MasterSolution sol, Round round, IterationRecord rec) {
-    boolean dualsProven = ValueBound.gap(sol.objective(), round.bound().lasdon(), gapFloor) <= settings.gapTolerance();
+    boolean dualsProven = new ValueBound(sol.objective(), round.bound().lasdon(), gapFloor)
+        .within(settings.gapTolerance());
     // Optimal only when the bound itself meets the objective: an exact round that finds nothing to
     // enter proves no more than its bound (columns paying less than the entry tolerance stay out).
-    if (dualsProven || (round.found().isEmpty() && round.exact() && rec.gap() <= settings.gapTolerance())) {
+    if (dualsProven || (round.found().isEmpty() && round.exact()
+        && new ValueBound(sol.objective(), rec.bound(), gapFloor).within(settings.gapTolerance()))) {
       return Optional.of(new Ending(RunStatus.OPTIMAL, ""));
     }
     if (round.found().isEmpty() && round.exact()) {
