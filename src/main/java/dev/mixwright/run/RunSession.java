@@ -106,6 +106,9 @@ public final class RunSession {
       throw new InputError(r.runDir() + " already holds a run; choose another --out folder, or add --replace to"
           + " overwrite it (or continue it with 'mixwright resume " + r.runDir() + "')");
     }
+    if (r.replace()) {
+      RunStart.refuseUnlessReplaceable(folder); // before the lock file is made there
+    }
     try (RunLock lock = RunStart.lock(folder)) {
       RunManifest.Source scenario = r.scenarioFile()
           .map(f -> RunStart.source(f, Inputs.sha256(f))).orElse(null);
