@@ -2,6 +2,7 @@ package dev.mixwright.cli;
 
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.catalog.Where;
 import dev.mixwright.run.InputError;
 import dev.mixwright.run.RunOutcome;
 import dev.mixwright.runfolder.RunFileDamaged;
@@ -26,6 +27,30 @@ public final class ExitCodes {
     return o instanceof RunOutcome.AlreadyOptimal ? OK : STOPPED;
   }
 
+  /** Longest line of a message shown: far beyond any message of ours, short beside a file's contents. */
+  private static final int MAX_LINE = 2_000;
+
+  /**
+   * A message as it may reach a terminal: line by line, every control character (a terminal escape
+   * code in a path or argument the user typed, or in a file name) shown as {@code \u001B}.
+   */
+  static String shown(String message) {
+    return java.util.Arrays.stream(String.valueOf(message).split("\n", -1))
+        .map(line -> Where.printable(line, MAX_LINE)).collect(java.util.stream.Collectors.joining("\n"));
+  }
+
+  /** picocli's refusal of a command line, its message shown as {@link #shown} allows, then the usage. */
+  static int invalid(CommandLine.ParameterException e, String[] args) {
+    CommandLine cl = e.getCommandLine();
+    PrintWriter err = cl.getErr();
+    err.println(shown(e.getMessage()));
+    if (!CommandLine.UnmatchedArgumentException.printSuggestions(e, err)) {
+      cl.usage(err, cl.getColorScheme());
+    }
+    err.flush();
+    return cl.getCommandSpec().exitCodeOnInvalidInput();
+  }
+
   static int handle(Exception e, CommandLine cl, ParseResult parsed) {
     PrintWriter err = cl.getErr();
     if (e instanceof CatalogException ce) {
@@ -39,16 +64,16 @@ public final class ExitCodes {
     }
     Throwable damaged = e instanceof java.io.UncheckedIOException u ? u.getCause() : e;
     if (damaged instanceof RunFileDamaged) {
-      err.println("mixwright: " + damaged.getMessage());
+      err.println("mixwright: " + shown(damaged.getMessage()));
       err.flush();
       return BAD_INPUT;
     }
     if (e instanceof InputError) {
-      err.println("mixwright: " + e.getMessage());
+      err.println("mixwright: " + shown(e.getMessage()));
       err.flush();
       return BAD_INPUT;
     }
-    err.println("mixwright: internal fault: " + e);
+    err.println("mixwright: internal fault: " + shown(String.valueOf(e)));
     if (System.getenv("MIXWRIGHT_DEBUG") != null) {
       e.printStackTrace(err);
     } else {

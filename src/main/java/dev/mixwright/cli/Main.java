@@ -40,6 +40,7 @@ public final class Main implements Runnable {
     cl.setOut(out);
     cl.setErr(err);
     cl.setExecutionExceptionHandler(ExitCodes::handle);
+    cl.setParameterExceptionHandler(ExitCodes::invalid);
     int code = cl.execute(args);
     out.flush();
     err.flush();

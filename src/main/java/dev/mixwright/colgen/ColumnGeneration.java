@@ -2,6 +2,7 @@ package dev.mixwright.colgen;
 
 import dev.mixwright.master.MasterSolution;
 import dev.mixwright.master.RestrictedMaster;
+import dev.mixwright.pricing.Cancellation;
 import dev.mixwright.pricing.PricedVariant;
 import dev.mixwright.pricing.Pricer;
 import dev.mixwright.pricing.PricingOutcome;
@@ -91,6 +92,14 @@ public final class ColumnGeneration {
   /** Differences below this are round-off for this catalog; see {@link ValueBound#floorOf}. */
   private final double gapFloor;
   private LoopCounters counters = new LoopCounters();
+  /** Rounds ended so far, for the stop criteria asked inside a round. */
+  private volatile int roundsDone;
+  /**
+   * The stop criteria (time limit, signal) asked from inside each pricing search, so that a limit
+   * ends a round over a huge space within a few thousand search nodes and not at the round's end.
+   * Asked at the rounds already ended, so an iteration limit never cuts the round it allows.
+   */
+  private final Cancellation cancel = Cancellation.signalOr(this::limitReached);
   private RunStats stats;
   private int priorIterations;
   private double priorBound = Double.POSITIVE_INFINITY;
@@ -171,6 +180,14 @@ public final class ColumnGeneration {
     return (System.nanoTime() - startNanos) / 1_000_000;
   }
 
+  /**
+   * Whether a stop criterion (the time limit, a signal, the caller's own) fires now, at the rounds
+   * ended so far: for work before the loop (the survey of what is sellable) and inside its rounds.
+   */
+  public boolean limitReached() {
+    return stop.fired(Progress.at(roundsDone, elapsedMs()));
+  }
+
   public SolveOutcome run() {
     return run(List.of());
   }
@@ -183,6 +200,7 @@ public final class ColumnGeneration {
   /** Runs the loop, starting from {@code warmStart} columns (e.g. from an earlier run) plus the seed. */
   public SolveOutcome run(List<Column> warmStart) {
     counters = new LoopCounters();
+    roundsDone = priorIterations;
     try (RestrictedMaster master = new RestrictedMaster(capacity, demand, chooses)) {
       MasterPool pool = new MasterPool(space, master, counters);
       int warmCount = seed(pool, warmStart);
@@ -232,6 +250,7 @@ public final class ColumnGeneration {
           elapsedMs());
       history.add(rec);
       listeners.forEach(l -> l.iteration(rec));
+      roundsDone = iteration;
       Optional<Ending> end = verdict(sol, round, rec);
       if (end.isPresent()) {
         return ended(new SolveOutcome(end.get().status(), end.get().reason(),
@@ -255,10 +274,12 @@ public final class ColumnGeneration {
   private record Round(List<Column> found, boolean exact, RoundBound bound) {}
 
   private Optional<Ending> verdict(MasterSolution sol, Round round, IterationRecord rec) {
-    boolean dualsProven = ValueBound.gap(sol.objective(), round.bound().lasdon(), gapFloor) <= settings.gapTolerance();
+    boolean dualsProven = new ValueBound(sol.objective(), round.bound().lasdon(), gapFloor)
+        .within(settings.gapTolerance());
     // Optimal only when the bound itself meets the objective: an exact round that finds nothing to
     // enter proves no more than its bound (columns paying less than the entry tolerance stay out).
-    if (dualsProven || (round.found().isEmpty() && round.exact() && rec.gap() <= settings.gapTolerance())) {
+    if (dualsProven || (round.found().isEmpty() && round.exact()
+        && new ValueBound(sol.objective(), rec.bound(), gapFloor).within(settings.gapTolerance()))) {
       return Optional.of(new Ending(RunStatus.OPTIMAL, ""));
     }
     if (round.found().isEmpty() && round.exact()) {
@@ -266,11 +287,12 @@ public final class ColumnGeneration {
           + rec.bound() + " stays " + Math.round(rec.gap() * 1000) / 10.0 + " % above the objective; the LP"
           + " optimum is not proven"));
     }
-    if (round.found().isEmpty()) {
+    Optional<Ending> stopped = stop.check(rec).map(why -> new Ending(RunStatus.STOPPED, why));
+    if (stopped.isEmpty() && round.found().isEmpty()) {
       // Only possible with a pricer that proves nothing and finds nothing: give up honestly.
       return Optional.of(new Ending(RunStatus.STOPPED, "pricing found no column and could not prove the bound"));
     }
-    return stop.check(rec).map(why -> new Ending(RunStatus.STOPPED, why));
+    return stopped;
   }
 
   /**
@@ -295,7 +317,7 @@ public final class ColumnGeneration {
         smoothing.offer(bound.lagrangian(), y, nu);
       }
       List<Column> found = entering(outcomes, alpha, pi, mu, iteration);
-      if (alpha > 0 && found.isEmpty()) {
+      if (alpha > 0 && found.isEmpty() && !cancel.requested()) {
         counters.mispriced();
         continue;
       }
@@ -315,7 +337,7 @@ public final class ColumnGeneration {
       PricingOutcome o = null;
       if (settings.heuristicFirst() && heuristic != null) {
         long h0 = System.nanoTime();
-        o = heuristic.price(q);
+        o = heuristic.price(q.until(cancel));
         counters.heuristicPriced(System.nanoTime() - h0);
         if (o.best() <= entryTolerance) {
           o = null;
@@ -448,7 +470,7 @@ public final class ColumnGeneration {
 
   private PricingOutcome priceExact(PricingQuery q) {
     long t = System.nanoTime();
-    PricingOutcome o = exact.price(q);
+    PricingOutcome o = exact.price(q.until(cancel));
     counters.exactPriced(System.nanoTime() - t);
     return o;
   }

@@ -1,8 +1,8 @@
 package dev.mixwright.colgen;
 
 /**
- * How a solve runs. {@code gapTolerance}: stop once the gap of {@link ValueBound#gap()} (bound − objective over the larger of the two) is at
- * most this. {@code perRound}: columns asked of the pricer per segment per round. {@code timeLimitMs},
+ * How a solve runs. {@code gapTolerance}: stop once the bound meets the objective within this
+ * relative gap ({@link ValueBound#within}: relative to the figures, never to an absolute 1). {@code perRound}: columns asked of the pricer per segment per round. {@code timeLimitMs},
  * {@code maxIterations}: limits (0 for none). {@code heuristicFirst}: price with the heuristic first
  * and go exact only for segments where it finds nothing (the last round is always exact).
  * {@code smoothing}: Wentges's weight α on the best dual point found so far, 0 for none (prices at

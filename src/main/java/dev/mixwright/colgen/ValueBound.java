@@ -24,6 +24,26 @@ public record ValueBound(double value, double bound, double floor) {
     return gap(value, bound, floor);
   }
 
+  /**
+   * Whether the bound meets the value within the relative gap {@code target}: the one rule by which
+   * both stages call a result optimal or proven. The 1e-9 share forgives the last bits of round-off
+   * in a bound pruned at exactly {@link #slack}.
+   */
+  public boolean within(double target) {
+    return gap() <= target * (1 + 1e-9);
+  }
+
+  /**
+   * How far above {@code value} a bound may lie and still be {@link #within} {@code target}:
+   * target × max(|value|, floor). A search that prunes every part whose bound lies at most this far
+   * above its incumbent can call the incumbent proven by the same rule as the LP stage, since then
+   * (bound − value) / max(|value|, |bound|, floor) ≤ target. Never an absolute 1: with figures far
+   * below 1 that pruned at half the optimum.
+   */
+  public static double slack(double value, double target, double floor) {
+    return target * Math.max(Math.abs(value), Math.max(0.0, floor));
+  }
+
   /** {@link #gap(double, double, double)} without a catalog floor. */
   public static double gap(double value, double bound) {
     return gap(value, bound, 0.0);

@@ -1,6 +1,7 @@
 package dev.mixwright.portfolio;
 
 import dev.mixwright.colgen.StopCriterion;
+import dev.mixwright.colgen.ValueBound;
 import dev.mixwright.master.LpStatus;
 import dev.mixwright.master.PortfolioLp;
 import dev.mixwright.master.PortfolioLpSolution;
@@ -140,8 +141,9 @@ final class BranchAndPrice {
     }
   }
 
+  /** How far above the incumbent a bound may lie and be pruned: the stage's proof rule ({@link ValueBound#slack}). */
   private double tolerance(double value) {
-    return settings.gap() * Math.max(1.0, Math.abs(value));
+    return ValueBound.slack(value, settings.gap(), terms.gapFloor());
   }
 
   /** True when a node of this bound cannot hold a portfolio better than the incumbent by more than the gap. */

@@ -388,10 +388,12 @@ public final class IntegerStage {
       bound = Math.min(bound, Math.max(inc.value(), s.mipBound));
     }
     bound = Math.max(bound, inc.value());
-    boolean proven = (s.closed || s.survivorsProve) && ValueBound.gap(inc.value(), bound) <= settings.gap() * (1 + 1e-9);
+    // the LP stage's rule: relative to the figures, never to an absolute 1
+    ValueBound result = new ValueBound(inc.value(), bound, terms.gapFloor());
+    boolean proven = (s.closed || s.survivorsProve) && result.within(settings.gap());
     String reason = proven ? "" : whyHeuristic(s.reason);
     PortfolioOutcome o = new PortfolioOutcome(proven ? PortfolioStatus.PROVEN : PortfolioStatus.HEURISTIC, reason,
-        new ValueBound(inc.value(), bound),
+        result,
         new PortfolioOutcome.Offer(offered(space, pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
         lpBound, rx, new PortfolioOutcome.SurvivorProof(s.theta, s.added, s.complete, pool.size()),
         new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal),

@@ -2,6 +2,7 @@ package dev.mixwright.portfolio;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.PortfolioSpec;
+import dev.mixwright.colgen.ValueBound;
 import dev.mixwright.space.VariantSpace;
 
 /**
@@ -9,7 +10,8 @@ import dev.mixwright.space.VariantSpace;
  * variant, L = {@code minLot} (all segments together), the variant limit K, per-segment column
  * bound u_s = maxShare_s·demand_s and demand D_s, per-resource capacity b_r, and a tooling cost per
  * flat choice (0 when the catalog has none; paid once if any offered variant uses the choice), and
- * whether sales must be whole units.
+ * whether sales must be whole units. {@code gapFloor}: differences below it are round-off for these
+ * figures ({@link ValueBound#floorOf}), the floor of the stage's gap as of the LP stage's.
  *
  * <p>{@link #variantCap()} is the limit the bounds may use: K, tightened to ⌊Σ_s D_s / L⌋ when L &gt;
  * 0, because every offered variant sells at least L and all of them together sell at most Σ_s D_s.
@@ -22,7 +24,8 @@ public record PortfolioTerms(
     double[] demand,
     double[] capacity,
     double[] choiceCost,
-    boolean wholeUnits) {
+    boolean wholeUnits,
+    double gapFloor) {
 
   /** No limit on the number of variants. */
   public static final int UNLIMITED = Integer.MAX_VALUE;
@@ -55,7 +58,8 @@ public record PortfolioTerms(
         tooling[space.offset(g) + k] = options.get(k).tooling();
       }
     }
-    return new PortfolioTerms(p.introductionCost(), p.maxVariants(), p.minLot(), u, d, b, tooling, p.wholeUnits());
+    return new PortfolioTerms(p.introductionCost(), p.maxVariants(), p.minLot(), u, d, b, tooling, p.wholeUnits(),
+        ValueBound.floorOf(space));
   }
 
   public int segmentCount() {

@@ -114,14 +114,14 @@ final class Relaxation {
           }
         }
         boolean exact = probe.exact();
-        double gap = ValueBound.gap(z, best.value());
+        boolean closed = new ValueBound(z, best.value(), terms.gapFloor()).within(settings.gap());
         listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z, best.value(), pool.size(),
             entering.size(), "round " + round));
         if (entering.isEmpty() && exact) {
           converged = true;
           break;
         }
-        if (gap <= settings.gap() || stop.fired(clock.now(round))) {
+        if (closed || stop.fired(clock.now(round))) {
           break;
         }
         for (PricedVariant f : entering) {

@@ -59,8 +59,8 @@ public final class BranchAndBoundPricer extends SpacePricer {
     long quickBudget = Math.max(1000, tables.get().tableEntries() / 8);
     if (quickBudget < nodeLimit) {
       PricingOutcome quick = forward.price(q, quickBudget);
-      if (quick.exact()) {
-        return quick;
+      if (quick.exact() || q.mayStop(quick.found().size())) {
+        return quick; // a cancelled query gets what the quick search found, not the tables' cost
       }
     }
     return tables.get().price(q, nodeLimit);

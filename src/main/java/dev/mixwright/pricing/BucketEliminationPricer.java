@@ -289,13 +289,21 @@ public final class BucketEliminationPricer extends NodeLimitedPricer {
     w = run.w;
     budget = limit;
     for (int x : elimination) {
-      eliminate(x);
+      if (!eliminate(x)) {
+        // cancelled before the tables were filled: nothing is proven beyond what was found
+        run.leaveOpen(Double.POSITIVE_INFINITY);
+        return ended(false);
+      }
     }
     boolean complete = true;
     double root = run.constant + crossingSum(0);
     if (root > run.threshold) {
       complete = search(0, run.constant);
     }
+    return ended(complete);
+  }
+
+  private PricingOutcome ended(boolean complete) {
     PricingOutcome out = run.outcome(complete);
     w = null;
     run = null;
@@ -306,8 +314,10 @@ public final class BucketEliminationPricer extends NodeLimitedPricer {
    * Fills m_x over every assignment of its scope (an odometer over the scope's groups). Per
    * assignment the part of each incoming message's index that does not depend on x, and the choices
    * of x that the bucket's nogoods block, are found once; the loop over x's choices then only adds.
+   * False when the query was cancelled first (looked at every 4096 entries: a table of a few
+   * thousand entries over a group of thousands of choices is seconds of work).
    */
-  private void eliminate(int x) {
+  private boolean eliminate(int x) {
     int[] s = scope[x];
     double[] m = table[x];
     int base = offset[x];
@@ -330,6 +340,9 @@ public final class BucketEliminationPricer extends NodeLimitedPricer {
     Arrays.fill(partial, 0, in.length, 0);
     int[][] delta = stepDelta[x];
     for (int idx = 0; idx < m.length; idx++) {
+      if ((idx & 0xFFF) == 0xFFF && run.mayStop()) {
+        return false;
+      }
       boolean anyBlocked = false;
       for (int n : ng) {
         if (othersMatch(n, x)) {
@@ -370,6 +383,7 @@ public final class BucketEliminationPricer extends NodeLimitedPricer {
         v[h] = 0;
       }
     }
+    return true;
   }
 
   /** Whether every group of nogood n other than x holds a member choice. */

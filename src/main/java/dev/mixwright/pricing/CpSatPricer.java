@@ -52,6 +52,11 @@ public final class CpSatPricer extends SpacePricer {
     double openBound = Double.NEGATIVE_INFINITY;
     long solves = 0;
     while (true) {
+      if (solves > 0 && q.mayStop(top.size())) {
+        exact = false; // cancelled between solves: nothing proven about what is left
+        openBound = Double.POSITIVE_INFINITY;
+        break;
+      }
       double left = 0;
       if (timeLimitSeconds > 0) {
         left = timeLimitSeconds - (System.nanoTime() - start) / 1e9;

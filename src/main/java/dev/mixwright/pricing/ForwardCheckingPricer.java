@@ -256,6 +256,9 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
 
     abstract void leaf(double partial);
 
+    /** Whether the search must stop before its next node (its limit, or the query's cancellation). */
+    abstract boolean spent();
+
     /** Depth-first search below depth d; false when the node limit stopped it. */
     final boolean search(int d, double partial) {
       if (d == groups) {
@@ -276,7 +279,7 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
         if (head + restBefore <= cutoff) {
           break; // later choices weigh no more
         }
-        if (run.spent(limit)) {
+        if (spent()) {
           run.leaveOpen(head + restBefore); // covers the later siblings too
           return false;
         }
@@ -319,6 +322,11 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
       assert space.isBuildable(v) : "forward checking let a rule violation through";
       run.leaf(v);
     }
+
+    @Override
+    boolean spent() {
+      return run.spent(limit);
+    }
   }
 
   /** The best score of the tail from depth {@code from}, its own rules only; solutions in tailSol. */
@@ -328,6 +336,12 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
 
     TailOptimum(int from, long limit) {
       super(from, limit);
+    }
+
+    /** A tail search only proves a bound, so a cancelled query stops it whatever it holds. */
+    @Override
+    boolean spent() {
+      return run.boundSpent(limit);
     }
 
     @Override

@@ -16,6 +16,8 @@ final class QueryRun {
   private final VariantSpace space;
   private final int[] offset;
   private final Set<VariantKey> excluded;
+  private final Cancellation cancel;
+  private final PricingQuery query;
   private final TopK top;
   /** Nodes spent, counted by the search. */
   long nodes;
@@ -29,6 +31,8 @@ final class QueryRun {
     this.constant = q.constant();
     this.threshold = q.threshold();
     this.excluded = q.excluded();
+    this.cancel = q.cancel();
+    this.query = q;
     this.top = new TopK(q.k(), space.groupCount());
   }
 
@@ -38,14 +42,25 @@ final class QueryRun {
   }
 
   /**
-   * Whether the search must stop before its next node: the node limit is reached, or a {@link
-   * Cancellation} was requested (looked at every 4096 nodes, a few microseconds apart). A query with
-   * no threshold (the loop's seed, which needs one column per segment) is cancelled only once it holds
-   * a variant, so that a signal never makes a sellable segment look empty.
+   * Whether the search for the k best must stop before its next node: the node limit is reached, or
+   * the query's {@link Cancellation} asks (looked at every 4096 nodes, a few microseconds apart) and
+   * {@link PricingQuery#mayStop} allows it.
    */
   boolean spent(long limit) {
-    return nodes >= limit || ((nodes & 0xFFF) == 0 && Cancellation.requested()
-        && (threshold != Double.NEGATIVE_INFINITY || top.size() > 0));
+    return nodes >= limit || ((nodes & 0xFFF) == 0 && query.mayStop(top.size()));
+  }
+
+  /**
+   * {@link #spent} for a search that only proves bounds (it finds no variant to return), which may
+   * stop on cancellation whatever it holds.
+   */
+  boolean boundSpent(long limit) {
+    return nodes >= limit || ((nodes & 0xFFF) == 0 && cancel.requested());
+  }
+
+  /** Whether a search that holds what this one holds may stop now; see {@link PricingQuery#mayStop}. */
+  boolean mayStop() {
+    return query.mayStop(top.size());
   }
 
   /** Records a part left unexplored whose variants score at most {@code bound}. */

@@ -106,6 +106,9 @@ public final class RunSession {
       throw new InputError(r.runDir() + " already holds a run; choose another --out folder, or add --replace to"
           + " overwrite it (or continue it with 'mixwright resume " + r.runDir() + "')");
     }
+    if (r.replace()) {
+      RunStart.refuseUnlessReplaceable(folder); // before the lock file is made there
+    }
     try (RunLock lock = RunStart.lock(folder)) {
       RunManifest.Source scenario = r.scenarioFile()
           .map(f -> RunStart.source(f, Inputs.sha256(f))).orElse(null);
@@ -326,7 +329,7 @@ public final class RunSession {
       throws IOException {
     Path runDir = cp.folder().dir();
     VariantSpace space = lp.space();
-    SpaceSurvey facts = SpaceSurvey.of(space);
+    SpaceSurvey facts = SpaceSurvey.of(space, lp.cg()::limitReached);
     // nothing waits for the count: it runs beside the loop and is taken as far as it got at the end
     CountJob count = CountJob.whole(space, CountJob.BACKGROUND_BUDGET_MS);
     watcher.loop().forEach(lp.cg()::addListener);

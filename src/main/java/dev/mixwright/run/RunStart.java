@@ -47,6 +47,15 @@ public final class RunStart {
    * column log left from it would otherwise be taken for this run's after a crash), then
    * catalog.json and, last, run.json — the mark that the run began and can be resumed.
    */
+  /** {@link RunFolder#refuseUnlessReplaceable}, refused in words as bad input. */
+  static void refuseUnlessReplaceable(RunFolder folder) throws IOException {
+    try {
+      folder.refuseUnlessReplaceable();
+    } catch (RunFileDamaged e) {
+      throw new InputError(e.getMessage());
+    }
+  }
+
   static RunManifest begin(RunFolder folder, Catalog catalog, RunManifest.Source catalogSource,
       RunManifest.Source scenarioSource, RunManifest.Settings settings) throws IOException {
     Files.createDirectories(folder.dir());

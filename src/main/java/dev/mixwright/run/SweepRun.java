@@ -86,6 +86,9 @@ public final class SweepRun {
     header.put("definitionSha256", definition(plan, read.sha256(), r.settings()));
     SweepTable table = new SweepTable(plan, catalog, header);
 
+    if (r.replace()) {
+      RunStart.refuseUnlessReplaceable(new RunFolder(r.outDir()));
+    }
     Files.createDirectories(r.outDir());
     try {
       new RunFolder(r.outDir()).claim(RunFolder.Kind.SWEEP);

@@ -134,22 +134,32 @@ public record RunFolder(Path dir) {
   }
 
   /**
+   * What {@code --replace} may write into: a new or empty folder, or one that holds a run (besides
+   * anything else). A folder that holds other things but no run is refused, so that a mistyped --out
+   * (a home folder, /etc) never gets run files, nor loses any.
+   */
+  public void refuseUnlessReplaceable() throws IOException {
+    refuseLinks();
+    if (!Files.isDirectory(dir) || heldKind() != null) {
+      return;
+    }
+    try (var entries = Files.list(dir)) {
+      if (entries.anyMatch(p -> !RUN_FILES.contains(p.getFileName().toString()))) {
+        throw new RunFileDamaged(dir + " does not look like a run folder (no " + MANIFEST + ", " + RESULT
+            + " or " + ColumnLog.FILE + ") and is not empty; --replace only replaces runs — choose an"
+            + " empty or new --out folder");
+      }
+    }
+  }
+
+  /**
    * Removes the files a run writes, and nothing else, for {@code --replace}; refuses a folder that
    * holds other things but no run, so that a mistyped --out never empties the wrong folder.
    */
   public void clearForReplace() throws IOException {
-    refuseLinks();
+    refuseUnlessReplaceable();
     if (!Files.isDirectory(dir)) {
       return;
-    }
-    if (heldKind() == null) {
-      try (var entries = Files.list(dir)) {
-        if (entries.anyMatch(p -> !RUN_FILES.contains(p.getFileName().toString()))) {
-          throw new RunFileDamaged(dir + " does not look like a run folder (no " + MANIFEST + ", " + RESULT
-              + " or " + ColumnLog.FILE + ") and is not empty; --replace only replaces runs — choose an"
-              + " empty or new --out folder");
-        }
-      }
     }
     for (String name : RUN_FILES) {
       if (!name.equals(LOCK)) {

@@ -1,5 +1,7 @@
 package dev.mixwright.space;
 
+import java.util.function.BooleanSupplier;
+
 /** Whether some buildable variant exists within a domain: found, proven absent, or not settled. */
 public enum Existence {
   FOUND,
@@ -20,11 +22,16 @@ public enum Existence {
    * constraint propagation ({@link Feasibility}) of at most {@code nodes} nodes.
    */
   public static Existence within(VariantSpace space, boolean[] domain, long nodes) {
+    return within(space, domain, nodes, () -> false);
+  }
+
+  /** {@link #within(VariantSpace, boolean[], long)}, not settled once {@code stop} says so. */
+  public static Existence within(VariantSpace space, boolean[] domain, long nodes, BooleanSupplier stop) {
     boolean[] d = domain.clone();
     for (int f = 0; f < d.length; f++) {
       d[f] &= space.allowed(f);
     }
-    return switch (Feasibility.search(space, d, nodes)) {
+    return switch (Feasibility.search(space, d, nodes, stop)) {
       case FOUND -> FOUND;
       case NONE -> NONE;
       case UNKNOWN -> UNKNOWN;

@@ -2,6 +2,7 @@ package dev.mixwright.space;
 
 import java.util.Arrays;
 import java.util.SplittableRandom;
+import java.util.function.BooleanSupplier;
 
 /**
  * Is there one buildable variant within a domain? Backtracking search that maintains generalised
@@ -43,6 +44,7 @@ final class Feasibility {
   private boolean[] queued;
   private long nodes;
   private final long budget;
+  private BooleanSupplier stop = () -> false;
 
   private Feasibility(VariantSpace space, boolean[] domain, long budget) {
     this.space = space;
@@ -105,7 +107,16 @@ final class Feasibility {
    * @param budget most search nodes to visit; {@code Long.MAX_VALUE} for a complete answer
    */
   static Answer search(VariantSpace space, boolean[] domain, long budget) {
+    return search(space, domain, budget, () -> false);
+  }
+
+  /**
+   * {@link #search(VariantSpace, boolean[], long)} that also ends, not settled, once {@code stop}
+   * says so (asked at every node: a node propagates over whole groups, far dearer than the question).
+   */
+  static Answer search(VariantSpace space, boolean[] domain, long budget, BooleanSupplier stop) {
     Feasibility f = new Feasibility(space, domain, budget);
+    f.stop = stop;
     for (int s : f.size) {
       if (s == 0) {
         return Answer.NONE;
@@ -212,7 +223,7 @@ final class Feasibility {
   }
 
   private boolean dfs() {
-    if (++nodes > budget) {
+    if (++nodes > budget || stop.getAsBoolean()) {
       throw new OutOfBudget();
     }
     int g = nextGroup();

@@ -42,8 +42,9 @@ import java.util.function.BooleanSupplier;
  * the component is planned again; the result is then an upper bound ({@link SpaceCount.Bounded}
  * with lower bound 0), since dropping a nogood only adds variants.
  *
- * <p>Every count can be given a stop signal, polled between elimination steps and every 1024
- * table entries; {@link #count(boolean[], BooleanSupplier)} then answers empty instead of waiting.
+ * <p>Every count can be given a stop signal, polled between components, between elimination steps,
+ * every 256 rules of the first pass over them and every 1024 table entries; {@link #count(boolean[],
+ * BooleanSupplier)} then answers empty instead of waiting.
  * {@link BudgetedCount} builds bounds from both sides and an estimate on top of this.
  */
 public final class SpaceCounter {
@@ -186,6 +187,9 @@ public final class SpaceCounter {
         if (dead[i]) {
           continue;
         }
+        if ((i & 255) == 255) {
+          poll(stop); // a pass over thousands of rules on groups of thousands of choices is seconds
+        }
         boolean[] mem = space.nogood(i).member();
         int[] sc = scope[i];
         int[] next = new int[sc.length];
@@ -275,6 +279,7 @@ public final class SpaceCounter {
     }
     Deque<List<Local>> work = new ArrayDeque<>(split(live, n));
     while (!work.isEmpty()) {
+      poll(stop);
       List<Local> comp = work.pop();
       int[] groups = groupsOf(comp, n);
       Plan plan = plan(groups, comp, dsize, stop);

@@ -3,6 +3,7 @@ package dev.mixwright.space;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
+import java.util.function.BooleanSupplier;
 
 /**
  * Whether anything is buildable and whether each segment accepts a buildable variant, answered by
@@ -25,10 +26,19 @@ public record SpaceSurvey(Existence whole, List<Existence> segments, String empt
   }
 
   public static SpaceSurvey of(VariantSpace space) {
-    Existence whole = Existence.within(space, BudgetedCount.wholeSpace(space), SEARCH_NODES);
+    return of(space, () -> false);
+  }
+
+  /**
+   * {@link #of(VariantSpace)} that leaves unsettled what it has not settled once {@code stop} says so
+   * (a time limit or a signal), as it does past its node budget.
+   */
+  public static SpaceSurvey of(VariantSpace space, BooleanSupplier stop) {
+    Existence whole = Existence.within(space, BudgetedCount.wholeSpace(space), SEARCH_NODES, stop);
     List<Existence> per = new ArrayList<>();
     for (int s = 0; s < space.segmentCount(); s++) {
-      per.add(whole.none() ? Existence.NONE : Existence.within(space, BudgetedCount.segment(space, s), SEARCH_NODES));
+      per.add(whole.none() ? Existence.NONE
+          : Existence.within(space, BudgetedCount.segment(space, s), SEARCH_NODES, stop));
     }
     SpaceDiagnosis diagnosis = new SpaceDiagnosis(space);
     String reason = "";
