@@ -5,6 +5,7 @@ import dev.mixwright.catalog.CatalogProblem;
 import dev.mixwright.run.InputError;
 import dev.mixwright.run.RunOutcome;
 import dev.mixwright.runfolder.RunFileDamaged;
+import dev.mixwright.runfolder.RunFileWriteFailed;
 import java.io.PrintWriter;
 import picocli.CommandLine;
 import picocli.CommandLine.ParseResult;
@@ -38,7 +39,7 @@ public final class ExitCodes {
       return BAD_INPUT;
     }
     Throwable damaged = e instanceof java.io.UncheckedIOException u ? u.getCause() : e;
-    if (damaged instanceof RunFileDamaged) {
+    if (damaged instanceof RunFileDamaged || damaged instanceof RunFileWriteFailed) {
       err.println("mixwright: " + damaged.getMessage());
       err.flush();
       return BAD_INPUT;
