@@ -54,6 +54,19 @@ public final class Limits {
 
   private Limits() {}
 
+  /**
+   * Null when {@code x} is a sum of money a catalog may hold (|x| at most {@link #MAX_MONEY}), else the
+   * problem in words; for figures made outside a catalog file (a scenario's changes).
+   */
+  public static String moneyProblem(double x) {
+    return Checks.figureProblem(x, Checks.Figure.SIGNED_MONEY, "give a number");
+  }
+
+  /** As {@link #moneyProblem}, for quantities (capacities, demand, lots), at most {@link #MAX_QUANTITY}. */
+  public static String quantityProblem(double x) {
+    return Checks.figureProblem(x, Checks.Figure.SIGNED_QUANTITY, "give a number");
+  }
+
   /** A byte count as people read it: 8 MB. */
   static String bytes(long n) {
     return n % (1L << 20) == 0 ? (n >> 20) + " MB" : n + " bytes";
