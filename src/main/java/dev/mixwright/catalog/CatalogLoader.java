@@ -137,12 +137,39 @@ public final class CatalogLoader {
                   + "; catalog files are read up to that size, far more than a real one needs"));
     }
     if (yaml) {
+      longestLine(body, name);
       YamlShape.check(body, name, YAML_OPTIONS);
     }
     try {
       return (yaml ? YAML : JSON).readTree(body);
     } catch (JsonProcessingException e) {
       throw new CatalogException(syntaxProblem(e, name, yaml));
+    }
+  }
+
+  /** Refuses a YAML line longer than {@link Limits#MAX_YAML_LINE} before the YAML reader sees it. */
+  private static void longestLine(String body, String name) throws CatalogException {
+    int line = 1;
+    int start = 0;
+    for (int i = 0; i <= body.length(); i++) {
+      if (i == body.length() || body.charAt(i) == '\n') {
+        if (i - start > Limits.MAX_YAML_LINE) {
+          throw new CatalogException(
+              new CatalogProblem(
+                  name + " line " + line,
+                  "is "
+                      + (i - start)
+                      + " characters long; a line of a YAML file has at most "
+                      + Limits.MAX_YAML_LINE
+                      + " — break it up (ids have at most "
+                      + Limits.MAX_ID_LENGTH
+                      + " characters, texts "
+                      + Limits.MAX_TEXT_LENGTH
+                      + "), or save the catalog as .json"));
+        }
+        line++;
+        start = i + 1;
+      }
     }
   }
 

@@ -28,6 +28,13 @@ public final class Limits {
   /** Rows of one utility table, and entries of one inline {@code utility} or {@code value}. */
   public static final int MAX_UTILITY_ROWS = 100_000;
 
+  /**
+   * Longest line of a YAML file, in characters. SnakeYAML copies its look-ahead window each time it
+   * reads on inside one token or comment, so a token of n characters costs O(n^2): a 3 MB id took
+   * 10-30 s to parse (measured). 10,000 is ten times the longest label and parses in milliseconds.
+   */
+  public static final int MAX_YAML_LINE = 10_000;
+
   public static final int MAX_ID_LENGTH = 100;
   public static final int MAX_TEXT_LENGTH = 1_000;
 
@@ -46,6 +53,19 @@ public final class Limits {
   public static final double MAX_UTILITY = 1e3;
 
   private Limits() {}
+
+  /**
+   * Null when {@code x} is a sum of money a catalog may hold (|x| at most {@link #MAX_MONEY}), else the
+   * problem in words; for figures made outside a catalog file (a scenario's changes).
+   */
+  public static String moneyProblem(double x) {
+    return Checks.figureProblem(x, Checks.Figure.SIGNED_MONEY, "give a number");
+  }
+
+  /** As {@link #moneyProblem}, for quantities (capacities, demand, lots), at most {@link #MAX_QUANTITY}. */
+  public static String quantityProblem(double x) {
+    return Checks.figureProblem(x, Checks.Figure.SIGNED_QUANTITY, "give a number");
+  }
 
   /** A byte count as people read it: 8 MB. */
   static String bytes(long n) {

@@ -104,9 +104,22 @@ public final class Where {
     return "\"" + shown + "\"";
   }
 
-  /** {@code a, b, c} — or {@code (none)} for an empty list. */
+  /**
+   * {@code a, b, c} — or {@code (none)} for an empty list. Each item is cut to a short printable
+   * excerpt, so one over-long id does not fill every message that lists its neighbours.
+   */
   public static String list(Collection<String> items) {
-    return items.isEmpty() ? "(none)" : String.join(", ", items);
+    if (items.isEmpty()) {
+      return "(none)";
+    }
+    StringBuilder b = new StringBuilder();
+    for (String item : items) {
+      if (b.length() > 0) {
+        b.append(", ");
+      }
+      b.append(printable(item, Limits.MAX_ID_LENGTH));
+    }
+    return b.toString();
   }
 
   /**
@@ -116,14 +129,20 @@ public final class Where {
   public static String closest(String word, Collection<String> candidates) {
     String best = null;
     int bestDistance = Integer.MAX_VALUE;
+    int allowed = word.length() >= 5 ? 2 : 1;
+    if (word.length() > Limits.MAX_ID_LENGTH + allowed) {
+      return null; // too long to be an id: refused on its own, and the edit distance would be slow
+    }
     for (String c : candidates) {
+      if (Math.abs(c.length() - word.length()) > allowed) {
+        continue; // the edit distance is at least the difference in length
+      }
       int d = c.equalsIgnoreCase(word) ? 0 : editDistance(word, c);
       if (d < bestDistance) {
         bestDistance = d;
         best = c;
       }
     }
-    int allowed = word.length() >= 5 ? 2 : 1;
     return bestDistance <= allowed ? best : null;
   }
 

@@ -16,8 +16,9 @@ import org.yaml.snakeyaml.events.ScalarEvent;
  * into something else: tags ({@code !!set}, {@code !!binary}, {@code !custom}), which change what
  * a value is, and anchors and aliases ({@code &a}, {@code *a}, {@code <<: *a}), which can put a
  * value of the wrong type somewhere or multiply a small file into a huge tree. One pass over the
- * parser's events, O(size of the text); syntax errors are left to the tree reader, which reports
- * them with their line and column.
+ * parser's events, O(size of the text) once lines are at most {@link Limits#MAX_YAML_LINE} long
+ * (the caller checks that first: the parser is quadratic in the length of one token); syntax errors
+ * are left to the tree reader, which reports them with their line and column.
  */
 final class YamlShape {
   private YamlShape() {}

@@ -6,6 +6,7 @@ import dev.mixwright.catalog.Where;
 import dev.mixwright.run.InputError;
 import dev.mixwright.run.RunOutcome;
 import dev.mixwright.runfolder.RunFileDamaged;
+import dev.mixwright.runfolder.RunFileWriteFailed;
 import java.io.PrintWriter;
 import picocli.CommandLine;
 import picocli.CommandLine.ParseResult;
@@ -63,7 +64,7 @@ public final class ExitCodes {
       return BAD_INPUT;
     }
     Throwable damaged = e instanceof java.io.UncheckedIOException u ? u.getCause() : e;
-    if (damaged instanceof RunFileDamaged) {
+    if (damaged instanceof RunFileDamaged || damaged instanceof RunFileWriteFailed) {
       err.println("mixwright: " + shown(damaged.getMessage()));
       err.flush();
       return BAD_INPUT;

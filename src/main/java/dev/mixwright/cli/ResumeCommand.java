@@ -28,11 +28,13 @@ final class ResumeCommand extends RunDirCommand {
 
   @Mixin ProgressOption progress;
 
+  @Mixin TableReachOption tables;
+
   @Override
   public Integer call() throws Exception {
     RunSession.ResumeRequest request = new RunSession.ResumeRequest(runDir, reprice,
         gap == null ? OptionalDouble.empty() : OptionalDouble.of(gap), limits.timeLimitMs, limits.maxIterations,
-        portfolio.plan());
+        portfolio.plan(), tables.reach());
     return RunView.run(spec.commandLine(), progress.asked, session -> session.resume(request));
   }
 }

@@ -33,10 +33,12 @@ final class SolveCommand extends CatalogCommand {
 
   @Mixin ProgressOption progress;
 
+  @Mixin TableReachOption tables;
+
   @Override
   public Integer call() throws Exception {
     RunSession.SolveRequest request = new RunSession.SolveRequest(catalogFile, Optional.ofNullable(scenarioFile),
-        runDir, replace, solve.settings(), solve.loop.pricer, portfolio.plan());
+        runDir, replace, solve.settings(), solve.loop.pricer, portfolio.plan(), tables.reach());
     return RunView.run(spec.commandLine(), progress.asked, allOffers, session -> session.solve(request));
   }
 }

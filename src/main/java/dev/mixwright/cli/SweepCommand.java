@@ -62,13 +62,15 @@ final class SweepCommand extends CatalogCommand {
 
   @Mixin ProgressOption progressOption;
 
+  @Mixin TableReachOption tables;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     Boolean progress = progressOption.asked;
     SweepRun.Request request = new SweepRun.Request(catalogFile, Optional.ofNullable(sweepFile), grid, scenarioFiles,
-        outDir, loop.settings(), loop.pricer, !cold, replace);
+        outDir, loop.settings(), loop.pricer, !cold, replace, tables.reach());
     SweepRun.Outcome o;
     try (StopSignals signals = StopSignals.install(err)) {
       o = SweepRun.run(request, signals.flag(), new SweepRun.Watcher() {

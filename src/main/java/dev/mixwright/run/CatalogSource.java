@@ -4,6 +4,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
+import dev.mixwright.catalog.TableReach;
 import dev.mixwright.runfolder.Checksums;
 import dev.mixwright.runfolder.RunManifest;
 import java.io.IOException;
@@ -27,7 +28,7 @@ final class CatalogSource {
    */
   record Check(boolean missing, boolean changed, String why, Catalog current, RunManifest.Source nowSource) {}
 
-  static Check check(RunManifest m, String copyText) throws CatalogException, IOException {
+  static Check check(RunManifest m, String copyText, TableReach tables) throws CatalogException, IOException {
     Path src = Path.of(m.catalog().path());
     if (!Files.isRegularFile(src)) {
       return new Check(true, false, "the catalog file " + src + " is no longer there", null, null);
@@ -38,16 +39,16 @@ final class CatalogSource {
     }
     if (scn != null && !Checksums.sha256(scn).equals(m.scenario().sha256())) {
       return new Check(false, true, "the scenario file " + scn + " changed since the run began",
-          loadOrNull(src, scn), new RunManifest.Source(m.catalog().path(), Checksums.sha256(src)));
+          loadOrNull(src, scn, tables), new RunManifest.Source(m.catalog().path(), Checksums.sha256(src)));
     }
     String nowSha = Checksums.sha256(src);
     RunManifest.Source now = new RunManifest.Source(m.catalog().path(), nowSha);
     if (!nowSha.equals(m.catalog().sha256())) {
       String why = "the catalog file " + src + " changed since the run began (SHA-256 was "
           + m.catalog().sha256().substring(0, 12) + "…, is now " + nowSha.substring(0, 12) + "…)";
-      return new Check(false, true, why, loadOrNull(src, scn), now);
+      return new Check(false, true, why, loadOrNull(src, scn, tables), now);
     }
-    Catalog current = load(src, scn);
+    Catalog current = load(src, scn, tables);
     if (!CatalogWriter.toJson(current).equals(copyText)) {
       return new Check(false, true, "an option table (CSV file) named by the catalog file " + src
           + " changed since the run began", current, now);
@@ -56,16 +57,16 @@ final class CatalogSource {
   }
 
   /** The catalog as it loads now, the scenario applied; one that no longer loads is reported when needed. */
-  private static Catalog loadOrNull(Path src, Path scn) {
+  private static Catalog loadOrNull(Path src, Path scn, TableReach tables) {
     try {
-      return load(src, scn);
+      return load(src, scn, tables);
     } catch (CatalogException | InputError e) {
       return null;
     }
   }
 
-  static Catalog load(Path src, Path scn) throws CatalogException {
-    Catalog c = CatalogLoader.load(src);
+  static Catalog load(Path src, Path scn, TableReach tables) throws CatalogException {
+    Catalog c = CatalogLoader.load(src, tables);
     return scn == null ? c : Inputs.withScenario(c, scn);
   }
 }

@@ -3,6 +3,7 @@ package dev.mixwright.run;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.catalog.TableReach;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.ColumnGeneration;
@@ -69,16 +70,31 @@ public final class RunSession {
   public record ResumePoint(Path runDir, int session, int pooledColumns, int leftOut, int afterRound,
       long elapsedMs, double bound) {}
 
-  /** A new run of the catalog (with a scenario applied when given) into {@code runDir}. */
+  /**
+   * A new run of the catalog (with a scenario applied when given) into {@code runDir}; {@code tables}
+   * says where the catalog's tables may be (the user's choice on the command line).
+   */
   public record SolveRequest(Path catalogFile, Optional<Path> scenarioFile, Path runDir, boolean replace,
-      SolveSettings settings, PricerChoice pricer, PortfolioPlan portfolio) {}
+      SolveSettings settings, PricerChoice pricer, PortfolioPlan portfolio, TableReach tables) {
+    /** Tables in the catalog's folder only. */
+    public SolveRequest(Path catalogFile, Optional<Path> scenarioFile, Path runDir, boolean replace,
+        SolveSettings settings, PricerChoice pricer, PortfolioPlan portfolio) {
+      this(catalogFile, scenarioFile, runDir, replace, settings, pricer, portfolio, TableReach.CATALOG_FOLDER);
+    }
+  }
 
   /**
    * Continuing the run in {@code runDir}: {@code gap} overrides the run's own target; the limits
    * count from this session's start (0 for none).
    */
   public record ResumeRequest(Path runDir, boolean reprice, OptionalDouble gap, long sessionTimeMs,
-      int sessionIterations, PortfolioPlan portfolio) {}
+      int sessionIterations, PortfolioPlan portfolio, TableReach tables) {
+    /** Tables in the catalog's folder only. */
+    public ResumeRequest(Path runDir, boolean reprice, OptionalDouble gap, long sessionTimeMs,
+        int sessionIterations, PortfolioPlan portfolio) {
+      this(runDir, reprice, gap, sessionTimeMs, sessionIterations, portfolio, TableReach.CATALOG_FOLDER);
+    }
+  }
 
   private final AtomicBoolean stop;
   private final Watcher watcher;
@@ -95,7 +111,7 @@ public final class RunSession {
       throw new InputError("--pricer " + r.pricer().word() + " proves no bound; choose "
           + PricerChoice.exactWords() + " (use --heuristic-first to add the heuristic in front of an exact pricer)");
     }
-    CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile());
+    CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile(), r.tables());
     Catalog catalog = read.catalog();
     if (r.scenarioFile().isPresent()) {
       catalog = Inputs.withScenario(catalog, r.scenarioFile().get());
@@ -171,7 +187,7 @@ public final class RunSession {
     boolean copyIntact = Checksums.sha256(copyText).equals(m.catalogCopySha256());
     Catalog catalog = copyIntact ? CatalogLoader.parse(copyText, folder.catalogCopy().toString(), null) : null;
 
-    CatalogSource.Check source = CatalogSource.check(m, copyText);
+    CatalogSource.Check source = CatalogSource.check(m, copyText, r.tables());
     if (source.missing()) {
       watcher.note(source.why() + "; resuming with the catalog as solved (" + RunFolder.CATALOG_COPY + ")");
     }
@@ -189,7 +205,7 @@ public final class RunSession {
         throw new InputError(why + ", and the catalog file is gone, so there is nothing to re-price against");
       }
       catalog = source.current() != null ? source.current() : CatalogSource.load(Path.of(m.catalog().path()),
-          m.scenario() == null ? null : Path.of(m.scenario().path()));
+          m.scenario() == null ? null : Path.of(m.scenario().path()), r.tables());
       String copy = CatalogWriter.toJson(catalog);
       AtomicFiles.write(folder.catalogCopy(), copy);
       m = m.withSession("resume", "re-priced: " + why, source.nowSource(), Checksums.sha256(copy));

@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.catalog.TableReach;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.SolveSettings;
@@ -38,9 +39,13 @@ import java.util.concurrent.atomic.AtomicBoolean;
 public final class SweepRun {
   private SweepRun() {}
 
-  /** What to sweep and how; {@code grid} and {@code sweepFile} exclude each other. */
+  /**
+   * What to sweep and how; {@code grid} and {@code sweepFile} exclude each other; {@code tables} says
+   * where the catalog's tables may be (the user's choice on the command line).
+   */
   public record Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
-      Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace) {}
+      Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace,
+      TableReach tables) {}
 
   /** What the caller wants to hear while the sweep goes on. */
   public interface Watcher {
@@ -61,7 +66,7 @@ public final class SweepRun {
     if (r.sweepFile().isPresent() && !r.grid().isEmpty()) {
       throw new InputError("give the grid either with --grid or in the --sweep file, not both");
     }
-    CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile());
+    CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile(), r.tables());
     Catalog catalog = read.catalog();
     SweepPlan plan;
     try {

@@ -41,13 +41,19 @@ public final class AtomicFiles {
     // A fresh name created here (CREATE_NEW), opened without following links, then renamed over the
     // target: the rename replaces a directory entry and never writes into a link's target. A shared
     // file (an export) gets the default permissions; createTempFile would give 0600.
-    Path tmp = shared
-        ? Files.createFile(dir.resolve("." + target.getFileName() + "." + System.nanoTime() + ".tmp"))
-        : Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
+    Path tmp = null;
     try {
+      tmp = shared
+          ? Files.createFile(dir.resolve("." + target.getFileName() + "." + System.nanoTime() + ".tmp"))
+          : Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
       try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING,
           LinkOption.NOFOLLOW_LINKS)) {
-        ByteBuffer buf = ByteBuffer.wrap(bytes);
+        ByteBuffer buf = ByteBuffer.wrap(bytes, 0, bytes.length / 2);
+        while (buf.hasRemaining()) {
+          ch.write(buf);
+        }
+        WriteFaults.check(target); // a full disk fails here, half-way
+        buf = ByteBuffer.wrap(bytes, bytes.length / 2, bytes.length - bytes.length / 2);
         while (buf.hasRemaining()) {
           ch.write(buf);
         }
@@ -59,8 +65,23 @@ public final class AtomicFiles {
         Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
       }
       syncDirectory(dir);
+    } catch (IOException e) {
+      throw new RunFileWriteFailed(target, e, Files.exists(target, LinkOption.NOFOLLOW_LINKS)
+          ? "the previous " + target.getFileName() + " is unchanged" : "nothing was written in its place");
     } finally {
+      deleteQuietly(tmp);
+    }
+  }
+
+  /** Removes a temp file left by a failed write; on a failing disk that may fail too, and nothing reads it. */
+  private static void deleteQuietly(Path tmp) {
+    if (tmp == null) {
+      return;
+    }
+    try {
       Files.deleteIfExists(tmp);
+    } catch (IOException e) {
+      // a hidden .tmp file stays behind; --replace and the readers ignore it
     }
   }
 

@@ -35,6 +35,7 @@ public final class ColumnLog implements ColGenListener, AutoCloseable {
 
   private final VariantSpace space;
   private final FileChannel channel;
+  private final Path file;
   private final int session;
 
   /** A new log ({@code append} false: an earlier one is emptied) or more lines on an existing one. */
@@ -56,7 +57,7 @@ public final class ColumnLog implements ColGenListener, AutoCloseable {
     this.space = space;
     this.session = session;
     Files.createDirectories(runDir);
-    Path file = runDir.resolve(FILE);
+    file = runDir.resolve(FILE);
     boolean existed = Files.exists(file);
     if (Files.isSymbolicLink(file)) {
       throw new RunFileDamaged(file + " is a symbolic link; mixwright never writes through a link — remove it");
@@ -77,13 +78,17 @@ public final class ColumnLog implements ColGenListener, AutoCloseable {
     try {
       for (Column c : columns) {
         ByteBuffer buf = ByteBuffer.wrap(line(c, objectiveAfter, boundAfter, elapsedMs).getBytes(StandardCharsets.UTF_8));
+        WriteFaults.check(file);
         while (buf.hasRemaining()) {
           channel.write(buf);
         }
         channel.force(false);
       }
-    } catch (IOException e) {
+    } catch (JsonProcessingException e) {
       throw new UncheckedIOException(e);
+    } catch (IOException e) {
+      // the lines before are on disk and whole; a torn last line is dropped by the reader
+      throw new UncheckedIOException(new RunFileWriteFailed(file, e, "the columns logged before are kept"));
     }
   }
 

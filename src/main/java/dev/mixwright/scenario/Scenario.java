@@ -3,6 +3,7 @@ package dev.mixwright.scenario;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogProblem;
+import dev.mixwright.catalog.Limits;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.PortfolioSpec;
@@ -196,7 +197,7 @@ public record Scenario(String name, List<Change> changes) {
           }
           Resource old = resources.get(r);
           double v = a.apply(old.capacity());
-          problem = nonNegative(v, a, old.capacity(), "a capacity");
+          problem = nonNegative(v, a, old.capacity(), "a capacity", false);
           resources.set(r, new Resource(old.id(), old.label(), old.unit(), v));
         }
         case PRICE, COST -> {
@@ -221,7 +222,7 @@ public record Scenario(String name, List<Change> changes) {
           boolean price = t.field() == Field.PRICE;
           double base = price ? o.price() : o.cost();
           double v = a.apply(base);
-          problem = nonNegative(v, a, base, "a " + t.field().word);
+          problem = nonNegative(v, a, base, "a " + t.field().word, true);
           List<Option> opts = new ArrayList<>(old.options());
           if (price && o.hasPricePoints() && a.op() == Op.SET && problem == null) {
             problem = "option '" + t.option() + "' has price points " + o.prices().stream().map(Where::num).toList()
@@ -231,7 +232,7 @@ public record Scenario(String name, List<Change> changes) {
             // every price point moves by the same change; the check above covers the first, this the rest
             List<Double> points = o.prices().stream().map(a::apply).toList();
             for (int i = 1; i < points.size() && problem == null; i++) {
-              problem = nonNegative(points.get(i), a, o.prices().get(i), "a price point");
+              problem = nonNegative(points.get(i), a, o.prices().get(i), "a price point", true);
             }
             opts.set(k, o.withPrices(points));
           } else {
@@ -249,7 +250,7 @@ public record Scenario(String name, List<Change> changes) {
           boolean demand = t.field() == Field.DEMAND;
           double base = demand ? old.demand() : old.maxShare();
           double v = a.apply(base);
-          problem = demand ? nonNegative(v, a, base, "a demand")
+          problem = demand ? nonNegative(v, a, base, "a demand", false)
               : (v > 0 && v <= 1 ? null : "gives " + Where.num(v) + "; maxShare must be in (0, 1]");
           segments.set(s, new Segment(old.id(), old.label(), demand ? v : old.demand(),
               demand ? old.maxShare() : v, old.accepts(), old.value()));
@@ -286,7 +287,7 @@ public record Scenario(String name, List<Change> changes) {
             boolean intro = t.field() == Field.INTRODUCTION_COST;
             double base = intro ? p.introductionCost() : p.minLot();
             double v = a.apply(base);
-            problem = nonNegative(v, a, base, "a portfolio term");
+            problem = nonNegative(v, a, base, "a portfolio term", intro);
             portfolio = new PortfolioSpec(intro ? v : p.introductionCost(), p.maxVariants(), intro ? p.minLot() : v,
                 p.wholeUnits());
           }
@@ -315,11 +316,17 @@ public record Scenario(String name, List<Change> changes) {
         + (Where.closest(id, ids) == null ? "; its " + kind + "s are " + Where.list(ids) : "");
   }
 
-  private static String nonNegative(double v, Amount a, double base, String what) {
-    if (Double.isFinite(v) && v >= 0) {
-      return null;
+  /**
+   * Null when the changed figure is one a catalog may hold: at least 0 and within the catalog limits
+   * for money or quantities ({@link Limits}), so a scenario cannot make what the catalog's own checks
+   * would refuse (a capacity of 1e300 broke the LP solver).
+   */
+  private static String nonNegative(double v, Amount a, double base, String what, boolean money) {
+    String gives = (a.op() == Op.SET ? "" : a.text() + " of " + Where.num(base) + " ") + "gives " + Where.num(v);
+    if (!Double.isFinite(v) || v < 0) {
+      return gives + "; " + what + " must be >= 0";
     }
-    return (a.op() == Op.SET ? "" : a.text() + " of " + Where.num(base) + " ")
-        + "gives " + Where.num(v) + "; " + what + " must be >= 0";
+    String range = money ? Limits.moneyProblem(v) : Limits.quantityProblem(v);
+    return range == null ? null : gives + ", which " + range;
   }
 }
