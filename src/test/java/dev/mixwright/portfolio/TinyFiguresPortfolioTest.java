@@ -58,12 +58,12 @@ class TinyFiguresPortfolioTest {
       PortfolioOutcome o = treeStage(tiny);
       StageRuns.checkFeasible(tiny, o);
       String where = "case " + i + ", money x " + f + " (" + o.status().word() + " " + o.reason() + ", value "
-          + o.value() + ", bound " + o.bound() + ")";
+          + o.result().value() + ", bound " + o.result().bound() + ")";
       double optimum = ref.value() * f;
-      assertTrue(o.bound() >= optimum * (1 - 1e-9), where + ": bound below the optimum " + optimum);
-      assertTrue(o.status().isProven(), where + ": proven at full scale (" + big.value() + ") but not here");
+      assertTrue(o.result().bound() >= optimum * (1 - 1e-9), where + ": bound below the optimum " + optimum);
+      assertTrue(o.status().isProven(), where + ": proven at full scale (" + big.result().value() + ") but not here");
       tinyProven++;
-      assertEquals(optimum, o.value(), GAP * optimum, where);
+      assertEquals(optimum, o.result().value(), GAP * optimum, where);
     }
     assertTrue(proven >= CASES / 2, "too few cases proven at full scale to compare: " + proven);
     assertEquals(proven, tinyProven);
