@@ -45,7 +45,7 @@ public final class SweepWork implements PointWork {
   }
 
   /** The job of a sweep: the chains of at most {@code chain} points (0: one chain) not in {@code done}. */
-  static Job job(Catalog catalog, SweepPlan plan, SolveSettings settings, PricerChoice pricer, boolean warmStart,
+  public static Job job(Catalog catalog, SweepPlan plan, SolveSettings settings, PricerChoice pricer, boolean warmStart,
       int chain, Set<Integer> done) {
     byte[] shared = serialise(new Shared(CatalogWriter.toJson(catalog), plan, settings, pricer, warmStart));
     List<byte[]> points = new ArrayList<>();
@@ -79,7 +79,7 @@ public final class SweepWork implements PointWork {
   }
 
   /** The rows a chain's result holds, as the table stores them. */
-  static List<ObjectNode> rows(byte[] result) {
+  public static List<ObjectNode> rows(byte[] result) {
     try {
       List<ObjectNode> out = new ArrayList<>();
       Json.compact().readTree(result).forEach(n -> out.add((ObjectNode) n));
