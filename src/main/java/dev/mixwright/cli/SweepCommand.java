@@ -3,6 +3,7 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.engine.Engines;
+import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.engine.Tally;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.run.SweepRun;
@@ -63,6 +64,15 @@ final class SweepCommand extends CatalogCommand {
 
   @Mixin ProgressOption progressOption;
 
+  @Option(names = "--portfolio", description = "go on to the integer stage at each point, when the catalog has a"
+      + " portfolio section: the range to launch there (sweep.csv's portfolio.* columns)")
+  boolean portfolio;
+
+  @Option(names = "--portfolio-time-limit", paramLabel = "DURATION", defaultValue = "60s",
+      converter = Converters.DurationMs.class,
+      description = "with --portfolio: wall time of the integer stage at each point (default ${DEFAULT-VALUE}; 0 for none)")
+  long portfolioTimeLimitMs;
+
   @Option(names = "--engine", paramLabel = "NAME", defaultValue = Engines.LOCAL,
       description = "what solves the points: local (this machine's threads, the default) or spark (a Spark"
           + " cluster, when run through spark-submit with the spark module's jar)")
@@ -80,7 +90,8 @@ final class SweepCommand extends CatalogCommand {
     PrintWriter err = spec.commandLine().getErr();
     Boolean progress = progressOption.asked;
     SweepRun.Request request = new SweepRun.Request(catalogFile, Optional.ofNullable(sweepFile), grid, scenarioFiles,
-        outDir, loop.settings(), loop.pricer, !cold, replace, engine, chain);
+        outDir, loop.settings(), loop.pricer, !cold, replace, engine, chain,
+        portfolio ? Optional.of(PortfolioSettings.defaults().withTimeLimit(portfolioTimeLimitMs)) : Optional.empty());
     SweepRun.Outcome o;
     try (StopSignals signals = StopSignals.install(err)) {
       o = SweepRun.run(request, signals.flag(), new SweepRun.Watcher() {

@@ -12,6 +12,7 @@ import dev.mixwright.engine.Engines;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.Tally;
 import dev.mixwright.engine.Watch;
+import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
@@ -45,17 +46,18 @@ public final class SweepRun {
   /**
    * What to sweep and how; {@code grid} and {@code sweepFile} exclude each other. {@code engine} names
    * the engine that solves the points ({@link Engines}); {@code chain}: points solved one after another
-   * from each other's columns, the pieces an engine spreads (0: the whole sweep in one piece).
+   * from each other's columns, the pieces an engine spreads (0: the whole sweep in one piece);
+   * {@code integerStage}: when present, each point goes on to the integer stage with these settings.
    */
   public record Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
       Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace, String engine,
-      int chain) {
+      int chain, Optional<PortfolioSettings> integerStage) {
 
     /** On this machine's threads, in chains of the default length. */
     public Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
         Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace) {
       this(catalogFile, sweepFile, grid, scenarioFiles, outDir, settings, pricer, warmStart, replace, Engines.LOCAL,
-          SweepWork.DEFAULT_CHAIN);
+          SweepWork.DEFAULT_CHAIN, Optional.empty());
     }
   }
 
@@ -103,7 +105,8 @@ public final class SweepRun {
     header.put("pricer", r.pricer().word());
     header.put("gap", r.settings().gapTolerance());
     header.put("warmStart", r.warmStart());
-    header.put("definitionSha256", definition(plan, read.sha256(), r.settings()));
+    header.put(SweepTable.INTEGER_STAGE, r.integerStage().isPresent());
+    header.put("definitionSha256", definition(plan, read.sha256(), r.settings(), r.integerStage()));
     SweepTable table = new SweepTable(plan, catalog, header);
 
     Files.createDirectories(r.outDir());
@@ -116,7 +119,8 @@ public final class SweepRun {
       Set<Integer> done = keepEarlierRows(r, table, header, watcher);
       AtomicFiles.write(r.outDir().resolve(RunFolder.CATALOG_COPY), CatalogWriter.toJson(catalog));
       table.write(r.outDir());
-      Job job = SweepWork.job(catalog, plan, r.settings(), r.pricer(), r.warmStart(), r.chain(), done);
+      Job job = SweepWork.job(catalog, plan, r.settings(), r.pricer(), r.warmStart(),
+          r.integerStage().orElse(null), r.chain(), done);
       Tally tally = new Tally(plan.points().size() - done.size());
       int solvedNow = 0;
       try {
@@ -220,9 +224,12 @@ public final class SweepRun {
   }
 
   /** The hash that says whether an earlier sweep.json in OUT is of this very sweep. */
-  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s) {
+  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s,
+      Optional<PortfolioSettings> integerStage) {
     StringBuilder sb = new StringBuilder(catalogSha).append('\n').append(s.gapTolerance()).append('\n')
         .append(s.perRound()).append('\n');
+    // A sweep of the LP alone keeps its old hash, so its earlier rows are still kept.
+    integerStage.ifPresent(p -> sb.append("integer stage: ").append(PortfolioStep.words(p)).append('\n'));
     for (SweepPlan.Point p : plan.points()) {
       sb.append(p.index()).append(':').append(p.scenario().describe()).append('\n');
     }

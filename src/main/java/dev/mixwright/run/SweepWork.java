@@ -6,12 +6,16 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.Sweep;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.PointWork;
+import dev.mixwright.portfolio.IntegerStage;
+import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.scenario.SweepPlan;
+import dev.mixwright.space.VariantSpace;
 import java.io.ByteArrayInputStream;
 import java.io.ByteArrayOutputStream;
 import java.io.DataInputStream;
@@ -32,22 +36,29 @@ import java.util.Set;
  * order, each warm-started from the one before ({@link Sweep}), and their rows of the sweep table as
  * JSON. Everything a worker needs travels as bytes: the catalog as its JSON copy, the plan and the
  * settings serialised, a chain as its point indices. Chains are cut from the whole solve order by
- * length alone, never by the engine, so every engine computes the same chains and so the same rows.
+ * length alone, never by the engine, so every engine computes the same chains and so the same rows
+ * (an integer stage cut off by its time limit is the one exception: where it stops depends on the
+ * machine).
  */
 public final class SweepWork implements PointWork {
   /** Points per chain unless the user says otherwise: short enough to spread, long enough to warm-start. */
   public static final int DEFAULT_CHAIN = 25;
 
-  /** What every chain shares. */
-  record Shared(String catalogJson, SweepPlan plan, SolveSettings settings, PricerChoice pricer, boolean warmStart)
-      implements Serializable {
+  /** What every chain shares; {@code integerStage} null for a sweep of the LP stage alone. */
+  record Shared(String catalogJson, SweepPlan plan, SolveSettings settings, PricerChoice pricer, boolean warmStart,
+      PortfolioSettings integerStage) implements Serializable {
     private static final long serialVersionUID = 1L;
   }
 
-  /** The job of a sweep: the chains of at most {@code chain} points (0: one chain) not in {@code done}. */
+  /**
+   * The job of a sweep: the chains of at most {@code chain} points (0: one chain) not in {@code done};
+   * {@code integerStage}: its settings when each point goes on to the integer stage (catalogs with a
+   * portfolio section), else null.
+   */
   public static Job job(Catalog catalog, SweepPlan plan, SolveSettings settings, PricerChoice pricer, boolean warmStart,
-      int chain, Set<Integer> done) {
-    byte[] shared = serialise(new Shared(CatalogWriter.toJson(catalog), plan, settings, pricer, warmStart));
+      PortfolioSettings integerStage, int chain, Set<Integer> done) {
+    byte[] shared = serialise(new Shared(CatalogWriter.toJson(catalog), plan, settings, pricer, warmStart,
+        integerStage));
     List<byte[]> points = new ArrayList<>();
     for (int[] c : chains(plan.solveOrder(), chain, done)) {
       points.add(indices(c));
@@ -110,7 +121,13 @@ public final class SweepWork implements PointWork {
         .run(skip, Thread.currentThread()::isInterrupted, new Sweep.Listener() {
           @Override
           public void solved(Sweep.Row row) {
-            rows.add(rowMaker.add(row));
+            ObjectNode n = rowMaker.add(row);
+            if (s.integerStage() != null && row.outcome() != null && row.outcome().status().isOptimal()
+                && row.catalog().portfolio().isPresent()) {
+              SweepTable.putPortfolio(n, new IntegerStage(new VariantSpace(row.catalog()), s.integerStage())
+                  .stopWhen(StopCriterion.signal(Thread.currentThread()::isInterrupted)).run(row.outcome()));
+            }
+            rows.add(n);
           }
         });
     return Json.compact().writeValueAsBytes(rows);

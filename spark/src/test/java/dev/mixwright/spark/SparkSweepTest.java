@@ -75,7 +75,7 @@ class SparkSweepTest {
 
   private SweepRun.Request request(Path out, String engine) {
     return new SweepRun.Request(Path.of(STARTER), Optional.empty(), GRID, List.of(), out,
-        SolveSettings.defaults(), PricerChoice.BNB, true, false, engine, CHAIN);
+        SolveSettings.defaults(), PricerChoice.BNB, true, false, engine, CHAIN, Optional.empty());
   }
 
   @Test
@@ -97,7 +97,7 @@ class SparkSweepTest {
   void aPointThatFailsOnceIsRetriedAndCountedOnce() throws Exception {
     Catalog c = CatalogLoader.load(Path.of(STARTER));
     SweepPlan plan = Scenarios.grid(GRID, Scenario.none(), List.of(), c);
-    Job sweep = SweepWork.job(c, plan, SolveSettings.defaults(), PricerChoice.BNB, true, CHAIN, Set.of());
+    Job sweep = SweepWork.job(c, plan, SolveSettings.defaults(), PricerChoice.BNB, true, null, CHAIN, Set.of());
     Job failing = new Job(FailsFirstAttempt.class.getName(), sweep.shared(), sweep.points());
 
     Map<Integer, byte[]> expected = results(new ThreadPoolEngine(1), sweep, new int[sweep.size()], new ArrayList<>());
