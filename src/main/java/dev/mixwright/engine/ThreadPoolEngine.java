@@ -7,6 +7,7 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.LinkedBlockingQueue;
 import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.function.BooleanSupplier;
 
 /**
@@ -46,7 +47,11 @@ public final class ThreadPoolEngine implements Engine {
     if (n == 0) {
       return 0;
     }
+    if (stop.getAsBoolean()) {
+      return 0;
+    }
     LinkedBlockingQueue<Finished> finished = new LinkedBlockingQueue<>();
+    AtomicBoolean halt = new AtomicBoolean();
     ExecutorService pool = Executors.newFixedThreadPool(Math.min(threads, n), r -> {
       Thread t = new Thread(r, "mixwright-point");
       t.setDaemon(true);
@@ -57,7 +62,7 @@ public final class ThreadPoolEngine implements Engine {
       for (int i = 0; i < n; i++) {
         int point = i;
         futures.add(pool.submit(() -> {
-          if (Thread.currentThread().isInterrupted()) {
+          if (halt.get() || Thread.currentThread().isInterrupted()) {
             return;
           }
           long t0 = System.nanoTime();
@@ -75,6 +80,7 @@ public final class ThreadPoolEngine implements Engine {
       while (true) {
         if (!stopping && stop.getAsBoolean()) {
           stopping = true;
+          halt.set(true);
           futures.forEach(f -> f.cancel(true));
         }
         if (done == n || pool.isTerminated() && finished.isEmpty()) {

@@ -76,6 +76,16 @@ class OvernightCommandsTest {
   }
 
   @Test
+  void anEngineThatIsNotInTheJarIsExitTwoAndWritesNothing() throws Exception {
+    Path out = dir.resolve("on-spark");
+    CliRun r = CliRun.of("sweep", STARTER, "--grid", "rules.propane-clearance=on,off", "--out", out.toString(),
+        "--engine", "spark");
+    assertEquals(2, r.code(), r.toString());
+    assertTrue(r.err().contains("no engine named 'spark'") && r.err().contains("spark-submit"), r.err());
+    assertFalse(Files.exists(out), "nothing written");
+  }
+
+  @Test
   void aBadGridOrScenarioIsExitTwoWithThePath() throws Exception {
     CliRun r = CliRun.of("sweep", STARTER, "--grid", "resources.testbnch.capacity=1..2:1", "--out", dir.toString());
     assertEquals(2, r.code(), r.toString());

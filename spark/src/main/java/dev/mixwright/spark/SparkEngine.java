@@ -10,10 +10,12 @@ import java.util.List;
 import java.util.concurrent.LinkedBlockingQueue;
 import java.util.concurrent.TimeUnit;
 import java.util.function.BooleanSupplier;
+import org.apache.spark.ExceptionFailure;
 import org.apache.spark.SparkConf;
 import org.apache.spark.SparkContext;
 import org.apache.spark.SimpleFutureAction;
 import org.apache.spark.Success$;
+import org.apache.spark.TaskEndReason;
 import org.apache.spark.api.java.JavaRDD;
 import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.broadcast.Broadcast;
@@ -72,8 +74,7 @@ public final class SparkEngine implements Engine {
       @Override
       public void onTaskEnd(SparkListenerTaskEnd end) {
         if (end.reason() != Success$.MODULE$ && end.taskInfo() != null) {
-          events.add(new Failed(end.taskInfo().partitionId(), end.taskInfo().attemptNumber(),
-              end.reason().toString()));
+          events.add(new Failed(end.taskInfo().partitionId(), end.taskInfo().attemptNumber(), why(end.reason())));
         }
       }
     };
@@ -154,6 +155,14 @@ public final class SparkEngine implements Engine {
         watch.failed(f.point(), f.attempt(), f.why());
       }
     }
+  }
+
+  /** A failed attempt in one line: the exception and its message, or Spark's word for a lost task. */
+  private static String why(TaskEndReason reason) {
+    if (reason instanceof ExceptionFailure e) {
+      return e.className() + ": " + e.description();
+    }
+    return reason.toString();
   }
 
   private static int count(boolean[] seen) {
