@@ -115,7 +115,7 @@ final class SweepCommand extends CatalogCommand {
         @Override
         public void finished(String engineName, Tally tally) {
           if (shows(progress)) {
-            err.println("mixwright: engine " + engineName + ": " + tally.line("point"));
+            err.println("mixwright: engine " + engineName + ": " + tally.summary("point"));
             err.flush();
           }
         }

@@ -12,12 +12,19 @@ public final class Tally {
   private int done;
   private int failed;
   private long millis;
+  private final long startNanos = System.nanoTime();
+  private long firstNanos;
+  private long lastNanos;
 
   public Tally(int total) {
     this.total = total;
   }
 
   public void done(int units, long ms) {
+    lastNanos = System.nanoTime();
+    if (done == 0) {
+      firstNanos = lastNanos;
+    }
     done += units;
     millis += ms;
   }
@@ -41,6 +48,15 @@ public final class Tally {
   /** Mean wall time of a done unit on its worker, in seconds; 0 before the first. */
   public double secondsPerUnit() {
     return done == 0 ? 0 : millis / 1000.0 / done;
+  }
+
+  /**
+   * The line after the job: the counts, and when the first and the last results came in (seconds
+   * after the job was handed to the engine), which shows the engine's start apart from its pace.
+   */
+  public String summary(String unit) {
+    return done == 0 ? line(unit) : String.format(Locale.ROOT, "%s; first result after %.1f s, last after %.1f s",
+        line(unit), (firstNanos - startNanos) / 1e9, (lastNanos - startNanos) / 1e9);
   }
 
   /** E.g. {@code 12 done, 1 failed, 188 left, 0.84 s per point}. */

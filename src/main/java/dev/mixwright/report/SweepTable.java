@@ -122,10 +122,10 @@ public final class SweepTable {
   public static void putPortfolio(ObjectNode row, PortfolioOutcome o) {
     ObjectNode n = row.putObject("portfolio");
     n.put("status", o.status().word());
-    Json.putNum(n, "value", o.value());
-    Json.putNum(n, "bound", o.bound());
-    Json.putNum(n, "gap", o.gap());
-    n.put("variants", o.variants().size());
+    Json.putNum(n, "value", o.result().value());
+    Json.putNum(n, "bound", o.result().bound());
+    Json.putNum(n, "gap", o.result().gap());
+    n.put("variants", o.offer().variants().size());
   }
 
   /** Whether the header says the sweep runs the integer stage at each point (then the CSV has its columns). */

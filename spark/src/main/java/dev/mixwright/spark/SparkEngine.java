@@ -32,7 +32,7 @@ import scala.runtime.BoxedUnit;
  * the executors as they free up. The job itself travels once per executor as a broadcast. Each
  * finished partition's result is handed to the driver's {@link Watch} once, on the calling thread,
  * as it arrives; a retried or speculative second copy of a point that was already done is dropped.
- * Uses the active Spark context (spark-submit's, or a test's) and otherwise starts one: on the master
+ * Uses the active Spark context (a test's, spark-shell's) and otherwise starts one: on the master
  * that {@code spark.master} names (spark-submit's {@code --master}, or {@code -Dspark.master=...}), or
  * in local mode on every core with 4 tries a task.
  */
@@ -40,6 +40,8 @@ public final class SparkEngine implements Engine {
   static final String NAME = "spark";
   /** Tries of a task in local mode, where Spark's default is a single one. */
   static final int LOCAL_TRIES = 4;
+  /** Set on the conf of a context this engine starts, so it knows to stop it. */
+  private static final String STARTED_HERE = "spark.mixwright.startedByEngine";
 
   @Override
   public String name() {
@@ -66,9 +68,11 @@ public final class SparkEngine implements Engine {
     if (n == 0) {
       return 0;
     }
-    // The context outlives the job: a later job of the same JVM reuses it, and Spark's shutdown
-    // hook stops it when the JVM ends.
+    // A context that was running before (spark-shell's, a test's) is used and left running; one this
+    // engine starts, it stops after the job, before the JVM exits, so that a local cluster's workers
+    // are not left relaunching executors during the shutdown.
     SparkContext sc = SparkContext.getOrCreate(conf());
+    boolean ours = sc.getConf().contains(STARTED_HERE);
     LinkedBlockingQueue<Event> events = new LinkedBlockingQueue<>();
     SparkListener listener = new SparkListener() {
       @Override
@@ -105,6 +109,9 @@ public final class SparkEngine implements Engine {
       return drain(n, events, watch, stop, future);
     } finally {
       sc.removeSparkListener(listener);
+      if (ours) {
+        sc.stop();
+      }
     }
   }
 
@@ -174,7 +181,7 @@ public final class SparkEngine implements Engine {
   }
 
   private static SparkConf conf() {
-    SparkConf conf = new SparkConf().setAppName("mixwright");
+    SparkConf conf = new SparkConf().setAppName("mixwright").set(STARTED_HERE, "true");
     if (!conf.contains("spark.master")) {
       conf.setMaster("local[*," + LOCAL_TRIES + "]");
     }
