@@ -2,10 +2,12 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.colgen.ColGenListener;
-import dev.mixwright.colgen.Sweep;
+import dev.mixwright.engine.Engines;
+import dev.mixwright.portfolio.PortfolioSettings;
+import dev.mixwright.engine.Tally;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.run.SweepRun;
+import dev.mixwright.run.SweepWork;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.scenario.SweepPlan;
 import java.io.PrintWriter;
@@ -64,27 +66,59 @@ final class SweepCommand extends CatalogCommand {
 
   @Mixin TableReachOption tables;
 
+  @Option(names = "--portfolio", description = "go on to the integer stage at each point, when the catalog has a"
+      + " portfolio section: the range to launch there (sweep.csv's portfolio.* columns)")
+  boolean portfolio;
+
+  @Option(names = "--portfolio-time-limit", paramLabel = "DURATION", defaultValue = "60s",
+      converter = Converters.DurationMs.class,
+      description = "with --portfolio: wall time of the integer stage at each point (default ${DEFAULT-VALUE}; 0 for none)")
+  long portfolioTimeLimitMs;
+
+  @Option(names = "--engine", paramLabel = "NAME", defaultValue = Engines.LOCAL,
+      description = "what solves the points: local (this machine's threads, the default) or spark (a Spark"
+          + " cluster, when run through spark-submit with the spark module's jar)")
+  String engine;
+
+  @Option(names = "--chain", paramLabel = "N", defaultValue = "" + SweepWork.DEFAULT_CHAIN,
+      converter = Converters.PositiveCount.class,
+      description = "points solved one after another from each other's columns; the chains run side by side"
+          + " (default ${DEFAULT-VALUE}; the same on every engine, so the table is too)")
+  int chain;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     Boolean progress = progressOption.asked;
     SweepRun.Request request = new SweepRun.Request(catalogFile, Optional.ofNullable(sweepFile), grid, scenarioFiles,
-        outDir, loop.settings(), loop.pricer, !cold, replace, tables.reach());
+        outDir, loop.settings(), loop.pricer, !cold, replace, engine, chain,
+        portfolio ? Optional.of(PortfolioSettings.defaults().withTimeLimit(portfolioTimeLimitMs)) : Optional.empty(),
+        tables.reach());
     SweepRun.Outcome o;
     try (StopSignals signals = StopSignals.install(err)) {
       o = SweepRun.run(request, signals.flag(), new SweepRun.Watcher() {
         @Override
-        public Optional<ColGenListener> loop(SweepPlan.Point p, int nth, int total) {
-          return Optional.ofNullable(
-              Progress.choose(err, progress, String.format(Locale.ROOT, "[%d/%d] ", nth, total)));
+        public void solved(ObjectNode row, Tally tally) {
+          if (shows(progress)) {
+            err.println("  " + row.path("name").asText() + ": " + (row.path("objective").isNumber()
+                ? row.path("status").asText() + ", objective " + Numbers.money(row.path("objective").asDouble())
+                : row.path("status").asText()) + "   [" + tally.line("point") + "]");
+            err.flush();
+          }
         }
 
         @Override
-        public void solved(Sweep.Row row) {
-          if (progress != null && progress || Progress.stderrIsTerminal() && progress == null) {
-            err.println("  " + row.point().name() + ": " + (row.outcome() == null ? "invalid"
-                : row.outcome().status().word() + ", objective " + Numbers.money(row.outcome().result().value())));
+        public void failed(int points, String why, Tally tally) {
+          err.println("mixwright: a chain of " + points + " points failed (" + why + "); the engine tries it again"
+              + " if it can   [" + tally.line("point") + "]");
+          err.flush();
+        }
+
+        @Override
+        public void finished(String engineName, Tally tally) {
+          if (shows(progress)) {
+            err.println("mixwright: engine " + engineName + ": " + tally.summary("point"));
             err.flush();
           }
         }
@@ -103,6 +137,10 @@ final class SweepCommand extends CatalogCommand {
     }
     out.flush();
     return o.complete() ? ExitCodes.OK : ExitCodes.STOPPED;
+  }
+
+  private static boolean shows(Boolean progress) {
+    return progress != null && progress || Progress.stderrIsTerminal() && progress == null;
   }
 
   private static void print(PrintWriter out, SweepTable table, SweepPlan plan, Catalog catalog, int solved,

@@ -12,7 +12,8 @@ package dev.mixwright.colgen;
  */
 public record SolveSettings(
     double gapTolerance, int perRound, long timeLimitMs, int maxIterations, boolean heuristicFirst,
-    double smoothing, int retireAfter) {
+    double smoothing, int retireAfter) implements java.io.Serializable {
+  private static final long serialVersionUID = 1L;
 
   public static final double DEFAULT_GAP = 1e-6;
   /**

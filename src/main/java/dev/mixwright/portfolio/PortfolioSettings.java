@@ -11,7 +11,8 @@ import dev.mixwright.master.PortfolioMip;
  */
 public record PortfolioSettings(
     long timeLimitMs, PortfolioMip.Engine engine, int survivorLimit, int relaxationRounds, int perRound,
-    double gap) {
+    double gap) implements java.io.Serializable {
+  private static final long serialVersionUID = 1L;
 
   public static final long DEFAULT_TIME_LIMIT_MS = 60_000;
   public static final int DEFAULT_SURVIVOR_LIMIT = 3000;

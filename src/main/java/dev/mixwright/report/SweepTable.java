@@ -11,6 +11,7 @@ import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.Sweep;
+import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.scenario.Scenario;
@@ -29,10 +30,14 @@ import java.util.TreeMap;
  * the point and the one before it on the axis, (z − z_prev) / (b − b_prev): the capacity value curve,
  * from re-solves of the whole space rather than one basis. Written as {@code sweep.json} and {@code
  * sweep.csv}, both atomically, after every scenario, so a sweep cut off keeps the rows it finished.
+ * A sweep with the integer stage adds, per row, the range it would launch there ({@code portfolio}).
  */
 public final class SweepTable {
   public static final String JSON_FILE = "sweep.json";
   public static final String CSV_FILE = "sweep.csv";
+  /** The header field that says each point also ran the integer stage. */
+  public static final String INTEGER_STAGE = "integerStage";
+  private static final List<String> PORTFOLIO_FIELDS = List.of("status", "value", "bound", "gap", "variants");
 
   private final SweepPlan plan;
   private final Catalog base;
@@ -108,6 +113,24 @@ public final class SweepTable {
     }
     rows.put(p.index(), n);
     return n;
+  }
+
+  /**
+   * Adds the integer stage's answer at this point to its row: the status, the range's value and
+   * bound, their gap and the number of variants it introduces.
+   */
+  public static void putPortfolio(ObjectNode row, PortfolioOutcome o) {
+    ObjectNode n = row.putObject("portfolio");
+    n.put("status", o.status().word());
+    Json.putNum(n, "value", o.result().value());
+    Json.putNum(n, "bound", o.result().bound());
+    Json.putNum(n, "gap", o.result().gap());
+    n.put("variants", o.offer().variants().size());
+  }
+
+  /** Whether the header says the sweep runs the integer stage at each point (then the CSV has its columns). */
+  private boolean integerStage() {
+    return header.path(INTEGER_STAGE).asBoolean(false);
   }
 
   /** Units the outcome's plan sells in segment s. */
@@ -266,6 +289,9 @@ public final class SweepTable {
     for (Segment c : choosing) {
       head.add("sold." + c.id());
     }
+    if (integerStage()) {
+      PORTFOLIO_FIELDS.forEach(f -> head.add("portfolio." + f));
+    }
     if (marksBest()) {
       head.add("best");
     }
@@ -300,6 +326,9 @@ public final class SweepTable {
       }
       for (Segment c : choosing) {
         cells.add(text(n.path("segments").path(c.id()).path("sold")));
+      }
+      if (integerStage()) {
+        PORTFOLIO_FIELDS.forEach(f -> cells.add(text(n.path("portfolio").path(f))));
       }
       if (marksBest()) {
         cells.add(text(n.path("best")));

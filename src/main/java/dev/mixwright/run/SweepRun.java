@@ -7,9 +7,13 @@ import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.TableReach;
 import dev.mixwright.catalog.CatalogWriter;
-import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.SolveSettings;
-import dev.mixwright.colgen.Sweep;
+import dev.mixwright.engine.Engine;
+import dev.mixwright.engine.Engines;
+import dev.mixwright.engine.Job;
+import dev.mixwright.engine.Tally;
+import dev.mixwright.engine.Watch;
+import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
@@ -34,27 +38,33 @@ import java.util.concurrent.atomic.AtomicBoolean;
 /**
  * A sweep as the application runs it: the catalog read once, the plan built from a sweep file,
  * grid axes and scenario files, the rows of an earlier run of the same sweep kept, every other
- * point solved ({@link Sweep}) and the table rewritten after each.
+ * point solved by an engine in chains ({@link SweepWork}) and the table rewritten by this thread as
+ * each chain comes in.
  */
 public final class SweepRun {
   private SweepRun() {}
 
   /**
-   * What to sweep and how; {@code grid} and {@code sweepFile} exclude each other; {@code tables} says
-   * where the catalog's tables may be (the user's choice on the command line).
+   * What to sweep and how; {@code grid} and {@code sweepFile} exclude each other. {@code engine} names
+   * the engine that solves the points ({@link Engines}); {@code chain}: points solved one after another
+   * from each other's columns, the pieces an engine spreads (0: the whole sweep in one piece);
+   * {@code integerStage}: when present, each point goes on to the integer stage with these settings;
+   * {@code tables} says where the catalog's tables may be (the user's choice on the command line).
    */
   public record Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
-      Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace,
-      TableReach tables) {}
+      Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace, String engine,
+      int chain, Optional<PortfolioSettings> integerStage, TableReach tables) {}
 
   /** What the caller wants to hear while the sweep goes on. */
   public interface Watcher {
-    /** A listener for the loop of the nth of {@code total} points solved now. */
-    default Optional<ColGenListener> loop(SweepPlan.Point p, int nth, int total) {
-      return Optional.empty();
-    }
+    /** A point's row, as the table holds it, and the counts so far. */
+    default void solved(ObjectNode row, Tally tally) {}
 
-    default void solved(Sweep.Row row) {}
+    /** An attempt at a chain of {@code points} points failed; the engine may try it again. */
+    default void failed(int points, String why, Tally tally) {}
+
+    /** The engine is done with the job (finished, stopped or failed). */
+    default void finished(String engine, Tally tally) {}
 
     default void note(String text) {}
   }
@@ -66,6 +76,7 @@ public final class SweepRun {
     if (r.sweepFile().isPresent() && !r.grid().isEmpty()) {
       throw new InputError("give the grid either with --grid or in the --sweep file, not both");
     }
+    Engine engine = engine(r.engine());
     CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile(), r.tables());
     Catalog catalog = read.catalog();
     SweepPlan plan;
@@ -88,7 +99,8 @@ public final class SweepRun {
     header.put("pricer", r.pricer().word());
     header.put("gap", r.settings().gapTolerance());
     header.put("warmStart", r.warmStart());
-    header.put("definitionSha256", definition(plan, read.sha256(), r.settings()));
+    header.put(SweepTable.INTEGER_STAGE, r.integerStage().isPresent());
+    header.put("definitionSha256", definition(plan, read.sha256(), r.settings(), r.integerStage()));
     SweepTable table = new SweepTable(plan, catalog, header);
 
     if (r.replace()) {
@@ -104,32 +116,70 @@ public final class SweepRun {
       Set<Integer> done = keepEarlierRows(r, table, header, watcher);
       AtomicFiles.write(r.outDir().resolve(RunFolder.CATALOG_COPY), CatalogWriter.toJson(catalog));
       table.write(r.outDir());
-      Sweep sweep = new Sweep(catalog, plan, r.pricer()::create, r.settings(), r.warmStart());
-      List<Sweep.Row> rows = sweep.run(done, stop::get, new Sweep.Listener() {
-        @Override
-        public ColGenListener loopListener(SweepPlan.Point p, int nth, int total) {
-          return watcher.loop(p, nth, total).orElse(null);
-        }
-
-        @Override
-        public void solved(Sweep.Row row) {
-          table.add(row);
-          try {
-            table.write(r.outDir());
-          } catch (IOException e) {
-            throw new UncheckedIOException(e);
-          }
-          watcher.solved(row);
-        }
-      });
+      Job job = SweepWork.job(catalog, plan, r.settings(), r.pricer(), r.warmStart(),
+          r.integerStage().orElse(null), r.chain(), done);
+      Tally tally = new Tally(plan.points().size() - done.size());
+      int solvedNow = 0;
+      try {
+        solvedNow = runJob(engine, job, stop, table, r.outDir(), tally, watcher);
+      } finally {
+        watcher.finished(engine.name(), tally);
+      }
       boolean complete = table.rows().size() == plan.points().size()
           && table.rows().values().stream().noneMatch(SweepTable::stopped);
       table.bestRow().ifPresent(b -> watcher.note(String.format(java.util.Locale.ROOT,
           "best price of the sweep: %s (objective %,.2f); a segment that chooses buys less as the price"
               + " rises, so the objective is a curve over the price", b.path("name").asText(),
           b.path("objective").asDouble())));
-      return new Outcome(table, plan, catalog, rows.size(), done.size(), complete);
+      return new Outcome(table, plan, catalog, solvedNow, done.size(), complete);
     }
+  }
+
+  /** The engine a person asked for; one that is not on the class path is bad input. */
+  private static Engine engine(String name) {
+    return Engines.find(name).orElseThrow(() -> new InputError("no engine named '" + name + "' in this program"
+        + " (it has " + String.join(", ", Engines.names()) + ")"
+        + (name.equalsIgnoreCase("spark") ? "; the Spark engine runs in the jar of the spark module through"
+            + " spark-submit (README, 'Sweeps on Spark')" : "") + "; leave out --engine to use this machine's threads"));
+  }
+
+  /**
+   * Runs the job, adding each row to the table and rewriting it (atomically, by this thread alone) as
+   * each chain comes in, so a sweep cut off keeps what it finished. Returns the points solved.
+   */
+  private static int runJob(Engine engine, Job job, AtomicBoolean stop, SweepTable table, Path outDir, Tally tally,
+      Watcher watcher) throws IOException {
+    int[] solved = {0};
+    try {
+      engine.run(job, new Watch() {
+        @Override
+        public void done(int point, byte[] result, long millis) {
+          List<ObjectNode> rows = SweepWork.rows(result);
+          tally.done(rows.size(), millis);
+          rows.forEach(table::keep);
+          try {
+            table.write(outDir);
+          } catch (IOException e) {
+            throw new UncheckedIOException(e);
+          }
+          solved[0] += rows.size();
+          rows.forEach(n -> watcher.solved(n, tally));
+        }
+
+        @Override
+        public void failed(int point, int attempt, String why) {
+          int n = SweepWork.length(job.points().get(point));
+          tally.failed(n);
+          watcher.failed(n, why, tally);
+        }
+      }, stop::get);
+    } catch (UncheckedIOException e) {
+      throw e.getCause();
+    } catch (Engine.JobFailed e) {
+      throw new IllegalStateException("the sweep could not finish on the " + engine.name() + " engine: "
+          + e.getMessage() + " (" + solved[0] + " points written to " + outDir + ")", e);
+    }
+    return solved[0];
   }
 
   private static SweepPlan plan(Request r, Catalog catalog) throws CatalogException {
@@ -171,9 +221,12 @@ public final class SweepRun {
   }
 
   /** The hash that says whether an earlier sweep.json in OUT is of this very sweep. */
-  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s) {
+  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s,
+      Optional<PortfolioSettings> integerStage) {
     StringBuilder sb = new StringBuilder(catalogSha).append('\n').append(s.gapTolerance()).append('\n')
         .append(s.perRound()).append('\n');
+    // A sweep of the LP alone keeps its old hash, so its earlier rows are still kept.
+    integerStage.ifPresent(p -> sb.append("integer stage: ").append(PortfolioStep.words(p)).append('\n'));
     for (SweepPlan.Point p : plan.points()) {
       sb.append(p.index()).append(':').append(p.scenario().describe()).append('\n');
     }

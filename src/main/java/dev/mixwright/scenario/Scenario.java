@@ -11,6 +11,7 @@ import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Rule;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.catalog.Where;
+import java.io.Serializable;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -19,9 +20,11 @@ import java.util.Optional;
  * A what-if: changes to a catalog's figures and rules, each addressed by id — a resource's
  * capacity, an option's price or cost, a segment's demand or maxShare, a rule on or off, the
  * portfolio terms. {@link #applyTo} gives the changed catalog; the catalog itself never changes.
- * Read from files by {@link Scenarios}.
+ * Read from files by {@link Scenarios}. Serializable, so that a sweep's points travel to an engine's
+ * workers as they are.
  */
-public record Scenario(String name, List<Change> changes) {
+public record Scenario(String name, List<Change> changes) implements Serializable {
+  private static final long serialVersionUID = 1L;
 
   public Scenario {
     changes = List.copyOf(changes);
@@ -63,7 +66,7 @@ public record Scenario(String name, List<Change> changes) {
    * resources.testbench.capacity}, {@code options.compressor.evi.cost}, {@code segments.retrofit.demand},
    * {@code rules.propane-clearance}, {@code portfolio.minLot}.
    */
-  public record Target(Field field, String id, String option) {
+  public record Target(Field field, String id, String option) implements Serializable {
     public String path() {
       return switch (field) {
         case CAPACITY -> "resources." + id + ".capacity";
@@ -121,7 +124,7 @@ public record Scenario(String name, List<Change> changes) {
   public enum Op { SET, ADD, SCALE, ON, OFF }
 
   /** A new value: {@code 16000}, {@code +500}, {@code +10%} (factor 1.1), {@code on}. */
-  public record Amount(Op op, double value) {
+  public record Amount(Op op, double value) implements Serializable {
     public static Amount set(double v) {
       return new Amount(Op.SET, v);
     }
@@ -163,7 +166,7 @@ public record Scenario(String name, List<Change> changes) {
   }
 
   /** One change, with {@code where} it was written (a file path or a command-line option) for problems. */
-  public record Change(Target target, Amount amount, String where) {}
+  public record Change(Target target, Amount amount, String where) implements Serializable {}
 
   /** A short label of the changes, e.g. {@code resources.testbench.capacity=11000, rules.propane-clearance=off}. */
   public String describe() {

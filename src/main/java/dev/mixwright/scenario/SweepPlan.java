@@ -1,5 +1,6 @@
 package dev.mixwright.scenario;
 
+import java.io.Serializable;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -7,7 +8,9 @@ import java.util.List;
  * A set of scenarios to solve one after another: a {@code base} scenario applied to all, a grid (the
  * cross product of its axes, each a figure and the values it takes) and scenarios listed by name.
  */
-public record SweepPlan(String name, Scenario base, List<Axis> axes, List<Scenario> listed) {
+public record SweepPlan(String name, Scenario base, List<Axis> axes, List<Scenario> listed) implements Serializable {
+  private static final long serialVersionUID = 1L;
+
   /** The most grid points one sweep may have; a larger grid is almost always a typo in a step. */
   public static final int MAX_POINTS = 10_000;
 
@@ -17,7 +20,7 @@ public record SweepPlan(String name, Scenario base, List<Axis> axes, List<Scenar
   }
 
   /** One figure of the grid and its values, in order; {@code where} names it for problems. */
-  public record Axis(Scenario.Target target, List<Scenario.Amount> values, String where) {
+  public record Axis(Scenario.Target target, List<Scenario.Amount> values, String where) implements Serializable {
     public Axis {
       values = List.copyOf(values);
     }

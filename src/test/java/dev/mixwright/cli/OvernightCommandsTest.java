@@ -72,7 +72,17 @@ class OvernightCommandsTest {
     JsonNode n = Json.pretty().readTree(r.out());
     assertEquals(2, n.path("rows").size());
     assertTrue(n.path("rows").get(1).path("objective").asDouble() >= n.path("rows").get(0).path("objective").asDouble() - 1e-6);
-    assertTrue(r.err().contains("round"), "progress goes to stderr: " + r.err());
+    assertTrue(r.err().contains("2 done, 0 failed, 0 left"), "progress goes to stderr: " + r.err());
+  }
+
+  @Test
+  void anEngineThatIsNotInTheJarIsExitTwoAndWritesNothing() throws Exception {
+    Path out = dir.resolve("on-spark");
+    CliRun r = CliRun.of("sweep", STARTER, "--grid", "rules.propane-clearance=on,off", "--out", out.toString(),
+        "--engine", "spark");
+    assertEquals(2, r.code(), r.toString());
+    assertTrue(r.err().contains("no engine named 'spark'") && r.err().contains("spark-submit"), r.err());
+    assertFalse(Files.exists(out), "nothing written");
   }
 
   @Test

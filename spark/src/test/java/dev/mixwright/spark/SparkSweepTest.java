@@ -1,0 +1,162 @@
+package dev.mixwright.spark;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.engine.Engine;
+import dev.mixwright.engine.Engines;
+import dev.mixwright.engine.Job;
+import dev.mixwright.engine.ThreadPoolEngine;
+import dev.mixwright.engine.Watch;
+import dev.mixwright.run.PricerChoice;
+import dev.mixwright.run.SweepRun;
+import dev.mixwright.run.SweepWork;
+import dev.mixwright.runfolder.Json;
+import dev.mixwright.scenario.Scenario;
+import dev.mixwright.scenario.Scenarios;
+import dev.mixwright.scenario.SweepPlan;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Set;
+import java.util.concurrent.atomic.AtomicBoolean;
+import org.apache.spark.SparkConf;
+import org.apache.spark.SparkContext;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * Sweeps on a Spark cluster of two executor JVMs on this machine ({@code local-cluster[2,1,1024]}),
+ * against the same sweeps on the thread pool: the same table apart from timings, and a task that
+ * fails once is retried without losing or doubling a point.
+ */
+class SparkSweepTest {
+  static final String STARTER = "catalogs/heatpump-starter.yaml";
+  static final List<String> GRID = List.of("resources.testbench.capacity=8000..11000:1000",
+      "rules.propane-clearance=on,off");
+  static final int CHAIN = 3;
+  /** A comma outside double quotes: where a CSV line splits into cells (names hold quoted commas). */
+  static final String CELL = ",(?=(?:[^\"]*\"[^\"]*\")*[^\"]*$)";
+
+  static SparkContext spark;
+
+  @TempDir Path dir;
+
+  @BeforeAll
+  static void startCluster() throws Exception {
+    // local-cluster launches each executor through SPARK_HOME's launcher, which wants a jars folder;
+    // the classes themselves come from this JVM's class path (the pom sets SPARK_HOME here).
+    Files.createDirectories(Path.of(System.getenv("SPARK_HOME"), "jars"));
+    SparkConf conf = new SparkConf().setAppName("mixwright test").setMaster("local-cluster[2,1,1024]")
+        .set("spark.executor.memory", "512m")
+        .set("spark.executor.extraClassPath", System.getProperty("java.class.path"))
+        .set("spark.ui.enabled", "false");
+    spark = SparkContext.getOrCreate(conf);
+  }
+
+  @AfterAll
+  static void stopCluster() {
+    if (spark != null) {
+      spark.stop();
+    }
+  }
+
+  private SweepRun.Request request(Path out, String engine) {
+    return new SweepRun.Request(Path.of(STARTER), Optional.empty(), GRID, List.of(), out,
+        SolveSettings.defaults(), PricerChoice.BNB, true, false, engine, CHAIN, Optional.empty());
+  }
+
+  @Test
+  void aSweepOnTwoExecutorsWritesTheThreadPoolsTable() throws Exception {
+    Path local = dir.resolve("local");
+    Path onSpark = dir.resolve("spark");
+    SweepRun.Outcome a = SweepRun.run(request(local, Engines.LOCAL), new AtomicBoolean(), new SweepRun.Watcher() {});
+    SweepRun.Outcome b = SweepRun.run(request(onSpark, "spark"), new AtomicBoolean(), new SweepRun.Watcher() {});
+    assertTrue(a.complete() && b.complete());
+    assertEquals(8, b.solvedNow());
+    assertEquals(withoutTimes(Json.pretty().readTree(local.resolve("sweep.json").toFile())),
+        withoutTimes(Json.pretty().readTree(onSpark.resolve("sweep.json").toFile())));
+    assertEquals(csvWithoutTimes(local.resolve("sweep.csv")), csvWithoutTimes(onSpark.resolve("sweep.csv")));
+    // The chains really ran side by side on both executors, not all in the driver.
+    assertTrue(spark.getExecutorMemoryStatus().size() >= 3, "driver and two executors");
+  }
+
+  @Test
+  void aPointThatFailsOnceIsRetriedAndCountedOnce() throws Exception {
+    Catalog c = CatalogLoader.load(Path.of(STARTER));
+    SweepPlan plan = Scenarios.grid(GRID, Scenario.none(), List.of(), c);
+    Job sweep = SweepWork.job(c, plan, SolveSettings.defaults(), PricerChoice.BNB, true, null, CHAIN, Set.of());
+    Job failing = new Job(FailsFirstAttempt.class.getName(), sweep.shared(), sweep.points());
+
+    Map<Integer, byte[]> expected = results(new ThreadPoolEngine(1), sweep, new int[sweep.size()], new ArrayList<>());
+    int[] timesDone = new int[sweep.size()];
+    List<Integer> failedPoints = new ArrayList<>();
+    Map<Integer, byte[]> got = results(new SparkEngine(), failing, timesDone, failedPoints);
+
+    assertEquals(List.of(FailsFirstAttempt.POINT), failedPoints, "the one failure on purpose was heard");
+    int[] once = new int[sweep.size()];
+    Arrays.fill(once, 1);
+    assertEquals(Arrays.toString(once), Arrays.toString(timesDone), "every point done exactly once");
+    for (int p = 0; p < sweep.size(); p++) {
+      assertEquals(rowsWithoutTimes(expected.get(p)), rowsWithoutTimes(got.get(p)), "point " + p);
+    }
+  }
+
+  private static Map<Integer, byte[]> results(Engine engine, Job job, int[] timesDone, List<Integer> failed)
+      throws Engine.JobFailed {
+    Map<Integer, byte[]> out = new HashMap<>();
+    int done = engine.run(job, new Watch() {
+      @Override
+      public void done(int point, byte[] result, long millis) {
+        timesDone[point]++;
+        out.put(point, result);
+      }
+
+      @Override
+      public void failed(int point, int attempt, String why) {
+        failed.add(point);
+      }
+    }, () -> false);
+    assertEquals(job.size(), done);
+    return out;
+  }
+
+  private static List<JsonNode> rowsWithoutTimes(byte[] result) {
+    List<JsonNode> rows = new ArrayList<>();
+    for (ObjectNode n : SweepWork.rows(result)) {
+      n.remove("elapsedMs");
+      rows.add(n);
+    }
+    return rows;
+  }
+
+  private static JsonNode withoutTimes(JsonNode table) {
+    table.path("rows").forEach(r -> ((ObjectNode) r).remove("elapsedMs"));
+    return table;
+  }
+
+  /** The CSV with its elapsedMs column left out. */
+  private static List<String> csvWithoutTimes(Path csv) throws Exception {
+    List<String> lines = Files.readAllLines(csv);
+    int col = Arrays.asList(lines.get(0).split(CELL, -1)).indexOf("elapsedMs");
+    List<String> out = new ArrayList<>();
+    for (String line : lines) {
+      List<String> cells = new ArrayList<>(Arrays.asList(line.split(CELL, -1)));
+      cells.remove(col);
+      out.add(String.join(",", cells));
+    }
+    return out;
+  }
+}
