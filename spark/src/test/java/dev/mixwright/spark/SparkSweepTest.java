@@ -13,6 +13,7 @@ import dev.mixwright.engine.Engines;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.ThreadPoolEngine;
 import dev.mixwright.engine.Watch;
+import dev.mixwright.catalog.TableReach;
 import dev.mixwright.run.PricerChoice;
 import dev.mixwright.run.SweepRun;
 import dev.mixwright.run.SweepWork;
@@ -75,7 +76,8 @@ class SparkSweepTest {
 
   private SweepRun.Request request(Path out, String engine) {
     return new SweepRun.Request(Path.of(STARTER), Optional.empty(), GRID, List.of(), out,
-        SolveSettings.defaults(), PricerChoice.BNB, true, false, engine, CHAIN, Optional.empty());
+        SolveSettings.defaults(), PricerChoice.BNB, true, false, engine, CHAIN, Optional.empty(),
+        TableReach.CATALOG_FOLDER);
   }
 
   @Test
