@@ -51,7 +51,12 @@ import java.util.Optional;
  *   (the Segment's maxShare 1), a relaxation of the segment's choice rows. It is weak for such
  *   segments, which is why smoothing earns little with them; it is never wrong. Choosing columns
  *   are never retired (their row carries β), see {@link MasterPool}.
- *   Entering columns of a choosing segment are ranked per {@link ChoiceEntry}.
+ *   Entering columns of a choosing segment are chosen per {@link ChoiceEntry}; by default every
+ *   paying column of a batch that doubles while it comes back full (the best offer set at fixed
+ *   prices is revenue-ordered, so it is the top of the max-d list and may run to thousands).
+ *   {@link RestrictedMaster} solves the SBLP over the master's columns by Dantzig–Wolfe over offer
+ *   sets rather than row by row, and returns duals (π, μ, β) with exactly the properties used
+ *   above (its class comment), so nothing here depends on how it is solved.
  * </pre>
  *
  * <p>Accelerations, each a switch of {@link SolveSettings}: k columns per segment per round; a
@@ -82,6 +87,8 @@ public final class ColumnGeneration {
   private static final int RATE_PASSES = 3;
   /** Per segment, the columns the last round's rate search proposed (empty for fixed segments). */
   private final List<List<PricedVariant>> rateFound = new ArrayList<>();
+  /** Per segment, the columns asked of the pricer this round (grows for choosing segments, see {@link ChoiceEntry#GROWING}). */
+  private int[] batch;
   private final LagrangianLpBound lagrangian;
   /**
    * A column must pay more than this to enter; tiny against any catalog's margins, large against
@@ -183,6 +190,10 @@ public final class ColumnGeneration {
   /** Runs the loop, starting from {@code warmStart} columns (e.g. from an earlier run) plus the seed. */
   public SolveOutcome run(List<Column> warmStart) {
     counters = new LoopCounters();
+    batch = new int[space.segmentCount()];
+    for (int s = 0; s < batch.length; s++) {
+      batch[s] = chooses[s] ? choiceEntry.asked(settings.perRound()) : settings.perRound();
+    }
     try (RestrictedMaster master = new RestrictedMaster(capacity, demand, chooses)) {
       MasterPool pool = new MasterPool(space, master, counters);
       int warmCount = seed(pool, warmStart);
@@ -310,7 +321,7 @@ public final class ColumnGeneration {
     for (int s = 0; s < space.segmentCount(); s++) {
       // Threshold 0, so that the bound uses the best reduced cost itself; only columns that pay more
       // than the round-off tolerance enter.
-      int k = chooses[s] ? choiceEntry.asked(settings.perRound()) : settings.perRound();
+      int k = batch[s];
       PricingQuery q = ReducedCosts.query(space, s, y, nu[s], k, 0.0, pool.active(s));
       PricingOutcome o = null;
       if (settings.heuristicFirst() && heuristic != null) {
@@ -323,6 +334,10 @@ public final class ColumnGeneration {
       }
       o = o != null ? o : priceExact(q);
       outcomes.add(o);
+      if (chooses[s] && choiceEntry.grows() && o.found().size() >= k
+          && o.found().get(k - 1).reducedCost() > entryTolerance) {
+        batch[s] = choiceEntry.grown(k, settings.perRound());
+      }
       rateFound.add(chooses[s] && choiceEntry.searchesRate() && o.best() > entryTolerance
           ? rateSearch(pool, s, y, nu[s], q.weight(), o.best())
           : List.of());
@@ -415,6 +430,9 @@ public final class ColumnGeneration {
 
   /** The paying columns of choosing segment s that enter, per {@link ChoiceEntry}. */
   private List<Column> choosingEntering(List<Column> paying, int s) {
+    if (choiceEntry.grows()) {
+      return paying;
+    }
     int keep = choiceEntry.entering(settings.perRound());
     if (choiceEntry.byRate()) {
       double[] rate = new double[paying.size()];
