@@ -108,17 +108,21 @@ final class Relaxation {
         double z = sol.objective() + pool.current().constant();
         double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(z));
         List<PricedVariant> entering = new ArrayList<>();
+        double bestOutside = Double.NEGATIVE_INFINITY;
         for (PricedVariant f : probe.found()) {
+          bestOutside = Math.max(bestOutside, f.reducedCost());
           if (f.reducedCost() > entry && entering.size() < settings.perRound()) {
             entering.add(f);
           }
         }
         boolean exact = probe.exact();
-        double gap = ValueBound.gap(z, best.value());
-        listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z, best.value(), pool.size(),
-            entering.size(), "round " + round));
+        // No variant outside the pool has ψ above the variant limit's price λ: with zero duals on
+        // their rows, the master's duals are feasible for the relaxation over the whole space.
+        converged = exact && bestOutside <= sol.limitDual();
+        double gap = ValueBound.gap(z, converged ? Math.min(z, best.value()) : best.value());
+        listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z,
+            converged ? Math.min(z, best.value()) : best.value(), pool.size(), entering.size(), "round " + round));
         if (entering.isEmpty() && exact) {
-          converged = true;
           break;
         }
         if (gap <= settings.gap() || stop.fired(clock.now(round))) {
