@@ -305,7 +305,7 @@ public final class ColumnGeneration {
         bound = bound(pool, sol, outcomes, y, nu, alpha);
         smoothing.offer(bound.lagrangian(), y, nu);
       }
-      List<Column> found = entering(outcomes, alpha, pi, mu, iteration);
+      List<Column> found = entering(pool, outcomes, alpha, pi, mu, iteration);
       if (alpha > 0 && found.isEmpty()) {
         counters.mispriced();
         continue;
@@ -402,7 +402,8 @@ public final class ColumnGeneration {
   }
 
   /** The columns found that pay at the master's own duals (π, μ). */
-  private List<Column> entering(List<PricingOutcome> outcomes, double alpha, double[] pi, double[] mu, int iteration) {
+  private List<Column> entering(MasterPool pool, List<PricingOutcome> outcomes, double alpha, double[] pi, double[] mu,
+      int iteration) {
     List<Column> found = new ArrayList<>();
     for (int s = 0; s < outcomes.size(); s++) {
       List<Column> paying = new ArrayList<>();
@@ -423,15 +424,15 @@ public final class ColumnGeneration {
           paying.add(column(s, pv.choices(), iteration, d));
         }
       }
-      found.addAll(chooses[s] ? choosingEntering(paying, s) : paying);
+      found.addAll(chooses[s] ? choosingEntering(pool, paying, s, pi, mu[s]) : paying);
     }
     return found;
   }
 
   /** The paying columns of choosing segment s that enter, per {@link ChoiceEntry}. */
-  private List<Column> choosingEntering(List<Column> paying, int s) {
+  private List<Column> choosingEntering(MasterPool pool, List<Column> paying, int s, double[] pi, double mu) {
     if (choiceEntry.grows()) {
-      return paying;
+      return offered(pool, paying, s, pi, mu);
     }
     int keep = choiceEntry.entering(settings.perRound());
     if (choiceEntry.byRate()) {
@@ -450,6 +451,31 @@ public final class ColumnGeneration {
       return out;
     }
     return paying.subList(0, Math.min(keep, paying.size()));
+  }
+
+  /**
+   * The paying columns that the best offer set at the master's prices π would hold if they all
+   * entered: r = d + μ above R* of the segment's columns and these ({@link MasterPool#bestOfferValue};
+   * revenue-ordered, Talluri &amp; van Ryzin 2004). The others pay at μ but would sell nothing at π, so
+   * they wait for a later round, where pricing finds them again if they still pay. Never empty when
+   * some column pays: the one of largest r lies above R* (were all r ≤ R*, the best set would hold
+   * the master's columns only, whose value R* ≤ μ is below that r).
+   */
+  private List<Column> offered(MasterPool pool, List<Column> paying, int s, double[] pi, double mu) {
+    double[] r = new double[paying.size()];
+    double[] w = new double[paying.size()];
+    for (int i = 0; i < r.length; i++) {
+      r[i] = paying.get(i).reducedCostAtEntry() + mu;
+      w[i] = MasterPool.attraction(space, paying.get(i).choices(), s);
+    }
+    double best = pool.bestOfferValue(s, pi, r, w);
+    List<Column> out = new ArrayList<>();
+    for (int i = 0; i < r.length; i++) {
+      if (r[i] > best) {
+        out.add(paying.get(i));
+      }
+    }
+    return out.isEmpty() ? paying : out;
   }
 
   private void announce(List<Column> columns, MasterSolution sol, double bound) {

@@ -1,6 +1,7 @@
 package dev.mixwright.master;
 
 import com.google.ortools.linearsolver.MPSolver;
+import dev.mixwright.choice.Logit;
 import com.google.ortools.linearsolver.MPVariable;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -36,8 +37,8 @@ import java.util.List;
  * Science 50(1), for the multinomial logit): with R* = max f, f(S) ≤ R* ⟺ Σ_S w (r − R*) ≤ R*, and
  * the left side is largest at S = {r &gt; R*}, so that set attains R*. Walking the columns by
  * descending r, adding a column of r above the current f raises f, and once the next r is ≤ f no
- * later prefix does better: one sort, O(|J_s| log |J_s| + |J_s|·resources) per segment and inner
- * round. The inner rounds stop when no segment's best set pays more than a round-off tolerance,
+ * later prefix does better; {@link Logit#bestOfferValue} finds R* by Newton's method without a
+ * sort, O(|J_s|·resources) per segment and inner round plus a few O(|J_s|) steps. The inner rounds stop when no segment's best set pays more than a round-off tolerance,
  * and then σ_s/buyers_s ≥ R*_s, i.e. μ_s := σ_s/buyers_s with β_j := (r_j − μ_s)^+ satisfy every
  * dual row of the SBLP over J_s (μ_s + β_j ≥ r_j, and x_s0's row μ_s ≥ Σ_j w_j β_j is the
  * fixed point μ ≥ Σ w (r − μ)^+, which holds iff μ ≥ R*), with dual objective π·b + Σ σ_s + (fixed
@@ -232,16 +233,12 @@ public final class RestrictedMaster implements AutoCloseable {
   /** The best offer set of segment s at resource prices π: its members and f(S) (see the class comment). */
   private record BestSet(int[] members, double value) {}
 
-  /**
-   * R* = max_S f(S) as the root of g(μ) = Σ_j w_j (r_j − μ)^+ − μ, decreasing and convex, by Newton's
-   * step μ ← f({r &gt; μ}) from μ = 0: each step is the value of a set, so it never passes R*, and
-   * it rises while g(μ) &gt; 0 (Σ_{r&gt;μ} w (r − μ) ≥ μ gives f ≥ μ); it stops when the set repeats,
-   * i.e. at R* (finitely many sets). O(|J_s|·resources) per step, no sort.
-   */
+  /** The revenue-ordered best offer set of segment s at resource prices π ({@link Logit#bestOfferValue}). */
   private BestSet bestSet(int s, double[] pi) {
     int[] js = members.get(s);
     int n = memberCount[s];
     double[] r = new double[n];
+    double[] w = new double[n];
     for (int i = 0; i < n; i++) {
       int j = js[i];
       double[] a = useOf[j];
@@ -250,36 +247,17 @@ public final class RestrictedMaster implements AutoCloseable {
         v -= pi[k] * a[k];
       }
       r[i] = v;
+      w[i] = attractionOf[j];
     }
-    double mu = 0;
-    int count = -1;
-    while (true) {
-      double sw = 0;
-      double swr = 0;
-      int c = 0;
-      for (int i = 0; i < n; i++) {
-        if (r[i] > mu) {
-          double w = attractionOf[js[i]];
-          sw += w;
-          swr += w * r[i];
-          c++;
-        }
-      }
-      double next = swr / (1 + sw);
-      if (c == count || !(next > mu)) {
-        break;
-      }
-      mu = next;
-      count = c;
-    }
-    int[] set = new int[Math.max(0, count)];
+    double mu = Logit.bestOfferValue(r, w, n);
+    int[] set = new int[n];
     int k = 0;
-    for (int i = 0; i < n && count > 0; i++) {
+    for (int i = 0; i < n; i++) {
       if (r[i] > mu) {
         set[k++] = js[i];
       }
     }
-    return new BestSet(k == set.length ? set : Arrays.copyOf(set, k), mu);
+    return new BestSet(Arrays.copyOf(set, k), mu);
   }
 
   /**
