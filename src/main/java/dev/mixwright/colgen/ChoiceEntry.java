@@ -21,7 +21,8 @@ public enum ChoiceEntry {
    */
   RATE_SEARCH(3, 2, true, true, false),
   /**
-   * Every paying column of the 3 × perRound asked enters, and a segment whose batch came back full
+   * The paying columns of the 3 × perRound asked that the best offer set at the master's prices
+   * would hold enter ({@code ColumnGeneration.offered}), and a segment whose batch came back full
    * of paying columns is asked for twice as many in the next round (up to {@link #GROWTH_CAP} ×
    * perRound). Why: at fixed resource prices the best offer set of a multinomial-logit segment is
    * revenue-ordered (Talluri &amp; van Ryzin 2004, Management Science 50(1)), i.e. the best columns
