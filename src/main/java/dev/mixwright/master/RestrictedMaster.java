@@ -73,7 +73,9 @@ public final class RestrictedMaster implements AutoCloseable {
   private final int[] memberCount;
   /** Per choosing segment, its offer-set columns in GLOP and their members. */
   private final List<List<MPVariable>> offerVars = new ArrayList<>();
-  private final List<List<int[]>> offerSets = new ArrayList<>();
+  private final List<List<OfferSet>> offerSets = new ArrayList<>();
+  /** Per choosing segment, the members of the offer set added last (null before the first). */
+  private final int[][] lastAdded;
 
   /**
    * @param capacity right-hand side of each resource row
@@ -96,6 +98,7 @@ public final class RestrictedMaster implements AutoCloseable {
     this.chooses = chooses.clone();
     double[] rhs = demand.clone();
     memberCount = new int[demand.length];
+    lastAdded = new int[demand.length][];
     for (int s = 0; s < demand.length; s++) {
       if (chooses[s]) {
         rhs[s] = 1.0;
@@ -233,12 +236,18 @@ public final class RestrictedMaster implements AutoCloseable {
   /** The best offer set of segment s at resource prices π: its members and f(S) (see the class comment). */
   private record BestSet(int[] members, double value) {}
 
-  /** The revenue-ordered best offer set of segment s at resource prices π ({@link Logit#bestOfferValue}). */
-  private BestSet bestSet(int s, double[] pi) {
+  /**
+   * An offer set as the prices that chose it: the first {@code upTo} columns of its segment with r
+   * above {@code value} at {@code pi}. Kept this way rather than as a member list, so that a
+   * thousand offer sets of 10^5 columns each cost a thousand price vectors, not 10^8 indices; the
+   * members are recomputed, with the same arithmetic, only for the sets in the solution.
+   */
+  private record OfferSet(double[] pi, double value, int upTo) {}
+
+  /** r_j = m_j − π·a_j of the first n columns of choosing segment s. */
+  private double[] revenues(int s, double[] pi, int n) {
     int[] js = members.get(s);
-    int n = memberCount[s];
     double[] r = new double[n];
-    double[] w = new double[n];
     for (int i = 0; i < n; i++) {
       int j = js[i];
       double[] a = useOf[j];
@@ -247,17 +256,37 @@ public final class RestrictedMaster implements AutoCloseable {
         v -= pi[k] * a[k];
       }
       r[i] = v;
-      w[i] = attractionOf[j];
     }
-    double mu = Logit.bestOfferValue(r, w, n);
+    return r;
+  }
+
+  /** The columns among the first n of segment s with r above {@code value}. */
+  private int[] above(int s, double[] r, int n, double value) {
+    int[] js = members.get(s);
     int[] set = new int[n];
     int k = 0;
     for (int i = 0; i < n; i++) {
-      if (r[i] > mu) {
+      if (r[i] > value) {
         set[k++] = js[i];
       }
     }
-    return new BestSet(Arrays.copyOf(set, k), mu);
+    return Arrays.copyOf(set, k);
+  }
+
+  private int[] membersOf(int s, OfferSet o) {
+    return above(s, revenues(s, o.pi(), o.upTo()), o.upTo(), o.value());
+  }
+
+  /** The revenue-ordered best offer set of segment s at resource prices π ({@link Logit#bestOfferValue}). */
+  private BestSet bestSet(int s, double[] pi) {
+    int n = memberCount[s];
+    double[] r = revenues(s, pi, n);
+    double[] w = new double[n];
+    for (int i = 0; i < n; i++) {
+      w[i] = attractionOf[members.get(s)[i]];
+    }
+    double mu = Logit.bestOfferValue(r, w, n);
+    return new BestSet(above(s, r, n, mu), mu);
   }
 
   /**
@@ -275,12 +304,13 @@ public final class RestrictedMaster implements AutoCloseable {
         continue;
       }
       BestSet best = bestSet(s, pi);
-      List<int[]> sets = offerSets.get(s);
       if (best.members().length == 0 || demand[s] * best.value() - sigma[s] <= tol
-          || (!sets.isEmpty() && Arrays.equals(sets.get(sets.size() - 1), best.members()))) {
+          || Arrays.equals(lastAdded[s], best.members())) {
         continue;
       }
       addOfferSet(s, best.members());
+      offerSets.get(s).add(new OfferSet(pi, best.value(), memberCount[s]));
+      lastAdded[s] = best.members();
       added = true;
     }
     return added;
@@ -308,7 +338,6 @@ public final class RestrictedMaster implements AutoCloseable {
     }
     List<MPVariable> l = offerVars.get(s);
     l.add(rows.addSales("o" + s + "_" + l.size(), Double.POSITIVE_INFINITY, s, margin, use));
-    offerSets.get(s).add(set);
   }
 
   private MasterSolution read(long iters) {
@@ -340,7 +369,7 @@ public final class RestrictedMaster implements AutoCloseable {
         if (lambda == 0) {
           continue;
         }
-        int[] set = offerSets.get(s).get(t);
+        int[] set = membersOf(s, offerSets.get(s).get(t));
         double sw = sumOfAttractions(set);
         for (int j : set) {
           x[j] += lambda * demand[s] * attractionOf[j] / (1 + sw);
