@@ -65,4 +65,36 @@ public final class Logit {
     System.arraycopy(logW, 0, withStayOut, 0, logW.length);
     return logSumExp(withStayOut);
   }
+
+  /**
+   * R* = max over offer sets S of Σ_S w_i r_i / (1 + Σ_S w_i), the best revenue per buyer a segment
+   * gives when offered any subset of these n alternatives (attractions w, revenues r). The best set
+   * is {r &gt; R*} (revenue-ordered; Talluri &amp; van Ryzin 2004, Management Science 50(1)): f(S) ≤ R*
+   * ⟺ Σ_S w (r − R*) ≤ R*, largest at S = {r &gt; R*}. R* is the root of g(μ) = Σ w (r − μ)^+ − μ
+   * (convex, decreasing), found by Newton's step μ ← f({r &gt; μ}) from μ = 0: each step is the value
+   * of a set, so it never passes R*, it rises while g(μ) &gt; 0, and it stops when the set repeats.
+   * O(n) per step, no sort; 0 when no r is positive.
+   */
+  public static double bestOfferValue(double[] r, double[] w, int n) {
+    double mu = 0;
+    int count = -1;
+    while (true) {
+      double sw = 0;
+      double swr = 0;
+      int c = 0;
+      for (int i = 0; i < n; i++) {
+        if (r[i] > mu) {
+          sw += w[i];
+          swr += w[i] * r[i];
+          c++;
+        }
+      }
+      double next = swr / (1 + sw);
+      if (c == count || !(next > mu)) {
+        return mu;
+      }
+      mu = next;
+      count = c;
+    }
+  }
 }

@@ -2,6 +2,7 @@ package dev.mixwright.cli;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogGenerator;
+import dev.mixwright.colgen.ChoiceEntry;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.RunStats;
 import dev.mixwright.colgen.SolveOutcome;
@@ -147,7 +148,7 @@ final class BenchCommand extends SubCommand {
     line("");
     line("Instances: " + specs(all) + ".");
     line("");
-    choicePair();
+    choicePairs(large);
 
     line("## Exact pricers on the same duals");
     line("");
@@ -184,35 +185,61 @@ final class BenchCommand extends SubCommand {
     return ExitCodes.OK;
   }
 
+  /** Wall time allowed to each run of a choosing catalog: the entry rules measured may not finish. */
+  private static final long CHOICE_LIMIT_MS = 120_000;
+
   /**
    * The same generated catalog with fixed demand and with every segment choosing (part-worths of
    * spread 3 utils, {@code generate --choice-spread 3}): the time to prove each LP optimum and the
-   * ratio, measured in this run (docs/choice.md).
+   * ratio, measured in this run (docs/choice.md), on a 28,547-variant catalog and on the first large
+   * instance (10^9 variants by default). On the small pair the choosing catalog also runs with the
+   * entry rule used before {@link ChoiceEntry#GROWING}; every choosing run stops at {@link
+   * #CHOICE_LIMIT_MS}.
    */
-  private void choicePair() {
-    CatalogGenerator.Spec sp = CatalogGenerator.Spec.of(6, 6, 8, 4, 10, seed);
-    Instance fixed = instance("fixed demand", sp);
-    Catalog c = CatalogGenerator.choosing(CatalogGenerator.generate(sp), seed, 3.0);
-    Instance choosing = new Instance("segments that choose", sp, new VariantSpace(c), fixed.variants, fixed.columns);
+  private void choicePairs(List<Instance> large) {
     note("segments that choose against fixed demand");
     line("## Segments that choose against fixed demand");
     line("");
-    line("| catalog | buildable variants | time | rounds | columns | sold (variant, segment) pairs |");
-    line("|---|---|---|---|---|---|");
-    long[] nanos = new long[2];
-    Instance[] pair = {fixed, choosing};
-    for (int i = 0; i < 2; i++) {
-      CgRun r = colgen(pair[i], SolveSettings.defaults());
-      nanos[i] = r.nanos;
-      long sold = java.util.Arrays.stream(r.outcome.master().x()).filter(x -> x > 1e-6).count();
-      line(String.format(Locale.ROOT, "| %s | %s | %s (%s) | %d | %d | %d |", pair[i].label, sci(pair[i].variants.value()),
-          secs(r.nanos), r.outcome.status().word(), r.outcome.iterations(), r.outcome.master().columns().size(), sold));
+    line("Each choosing run is limited to " + CHOICE_LIMIT_MS / 1000 + " s; the ratio is that of the times to"
+        + " prove each LP optimum, measured in this run.");
+    line("");
+    line("| catalog | buildable variants | entry of choosing columns | time | rounds | columns | sold (variant, segment) pairs | objective | ratio to fixed |");
+    line("|---|---|---|---|---|---|---|---|---|");
+    List<Instance> fixedOnes = new ArrayList<>();
+    fixedOnes.add(instance("28,547 variants", CatalogGenerator.Spec.of(6, 6, 8, 4, 10, seed)));
+    if (!large.isEmpty()) {
+      fixedOnes.add(large.get(0));
     }
-    line("");
-    line(String.format(Locale.ROOT, "Ratio choosing/fixed: %.1f. Catalog: `generate --groups %d --options %d"
-        + " --resources %d --segments %d --rules %d --seed %d`, with and without `--choice-spread 3`.",
-        (double) nanos[1] / nanos[0], sp.groups(), sp.options(), sp.resources(), sp.segments(), sp.rules(), sp.seed()));
-    line("");
+    for (Instance fixed : fixedOnes) {
+      Catalog c = CatalogGenerator.choosing(CatalogGenerator.generate(fixed.spec()), seed, 3.0);
+      Instance choosing = new Instance(fixed.label(), fixed.spec(), new VariantSpace(c), fixed.variants(), fixed.columns());
+      CgRun f = colgen(fixed, SolveSettings.defaults());
+      pairLine(fixed, "fixed demand", f, f.nanos);
+      // the earlier entry rule only on the small pair: on the large one it runs into the limit
+      List<ChoiceEntry> entries = fixed == fixedOnes.get(0) ? List.of(ChoiceEntry.RATE_SEARCH, ChoiceEntry.DEFAULT)
+          : List.of(ChoiceEntry.DEFAULT);
+      for (ChoiceEntry entry : entries) {
+        note("segments that choose: " + fixed.label() + ", " + entry);
+        CgRun r = colgen(choosing, SolveSettings.defaults().withLimits(CHOICE_LIMIT_MS, 0), entry);
+        pairLine(choosing, "segments that choose, " + entry.name().toLowerCase(Locale.ROOT).replace('_', ' ')
+            + (entry == ChoiceEntry.DEFAULT ? " (default)" : ""), r, f.nanos);
+      }
+      line("");
+      line(String.format(Locale.ROOT, "%s: `generate --groups %d --options %d --resources %d --segments %d --rules %d"
+          + " --seed %d`, with and without `--choice-spread 3`.", fixed.label(), fixed.spec().groups(),
+          fixed.spec().options(), fixed.spec().resources(), fixed.spec().segments(), fixed.spec().rules(),
+          fixed.spec().seed()));
+      line("");
+      out.flush();
+    }
+  }
+
+  private void pairLine(Instance in, String kind, CgRun r, long fixedNanos) {
+    long sold = java.util.Arrays.stream(r.outcome.x()).filter(x -> x > 1e-6).count();
+    line(String.format(Locale.ROOT, "| %s | %s | %s | %s (%s, gap %s) | %d | %d | %d | %s | %.1f |", in.label(),
+        sci(in.variants().value()), kind, secs(r.nanos), r.outcome.status().word(), sci(r.outcome.gap()),
+        r.outcome.iterations(), r.outcome.columns().size(), sold, money(r.outcome.objective()),
+        (double) r.nanos / fixedNanos));
     out.flush();
   }
 
@@ -329,11 +356,19 @@ final class BenchCommand extends SubCommand {
   }
 
   /** @param tableLimit of the branch-and-bound pricer; 0 for its forward-checking bound alone */
+  private CgRun colgen(Instance in, SolveSettings settings, ChoiceEntry entry) {
+    return colgen(in, settings, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT, entry);
+  }
+
   private CgRun colgen(Instance in, SolveSettings settings, long tableLimit) {
+    return colgen(in, settings, tableLimit, ChoiceEntry.DEFAULT);
+  }
+
+  private CgRun colgen(Instance in, SolveSettings settings, long tableLimit, ChoiceEntry entry) {
     quiet();
     long t0 = System.nanoTime();
     ColumnGeneration cg = new ColumnGeneration(in.space, new BranchAndBoundPricer(in.space, Long.MAX_VALUE, tableLimit),
-        new HeuristicPricer(in.space), settings, null, t0);
+        new HeuristicPricer(in.space), settings, null, t0).withChoiceEntry(entry);
     SolveOutcome o = cg.run(List.of());
     long t1 = System.nanoTime();
     return new CgRun(t1 - t0, o, cg.stats(), peakHeap());

@@ -19,21 +19,50 @@ public enum ChoiceEntry {
    * As {@link #BY_RATE}, the candidates widened by a search for high w·d (pricing u + d/D, see
    * {@code ColumnGeneration.rateSearch}); 2 × perRound enter.
    */
-  RATE_SEARCH(3, 2, true, true);
+  RATE_SEARCH(3, 2, true, true, false),
+  /**
+   * The paying columns of the 3 × perRound asked that the best offer set at the master's prices
+   * would hold enter ({@code ColumnGeneration.offered}), and a segment whose batch came back full
+   * of paying columns is asked for twice as many in the next round (up to {@link #GROWTH_CAP} ×
+   * perRound). Why: at fixed resource prices the best offer set of a multinomial-logit segment is
+   * revenue-ordered (Talluri &amp; van Ryzin 2004, Management Science 50(1)), i.e. the best columns
+   * by d form one prefix, which can run to thousands; entering it by doubling takes O(log n) rounds
+   * instead of n / (2 × perRound).
+   */
+  GROWING(3, 3, false, false, true);
 
-  /** Measured on the choosing benchmark pair and the rowing-boats catalog: docs/choice.md. */
-  public static final ChoiceEntry DEFAULT = RATE_SEARCH;
+  /** Measured on the choosing benchmark pairs: docs/choice.md and docs/performance.md. */
+  public static final ChoiceEntry DEFAULT = GROWING;
+
+  /** Largest batch of a growing segment, in multiples of perRound. */
+  static final int GROWTH_CAP = 256;
 
   private final int asked;
   private final int entering;
   private final boolean byRate;
   private final boolean searchesRate;
+  private final boolean grows;
 
   ChoiceEntry(int asked, int entering, boolean byRate, boolean searchesRate) {
+    this(asked, entering, byRate, searchesRate, false);
+  }
+
+  ChoiceEntry(int asked, int entering, boolean byRate, boolean searchesRate, boolean grows) {
     this.asked = asked;
     this.entering = entering;
     this.byRate = byRate;
     this.searchesRate = searchesRate;
+    this.grows = grows;
+  }
+
+  /** True when a segment's batch doubles while it comes back full of paying columns; all paying enter. */
+  boolean grows() {
+    return grows;
+  }
+
+  /** The batch after one that came back full, given perRound. */
+  int grown(int batch, int perRound) {
+    return (int) Math.min((long) batch * 2, (long) GROWTH_CAP * perRound);
   }
 
   /** True when extra pricing calls look for columns of high w·d. */

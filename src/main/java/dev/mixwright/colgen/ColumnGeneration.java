@@ -52,7 +52,12 @@ import java.util.Optional;
  *   (the Segment's maxShare 1), a relaxation of the segment's choice rows. It is weak for such
  *   segments, which is why smoothing earns little with them; it is never wrong. Choosing columns
  *   are never retired (their row carries β), see {@link MasterPool}.
- *   Entering columns of a choosing segment are ranked per {@link ChoiceEntry}.
+ *   Entering columns of a choosing segment are chosen per {@link ChoiceEntry}; by default every
+ *   paying column of a batch that doubles while it comes back full (the best offer set at fixed
+ *   prices is revenue-ordered, so it is the top of the max-d list and may run to thousands).
+ *   {@link RestrictedMaster} solves the SBLP over the master's columns by Dantzig–Wolfe over offer
+ *   sets rather than row by row, and returns duals (π, μ, β) with exactly the properties used
+ *   above (its class comment), so nothing here depends on how it is solved.
  * </pre>
  *
  * <p>Accelerations, each a switch of {@link SolveSettings}: k columns per segment per round; a
@@ -83,6 +88,8 @@ public final class ColumnGeneration {
   private static final int RATE_PASSES = 3;
   /** Per segment, the columns the last round's rate search proposed (empty for fixed segments). */
   private final List<List<PricedVariant>> rateFound = new ArrayList<>();
+  /** Per segment, the columns asked of the pricer this round (grows for choosing segments, see {@link ChoiceEntry#GROWING}). */
+  private int[] batch;
   private final LagrangianLpBound lagrangian;
   /**
    * A column must pay more than this to enter; tiny against any catalog's margins, large against
@@ -201,6 +208,10 @@ public final class ColumnGeneration {
   public SolveOutcome run(List<Column> warmStart) {
     counters = new LoopCounters();
     roundsDone = priorIterations;
+    batch = new int[space.segmentCount()];
+    for (int s = 0; s < batch.length; s++) {
+      batch[s] = chooses[s] ? choiceEntry.asked(settings.perRound()) : settings.perRound();
+    }
     try (RestrictedMaster master = new RestrictedMaster(capacity, demand, chooses)) {
       MasterPool pool = new MasterPool(space, master, counters);
       int warmCount = seed(pool, warmStart);
@@ -316,7 +327,7 @@ public final class ColumnGeneration {
         bound = bound(pool, sol, outcomes, y, nu, alpha);
         smoothing.offer(bound.lagrangian(), y, nu);
       }
-      List<Column> found = entering(outcomes, alpha, pi, mu, iteration);
+      List<Column> found = entering(pool, outcomes, alpha, pi, mu, iteration);
       if (alpha > 0 && found.isEmpty() && !cancel.requested()) {
         counters.mispriced();
         continue;
@@ -332,7 +343,7 @@ public final class ColumnGeneration {
     for (int s = 0; s < space.segmentCount(); s++) {
       // Threshold 0, so that the bound uses the best reduced cost itself; only columns that pay more
       // than the round-off tolerance enter.
-      int k = chooses[s] ? choiceEntry.asked(settings.perRound()) : settings.perRound();
+      int k = batch[s];
       PricingQuery q = ReducedCosts.query(space, s, y, nu[s], k, 0.0, pool.active(s));
       PricingOutcome o = null;
       if (settings.heuristicFirst() && heuristic != null) {
@@ -345,6 +356,10 @@ public final class ColumnGeneration {
       }
       o = o != null ? o : priceExact(q);
       outcomes.add(o);
+      if (chooses[s] && choiceEntry.grows() && o.found().size() >= k
+          && o.found().get(k - 1).reducedCost() > entryTolerance) {
+        batch[s] = choiceEntry.grown(k, settings.perRound());
+      }
       rateFound.add(chooses[s] && choiceEntry.searchesRate() && o.best() > entryTolerance
           ? rateSearch(pool, s, y, nu[s], q.weight(), o.best())
           : List.of());
@@ -409,7 +424,8 @@ public final class ColumnGeneration {
   }
 
   /** The columns found that pay at the master's own duals (π, μ). */
-  private List<Column> entering(List<PricingOutcome> outcomes, double alpha, double[] pi, double[] mu, int iteration) {
+  private List<Column> entering(MasterPool pool, List<PricingOutcome> outcomes, double alpha, double[] pi, double[] mu,
+      int iteration) {
     List<Column> found = new ArrayList<>();
     for (int s = 0; s < outcomes.size(); s++) {
       List<Column> paying = new ArrayList<>();
@@ -430,13 +446,16 @@ public final class ColumnGeneration {
           paying.add(column(s, pv.choices(), iteration, d));
         }
       }
-      found.addAll(chooses[s] ? choosingEntering(paying, s) : paying);
+      found.addAll(chooses[s] ? choosingEntering(pool, paying, s, pi, mu[s]) : paying);
     }
     return found;
   }
 
   /** The paying columns of choosing segment s that enter, per {@link ChoiceEntry}. */
-  private List<Column> choosingEntering(List<Column> paying, int s) {
+  private List<Column> choosingEntering(MasterPool pool, List<Column> paying, int s, double[] pi, double mu) {
+    if (choiceEntry.grows()) {
+      return offered(pool, paying, s, pi, mu);
+    }
     int keep = choiceEntry.entering(settings.perRound());
     if (choiceEntry.byRate()) {
       double[] rate = new double[paying.size()];
@@ -454,6 +473,31 @@ public final class ColumnGeneration {
       return out;
     }
     return paying.subList(0, Math.min(keep, paying.size()));
+  }
+
+  /**
+   * The paying columns that the best offer set at the master's prices π would hold if they all
+   * entered: r = d + μ above R* of the segment's columns and these ({@link MasterPool#bestOfferValue};
+   * revenue-ordered, Talluri &amp; van Ryzin 2004). The others pay at μ but would sell nothing at π, so
+   * they wait for a later round, where pricing finds them again if they still pay. Never empty when
+   * some column pays: the one of largest r lies above R* (were all r ≤ R*, the best set would hold
+   * the master's columns only, whose value R* ≤ μ is below that r).
+   */
+  private List<Column> offered(MasterPool pool, List<Column> paying, int s, double[] pi, double mu) {
+    double[] r = new double[paying.size()];
+    double[] w = new double[paying.size()];
+    for (int i = 0; i < r.length; i++) {
+      r[i] = paying.get(i).reducedCostAtEntry() + mu;
+      w[i] = MasterPool.attraction(space, paying.get(i).choices(), s);
+    }
+    double best = pool.bestOfferValue(s, pi, r, w);
+    List<Column> out = new ArrayList<>();
+    for (int i = 0; i < r.length; i++) {
+      if (r[i] > best) {
+        out.add(paying.get(i));
+      }
+    }
+    return out.isEmpty() ? paying : out;
   }
 
   private void announce(List<Column> columns, MasterSolution sol, double bound) {

@@ -33,6 +33,8 @@ final class MasterPool {
   private double[][] use = new double[64][];
   private double[] bound = new double[64];
   private int[] idle = new int[64];
+  /** w of a choosing segment's column, NaN for a fixed segment's. */
+  private double[] attr = new double[64];
 
   MasterPool(VariantSpace space, RestrictedMaster master, LoopCounters counters) {
     this.space = space;
@@ -76,8 +78,9 @@ final class MasterPool {
       grow(2 * n);
     }
     int s = c.segment();
+    attr[n] = space.chooses(s) ? attraction(space, c.choices(), s) : Double.NaN;
     if (space.chooses(s)) {
-      master.addChoiceColumn(s, c.margin(), c.use(), attraction(space, c.choices(), s));
+      master.addChoiceColumn(s, c.margin(), c.use(), attr[n]);
     } else {
       master.addColumn(s, c.margin(), c.use(), c.upper());
     }
@@ -101,6 +104,32 @@ final class MasterPool {
     use = Arrays.copyOf(use, cap);
     bound = Arrays.copyOf(bound, cap);
     idle = Arrays.copyOf(idle, cap);
+    attr = Arrays.copyOf(attr, cap);
+  }
+
+  /**
+   * R* of choosing segment s at resource prices π over its columns here and the candidates given
+   * by their r = m − π·a and w ({@link Logit#bestOfferValue}): the revenue per buyer of the best
+   * offer set of all of them. O((columns + candidates)·resources).
+   */
+  double bestOfferValue(int s, double[] pi, double[] candR, double[] candW) {
+    int n = columns.size();
+    double[] r = Arrays.copyOf(candR, candR.length + n);
+    double[] w = Arrays.copyOf(candW, candW.length + n);
+    int k = candR.length;
+    for (int j = 0; j < n; j++) {
+      if (segment[j] != s || bound[j] == 0) {
+        continue;
+      }
+      double v = margin[j];
+      for (int q = 0; q < pi.length; q++) {
+        v -= pi[q] * use[j][q];
+      }
+      r[k] = v;
+      w[k] = attr[j];
+      k++;
+    }
+    return Logit.bestOfferValue(r, w, k);
   }
 
   /** UB(y) of {@link LagrangianLpBound} over these columns; {@code outside} covers all others. */

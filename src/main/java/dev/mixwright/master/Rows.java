@@ -173,20 +173,6 @@ final class Rows implements AutoCloseable {
     return duals(resourceRows);
   }
 
-  /**
-   * μ_s per segment row, after an optimal LP solve: ≥ 0 for a demand row; as the solver gives it
-   * for a buyers row ({@code free[s]}), an equality whose dual has no sign of its own.
-   */
-  double[] segmentDuals(boolean[] free) {
-    double[] out = duals(segmentRows);
-    for (int s = 0; s < out.length; s++) {
-      if (free[s]) {
-        out[s] = segmentRows[s].dualValue() + 0.0;
-      }
-    }
-    return out;
-  }
-
   /** A row's dual clamped at 0 (a negative zero or round-off of a ≤ row of a maximisation reads 0). */
   static double nonNegativeDual(MPConstraint row) {
     return Math.max(0.0, row.dualValue());

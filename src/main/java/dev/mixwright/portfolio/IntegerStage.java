@@ -239,7 +239,7 @@ public final class IntegerStage {
     RelaxationResult rx = new Relaxation(space, terms, pricer, settings, fan, clock, clock.phase(0.3))
         .run(pool, lp.duals().resource(), atLeastZero(lp.duals().segment()));
     double warmBound = warm == null ? Double.POSITIVE_INFINITY : warm.bound();
-    Search search = new Search(Math.min(Math.min(lpBound, rx.bound().value()), warmBound));
+    Search search = new Search(Math.min(Math.min(lpBound, rx.provenBound()), warmBound));
     checkpoint(pool, null, search.bound);
     int relaxed = pool.size();
     firstIncumbent(pool, rx, search);

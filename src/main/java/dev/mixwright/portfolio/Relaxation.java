@@ -108,17 +108,22 @@ final class Relaxation {
         double z = sol.objective() + pool.current().constant();
         double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(z));
         List<PricedVariant> entering = new ArrayList<>();
+        double bestOutside = Double.NEGATIVE_INFINITY;
         for (PricedVariant f : probe.found()) {
+          bestOutside = Math.max(bestOutside, f.reducedCost());
           if (f.reducedCost() > entry && entering.size() < settings.perRound()) {
             entering.add(f);
           }
         }
         boolean exact = probe.exact();
-        boolean closed = new ValueBound(z, best.value(), terms.gapFloor()).within(settings.gap());
-        listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z, best.value(), pool.size(),
+        // No variant outside the pool has ψ above the variant limit's price λ: with zero duals on
+        // their rows, the master's duals are feasible for the relaxation over the whole space.
+        converged = exact && bestOutside <= sol.limitDual();
+        double shown = converged ? Math.min(z, best.value()) : best.value();
+        boolean closed = new ValueBound(z, shown, terms.gapFloor()).within(settings.gap());
+        listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z, shown, pool.size(),
             entering.size(), "round " + round));
         if (entering.isEmpty() && exact) {
-          converged = true;
           break;
         }
         if (closed || stop.fired(clock.now(round))) {

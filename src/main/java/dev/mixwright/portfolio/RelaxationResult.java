@@ -7,6 +7,14 @@ package dev.mixwright.portfolio;
  * that would improve the relaxed master, so {@code objective} is the relaxation's optimum over the
  * whole space. {@code y}: the relaxed introductions per pool variant (pool order) at the end.
  * {@code lpPriceBound}: the bound at the LP stage's shadow prices, for comparison.
+ *
+ * <p>{@code converged} is set only when no variant outside the pool has ψ above the variant limit's
+ * price λ at the master's duals (the pricer's ψ is an upper bound on what the variant's block can
+ * earn, its caps being the looser buyers_s for choosing segments): then those duals, with zero on
+ * the rows of absent variants, are feasible for the dual of the relaxation over the whole space,
+ * and {@code objective} is that relaxation's optimum. Every integer portfolio is feasible in that
+ * relaxation (y ∈ {0, 1} relaxed to [0, 1]), so the objective is then itself a bound valid for the
+ * whole space, often far below the Lagrangian bound when segments choose: {@link #provenBound}.
  */
 public record RelaxationResult(
     double objective,
@@ -15,4 +23,10 @@ public record RelaxationResult(
     int rounds,
     double[] y,
     double lpPriceBound,
-    long elapsedMs) {}
+    long elapsedMs) {
+
+  /** The least bound on the integer portfolio over the whole space this relaxation proves. */
+  public double provenBound() {
+    return converged ? Math.min(objective, bound.value()) : bound.value();
+  }
+}

@@ -69,7 +69,7 @@ public final class PortfolioSection {
       for (int i = 0; i < b.segmentPrice().length; i++) {
         ps.put(cat.segments().get(i).id(), b.segmentPrice()[i]);
       }
-      relaxation = new RunResult.Relaxation(rx.objective(), Json.num(b.value()), rx.converged(), rx.rounds(),
+      relaxation = new RunResult.Relaxation(rx.objective(), Json.num(rx.provenBound()), rx.converged(), rx.rounds(),
           Json.num(rx.lpPriceBound()), new RunResult.Prices(pr, ps), Json.num(b.lambda()),
           Json.num(b.valueAtLambda()), rx.elapsedMs());
     }
