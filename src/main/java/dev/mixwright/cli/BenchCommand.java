@@ -235,10 +235,10 @@ final class BenchCommand extends SubCommand {
   }
 
   private void pairLine(Instance in, String kind, CgRun r, long fixedNanos) {
-    long sold = java.util.Arrays.stream(r.outcome.x()).filter(x -> x > 1e-6).count();
+    long sold = java.util.Arrays.stream(r.outcome.master().x()).filter(x -> x > 1e-6).count();
     line(String.format(Locale.ROOT, "| %s | %s | %s | %s (%s, gap %s) | %d | %d | %d | %s | %.1f |", in.label(),
-        sci(in.variants().value()), kind, secs(r.nanos), r.outcome.status().word(), sci(r.outcome.gap()),
-        r.outcome.iterations(), r.outcome.columns().size(), sold, money(r.outcome.objective()),
+        sci(in.variants().value()), kind, secs(r.nanos), r.outcome.status().word(), sci(r.outcome.result().gap()),
+        r.outcome.iterations(), r.outcome.master().columns().size(), sold, money(r.outcome.result().value()),
         (double) r.nanos / fixedNanos));
     out.flush();
   }
