@@ -69,7 +69,7 @@ public final class ScenarioStage {
 
   /**
    * @param spaces one per scenario, of one catalog's structure (groups, rules, segments) with the
-   *     scenario's figures; none with a current range or segments that choose
+   *     scenario's figures; none with a current range
    * @param weights normalised, aligned with {@code spaces}
    */
   public ScenarioStage(List<VariantSpace> spaces, double[] weights, Aim aim, PortfolioSettings settings) {
@@ -85,8 +85,8 @@ public final class ScenarioStage {
     this.segmentCount = spaces.get(0).segmentCount();
     List<PortfolioTerms> t = new ArrayList<>();
     for (VariantSpace s : spaces) {
-      if (s.catalog().hasChoosingSegments() || !s.catalog().current().isEmpty()) {
-        throw new IllegalArgumentException("a range across scenarios takes neither segments that choose nor a current range");
+      if (!s.catalog().current().isEmpty()) {
+        throw new IllegalArgumentException("a range across scenarios does not take a current range");
       }
       t.add(PortfolioTerms.of(s));
     }
@@ -425,12 +425,19 @@ public final class ScenarioStage {
     if (aim.isWorst()) {
       lp.worstCase(scenarios);
     }
+    for (int k = 0; k < scenarios; k++) {
+      for (int s = 0; s < segmentCount; s++) {
+        if (spaces.get(k).chooses(s)) {
+          lp.chooseIn(k * segmentCount + s);
+        }
+      }
+    }
     return lp;
   }
 
   /** Pool variant i's entries over every scenario, in the stacked rows. */
   private record Entries(int[] segments, double[] margin, double[][] use, double[] upper, double[] minLot, int[] lotOf,
-      int[] tools, double fixedCost) {}
+      int[] tools, double fixedCost, double[] attraction) {}
 
   private Entries entries(int i) {
     int n = 0;
@@ -442,6 +449,7 @@ public final class ScenarioStage {
     double[][] use = new double[n][];
     double[] upper = new double[n];
     int[] lotOf = new int[n];
+    double[] attraction = new double[n];
     double[] minLot = new double[scenarios];
     int j = 0;
     for (int k = 0; k < scenarios; k++) {
@@ -455,15 +463,23 @@ public final class ScenarioStage {
         use[j] = stacked;
         upper[j] = v.upper()[e];
         lotOf[j] = k;
+        // the scenario's own logit: a price change moves a choosing segment's attraction
+        attraction[j] = spaces.get(k).chooses(v.segments()[e])
+            ? pools.get(k).choice().attraction(v.choices(), v.segments()[e]) : Double.NaN;
       }
     }
     PoolVariant first = pools.get(0).get(i);
-    return new Entries(segs, margin, use, upper, minLot, lotOf, first.tools(), first.fixedCost());
+    return new Entries(segs, margin, use, upper, minLot, lotOf, first.tools(), first.fixedCost(), attraction);
   }
 
   private void addBlock(PortfolioLp lp, int i) {
     Entries e = entries(i);
-    lp.addScenarioVariant(e.segments(), e.margin(), e.use(), e.upper(), e.fixedCost(), e.minLot(), e.lotOf());
+    int b = lp.addScenarioVariant(e.segments(), e.margin(), e.use(), e.upper(), e.fixedCost(), e.minLot(), e.lotOf());
+    for (int j = 0; j < e.attraction().length; j++) {
+      if (!Double.isNaN(e.attraction()[j])) {
+        lp.addAttraction(b, j, e.attraction()[j]);
+      }
+    }
   }
 
   private record MipRun(MipStatus status, Evaluated best, double bound) {}
@@ -478,10 +494,22 @@ public final class ScenarioStage {
       if (aim.isWorst()) {
         m.worstCase(scenarios);
       }
+      for (int k = 0; k < scenarios; k++) {
+        for (int s = 0; s < segmentCount; s++) {
+          if (spaces.get(k).chooses(s)) {
+            m.chooseIn(k * segmentCount + s);
+          }
+        }
+      }
       for (int i = 0; i < n; i++) {
         Entries e = entries(i);
-        m.addScenarioVariant(e.segments(), e.margin(), e.use(), e.upper(), e.fixedCost(), e.minLot(), e.lotOf(),
+        int b = m.addScenarioVariant(e.segments(), e.margin(), e.use(), e.upper(), e.fixedCost(), e.minLot(), e.lotOf(),
             e.tools());
+        for (int j = 0; j < e.attraction().length; j++) {
+          if (!Double.isNaN(e.attraction()[j])) {
+            m.addAttraction(b, j, e.attraction()[j]);
+          }
+        }
       }
       double[] y = new double[n];
       for (int i : hint.members()) {
