@@ -176,6 +176,19 @@ public final class ScenarioStage {
    * empty lists when unknown.
    */
   public Outcome run(List<SolveOutcome> lps, List<List<int[]>> alone) {
+    double[] none = new double[scenarios];
+    Arrays.fill(none, Double.POSITIVE_INFINITY);
+    return run(lps, alone, none);
+  }
+
+  /**
+   * As {@link #run(List, List)}, with {@code aloneBounds}: per scenario a bound on its own best range
+   * (+∞ for none). No range earns more in scenario k than the best range for k alone, so the
+   * wait-and-see value Σ_k p_k aloneBound_k (the worst case: min_k aloneBound_k) bounds the range
+   * across the set too (Birge &amp; Louveaux: the wait-and-see solution is worth at least the
+   * recourse problem's optimum; recalled from memory).
+   */
+  public Outcome run(List<SolveOutcome> lps, List<List<int[]>> alone, double[] aloneBounds) {
     clock = new StageClock(settings.timeLimitMs(), stop);
     for (SolveOutcome lp : lps) {
       if (!lp.status().isInfeasible()) {
@@ -224,7 +237,7 @@ public final class ScenarioStage {
     if (first.best() != null && first.best().objective() > inc.objective()) {
       inc = first.best();
     }
-    double bound = rx.best().value();
+    double bound = Math.min(rx.best().value(), objective(aloneBounds));
     // quick proof
     LagrangianPortfolioBound b = rx.best();
     double theta = Double.NaN;

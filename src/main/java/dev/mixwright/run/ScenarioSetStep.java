@@ -90,7 +90,8 @@ final class ScenarioSetStep {
     double[] w = set.set().weights();
     ScenarioStage stage = new ScenarioStage(spaces, w, set.plan().aim(), settings).stopWhen(StopCriterion.signal(stop));
     ScenarioStage.Outcome o = stage.run(alone.stream().map(Alone::lp).toList(),
-        alone.stream().map(a -> a.best().variants().stream().map(OfferedVariant::choices).toList()).toList());
+        alone.stream().map(a -> a.best().variants().stream().map(OfferedVariant::choices).toList()).toList(),
+        alone.stream().mapToDouble(a -> a.best().bound()).toArray());
     List<RunResult.ScenarioRow> rows = new ArrayList<>();
     for (int k = 0; k < alone.size(); k++) {
       PortfolioOutcome b = alone.get(k).best();

@@ -191,7 +191,9 @@ public final class ScenarioSets {
     for (Scenario.Change c : s.changes()) {
       Field f = c.target().field();
       if (f == Field.RULE || f == Field.INTRODUCTION_COST || f == Field.MAX_VARIANTS) {
-        problem(Where.field(path, c.target().path()), "a scenario of a set cannot change " + c.target().path()
+        // an inline change names its own path; a file's change is named within the member's file
+        String at = c.where().startsWith(path) ? c.where() : Where.field(path, "file") + " (" + c.where() + ")";
+        problem(at, "a scenario of a set cannot change " + c.target().path()
             + ": the range is chosen once over one variant space, with its introductions paid once; change it in"
             + " the catalog instead");
       }

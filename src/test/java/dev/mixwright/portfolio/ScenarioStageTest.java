@@ -86,13 +86,17 @@ class ScenarioStageTest {
       List<SolveOutcome> lps = spaces.stream().map(StageRuns::lp).toList();
       // half the cases without each scenario's own range, so the stage finds its incumbent alone
       List<List<int[]>> alone = new ArrayList<>();
+      double[] aloneBounds = new double[n];
+      java.util.Arrays.fill(aloneBounds, Double.POSITIVE_INFINITY);
       if (rnd.nextBoolean()) {
-        for (VariantSpace sp : spaces) {
-          alone.add(StageRuns.stage(sp, StageRuns.settings()).variants().stream().map(OfferedVariant::choices).toList());
+        for (int k = 0; k < n; k++) {
+          PortfolioOutcome best = StageRuns.stage(spaces.get(k), StageRuns.settings());
+          alone.add(best.variants().stream().map(OfferedVariant::choices).toList());
+          aloneBounds[k] = best.bound();
         }
       }
       ScenarioStage.Outcome o = new ScenarioStage(spaces, w, worst ? ScenarioStage.Aim.WORST : ScenarioStage.Aim.MEAN,
-          StageRuns.settings()).run(lps, alone);
+          StageRuns.settings()).run(lps, alone, aloneBounds);
       // SCIP over every variant and every scenario in one model
       EnumeratedScenarioMip.Result full = EnumeratedScenarioMip.solve(spaces, w, worst, 60_000);
       assertTrue(full.optimal(), "the reference should solve a small case");
