@@ -92,7 +92,6 @@ final class Summary {
           : Numbers.money(p.currentRangeValue()) + cur + " as a fixed portfolio") + "; discontinue costs paid "
           + Numbers.money(p.discontinueCosts() == null ? 0 : p.discontinueCosts()) + cur);
     }
-    printScenarios(out, p, cur);
     int shown = 0;
     for (RunResult.PortfolioVariant v : p.variants()) {
       if (!all && shown++ == SHOWN_VARIANTS) {
@@ -104,6 +103,7 @@ final class Summary {
           .append(Numbers.units(q)));
       out.println("      " + codes.code(v.options()) + "  " + sales);
     }
+    printScenarios(out, p, cur);
   }
 
   /** The range's scenarios (weight, value, best alone, regret) and the hold-out check, when the range is across a set. */

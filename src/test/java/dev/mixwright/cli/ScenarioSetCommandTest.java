@@ -58,6 +58,11 @@ class ScenarioSetCommandTest {
         .asDouble(), h.toString());
     assertTrue(r.out().contains("best alone") && r.out().contains("tight") && r.out().contains("hold-out check"),
         r.out());
+    CliRun page = CliRun.of("report", out.toString());
+    assertEquals(0, page.code(), page.toString());
+    String html = Files.readString(out.resolve("report.html"));
+    int at = html.indexOf("Regret across scenarios");
+    assertTrue(at > 0 && html.indexOf("<svg", at) > 0 && html.indexOf("tight", at) > 0, "the regret chart");
   }
 
   @Test
