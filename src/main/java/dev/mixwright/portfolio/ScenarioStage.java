@@ -320,8 +320,8 @@ public final class ScenarioStage {
   private static final int BOUND_DEPTH = 64;
 
   /** The Lagrangian bound at stacked prices and scenario weights ω: one pricing call for the k best outside the pool. */
-  private LagrangianPortfolioBound bound(VariantPricer pricer, double[] pi, double[] mu, double[] omega, int k,
-      int cap, long deadline, List<PricedVariant> found) {
+  private Relaxation.Probe bound(VariantPricer pricer, double[] pi, double[] mu, double[] omega, int k, int cap,
+      long deadline) {
     PortfolioTerms t0 = terms.get(0);
     Pool p0 = pools.get(0);
     VariantQuery q = new VariantQuery(pi, mu, t0.introductionCost(), null, 0.0, k, p0.keys(), deadline, omega);
@@ -338,12 +338,8 @@ public final class ScenarioStage {
       constant += terms.get(s).rowValue(Arrays.copyOfRange(pi, s * resourceCount, (s + 1) * resourceCount),
           Arrays.copyOfRange(mu, s * segmentCount, (s + 1) * segmentCount));
     }
-    found.clear();
-    found.addAll(out.found());
-    if (!out.exact()) {
-      found.add(null); // marks an inexact pricing for the caller
-    }
-    return LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone());
+    return new Relaxation.Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(),
+        mu.clone()), out.found(), out.exact());
   }
 
   /** Column generation on the relaxed stacked master, priced over the whole space (see the class comment). */
@@ -351,8 +347,7 @@ public final class ScenarioStage {
     StageClock.Phase phase = clock.phase(0.3);
     StopCriterion until = StopCriterion.anyOf(phase.stop(), StopCriterion.iterationLimit(settings.relaxationRounds()));
     int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
-    List<PricedVariant> found = new ArrayList<>();
-    LagrangianPortfolioBound best = bound(pricer, pi0, mu0, omega0, k, cap, phase.deadlineNanos(), found);
+    LagrangianPortfolioBound best = bound(pricer, pi0, mu0, omega0, k, cap, phase.deadlineNanos()).bound();
     double[] bestOmega = omega0;
     try (PortfolioLp lp = stackedLp(cap)) {
       for (int i = 0; i < pools.get(0).size(); i++) {
@@ -370,17 +365,17 @@ public final class ScenarioStage {
         }
         z = sol.objective();
         double[] omega = aim.isWorst() ? simplex(lp.worstCaseDuals()) : weight;
-        LagrangianPortfolioBound probe = bound(pricer, sol.resourceDual(), sol.segmentDual(), omega, k, cap,
-            phase.deadlineNanos(), found);
-        boolean exact = found.isEmpty() || found.get(found.size() - 1) != null;
-        if (probe.value() < best.value()) {
-          best = probe;
+        Relaxation.Probe probe = bound(pricer, sol.resourceDual(), sol.segmentDual(), omega, k, cap,
+            phase.deadlineNanos());
+        boolean exact = probe.exact();
+        if (probe.bound().value() < best.value()) {
+          best = probe.bound();
           bestOmega = omega;
         }
         double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(z));
         List<PricedVariant> entering = new ArrayList<>();
-        for (PricedVariant f : found) {
-          if (f != null && f.reducedCost() > entry && entering.size() < settings.perRound()) {
+        for (PricedVariant f : probe.found()) {
+          if (f.reducedCost() > entry && entering.size() < settings.perRound()) {
             entering.add(f);
           }
         }
