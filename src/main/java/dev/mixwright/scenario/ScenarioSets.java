@@ -75,7 +75,7 @@ public final class ScenarioSets {
     if (format != null && !(format.isNumber() && format.asDouble() == 1)) {
       r.problem("format", "this version reads format 1, got " + Where.describe(format));
     }
-    String title = root.path("name").isTextual() ? root.get("name").asText() : stem(file);
+    String title = root.path("name").isTextual() ? root.get("name").asText() : Scenarios.fileStem(file);
     List<Weighted> members = new ArrayList<>();
     boolean listed = root.has("scenarios");
     boolean drawn = root.has("draws") || root.has("vary");
@@ -403,11 +403,5 @@ public final class ScenarioSets {
     if (!problems.isEmpty()) {
       throw new CatalogException(problems);
     }
-  }
-
-  private static String stem(Path file) {
-    String n = file.getFileName() == null ? file.toString() : file.getFileName().toString();
-    int dot = n.lastIndexOf('.');
-    return dot > 0 ? n.substring(0, dot) : n;
   }
 }

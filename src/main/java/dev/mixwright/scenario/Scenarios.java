@@ -697,7 +697,7 @@ public final class Scenarios {
     }
   }
 
-  private static String fileStem(Path file) {
+  static String fileStem(Path file) {
     String n = file.getFileName() == null ? file.toString() : file.getFileName().toString();
     int dot = n.lastIndexOf('.');
     return dot > 0 ? n.substring(0, dot) : n;

@@ -38,26 +38,9 @@ public final class EnumeratedScenarioMip {
   public static Result solve(List<VariantSpace> spaces, double[] weight, boolean worst, long timeLimitMs) {
     Natives.load();
     VariantSpace first = spaces.get(0);
-    List<int[]> variants = new ArrayList<>();
+    // no exclude entries here (scenario catalogs drop them), so the listing is every sellable variant
+    List<int[]> variants = EnumeratedMip.sellable(first);
     int groups = first.groupCount();
-    int[] v = new int[groups];
-    while (true) {
-      boolean sold = false;
-      for (int s = 0; s < first.segmentCount(); s++) {
-        sold |= first.isBuildable(v) && first.isColumn(v, s);
-      }
-      if (sold) {
-        variants.add(v.clone());
-      }
-      int g = groups - 1;
-      while (g >= 0 && ++v[g] == first.choiceCount(g)) {
-        v[g] = 0;
-        g--;
-      }
-      if (g < 0) {
-        break;
-      }
-    }
     MPSolver solver = MPSolver.createSolver("SCIP");
     MPSolverParameters params = new MPSolverParameters();
     try {
