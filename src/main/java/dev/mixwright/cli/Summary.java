@@ -103,6 +103,35 @@ final class Summary {
           .append(Numbers.units(q)));
       out.println("      " + codes.code(v.options()) + "  " + sales);
     }
+    printScenarios(out, p, cur);
+  }
+
+  /** The range's scenarios (weight, value, best alone, regret) and the hold-out check, when the range is across a set. */
+  private static void printScenarios(PrintWriter out, RunResult.Portfolio p, String cur) {
+    if (p.scenarios() == null) {
+      return;
+    }
+    out.println("    across " + p.scenarios().size() + " scenarios, value = " + ("worst".equals(p.aim())
+        ? "the worst scenario's" : "the weighted mean") + ":");
+    int width = Math.max(8, p.scenarios().stream().mapToInt(r -> r.id().length()).max().orElse(8));
+    out.println(String.format(Locale.ROOT, "      %-" + width + "s %7s %14s %14s %14s", "scenario", "weight", "value",
+        "best alone", "regret"));
+    int shown = 0;
+    for (RunResult.ScenarioRow r : p.scenarios()) {
+      if (shown++ == 12) {
+        out.println("      ... " + (p.scenarios().size() - 12) + " more in result.json");
+        break;
+      }
+      out.println(String.format(Locale.ROOT, "      %-" + width + "s %7.3f %14s %14s %14s%s", r.id(), r.weight(),
+          Numbers.money(r.value()), Numbers.money(r.bestAlone()), Numbers.money(r.regret()),
+          r.bestAloneStatus().isProven() ? "" : "  (best alone heuristic)"));
+    }
+    RunResult.HoldOut h = p.holdOut();
+    if (h != null) {
+      out.println(String.format(Locale.ROOT, "    hold-out check    %d scenarios of %s%s: mean %s, 5%% %s, 95%% %s%s",
+          h.scenarios(), h.source(), h.lotsMissed() > 0 ? " (" + h.lotsMissed() + " miss a minimum lot)" : "",
+          Numbers.money(orNaN(h.mean())), Numbers.money(orNaN(h.p5())), Numbers.money(orNaN(h.p95())), cur));
+    }
   }
 
   private static double orNaN(Double v) {

@@ -37,8 +37,12 @@ public final class PortfolioLp implements AutoCloseable {
   private final MPVariable[] stay;
   private final List<double[]> attractions = new ArrayList<>();
 
-  private record Block(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
-      double minLot, MPVariable y, MPVariable[] x) {}
+  /** The worst scenario's rows ({@link #worstCase}), null while the objective is the margin itself. */
+  private MPConstraint[] worstRows;
+
+  /** Entry k: segment row, margin, use, bound, lot group; one lot per group. */
+  private record Block(int[] segments, double[] margin, double[][] use, double[] upper, double fixedCost,
+      double[] minLot, int[] lotOf, MPVariable y, MPVariable[] x) {}
 
   /** @param variantLimit K, {@code Integer.MAX_VALUE} for none */
   public PortfolioLp(double[] capacity, double[] demand, int variantLimit) {
@@ -81,11 +85,40 @@ public final class PortfolioLp implements AutoCloseable {
    */
   public int addVariant(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
       double minLot) {
+    double[][] each = new double[segments.length][];
+    java.util.Arrays.fill(each, use);
+    return addScenarioVariant(segments, margin, each, upper, fixedCost, new double[] {minLot}, new int[segments.length]);
+  }
+
+  /**
+   * The objective becomes the worst of {@code scenarios} margins (an epigraph t, one row per
+   * scenario) less the fixed costs; call before adding blocks, whose lot groups are then the scenarios.
+   */
+  public void worstCase(int scenarios) {
+    if (!blocks.isEmpty()) {
+      throw new IllegalStateException("call worstCase before adding variants");
+    }
+    worstRows = rows.epigraph(scenarios);
+  }
+
+  /**
+   * A variant block of a range chosen across scenarios, the rows stacking the scenarios' resources
+   * and segments: entry k sells in segment row {@code segments[k]}, uses {@code use[k]} per unit and
+   * counts toward lot group {@code lotOf[k]} (its scenario), each group with its own minimum lot.
+   */
+  public int addScenarioVariant(int[] segments, double[] margin, double[][] use, double[] upper, double fixedCost,
+      double[] minLot, int[] lotOf) {
     int i = blocks.size();
     MPVariable y = rows.solver.makeNumVar(0.0, 1.0, "y" + i);
-    MPVariable[] x = rows.addBlock(i, y, segments, margin, use, upper, fixedCost, minLot);
-    blocks.add(new Block(segments.clone(), margin.clone(), use.clone(), upper.clone(), fixedCost, minLot, y, x));
+    MPVariable[] x = rows.addBlock(i, y, segments, margin, use, upper, fixedCost, minLot, lotOf, worstRows);
+    blocks.add(new Block(segments.clone(), margin.clone(), use.clone(), upper.clone(), fixedCost, minLot.clone(),
+        lotOf.clone(), y, x));
     return i;
+  }
+
+  /** ρ_g ≥ 0 per scenario of {@link #worstCase} after an optimal solve (they sum to 1); empty without it. */
+  public double[] worstCaseDuals() {
+    return worstRows == null ? new double[0] : Rows.nonNegativeDuals(worstRows);
   }
 
   /** Bounds on y_i: {@code 1, 1} offers the variant, {@code 0, 0} leaves it out, {@code 0, 1} relaxes. */
@@ -141,6 +174,7 @@ public final class PortfolioLp implements AutoCloseable {
     double[] y = new double[n];
     double[][] x = new double[n][];
     double z = 0;
+    double[] byGroup = new double[worstRows == null ? 1 : worstRows.length];
     for (int i = 0; i < n; i++) {
       Block b = blocks.get(i);
       y[i] = b.y().solutionValue();
@@ -148,8 +182,19 @@ public final class PortfolioLp implements AutoCloseable {
       z -= b.fixedCost() * y[i];
       for (int k = 0; k < x[i].length; k++) {
         x[i][k] = b.x()[k].solutionValue();
-        z += b.margin()[k] * x[i][k];
+        byGroup[worstRows == null ? 0 : b.lotOf()[k]] += b.margin()[k] * x[i][k];
       }
+    }
+    if (worstRows == null) {
+      z += byGroup[0];
+    } else {
+      double t = rows.worstValue();
+      for (double m : byGroup) {
+        if (t > m + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(m))) {
+          return PortfolioLpSolution.failed(LpStatus.FAILED);
+        }
+      }
+      z += t;
     }
     if (!feasible(y, x)) {
       return PortfolioLpSolution.failed(LpStatus.FAILED);
@@ -168,20 +213,22 @@ public final class PortfolioLp implements AutoCloseable {
         return false;
       }
       ys += y[i];
-      double sold = 0;
+      double[] sold = new double[b.minLot().length];
       for (int k = 0; k < x[i].length; k++) {
         double tol = FEASIBILITY_TOLERANCE * Math.max(1.0, b.upper()[k]);
         if (x[i][k] < -tol || x[i][k] > b.upper()[k] * y[i] + tol) {
           return false;
         }
-        sold += x[i][k];
+        sold[b.lotOf()[k]] += x[i][k];
         segUse[b.segments()[k]] += x[i][k];
         for (int r = 0; r < rowUse.length; r++) {
-          rowUse[r] += b.use()[r] * x[i][k];
+          rowUse[r] += b.use()[k][r] * x[i][k];
         }
       }
-      if (sold < b.minLot() * y[i] - FEASIBILITY_TOLERANCE * Math.max(1.0, b.minLot())) {
-        return false;
+      for (int g = 0; g < sold.length; g++) {
+        if (sold[g] < b.minLot()[g] * y[i] - FEASIBILITY_TOLERANCE * Math.max(1.0, b.minLot()[g])) {
+          return false;
+        }
       }
     }
     for (double[] a : attractions) {

@@ -72,6 +72,8 @@ public final class PortfolioMip implements AutoCloseable {
   private final double[] demand;
   /** Stay-out x_s0 per choosing segment, null for a fixed one. */
   private final MPVariable[] stay;
+  /** The worst scenario's rows ({@link #worstCase}), null otherwise. */
+  private MPConstraint[] worstRows;
 
   /**
    * @param variantLimit K, {@code Integer.MAX_VALUE} for none
@@ -106,9 +108,26 @@ public final class PortfolioMip implements AutoCloseable {
    */
   public int addVariant(int[] segments, double[] margin, double[] use, double[] upper, double fixedCost,
       double minLot, int[] toolIds) {
+    double[][] each = new double[segments.length][];
+    java.util.Arrays.fill(each, use);
+    return addScenarioVariant(segments, margin, each, upper, fixedCost, new double[] {minLot},
+        new int[segments.length], toolIds);
+  }
+
+  /** As {@link PortfolioLp#worstCase}: the objective is the worst scenario's margin less the fixed costs. */
+  public void worstCase(int scenarios) {
+    if (!ys.isEmpty()) {
+      throw new IllegalStateException("call worstCase before adding variants");
+    }
+    worstRows = rows.epigraph(scenarios);
+  }
+
+  /** As {@link PortfolioLp#addScenarioVariant}, with the tool ids the variant needs. */
+  public int addScenarioVariant(int[] segments, double[] margin, double[][] use, double[] upper, double fixedCost,
+      double[] minLot, int[] lotOf, int[] toolIds) {
     int i = ys.size();
     MPVariable y = solver.makeBoolVar("y" + i);
-    MPVariable[] x = rows.addBlock(i, y, segments, margin, use, upper, fixedCost, minLot);
+    MPVariable[] x = rows.addBlock(i, y, segments, margin, use, upper, fixedCost, minLot, lotOf, worstRows);
     if (wholeUnits) {
       for (MPVariable xk : x) {
         xk.setInteger(true);

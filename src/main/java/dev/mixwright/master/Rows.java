@@ -21,6 +21,8 @@ final class Rows implements AutoCloseable {
   private final MPConstraint[] segmentRows;
   /** Σ_v y_v ≤ K, or null when there is no limit. */
   private final MPConstraint limitRow;
+  /** The worst scenario's margin when the objective is the epigraph ({@link #epigraph}), else null. */
+  private MPVariable worst;
   private boolean closed;
 
   /** The rows of the product-mix LP, without a variant limit. */
@@ -109,26 +111,74 @@ final class Rows implements AutoCloseable {
    */
   MPVariable[] addBlock(int i, MPVariable y, int[] segments, double[] margin, double[] use, double[] upper,
       double fixedCost, double minLot) {
-    checkUse(use);
+    double[][] each = new double[segments.length][];
+    java.util.Arrays.fill(each, use);
+    return addBlock(i, y, segments, margin, each, upper, fixedCost, new double[] {minLot}, new int[segments.length],
+        null);
+  }
+
+  /**
+   * The general block, for a range chosen across scenarios (the rows then stack every scenario's
+   * resources and segments): entry k is a sales column in segment row {@code segments[k]} using
+   * {@code use[k]}, and belongs to lot group {@code lotOf[k]} (its scenario), whose row is
+   * {@code minLot[g] y − Σ_{k in g} x_k ≤ 0}. With {@code marginRows} the margins go into those rows
+   * (row g: t − Σ_{k in g} m_k x_k ≤ 0, the epigraph of the worst scenario) instead of the objective.
+   */
+  MPVariable[] addBlock(int i, MPVariable y, int[] segments, double[] margin, double[][] use, double[] upper,
+      double fixedCost, double[] minLot, int[] lotOf, MPConstraint[] marginRows) {
     objective.setCoefficient(y, -fixedCost);
     if (limitRow != null) {
       limitRow.setCoefficient(y, 1.0);
     }
-    MPConstraint lot = minLot > 0 ? solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "lot" + i) : null;
-    if (lot != null) {
-      lot.setCoefficient(y, minLot);
+    MPConstraint[] lot = new MPConstraint[minLot.length];
+    for (int g = 0; g < lot.length; g++) {
+      if (minLot[g] > 0) {
+        lot[g] = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "lot" + i + (lot.length > 1 ? "_" + g : ""));
+        lot[g].setCoefficient(y, minLot[g]);
+      }
     }
     MPVariable[] x = new MPVariable[segments.length];
     for (int k = 0; k < segments.length; k++) {
-      x[k] = addSales("x" + i + "_" + segments[k], upper[k], segments[k], margin[k], use);
+      x[k] = addSales("x" + i + "_" + segments[k], upper[k], segments[k], margin[k], use[k]);
+      if (marginRows != null) {
+        objective.setCoefficient(x[k], 0.0);
+        marginRows[lotOf[k]].setCoefficient(x[k], -margin[k]);
+      }
       MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "link" + i + "_" + segments[k]);
       link.setCoefficient(x[k], 1.0);
       link.setCoefficient(y, -upper[k]);
-      if (lot != null) {
-        lot.setCoefficient(x[k], -1.0);
+      if (lot[lotOf[k]] != null) {
+        lot[lotOf[k]].setCoefficient(x[k], -1.0);
       }
     }
     return x;
+  }
+
+  /**
+   * The worst of {@code n} scenarios as the objective: a free t with coefficient 1 and one row
+   * {@code t − (scenario g's margin) ≤ 0} per scenario, whose margins {@link #addBlock} enters. The
+   * rows' duals ρ_g ≥ 0 sum to 1 at an optimum (t's column), so they weigh the scenarios.
+   */
+  MPConstraint[] epigraph(int n) {
+    MPVariable t = solver.makeNumVar(Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY, "worst");
+    objective.setCoefficient(t, 1.0);
+    MPConstraint[] out = new MPConstraint[n];
+    for (int g = 0; g < n; g++) {
+      out[g] = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "worst" + g);
+      out[g].setCoefficient(t, 1.0);
+    }
+    worst = t;
+    return out;
+  }
+
+  /** The epigraph's t after a solve, NaN without one. */
+  double worstValue() {
+    return worst == null ? Double.NaN : worst.solutionValue();
+  }
+
+  /** Each row's dual clamped at 0 (the epigraph's ρ_g after an optimal LP solve). */
+  static double[] nonNegativeDuals(MPConstraint[] rows) {
+    return duals(rows);
   }
 
   /**

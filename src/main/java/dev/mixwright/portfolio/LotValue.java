@@ -22,21 +22,30 @@ public final class LotValue {
    * @param idx scratch of length ≥ d.length
    */
   public static double best(double[] d, double[] u, double minLot, int[] idx) {
+    return best(d, 0, d.length, u, minLot, idx);
+  }
+
+  /**
+   * g of the {@code n} reduced costs {@code d[from .. from + n)} (one scenario's segments in a
+   * stacked vector), {@code u[s]} the bound of {@code d[from + s]}.
+   */
+  public static double best(double[] d, int from, int n, double[] u, double minLot, int[] idx) {
     double value = 0;
     double sold = 0;
     int rest = 0;
     boolean any = false;
-    for (int s = 0; s < d.length; s++) {
-      if (d[s] == Double.NEGATIVE_INFINITY) {
+    for (int s = 0; s < n; s++) {
+      double ds = d[from + s];
+      if (ds == Double.NEGATIVE_INFINITY) {
         continue;
       }
       any = true;
-      if (d[s] > 0) {
-        value += u[s] * d[s];
+      if (ds > 0) {
+        value += u[s] * ds;
         sold += u[s];
       } else {
         int p = rest++;
-        while (p > 0 && d[idx[p - 1]] < d[s]) {
+        while (p > 0 && d[from + idx[p - 1]] < ds) {
           idx[p] = idx[p - 1];
           p--;
         }
@@ -53,7 +62,7 @@ public final class LotValue {
     for (int i = 0; i < rest; i++) {
       int s = idx[i];
       double take = Math.min(u[s], need);
-      value += take * d[s];
+      value += take * d[from + s];
       need -= take;
       if (need <= 0) {
         return value;

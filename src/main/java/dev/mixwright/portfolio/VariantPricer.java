@@ -37,13 +37,22 @@ import java.util.function.BooleanSupplier;
  * reduces to it, Garey &amp; Johnson GT20). With a node limit or deadline the search stops early; the
  * rest bound is then also at least the bound of every unexplored sibling along the current path.
  *
+ * <p>Across n scenarios (a range chosen for a scenario set) the "segments" are the n·S pairs
+ * (scenario, segment) and the value sums g per scenario; each g_k is nondecreasing in its own
+ * arguments, so the per-pair optimistic bounds still give an optimistic sum. Cost per node then
+ * O(n · S · Σ_g d_g).
+ *
  * <p>Not thread-safe: per-query state lives in arrays allocated once per pricer.
  */
 public final class VariantPricer {
   private final VariantSpace space;
-  private final PortfolioTerms terms;
+  private final List<VariantSpace> spaces;
+  private final List<PortfolioTerms> termsOf;
   private final long nodeLimit;
   private final int groups;
+  /** Segments per scenario, scenarios, and their product: the pairs the search bounds. */
+  private final int perScenario;
+  private final int scenarios;
   private final int segments;
   private final int[] offset;
   private final int[] order;
@@ -79,14 +88,28 @@ public final class VariantPricer {
    *     exact but keeps a valid bound
    */
   public VariantPricer(VariantSpace space, PortfolioTerms terms, long nodeLimit) {
+    this(List.of(space), List.of(terms), nodeLimit);
+  }
+
+  /**
+   * Over scenarios: {@code spaces} are one catalog's structure (groups, rules, segments, acceptance)
+   * with each scenario's figures, {@code terms} their portfolio terms, aligned.
+   */
+  public VariantPricer(List<VariantSpace> spaces, List<PortfolioTerms> terms, long nodeLimit) {
     if (nodeLimit < 1) {
       throw new IllegalArgumentException("nodeLimit must be >= 1");
     }
-    this.space = space;
-    this.terms = terms;
+    if (spaces.isEmpty() || spaces.size() != terms.size()) {
+      throw new IllegalArgumentException("one set of terms per scenario space, and at least one");
+    }
+    this.space = spaces.get(0);
+    this.spaces = List.copyOf(spaces);
+    this.termsOf = List.copyOf(terms);
     this.nodeLimit = nodeLimit;
     groups = space.groupCount();
-    segments = space.segmentCount();
+    perScenario = space.segmentCount();
+    scenarios = spaces.size();
+    segments = perScenario * scenarios;
     offset = space.offsets();
     int widest = 1;
     for (int g = 0; g < groups; g++) {
@@ -103,20 +126,62 @@ public final class VariantPricer {
     rest = new double[segments];
     ub = new double[segments];
     leafD = new double[segments];
-    scratch = new int[segments];
+    scratch = new int[perScenario];
     v = new int[groups];
+  }
+
+  /** Σ_k g_k over the scenarios' slices of the stacked reduced costs d; −∞ when some scenario cannot take the lot. */
+  private double lotValue(double[] d) {
+    double sum = 0;
+    for (int k = 0; k < scenarios; k++) {
+      PortfolioTerms t = termsOf.get(k);
+      sum += LotValue.best(d, k * perScenario, perScenario, t.columnBound(), t.minLot(), scratch);
+    }
+    return sum;
+  }
+
+  /** ψ(v) over scenarios at the query's stacked prices, computed directly (see {@link VariantQuery}). */
+  public static double value(List<VariantSpace> spaces, List<PortfolioTerms> terms, int[] v, VariantQuery q) {
+    VariantSpace first = spaces.get(0);
+    int rc = first.resourceCount();
+    int sc = first.segmentCount();
+    double sum = 0;
+    for (int k = 0; k < spaces.size(); k++) {
+      VariantSpace sp = spaces.get(k);
+      double[] pi = Arrays.copyOfRange(q.resourcePrice(), k * rc, (k + 1) * rc);
+      double[] mu = Arrays.copyOfRange(q.segmentPrice(), k * sc, (k + 1) * sc);
+      double[] d = reducedCosts(sp, v, pi, mu);
+      for (int s = 0; s < sc; s++) {
+        d[s] += (q.weight(k) - 1) * (d[s] == Double.NEGATIVE_INFINITY ? 0 : sp.margin(v, s));
+      }
+      sum += LotValue.best(d, terms.get(k).columnBound(), terms.get(k).minLot());
+    }
+    double p = 0;
+    if (q.penalty() != null) {
+      for (int g = 0; g < v.length; g++) {
+        p += q.penalty()[first.offset(g) + v[g]];
+      }
+    }
+    return sum - q.charge() - p;
+  }
+
+  /** Per-choice weights ω·margin − π·use of segment s (−∞ where s may not use the choice). */
+  static double[] weights(VariantSpace space, int s, double[] pi, double omega) {
+    double[] w = ReducedCosts.weights(space, s, pi);
+    if (omega != 1.0) {
+      double[] m = ReducedCosts.weights(space, s, new double[pi.length]);
+      for (int f = 0; f < w.length; f++) {
+        if (w[f] != Double.NEGATIVE_INFINITY) {
+          w[f] += (omega - 1) * m[f];
+        }
+      }
+    }
+    return w;
   }
 
   /** ψ(v) at the query's prices, computed directly; −∞ when no segment can take v at its lot. */
   public static double value(VariantSpace space, PortfolioTerms terms, int[] v, VariantQuery q) {
-    double[] d = reducedCosts(space, v, q.resourcePrice(), q.segmentPrice());
-    double p = 0;
-    if (q.penalty() != null) {
-      for (int g = 0; g < v.length; g++) {
-        p += q.penalty()[space.offset(g) + v[g]];
-      }
-    }
-    return LotValue.best(d, terms.columnBound(), terms.minLot()) - q.charge() - p;
+    return value(List.of(space), List.of(terms), v, q);
   }
 
   /** d_s(v) per segment, −∞ where s does not accept v. */
@@ -139,7 +204,7 @@ public final class VariantPricer {
    * {@link PricingOutcome#restBound()} bounds ψ of every variant neither excluded nor found.
    */
   public PricingOutcome price(VariantQuery q) {
-    if (q.resourcePrice().length != space.resourceCount() || q.segmentPrice().length != segments) {
+    if (q.resourcePrice().length != space.resourceCount() * scenarios || q.segmentPrice().length != segments) {
       throw new IllegalArgumentException("prices do not match the catalog's resources and segments");
     }
     if (q.penalty() != null && q.penalty().length != space.totalChoices()) {
@@ -148,9 +213,13 @@ public final class VariantPricer {
     }
     w = new double[segments][];
     constant = new double[segments];
-    for (int s = 0; s < segments; s++) {
-      w[s] = ReducedCosts.weights(space, s, q.resourcePrice());
-      constant[s] = -q.segmentPrice()[s];
+    int rc = space.resourceCount();
+    for (int k = 0; k < scenarios; k++) {
+      double[] pi = Arrays.copyOfRange(q.resourcePrice(), k * rc, (k + 1) * rc);
+      for (int s = 0; s < perScenario; s++) {
+        w[k * perScenario + s] = weights(spaces.get(k), s, pi, q.weight(k));
+        constant[k * perScenario + s] = -q.segmentPrice()[k * perScenario + s];
+      }
     }
     pen = q.penalty() == null ? new double[space.totalChoices()] : q.penalty();
     charge = q.charge();
@@ -241,7 +310,7 @@ public final class VariantPricer {
             ? Double.NEGATIVE_INFINITY
             : partial[d][s] + x + rest[s] + constant[s];
       }
-      double b = LotValue.best(ub, terms.columnBound(), terms.minLot(), scratch)
+      double b = lotValue(ub)
           - charge - (penPartial[d] + pen[f] + penRest);
       n = BestFirst.insert(cb, cs, n, b, f);
     }
@@ -296,7 +365,7 @@ public final class VariantPricer {
     for (int g = 0; g < groups; g++) {
       p += pen[offset[g] + v[g]];
     }
-    double val = LotValue.best(d, terms.columnBound(), terms.minLot(), scratch) - charge - p;
+    double val = lotValue(d) - charge - p;
     if (val > cutoff() && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
       top.add(new PricedVariant(v.clone(), val));
       if (top.size() > k) {

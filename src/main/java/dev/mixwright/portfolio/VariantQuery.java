@@ -15,6 +15,11 @@ import java.util.Set;
  *
  * and g is {@link LotValue#best}. {@code penalty} may be null (all zero). {@code deadlineNanos}: a
  * {@code System.nanoTime()} after which the search stops with a valid bound, 0 for none.
+ *
+ * <p>For a range across scenarios k = 1..n ({@link VariantPricer} built over n scenarios) the prices
+ * stack the scenarios' rows (π of scenario k at [k·R, (k+1)·R), μ at [k·S, (k+1)·S)) and
+ * ψ(v) = Σ_k g_k(d^k(v)) − charge − penalty, with d^k_s(v) = ω_k margin_k(v, s) − π^k·use_k(v) − μ^k_s and
+ * ω = {@code scenarioWeight} (null: all 1).
  */
 public record VariantQuery(
     double[] resourcePrice,
@@ -24,7 +29,19 @@ public record VariantQuery(
     double threshold,
     int k,
     Set<VariantKey> excluded,
-    long deadlineNanos) {
+    long deadlineNanos,
+    double[] scenarioWeight) {
+
+  /** A query of one scenario (weight 1). */
+  public VariantQuery(double[] resourcePrice, double[] segmentPrice, double charge, double[] penalty,
+      double threshold, int k, Set<VariantKey> excluded, long deadlineNanos) {
+    this(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos, null);
+  }
+
+  /** The weight of scenario k (1 when none are given). */
+  public double weight(int k) {
+    return scenarioWeight == null ? 1.0 : scenarioWeight[k];
+  }
 
   public VariantQuery {
     if (k < 1) {

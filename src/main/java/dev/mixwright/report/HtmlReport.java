@@ -56,6 +56,7 @@ public final class HtmlReport {
     segments(h, r, currency);
     if (r.portfolio() != null) {
       portfolio(h, r.portfolio(), r.segments(), currency);
+      regret(h, r.portfolio(), currency);
     }
     h.append("</main>\n</body>\n</html>\n");
     return h.toString();
@@ -525,6 +526,47 @@ public final class HtmlReport {
       }
     }
     return sb.toString();
+  }
+
+  /**
+   * A range chosen across a scenario set: per scenario a bar of its regret (what the one range gives
+   * up against that scenario's own best range), all bars on one scale, and the hold-out figures.
+   */
+  private static void regret(StringBuilder h, RunResult.Portfolio p, String currency) {
+    if (p.scenarios() == null || p.scenarios().isEmpty()) {
+      return;
+    }
+    String unit = currency.isEmpty() ? "" : " " + currency;
+    h.append("<h2>Regret across scenarios</h2>\n<p class=\"note\">One range for every scenario; its value is the "
+        + ("worst".equals(p.aim()) ? "worst scenario's" : "weighted mean") + " (" + money(p.value()) + unit
+        + "). Each bar is the scenario's regret: its own best range's value less what this range earns there.</p>\n");
+    List<RunResult.ScenarioRow> rows = p.scenarios();
+    double most = rows.stream().mapToDouble(x -> Math.max(0, x.regret())).max().orElse(0);
+    int rowH = 40;
+    int w = 760;
+    int labelW = 170;
+    int barW = 280;
+    h.append(svgOpen(w, rows.size() * rowH + 16, "Regret of the range in each scenario"));
+    int i = 0;
+    for (RunResult.ScenarioRow x : rows) {
+      double y = 12 + i++ * rowH;
+      double frac = most > 0 ? Math.max(0, x.regret()) / most : 0;
+      h.append(text(labelW - 10, y + 13, "end", x.id()));
+      h.append(text(labelW - 10, y + 28, "end", "weight " + pct(x.weight())));
+      h.append(rect(labelW, y + 4, barW, 18, TRACK));
+      h.append(rect(labelW, y + 4, barW * frac, 18, frac >= 0.999 ? AMBER : TEAL));
+      h.append(text(labelW + barW + 10, y + 12, "start", "regret " + money(x.regret()) + unit));
+      h.append(text(labelW + barW + 10, y + 28, "start", "value " + money(x.value()) + " · best alone "
+          + money(x.bestAlone()) + (x.bestAloneStatus().isProven() ? "" : " (heuristic)")));
+    }
+    h.append("</svg>\n");
+    RunResult.HoldOut ho = p.holdOut();
+    if (ho != null) {
+      h.append("<p class=\"note\">Checked on ").append(ho.scenarios()).append(" scenarios it was not chosen on (")
+          .append(escape(ho.source())).append("): mean ").append(money(ho.mean())).append(", 5 % quantile ")
+          .append(money(ho.p5())).append(", 95 % quantile ").append(money(ho.p95())).append(escape(unit))
+          .append(ho.lotsMissed() > 0 ? "; " + ho.lotsMissed() + " cannot meet a minimum lot" : "").append(".</p>\n");
+    }
   }
 
   private static String svgOpen(int w, int h, String label) {

@@ -7,6 +7,7 @@ import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.portfolio.PortfolioTerms;
 import dev.mixwright.portfolio.RangeChange;
 import dev.mixwright.portfolio.RelaxationResult;
+import dev.mixwright.portfolio.ScenarioStage;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
@@ -79,7 +80,43 @@ public final class PortfolioSection {
         new RunResult.Solver(o.engine(), o.solver().solves(), o.solver().lastOptimal()), o.elapsedMs(),
         range(space, o.range(), r -> r.kept()), range(space, o.range(), null), range(space, o.range(), r -> r.added()),
         o.range().hasCurrentRange() ? o.range().discontinueCosts() : null,
-        o.range().hasCurrentRange() ? Json.num(o.range().currentRangeValue()) : null);
+        o.range().hasCurrentRange() ? Json.num(o.range().currentRangeValue()) : null, null, null, null);
+  }
+
+  /**
+   * The section of a range chosen across scenarios: the range with its sales per segment as the
+   * weighted mean over the scenarios (the scenarios' own figures are in {@code scenarios}); no
+   * relaxation prices, which are per scenario.
+   */
+  public static RunResult.Portfolio ofScenarios(VariantSpace space, PortfolioTerms terms, ScenarioStage.Outcome o,
+      double[] weights, String engine) {
+    Catalog cat = space.catalog();
+    List<RunResult.PortfolioVariant> variants = new ArrayList<>();
+    for (int[] v : o.range()) {
+      double[] sales = new double[cat.segments().size()];
+      double margin = 0;
+      for (int k = 0; k < weights.length; k++) {
+        for (OfferedVariant w : o.plans().get(k)) {
+          if (java.util.Arrays.equals(w.choices(), v)) {
+            for (int s = 0; s < sales.length; s++) {
+              sales[s] += weights[k] * w.sales()[s];
+            }
+            margin += weights[k] * w.margin();
+          }
+        }
+      }
+      OfferedVariant mean = new OfferedVariant(v, sales, margin);
+      variants.add(new RunResult.PortfolioVariant(space.describe(v), sales(cat, mean), mean.units(), margin,
+          terms.introductionCost()));
+    }
+    variants.sort((a, b) -> Double.compare(b.margin(), a.margin()));
+    RunResult.Terms tn = new RunResult.Terms(terms.introductionCost(),
+        terms.maxVariants() == PortfolioTerms.UNLIMITED ? null : terms.maxVariants(), terms.minLot(),
+        terms.variantCap() == PortfolioTerms.UNLIMITED ? null : terms.variantCap());
+    return new RunResult.Portfolio(o.status(), o.reason(), o.value(), Json.num(o.bound()), Json.num(o.gap()),
+        variants, o.introductionCosts(), o.toolingCosts(), null, tn, null, null,
+        new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize()),
+        new RunResult.Solver(engine, o.mipSolves(), o.status().isProven()), o.elapsedMs());
   }
 
   /** Kept or added (with sales) or, with no getter, dropped (options only); null without a current range. */

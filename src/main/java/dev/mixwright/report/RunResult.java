@@ -133,7 +133,10 @@ public record RunResult(
       @JsonInclude(Include.NON_NULL) List<RangeVariant> dropped,
       @JsonInclude(Include.NON_NULL) List<RangeVariant> added,
       @JsonInclude(Include.NON_NULL) Double discontinueCosts,
-      @JsonInclude(Include.NON_NULL) Double currentRangeValue) {
+      @JsonInclude(Include.NON_NULL) Double currentRangeValue,
+      @JsonInclude(Include.NON_NULL) String aim,
+      @JsonInclude(Include.NON_NULL) List<ScenarioRow> scenarios,
+      @JsonInclude(Include.NON_NULL) HoldOut holdOut) {
 
     public Portfolio {
       reason = reason == null ? "" : reason;
@@ -145,9 +148,32 @@ public record RunResult(
         List<PortfolioVariant> variants, double introductionCosts, double toolingCosts, Map<String, Double> toolingPaid,
         Terms terms, Double lpBound, Relaxation relaxation, Proof proof, Solver solver, long elapsedMs) {
       this(status, reason, value, bound, gap, variants, introductionCosts, toolingCosts, toolingPaid, terms, lpBound,
-          relaxation, proof, solver, elapsedMs, null, null, null, null, null);
+          relaxation, proof, solver, elapsedMs, null, null, null, null, null, null, null, null);
+    }
+
+    /** This section with the range's scenarios: {@code aim} (mean or worst), one row per scenario, the hold-out check. */
+    public Portfolio withScenarios(String aim, List<ScenarioRow> rows, HoldOut check) {
+      return new Portfolio(status, reason, value, bound, gap, variants, introductionCosts, toolingCosts, toolingPaid,
+          terms, lpBound, relaxation, proof, solver, elapsedMs, kept, dropped, added, discontinueCosts,
+          currentRangeValue, aim, rows, check);
     }
   }
+
+  /**
+   * One scenario of a range chosen across a set: its normalised weight, what the range earns in it
+   * ({@code value}), the best range for it alone ({@code bestAlone}, with {@code bestAloneStatus}
+   * proven or heuristic) and {@code regret} = bestAlone − value.
+   */
+  public record ScenarioRow(String id, double weight, double value, double bestAlone, double regret,
+      PortfolioStatus bestAloneStatus) {}
+
+  /**
+   * The chosen range evaluated on scenarios it was not chosen on ({@code source}: the file): how many,
+   * how many cannot meet the lots ({@code lotsMissed}, left out of the figures), and the weighted mean
+   * and 5 % / 95 % quantiles of its value.
+   */
+  public record HoldOut(String source, int scenarios, int lotsMissed, Double mean, Double p5, Double p95,
+      long elapsedMs) {}
 
   /** A variant of the current range's comparison: its options, and its sales where it is offered. */
   public record RangeVariant(Map<String, String> options, @JsonInclude(Include.NON_NULL) Map<String, Double> sales) {}

@@ -14,6 +14,7 @@ import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.WarmStart;
 import dev.mixwright.portfolio.PortfolioListener;
+import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.ResultWriter;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.runfolder.AtomicFiles;
@@ -106,6 +107,14 @@ public final class RunSession {
   }
 
   public RunOutcome solve(SolveRequest r) throws IOException, CatalogException {
+    return solve(r, null);
+  }
+
+  /**
+   * A new run whose integer stage chooses one range across the scenario set of {@code set} (null:
+   * the catalog's own integer stage). The LP stage and result.json's LP fields are the catalog's.
+   */
+  public RunOutcome solve(SolveRequest r, ScenarioSetPlan set) throws IOException, CatalogException {
     long start = System.nanoTime();
     if (!r.pricer().exact()) {
       throw new InputError("--pricer " + r.pricer().word() + " proves no bound; choose "
@@ -116,6 +125,7 @@ public final class RunSession {
     if (r.scenarioFile().isPresent()) {
       catalog = Inputs.withScenario(catalog, r.scenarioFile().get());
     }
+    ScenarioSetStep.Loaded scenarios = set == null ? null : ScenarioSetStep.load(set, catalog);
     VariantSpace space = new VariantSpace(catalog);
     RunFolder folder = new RunFolder(r.runDir());
     if (!r.replace() && folder.holdsRun()) {
@@ -135,7 +145,9 @@ public final class RunSession {
         cg.addListener(log);
         cg.addListener(new SnapshotWriter(folder, manifest, 1));
         Stage lp = new Stage(space, cg, List.of(), r.catalogFile().toString(), read.sha256(), r.pricer(), 0, start);
-        return finish(lp, r.portfolio(), checkpoints(folder, manifest, false), false, 1);
+        PortfolioStep.Checkpoints cp = checkpoints(folder, manifest, false);
+        return finish(lp, cp, false, 1, scenarios != null ? setStep(r, scenarios, folder)
+            : catalogStep(r.portfolio(), cp));
       }
     }
   }
@@ -307,7 +319,8 @@ public final class RunSession {
       cg.addListener(new SnapshotWriter(folder, m, session));
       Stage lp = new Stage(space, cg, pool.columns(), m.catalog().path(), m.catalog().sha256(), pricer,
           priorElapsed, start);
-      return finish(lp, r.portfolio(), checkpoints(folder, m, true), true, session);
+      PortfolioStep.Checkpoints cp = checkpoints(folder, m, true);
+      return finish(lp, cp, true, session, catalogStep(r.portfolio(), cp));
     }
   }
 
@@ -341,7 +354,18 @@ public final class RunSession {
    * Runs the LP stage (unless nothing is sellable), then the integer stage, and writes result.json.
    * {@code resumed}: result.json names the session count.
    */
-  private RunOutcome finish(Stage lp, PortfolioPlan plan, PortfolioStep.Checkpoints cp, boolean resumed, int session)
+  /** What follows the LP stage: the result with its portfolio section added (or why there is none). */
+  private interface IntegerStep {
+    RunResult after(VariantSpace space, SolveOutcome lp, RunResult lpResult, long startNanos) throws IOException;
+  }
+
+  /** The catalog's own integer stage. */
+  private IntegerStep catalogStep(PortfolioPlan plan, PortfolioStep.Checkpoints cp) {
+    return (space, outcome, lpResult, startNanos) -> PortfolioStep.attach(space, outcome, plan, cp, lpResult,
+        startNanos, watcher.portfolio(), stop::get);
+  }
+
+  private RunOutcome finish(Stage lp, PortfolioStep.Checkpoints cp, boolean resumed, int session, IntegerStep step)
       throws IOException {
     Path runDir = cp.folder().dir();
     VariantSpace space = lp.space();
@@ -359,10 +383,22 @@ public final class RunSession {
     if (resumed) {
       lpResult = lpResult.withSessions(session);
     }
-    RunResult result = PortfolioStep.attach(space, outcome, plan, cp, lpResult,
-        lp.startNanos() - lp.priorElapsedMs() * 1_000_000L, watcher.portfolio(), stop::get);
+    RunResult result = step.after(space, outcome, lpResult, lp.startNanos() - lp.priorElapsedMs() * 1_000_000L);
     ResultWriter.write(runDir, result);
     return new RunOutcome.Solved(runDir, space, outcome, result);
+  }
+
+  /** The integer stage of a range across a scenario set, in place of the catalog's own. */
+  private IntegerStep setStep(SolveRequest r, ScenarioSetStep.Loaded set, RunFolder folder) {
+    return (space, outcome, lpResult, startNanos) -> {
+      if (!r.portfolio().run() || !outcome.status().isOptimal()) {
+        return lpResult;
+      }
+      ResultWriter.write(folder.dir(), lpResult.withPortfolioPending(PortfolioPending.RUNNING));
+      RunResult result = ScenarioSetStep.attach(set, r.pricer(), r.settings(), r.portfolio().settings(), lpResult,
+          startNanos, stop::get, watcher::note);
+      return stop.get() ? result.withPortfolioPending(PortfolioPending.INTERRUPTED) : result;
+    };
   }
 
   private PortfolioStep.Checkpoints checkpoints(RunFolder folder, RunManifest m, boolean resume) {

@@ -177,6 +177,31 @@ public final class Scenarios {
     return t;
   }
 
+  /**
+   * An inline scenario mapping at {@code path} of another file (a scenario set's {@code change}),
+   * checked against {@code catalog}; its problems go to {@code out}, and null comes back when it has any.
+   */
+  static Scenario inline(JsonNode n, String path, String name, Catalog catalog, List<CatalogProblem> out) {
+    Scenarios r = new Scenarios(catalog);
+    Scenario s = r.scenario(n, path, SCENARIO_FIELDS.subList(2, SCENARIO_FIELDS.size()), name);
+    if (r.problems.isEmpty()) {
+      r.check(s, Scenario.none());
+    }
+    out.addAll(r.problems);
+    return r.problems.isEmpty() ? s : null;
+  }
+
+  /**
+   * A figure written as text or number relative to {@code base}, as scenario values are ({@code
+   * "+10%"}, {@code "-500"}, {@code 16000}); null with a problem in {@code out} when it is not one.
+   */
+  static Amount amount(JsonNode v, String path, Catalog catalog, List<CatalogProblem> out) {
+    Scenarios r = new Scenarios(catalog);
+    Amount a = r.amount(v, path);
+    out.addAll(r.problems);
+    return a;
+  }
+
   // ------------------------------------------------------------------ scenario mappings
 
   private Scenario scenario(JsonNode n, String path, List<String> fields, String name) {
@@ -672,7 +697,7 @@ public final class Scenarios {
     }
   }
 
-  private static String fileStem(Path file) {
+  static String fileStem(Path file) {
     String n = file.getFileName() == null ? file.toString() : file.getFileName().toString();
     int dot = n.lastIndexOf('.');
     return dot > 0 ? n.substring(0, dot) : n;

@@ -48,30 +48,8 @@ public final class EnumeratedMip {
     Natives.load();
     Catalog c = space.catalog();
     PortfolioSpec p = c.portfolio().orElseThrow();
-    List<int[]> variants = new ArrayList<>();
+    List<int[]> variants = sellable(space);
     int groups = space.groupCount();
-    int[] v = new int[groups];
-    boolean any = true;
-    for (int g = 0; g < groups; g++) {
-      any &= space.choiceCount(g) > 0;
-    }
-    while (any) {
-      boolean sold = false;
-      for (int s = 0; s < space.segmentCount(); s++) {
-        sold |= space.isColumn(v, s);
-      }
-      if (sold && !excluded(space, v)) {
-        variants.add(v.clone());
-      }
-      int g = groups - 1;
-      while (g >= 0 && ++v[g] == space.choiceCount(g)) {
-        v[g] = 0;
-        g--;
-      }
-      if (g < 0) {
-        break;
-      }
-    }
     MPSolver solver = MPSolver.createSolver(relaxed ? "GLOP" : "SCIP");
     MPSolverParameters params = new MPSolverParameters();
     try {
@@ -194,6 +172,35 @@ public final class EnumeratedMip {
       params.delete();
       solver.delete();
     }
+  }
+
+  /** Every buildable variant some segment takes and no exclude entry bars, listed by an odometer. */
+  public static List<int[]> sellable(VariantSpace space) {
+    List<int[]> variants = new ArrayList<>();
+    int groups = space.groupCount();
+    int[] v = new int[groups];
+    boolean any = true;
+    for (int g = 0; g < groups; g++) {
+      any &= space.choiceCount(g) > 0;
+    }
+    while (any) {
+      boolean sold = false;
+      for (int s = 0; s < space.segmentCount(); s++) {
+        sold |= space.isColumn(v, s);
+      }
+      if (sold && !excluded(space, v)) {
+        variants.add(v.clone());
+      }
+      int g = groups - 1;
+      while (g >= 0 && ++v[g] == space.choiceCount(g)) {
+        v[g] = 0;
+        g--;
+      }
+      if (g < 0) {
+        break;
+      }
+    }
+    return variants;
   }
 
   /** True when v holds every option of some exclude entry (an option named without a price covers its price points). */
