@@ -192,7 +192,7 @@ public final class ScenarioStage {
     clock = new StageClock(settings.timeLimitMs(), stop);
     for (SolveOutcome lp : lps) {
       if (!lp.status().isInfeasible()) {
-        for (Column c : lp.columns()) {
+        for (Column c : lp.master().columns()) {
           add(c.choices());
         }
       }

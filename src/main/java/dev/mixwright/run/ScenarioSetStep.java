@@ -90,13 +90,13 @@ final class ScenarioSetStep {
     double[] w = set.set().weights();
     ScenarioStage stage = new ScenarioStage(spaces, w, set.plan().aim(), settings).stopWhen(StopCriterion.signal(stop));
     ScenarioStage.Outcome o = stage.run(alone.stream().map(Alone::lp).toList(),
-        alone.stream().map(a -> a.best().variants().stream().map(OfferedVariant::choices).toList()).toList(),
-        alone.stream().mapToDouble(a -> a.best().bound()).toArray());
+        alone.stream().map(a -> a.best().offer().variants().stream().map(OfferedVariant::choices).toList()).toList(),
+        alone.stream().mapToDouble(a -> a.best().result().bound()).toArray());
     List<RunResult.ScenarioRow> rows = new ArrayList<>();
     for (int k = 0; k < alone.size(); k++) {
       PortfolioOutcome b = alone.get(k).best();
       double v = o.scenarioValue()[k];
-      rows.add(new RunResult.ScenarioRow(set.set().members().get(k).id(), w[k], v, b.value(), b.value() - v,
+      rows.add(new RunResult.ScenarioRow(set.set().members().get(k).id(), w[k], v, b.result().value(), b.result().value() - v,
           b.status()));
     }
     RunResult.HoldOut check = set.holdOut().isEmpty() ? null

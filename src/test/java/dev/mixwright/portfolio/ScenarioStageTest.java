@@ -91,8 +91,8 @@ class ScenarioStageTest {
       if (rnd.nextBoolean()) {
         for (int k = 0; k < n; k++) {
           PortfolioOutcome best = StageRuns.stage(spaces.get(k), StageRuns.settings());
-          alone.add(best.variants().stream().map(OfferedVariant::choices).toList());
-          aloneBounds[k] = best.bound();
+          alone.add(best.offer().variants().stream().map(OfferedVariant::choices).toList());
+          aloneBounds[k] = best.result().bound();
         }
       }
       ScenarioStage.Outcome o = new ScenarioStage(spaces, w, worst ? ScenarioStage.Aim.WORST : ScenarioStage.Aim.MEAN,
@@ -131,7 +131,7 @@ class ScenarioStageTest {
       EnumeratedMip.Result full = EnumeratedMip.solve(space, false, 60_000); // SCIP over all variants
       assertTrue(full.value() <= one.bound() + tol(full.value()), "bound below the enumerated optimum");
       if (today.status().isProven() && one.status().isProven()) {
-        assertEquals(today.value(), one.value(), tol(today.value()));
+        assertEquals(today.result().value(), one.value(), tol(today.result().value()));
         assertEquals(full.value(), one.value(), tol(full.value()));
       }
       // the worst of one scenario is that scenario
