@@ -18,7 +18,9 @@ public record RunData(RunFolder folder, RunResult result, Catalog catalog, Varia
   public static RunData read(Path runDir) throws IOException, CatalogException {
     RunFolder folder = new RunFolder(runDir);
     RunResult result = RunResult.read(runDir);
-    Catalog catalog = Files.isRegularFile(folder.catalogCopy()) ? CatalogLoader.load(folder.catalogCopy()) : null;
+    // checked against run.json first: a changed copy would give other labels and figures in silence
+    Catalog catalog = Files.isRegularFile(folder.catalogCopy())
+        ? CatalogLoader.parse(folder.verifiedCatalogCopy(), folder.catalogCopy().toString(), null) : null;
     return of(folder, result, catalog);
   }
 

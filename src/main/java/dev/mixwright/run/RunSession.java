@@ -205,7 +205,9 @@ public final class RunSession {
     }
     boolean repriced = false;
     if (source.changed() || !copyIntact) {
-      String why = source.changed() ? source.why()
+      // A damaged copy is said first: the check of the option tables compares against the copy, so
+      // with the copy damaged it would blame a table that never changed.
+      String why = copyIntact ? source.why()
           : RunFolder.CATALOG_COPY + " in " + runDir + " was changed after the run began (its SHA-256 no"
               + " longer matches run.json)";
       if (!r.reprice()) {

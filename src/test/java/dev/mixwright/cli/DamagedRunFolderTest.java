@@ -182,4 +182,24 @@ class DamagedRunFolderTest {
     }
     assertEquals(0, CliRun.of("report", dir.toString()).code());
   }
+
+  /**
+   * catalog.json changed after the run (one price digit): resume names catalog.json, not an option
+   * table the starter does not even have, and export refuses it rather than show other figures.
+   */
+  @Test
+  void aChangedCatalogCopyIsNamedByResumeAndRefusedByExport() throws IOException {
+    Path dir = fresh("copy");
+    Path copy = dir.resolve(RunFolder.CATALOG_COPY);
+    String text = Files.readString(copy);
+    assertTrue(text.contains("5100"), "the starter's 12 kW unit is listed at 5100");
+    Files.writeString(copy, text.replaceFirst("5100", "6100"));
+    CliRun resume = CliRun.of("resume", dir.toString());
+    assertEquals(ExitCodes.BAD_INPUT, resume.code(), resume::toString);
+    assertTrue(resume.err().contains(RunFolder.CATALOG_COPY + " in "), resume::toString);
+    assertTrue(!resume.err().contains("option table"), resume::toString);
+    CliRun export = CliRun.of("export", dir.toString(), "--format", "text");
+    assertEquals(ExitCodes.BAD_INPUT, export.code(), export::toString);
+    assertTrue(export.err().contains("is damaged"), export::toString);
+  }
 }
