@@ -24,7 +24,7 @@ import java.util.List;
  * warm-starts from the previous basis); {@link #fixIntroduction} turns the relaxation into the LP of
  * a fixed portfolio. Not thread-safe; close it to free the native solver.
  */
-public final class PortfolioLp implements AutoCloseable {
+public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
   private final Rows rows;

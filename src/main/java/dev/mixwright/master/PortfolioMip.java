@@ -21,7 +21,7 @@ import java.util.function.BooleanSupplier;
  * <p>SCIP runs single-threaded: with more threads it switches to a concurrent mode that ended early
  * with an unknown status in a measurement here. Build, optionally hint, solve once; not thread-safe.
  */
-public final class PortfolioMip implements AutoCloseable {
+public final class PortfolioMip implements PortfolioShape, AutoCloseable {
   private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
   /** The MIP engine. */

@@ -9,6 +9,7 @@ import dev.mixwright.master.MipStatus;
 import dev.mixwright.master.PortfolioLp;
 import dev.mixwright.master.PortfolioLpSolution;
 import dev.mixwright.master.PortfolioMip;
+import dev.mixwright.master.PortfolioShape;
 import dev.mixwright.pricing.PricedVariant;
 import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantSpace;
@@ -428,18 +429,23 @@ public final class ScenarioStage {
     return out;
   }
 
-  private PortfolioLp stackedLp(int cap) {
-    PortfolioLp lp = new PortfolioLp(stackedCapacity(), stackedDemand(), cap);
+  /** The stacked rows' shape: the worst case when asked, and each scenario's choosing segments. */
+  private void shape(PortfolioShape m) {
     if (aim.isWorst()) {
-      lp.worstCase(scenarios);
+      m.worstCase(scenarios);
     }
     for (int k = 0; k < scenarios; k++) {
       for (int s = 0; s < segmentCount; s++) {
         if (spaces.get(k).chooses(s)) {
-          lp.chooseIn(k * segmentCount + s);
+          m.chooseIn(k * segmentCount + s);
         }
       }
     }
+  }
+
+  private PortfolioLp stackedLp(int cap) {
+    PortfolioLp lp = new PortfolioLp(stackedCapacity(), stackedDemand(), cap);
+    shape(lp);
     return lp;
   }
 
@@ -499,16 +505,7 @@ public final class ScenarioStage {
     int n = pools.get(0).size();
     try (PortfolioMip m = new PortfolioMip(settings.engine(), stackedCapacity(), stackedDemand(), variantCap(),
         t0.choiceCost(), t0.wholeUnits())) {
-      if (aim.isWorst()) {
-        m.worstCase(scenarios);
-      }
-      for (int k = 0; k < scenarios; k++) {
-        for (int s = 0; s < segmentCount; s++) {
-          if (spaces.get(k).chooses(s)) {
-            m.chooseIn(k * segmentCount + s);
-          }
-        }
-      }
+      shape(m);
       for (int i = 0; i < n; i++) {
         Entries e = entries(i);
         int b = m.addScenarioVariant(e.segments(), e.margin(), e.use(), e.upper(), e.fixedCost(), e.minLot(), e.lotOf(),
