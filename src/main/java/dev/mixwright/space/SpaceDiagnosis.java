@@ -255,8 +255,7 @@ public final class SpaceDiagnosis {
    * -1: any buildable variant) and that holds, in every group of {@code match}, a listed choice.
    */
   private Verdict ask(List<Integer> rules, int segment, Map<String, List<String>> match) {
-    VariantSpace vs =
-        rules.size() == catalog.rules().size() ? space : new VariantSpace(subCatalog(rules));
+    VariantSpace vs = rules.size() == catalog.rules().size() ? space : space.withRulesOnly(mask(rules));
     boolean[] domain = new boolean[vs.totalChoices()];
     for (int f = 0; f < domain.length; f++) {
       domain[f] = segment < 0 ? vs.allowed(f) : vs.allowedIn(segment, f);
@@ -287,18 +286,12 @@ public final class SpaceDiagnosis {
     };
   }
 
-  private Catalog subCatalog(List<Integer> rules) {
-    List<Rule> kept = rules.stream().sorted().map(catalog.rules()::get).toList();
-    return new Catalog(
-        catalog.format(),
-        catalog.name(),
-        catalog.currency(),
-        catalog.period(),
-        catalog.resources(),
-        catalog.groups(),
-        kept,
-        catalog.segments(),
-        catalog.portfolio());
+  private boolean[] mask(List<Integer> rules) {
+    boolean[] keep = new boolean[catalog.rules().size()];
+    for (int r : rules) {
+      keep[r] = true;
+    }
+    return keep;
   }
 
   /** A complete search for one variant within {@code domain}; exponential in the worst case. */
