@@ -50,6 +50,26 @@ public final class Natives {
     }
   }
 
+  /**
+   * Starts {@link #load} on a daemon thread, so that a solve reads its catalog while the libraries
+   * load (hundreds of milliseconds when the disk is busy) instead of waiting for them before round 1.
+   * A failure here is left for the caller's own {@link #load}, which tries again and reports it.
+   */
+  public static void loadInBackground() {
+    if (loaded) {
+      return;
+    }
+    Thread t = new Thread(() -> {
+      try {
+        load();
+      } catch (RuntimeException | LinkageError e) {
+        // the next load() on the solving thread meets the same problem and reports it
+      }
+    }, "native-load");
+    t.setDaemon(true);
+    t.start();
+  }
+
   private static boolean loadFromCache() {
     try {
       URL url = Natives.class.getClassLoader().getResource(RESOURCE);

@@ -13,6 +13,7 @@ import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.WarmStart;
+import dev.mixwright.master.Natives;
 import dev.mixwright.portfolio.PortfolioListener;
 import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.ResultWriter;
@@ -116,6 +117,7 @@ public final class RunSession {
    */
   public RunOutcome solve(SolveRequest r, ScenarioSetPlan set) throws IOException, CatalogException {
     long start = System.nanoTime();
+    Natives.loadInBackground();
     if (!r.pricer().exact()) {
       throw new InputError("--pricer " + r.pricer().word() + " proves no bound; choose "
           + PricerChoice.exactWords() + " (use --heuristic-first to add the heuristic in front of an exact pricer)");

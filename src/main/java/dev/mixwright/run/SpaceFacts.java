@@ -22,13 +22,24 @@ public record SpaceFacts(SpaceCount total, List<SpaceCount> perSegment, String e
     return new SpaceFacts(counts.get(0), counts.subList(1, counts.size()), survey.emptyReason(), survey.segmentNotes());
   }
 
-  /** Rules that can never fire or that forbid their own when; worth a look, not errors. */
-  public static List<String> ruleNotes(VariantSpace space) {
+  /**
+   * Rules that can never fire or that forbid their own when; worth a look, not errors. Past
+   * {@code budgetMs} (0 or less: no limit) the rules not yet judged are named in a last note.
+   */
+  public static List<String> ruleNotes(VariantSpace space, long budgetMs) {
     List<String> out = new ArrayList<>();
-    for (RuleNote n : new SpaceDiagnosis(space).ruleNotes()) {
+    SpaceDiagnosis.Judged judged = new SpaceDiagnosis(space).ruleNotes(budgetMs);
+    for (RuleNote n : judged.notes()) {
       if (n.kind() != RuleNote.Kind.IN_CONFLICT) {
         out.add(n.message());
       }
+    }
+    if (!judged.complete()) {
+      int from = judged.judged();
+      int to = judged.rules() - 1;
+      out.add("rule notes stopped after " + budgetMs + " ms: " + (from == to ? "rules[" + from + "] was"
+          : "rules[" + from + "] to rules[" + to + "] (" + (to - from + 1) + " rules) were")
+          + " not checked for never firing or forbidding their own when");
     }
     return out;
   }

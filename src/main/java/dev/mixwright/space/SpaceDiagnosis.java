@@ -164,10 +164,23 @@ public final class SpaceDiagnosis {
    * questions, plus m per note.
    */
   public List<RuleNote> ruleNotes() {
+    return ruleNotes(0).notes();
+  }
+
+  /**
+   * The notes of {@link #ruleNotes()} for the rules judged within {@code budgetMs} (0 or less: no
+   * limit). Rules are judged in catalog order and a rule begun is finished, so the notes are those
+   * of the first {@link Judged#judged()} rules.
+   */
+  public Judged ruleNotes(long budgetMs) {
+    long deadline = budgetMs > 0 ? System.nanoTime() + budgetMs * 1_000_000L : Long.MAX_VALUE;
     List<Integer> all = allRules();
     Verdict whole = ask(all, -1, Map.of());
     List<RuleNote> notes = new ArrayList<>();
     for (int i = 0; i < all.size(); i++) {
+      if (budgetMs > 0 && System.nanoTime() - deadline > 0) {
+        return new Judged(notes, i, all.size());
+      }
       Rule rule = catalog.rules().get(i);
       List<Integer> others = new ArrayList<>(all);
       others.remove(Integer.valueOf(i));
@@ -212,7 +225,18 @@ public final class SpaceDiagnosis {
                     + cause(core, "its require contradicts its own when") + ")"));
       }
     }
-    return notes;
+    return new Judged(notes, all.size(), all.size());
+  }
+
+  /** Rule notes of the first {@code judged} of {@code rules} rules; the rest were not looked at. */
+  public record Judged(List<RuleNote> notes, int judged, int rules) {
+    public Judged {
+      notes = List.copyOf(notes);
+    }
+
+    public boolean complete() {
+      return judged == rules;
+    }
   }
 
   private List<Integer> allRules() {
@@ -255,8 +279,7 @@ public final class SpaceDiagnosis {
    * -1: any buildable variant) and that holds, in every group of {@code match}, a listed choice.
    */
   private Verdict ask(List<Integer> rules, int segment, Map<String, List<String>> match) {
-    VariantSpace vs =
-        rules.size() == catalog.rules().size() ? space : new VariantSpace(subCatalog(rules));
+    VariantSpace vs = rules.size() == catalog.rules().size() ? space : space.withRulesOnly(mask(rules));
     boolean[] domain = new boolean[vs.totalChoices()];
     for (int f = 0; f < domain.length; f++) {
       domain[f] = segment < 0 ? vs.allowed(f) : vs.allowedIn(segment, f);
@@ -287,18 +310,12 @@ public final class SpaceDiagnosis {
     };
   }
 
-  private Catalog subCatalog(List<Integer> rules) {
-    List<Rule> kept = rules.stream().sorted().map(catalog.rules()::get).toList();
-    return new Catalog(
-        catalog.format(),
-        catalog.name(),
-        catalog.currency(),
-        catalog.period(),
-        catalog.resources(),
-        catalog.groups(),
-        kept,
-        catalog.segments(),
-        catalog.portfolio());
+  private boolean[] mask(List<Integer> rules) {
+    boolean[] keep = new boolean[catalog.rules().size()];
+    for (int r : rules) {
+      keep[r] = true;
+    }
+    return keep;
   }
 
   /** A complete search for one variant within {@code domain}; exponential in the worst case. */

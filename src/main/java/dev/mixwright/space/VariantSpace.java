@@ -44,7 +44,11 @@ public final class VariantSpace {
   private final double[] margin;
   private final double[] use;
   private final boolean[] allowed;
+  /** foldedBy[r]: the flat choices rule r (an exclude entry past the rules) removed from {@link #allowed}. */
+  private final int[][] foldedBy;
   private final double[][] segmentValue;
+  /** Per segment, the choices its accepts lists (all, in a group it does not name). */
+  private final boolean[][] accepted;
   private final boolean[][] segmentAllowed;
   private final double[][] partWorth;
   private final double[][] choiceUtility;
@@ -100,6 +104,7 @@ public final class VariantSpace {
     }
     allowed = new boolean[total];
     Arrays.fill(allowed, true);
+    foldedBy = new int[catalog.rules().size() + catalog.exclude().size()][];
     List<Nogood> compiled = new ArrayList<>();
     for (int r = 0; r < catalog.rules().size(); r++) {
       compileRule(catalog.rules().get(r), r, compiled);
@@ -110,15 +115,9 @@ public final class VariantSpace {
       addNogood(excludeClause(catalog.exclude().get(e)), null, -1, catalog.rules().size() + e, compiled);
     }
     nogoods = compiled.toArray(new Nogood[0]);
-    nogoodsOfGroup = new int[groupCount][];
-    for (int g = 0; g < groupCount; g++) {
-      int gg = g;
-      nogoodsOfGroup[g] =
-          java.util.stream.IntStream.range(0, nogoods.length)
-              .filter(i -> Arrays.stream(nogoods[i].groups()).anyMatch(x -> x == gg))
-              .toArray();
-    }
+    nogoodsOfGroup = nogoodsOfGroup(nogoods, groupCount);
     segmentValue = new double[segmentCount][total];
+    accepted = new boolean[segmentCount][];
     segmentAllowed = new boolean[segmentCount][];
     partWorth = new double[segmentCount][total];
     choiceUtility = new double[segmentCount][];
@@ -129,15 +128,17 @@ public final class VariantSpace {
           segmentValue[s][f] = v.getValue();
         }
       }
-      boolean[] ok = allowed.clone();
+      boolean[] acc = new boolean[total];
+      Arrays.fill(acc, true);
       for (Map.Entry<String, List<String>> a : seg.accepts().entrySet()) {
         int g = catalog.groupIndex(a.getKey());
         boolean[] listed = mark(g, a.getValue());
         for (int k = 0; k < choiceCount[g]; k++) {
-          ok[offset[g] + k] &= listed[offset[g] + k];
+          acc[offset[g] + k] = listed[offset[g] + k];
         }
       }
-      segmentAllowed[s] = ok;
+      accepted[s] = acc;
+      segmentAllowed[s] = both(allowed, acc);
       if (seg.chooses()) {
         Choice ch = seg.choice().orElseThrow();
         for (Map.Entry<String, Double> u : ch.utility().entrySet()) {
@@ -159,6 +160,100 @@ public final class VariantSpace {
       bits += bitsOfGroup[g];
     }
     keyWords = Math.max(1, (bits + 63) / 64);
+  }
+
+  /**
+   * This space as if the catalog held only the rules marked in {@code keepRule} (in their order, and
+   * without exclude entries), sharing every array the rules do not touch: what compiling that
+   * catalog would give, in O(choices · segments + nogoods) instead of a compile.
+   * {@link SpaceDiagnosis} asks hundreds of such questions.
+   */
+  VariantSpace withRulesOnly(boolean[] keepRule) {
+    return new VariantSpace(this, keepRule);
+  }
+
+  private VariantSpace(VariantSpace all, boolean[] keepRule) {
+    List<Rule> rules = all.catalog.rules();
+    int[] renumber = new int[rules.size()];
+    List<Rule> kept = new ArrayList<>();
+    for (int r = 0; r < rules.size(); r++) {
+      renumber[r] = kept.size();
+      if (keepRule[r]) {
+        kept.add(rules.get(r));
+      }
+    }
+    Catalog c = all.catalog;
+    this.catalog = new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), kept,
+        c.segments(), c.portfolio());
+    groupCount = all.groupCount;
+    resourceCount = all.resourceCount;
+    segmentCount = all.segmentCount;
+    choiceCount = all.choiceCount;
+    offset = all.offset;
+    optionOf = all.optionOf;
+    pointOf = all.pointOf;
+    price = all.price;
+    cost = all.cost;
+    margin = all.margin;
+    use = all.use;
+    segmentValue = all.segmentValue;
+    accepted = all.accepted;
+    partWorth = all.partWorth;
+    choiceUtility = all.choiceUtility;
+    bitsOfGroup = all.bitsOfGroup;
+    keyWords = all.keyWords;
+    allowed = new boolean[all.allowed.length];
+    Arrays.fill(allowed, true);
+    foldedBy = new int[kept.size()][];
+    for (int r = 0; r < rules.size(); r++) {
+      if (keepRule[r] && all.foldedBy[r] != null) {
+        foldedBy[renumber[r]] = all.foldedBy[r];
+        for (int f : all.foldedBy[r]) {
+          allowed[f] = false;
+        }
+      }
+    }
+    List<Nogood> ns = new ArrayList<>();
+    for (Nogood n : all.nogoods) {
+      if (n.rule() < rules.size() && keepRule[n.rule()]) {
+        ns.add(new Nogood(n.groups(), n.member(), renumber[n.rule()]));
+      }
+    }
+    nogoods = ns.toArray(new Nogood[0]);
+    nogoodsOfGroup = nogoodsOfGroup(nogoods, groupCount);
+    segmentAllowed = new boolean[segmentCount][];
+    for (int s = 0; s < segmentCount; s++) {
+      segmentAllowed[s] = both(allowed, accepted[s]);
+    }
+  }
+
+  private static boolean[] both(boolean[] a, boolean[] b) {
+    boolean[] out = new boolean[a.length];
+    for (int f = 0; f < a.length; f++) {
+      out[f] = a[f] && b[f];
+    }
+    return out;
+  }
+
+  /** For each group, the indices of the nogoods that name it, in rising order. */
+  private static int[][] nogoodsOfGroup(Nogood[] nogoods, int groupCount) {
+    int[] count = new int[groupCount];
+    for (Nogood n : nogoods) {
+      for (int g : n.groups()) {
+        count[g]++;
+      }
+    }
+    int[][] out = new int[groupCount][];
+    for (int g = 0; g < groupCount; g++) {
+      out[g] = new int[count[g]];
+      count[g] = 0;
+    }
+    for (int i = 0; i < nogoods.length; i++) {
+      for (int g : nogoods[i].groups()) {
+        out[g][count[g]++] = i;
+      }
+    }
+    return out;
   }
 
   /** The flat choices of {@code "group.option"}: every price point of the option. */
@@ -249,11 +344,15 @@ public final class VariantSpace {
     }
     if (scope.length == 1) {
       int g = scope[0];
+      int[] removed = foldedBy[rule] == null ? new int[0] : foldedBy[rule];
       for (int k = 0; k < choiceCount[g]; k++) {
         if (member[offset[g] + k]) {
           allowed[offset[g] + k] = false;
+          removed = Arrays.copyOf(removed, removed.length + 1);
+          removed[removed.length - 1] = offset[g] + k;
         }
       }
+      foldedBy[rule] = removed;
       return;
     }
     out.add(new Nogood(scope, member, rule));

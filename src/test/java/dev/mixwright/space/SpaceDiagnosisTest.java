@@ -124,6 +124,16 @@ class SpaceDiagnosisTest {
     assertTrue(redundant.contains("holds wheel=w20 with frame=cargo, so it removes nothing"), redundant);
     assertTrue(redundant.contains("rules[2]") && redundant.contains("rules[3]"), redundant);
 
+    SpaceDiagnosis.Judged all = d.ruleNotes(0);
+    assertTrue(all.complete());
+    assertEquals(notes, all.notes());
+    // A budget, whatever it cuts, leaves the notes of a prefix of the rules (no timing is asserted).
+    for (long budgetMs : new long[] {1, 1_000_000}) {
+      SpaceDiagnosis.Judged cut = d.ruleNotes(budgetMs);
+      assertTrue(cut.judged() >= 0 && cut.judged() <= rules.size(), cut.toString());
+      assertEquals(notes.stream().filter(n -> n.rule() < cut.judged()).toList(), cut.notes());
+    }
+
     // Checked independently: rule 1's when and rule 4's combination match nothing under the others.
     assertFalse(BruteForce.count(c, v -> BruteForce.rulesHold(c, without(c, 1), v)
         && BruteForce.matches(c, rules.get(1).when(), v)) > 0);
