@@ -1,9 +1,8 @@
-package dev.mixwright.export;
+package dev.mixwright.report;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
-import dev.mixwright.report.RunResult;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;

@@ -1,6 +1,5 @@
-package dev.mixwright.export;
+package dev.mixwright.report;
 
-import dev.mixwright.report.RunResult;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
