@@ -10,7 +10,8 @@ import java.util.Map;
  * Short codes for the distinct variants of a run ({@code V01}, {@code V02}, ...), a function of
  * result.json alone so that every view of one run (summary, export, compare) gives a variant the same
  * code. Order: the variants of the LP plan by units sold, all segments together, largest first; then
- * the variants only the integer portfolio holds, by their portfolio units; ties by the variant's text
+ * the variants only the integer portfolio holds, by their portfolio units; then the variants of the
+ * range on sale today that neither sells (kept unsold, or dropped); ties by the variant's text
  * ({@code group=option,...} in the file's group order). Units are compared at 1e-6, so round-off in
  * the last digits of an LP value cannot swap two codes. Codes have at least two digits, more when a
  * run has 100 variants or more.
@@ -39,10 +40,16 @@ public final class VariantCodes {
         options.putIfAbsent(k, v.options());
         portfolioUnits.merge(k, v.units(), Double::sum);
       }
+      for (List<RunResult.RangeVariant> today : java.util.Arrays.asList(result.portfolio().kept(),
+          result.portfolio().dropped())) {
+        if (today != null) {
+          today.forEach(v -> options.putIfAbsent(key(v.options()), v.options()));
+        }
+      }
     }
     Comparator<String> order = Comparator
-        .comparing((String k) -> lpUnits.containsKey(k) ? 0 : 1)
-        .thenComparing(k -> -rounded(lpUnits.containsKey(k) ? lpUnits.get(k) : portfolioUnits.get(k)))
+        .comparing((String k) -> lpUnits.containsKey(k) ? 0 : portfolioUnits.containsKey(k) ? 1 : 2)
+        .thenComparing(k -> -rounded(lpUnits.containsKey(k) ? lpUnits.get(k) : portfolioUnits.getOrDefault(k, 0.0)))
         .thenComparing(Comparator.naturalOrder());
     List<String> keys = new ArrayList<>(options.keySet());
     keys.sort(order);
