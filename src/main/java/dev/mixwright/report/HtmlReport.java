@@ -94,7 +94,7 @@ public final class HtmlReport {
     return v == null ? "development" : v;
   }
 
-  private static String css() {
+  static String css() {
     return "body{margin:0;background:#f6f5f1;color:" + INK + ";font:15px/1.5 system-ui,-apple-system,'Segoe UI',sans-serif}\n"
         + "main{max-width:1120px;margin:0 auto;padding:20px 24px 56px}\n"
         + "h1{font-size:26px;margin:4px 0 2px}h2{font-size:19px;margin:36px 0 8px;padding:6px 0 4px;border-top:3px solid " + INK + "}\n"
@@ -153,7 +153,6 @@ public final class HtmlReport {
     private final VariantSpace space;
     private final VariantCodes codes;
     private final MatrixView matrix;
-    private final Map<String, MatrixView.Row> rowByCode = new LinkedHashMap<>();
     private final String cur;
     private final PlanFigures lp;
     private final PlanFigures range;
@@ -165,7 +164,6 @@ public final class HtmlReport {
       space = catalog == null ? null : new VariantSpace(catalog);
       codes = VariantCodes.of(r);
       matrix = MatrixView.of(r, catalog);
-      matrix.rows().forEach(row -> rowByCode.put(row.code(), row));
       RunResult.CatalogRef ref = r.catalog();
       cur = ref == null || ref.currency() == null ? "" : " " + ref.currency();
       lp = PlanFigures.lp(r);
@@ -681,12 +679,11 @@ public final class HtmlReport {
     /** A variant as its code and the labels of the choices in which the run's variants differ. */
     private String variantName(Map<String, String> options) {
       String code = codes.code(options);
-      MatrixView.Row row = code == null ? null : rowByCode.get(code);
-      if (row == null) {
+      if (code == null) {
         return "<span class=\"what\">" + escape(variant(options)) + "</span>";
       }
-      String what = String.join(" · ", row.cells().stream().filter(c -> !c.isEmpty()).toList());
-      return "<span class=\"code\">" + code + "</span> <span class=\"what\">" + escape(what) + "</span>";
+      return "<span class=\"code\">" + code + "</span> <span class=\"what\">" + escape(matrix.describe(code))
+          + "</span>";
     }
 
     private String segmentName(String id) {

@@ -106,6 +106,19 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
     return new MatrixView(shared, varying, segments, result.portfolio() != null, rows);
   }
 
+  /**
+   * A variant's short description: the texts of its choices in the groups where the run's variants
+   * differ, joined by " · " (what the code alone does not say); empty for a code the view lacks.
+   */
+  public String describe(String code) {
+    for (Row r : rows) {
+      if (r.code().equals(code)) {
+        return String.join(" · ", r.cells().stream().filter(c -> !c.isEmpty()).toList());
+      }
+    }
+    return "";
+  }
+
   /** The table's heading: the code, the varying groups, the segments, total and portfolio. */
   public List<String> header() {
     List<String> h = new ArrayList<>();

@@ -119,6 +119,55 @@ class OvernightCommandsTest {
         + n.path("offers").path("unchanged").asInt();
     assertEquals(b.path("offers").size(), offersB);
 
+    // the integer portfolios: value, costs, and the variants added and dropped, each by its code in its run
+    JsonNode pf = n.path("portfolio");
+    assertEquals(a.path("portfolio").path("value").asDouble(), pf.path("value").path("a").asDouble());
+    assertEquals(b.path("portfolio").path("value").asDouble() - a.path("portfolio").path("value").asDouble(),
+        pf.path("value").path("change").asDouble(), 1e-6);
+    assertEquals(b.path("portfolio").path("introductionCosts").asDouble(),
+        pf.path("introductionCosts").path("b").asDouble());
+    java.util.Set<String> inA = new java.util.HashSet<>();
+    java.util.Set<String> inB = new java.util.HashSet<>();
+    a.path("portfolio").path("variants").forEach(v -> inA.add(v.path("options").toString()));
+    b.path("portfolio").path("variants").forEach(v -> inB.add(v.path("options").toString()));
+    java.util.Set<String> added = new java.util.HashSet<>(inB);
+    added.removeAll(inA);
+    java.util.Set<String> dropped = new java.util.HashSet<>(inA);
+    dropped.removeAll(inB);
+    assertEquals(added.size(), pf.path("added").size());
+    assertEquals(dropped.size(), pf.path("dropped").size());
+    assertEquals(inA.size() - dropped.size(), pf.path("inBoth").asInt());
+    dev.mixwright.report.VariantCodes codesB = dev.mixwright.report.VariantCodes.of(
+        dev.mixwright.report.RunResult.read(dir.resolve("b")));
+    for (JsonNode x : pf.path("added")) {
+      assertTrue(added.contains(x.path("options").toString()));
+      java.util.Map<String, String> opts = new java.util.LinkedHashMap<>();
+      x.path("options").fields().forEachRemaining(e -> opts.put(e.getKey(), e.getValue().asText()));
+      assertEquals(codesB.code(opts), x.path("codeB").asText(), "the code B's own summary gives it");
+      assertTrue(x.path("codeA").isNull() || x.path("codeA").isTextual());
+    }
+    for (JsonNode x : pf.path("dropped")) {
+      assertTrue(dropped.contains(x.path("options").toString()));
+      assertTrue(x.path("codeA").asText().matches("V\\d+"));
+    }
+    assertTrue(text.out().contains("  portfolio   " + a.path("portfolio").path("status").asText()), text.out());
+    assertTrue(text.out().contains("variants      " + pf.path("inBoth").asInt() + " in both"), text.out());
+    assertFalse(text.out().contains("capacity=c"), "variants by code and label, not group=option");
+    Path page = dir.resolve("cmp.html");
+    CliRun withPage = CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("b").toString(), "--page",
+        page.toString());
+    assertEquals(0, withPage.code(), withPage.toString());
+    String html = Files.readString(page);
+    assertTrue(html.contains("<h1>Run A against run B</h1>"));
+    assertTrue(html.contains(dev.mixwright.report.Figures.money(pf.path("value").path("b").asDouble())));
+    assertTrue(html.contains("resources.testbench.capacity"));
+    for (JsonNode x : pf.path("added")) {
+      assertTrue(html.contains(x.path("codeB").asText()), "added variant's code on the page");
+    }
+    assertFalse(html.contains("<script"));
+    assertEquals(2, CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("b").toString(), "--page",
+        dir.toString()).code(), "a folder is not a page");
+
     CliRun self = CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("a").toString());
     assertTrue(self.out().contains("catalog: the same") && self.out().contains("0 new, 0 dropped, 0 changed"), self.out());
     assertEquals(2, CliRun.of("compare", dir.resolve("a").toString(), dir.resolve("none").toString()).code());
