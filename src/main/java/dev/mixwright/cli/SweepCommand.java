@@ -1,9 +1,11 @@
 package dev.mixwright.cli;
 
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.Sweep;
+import dev.mixwright.report.MatrixView;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.run.SweepRun;
 import dev.mixwright.runfolder.Json;
@@ -11,8 +13,10 @@ import dev.mixwright.scenario.SweepPlan;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -22,7 +26,7 @@ import picocli.CommandLine.Option;
     name = "sweep",
     description = {
       "Solves a grid or list of scenarios and writes one table of the results.",
-      "Each scenario is solved to its proven LP optimum; the table holds the objective, bound, binding resources and shadow prices of each scenario (OUT/sweep.csv and OUT/sweep.json, rewritten after every scenario). Neighbouring scenarios start from each other's columns. Along a capacity or demand axis the table holds the value per extra unit between neighbouring points: the capacity value curve, found by re-running the search. Run it again with the same arguments to finish a sweep that was stopped or cut off.",
+      "Each scenario is solved to its proven LP optimum; the table holds the objective, bound, binding resources and shadow prices of each scenario (OUT/sweep.csv and OUT/sweep.json, rewritten after every scenario). When the catalog has a portfolio section, each scenario also runs the integer stage (--portfolio-time-limit counts per scenario) and the table holds its value and the chosen variants by code, one code list for the whole sweep. Neighbouring scenarios start from each other's columns. Along a capacity or demand axis the table holds the value per extra unit between neighbouring points: the capacity value curve, found by re-running the search. Run it again with the same arguments to finish a sweep that was stopped or cut off.",
       "",
       "Grid axes (--grid, repeatable, crossed with each other):",
       "  resources.ID.capacity=10000..16000:1000    figures, FROM..TO:STEP",
@@ -60,6 +64,8 @@ final class SweepCommand extends CatalogCommand {
   @Option(names = "--json", description = "print sweep.json on stdout instead of the table")
   boolean json;
 
+  @Mixin PortfolioOptions portfolio;
+
   @Mixin ProgressOption progressOption;
 
   @Override
@@ -68,7 +74,7 @@ final class SweepCommand extends CatalogCommand {
     PrintWriter err = spec.commandLine().getErr();
     Boolean progress = progressOption.asked;
     SweepRun.Request request = new SweepRun.Request(catalogFile, Optional.ofNullable(sweepFile), grid, scenarioFiles,
-        outDir, loop.settings(), loop.pricer, !cold, replace);
+        outDir, loop.settings(), loop.pricer, !cold, replace, portfolio.plan());
     SweepRun.Outcome o;
     try (StopSignals signals = StopSignals.install(err)) {
       o = SweepRun.run(request, signals.flag(), new SweepRun.Watcher() {
@@ -125,6 +131,22 @@ final class SweepCommand extends CatalogCommand {
           n.path("status").asText(), n.path("objective").isNumber() ? Numbers.money(n.path("objective").asDouble()) : "",
           prices.length() == 0 ? (n.has("problem") ? n.path("problem").asText() : "no binding resource") : prices,
           slope));
+      JsonNode pf = n.path("portfolio");
+      if (pf.isObject()) {
+        List<String> codes = new ArrayList<>();
+        pf.path("codes").forEach(c -> codes.add(c.asText()));
+        out.println(String.format(Locale.ROOT, "  %-48s %-10s %18s  %s", "", pf.path("status").asText(),
+            Numbers.money(pf.path("value").asDouble()), "range: " + String.join(" ", codes)));
+      }
+    }
+    JsonNode legend = table.toJson().path("portfolioVariants");
+    if (legend.isObject()) {
+      out.println("variants of the ranges (the same code on every row):");
+      legend.fields().forEachRemaining(e -> {
+        Map<String, String> o = new LinkedHashMap<>();
+        e.getValue().fields().forEachRemaining(x -> o.put(x.getKey(), x.getValue().asText()));
+        out.println("  " + e.getKey() + "  " + MatrixView.describe(catalog, o));
+      });
     }
   }
 }

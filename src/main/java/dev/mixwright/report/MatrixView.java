@@ -119,6 +119,20 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
     return "";
   }
 
+  /**
+   * A variant on its own: the texts of its choices in every group, optional groups at none left out,
+   * joined by " · " ({@code catalog} may be null: ids then).
+   */
+  public static String describe(Catalog catalog, Map<String, String> options) {
+    List<String> parts = new ArrayList<>();
+    options.forEach((g, c) -> {
+      if (!c.equals(Group.NONE)) {
+        parts.add(choiceText(catalog, g, c));
+      }
+    });
+    return String.join(" · ", parts);
+  }
+
   /** The table's heading: the code, the varying groups, the segments, total and portfolio. */
   public List<String> header() {
     List<String> h = new ArrayList<>();

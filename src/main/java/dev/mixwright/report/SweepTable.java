@@ -56,6 +56,18 @@ public final class SweepTable {
   }
 
   public ObjectNode add(Sweep.Row r) {
+    return add(r, null);
+  }
+
+  /** The figures of one resource at one point: shadow price null when the run has none. */
+  private record ResourceCell(double capacity, double used, Double shadowPrice) {}
+
+  /**
+   * A solved point and, when its integer stage ran, its portfolio: status, value, bound, gap, the
+   * one-off costs and the chosen variants (their codes, shared by the whole table, are set when the
+   * table is written: {@link #codes}).
+   */
+  public ObjectNode add(Sweep.Row r, RunResult.Portfolio portfolio) {
     ObjectNode n = Json.pretty().createObjectNode();
     SweepPlan.Point p = r.point();
     n.put("index", p.index());
@@ -90,10 +102,9 @@ public final class SweepTable {
       if (r.binding(i)) {
         binding.add(rr.id());
       }
-      ObjectNode x = res.putObject(rr.id());
-      x.put("capacity", rr.capacity());
-      x.put("used", r.used()[i]);
-      Json.putNum(x, "shadowPrice", o.duals().resource(i).orElse(Double.NaN));
+      double price = o.duals().resource(i).orElse(Double.NaN);
+      res.set(rr.id(), Json.pretty().valueToTree(new ResourceCell(rr.capacity(), r.used()[i],
+          Double.isFinite(price) ? price : null)));
     }
     ObjectNode segs = n.putObject("segments");
     for (int s = 0; s < c.segments().size(); s++) {
@@ -106,8 +117,69 @@ public final class SweepTable {
         x.put("sold", sold(o, s));
       }
     }
+    if (portfolio != null) {
+      ObjectNode pf = n.putObject("portfolio");
+      pf.put("status", portfolio.status().word());
+      pf.put("value", portfolio.value());
+      Json.putNum(pf, "bound", portfolio.bound() == null ? Double.NaN : portfolio.bound());
+      Json.putNum(pf, "gap", portfolio.gap() == null ? Double.NaN : portfolio.gap());
+      pf.put("introductionCosts", portfolio.introductionCosts());
+      pf.put("toolingCosts", portfolio.toolingCosts());
+      pf.put("elapsedMs", portfolio.elapsedMs());
+      ArrayNode vs = pf.putArray("variants");
+      for (RunResult.PortfolioVariant v : portfolio.variants()) {
+        ObjectNode x = vs.addObject();
+        x.set("options", Json.pretty().valueToTree(v.options()));
+        x.put("units", v.units());
+      }
+    }
     rows.put(p.index(), n);
     return n;
+  }
+
+  /**
+   * Codes for the variants the points' portfolios choose, shared by the whole table so that one code
+   * is one variant on every row: by units over all rows, largest first, ties by the variant's text
+   * (as {@link VariantCodes} orders a run's). Sets each row's {@code portfolio.codes}; returns code to
+   * options, in code order.
+   */
+  private Map<String, Map<String, String>> codes() {
+    Map<String, Double> units = new java.util.HashMap<>();
+    Map<String, Map<String, String>> options = new java.util.HashMap<>();
+    for (ObjectNode n : rows.values()) {
+      for (JsonNode v : n.path("portfolio").path("variants")) {
+        Map<String, String> o = new java.util.LinkedHashMap<>();
+        v.path("options").fields().forEachRemaining(e -> o.put(e.getKey(), e.getValue().asText()));
+        String k = VariantCodes.key(o);
+        options.putIfAbsent(k, o);
+        units.merge(k, v.path("units").asDouble(), Double::sum);
+      }
+    }
+    List<String> keys = new ArrayList<>(options.keySet());
+    keys.sort(java.util.Comparator.comparingDouble((String k) -> -Math.rint(units.get(k) * 1e6) / 1e6)
+        .thenComparing(java.util.Comparator.naturalOrder()));
+    Map<String, String> codeOf = new java.util.HashMap<>();
+    Map<String, Map<String, String>> legend = new java.util.LinkedHashMap<>();
+    for (int i = 0; i < keys.size(); i++) {
+      String code = VariantCodes.code(i, keys.size());
+      codeOf.put(keys.get(i), code);
+      legend.put(code, options.get(keys.get(i)));
+    }
+    for (ObjectNode n : rows.values()) {
+      if (n.path("portfolio").isObject()) {
+        List<String> cs = new ArrayList<>();
+        for (JsonNode v : n.path("portfolio").path("variants")) {
+          Map<String, String> o = new java.util.LinkedHashMap<>();
+          v.path("options").fields().forEachRemaining(e -> o.put(e.getKey(), e.getValue().asText()));
+          String code = codeOf.get(VariantCodes.key(o));
+          cs.add(code);
+          ((ObjectNode) v).put("code", code);
+        }
+        cs.sort(java.util.Comparator.naturalOrder());
+        cs.forEach(((ObjectNode) n.path("portfolio")).putArray("codes")::add);
+      }
+    }
+    return legend;
   }
 
   /** Units the outcome's plan sells in segment s. */
@@ -226,10 +298,14 @@ public final class SweepTable {
   public ObjectNode toJson() {
     slopes();
     best();
+    Map<String, Map<String, String>> legend = codes();
     ObjectNode n = header.deepCopy();
     ArrayNode axes = n.putArray("axes");
     for (SweepPlan.Axis a : plan.axes()) {
       axes.add(a.target().path());
+    }
+    if (!legend.isEmpty()) {
+      n.set("portfolioVariants", Json.pretty().valueToTree(legend));
     }
     ArrayNode rs = n.putArray("rows");
     rows.values().forEach(rs::add);
@@ -240,6 +316,7 @@ public final class SweepTable {
   public String toCsv() {
     slopes();
     best();
+    boolean portfolios = !codes().isEmpty() || rows.values().stream().anyMatch(n -> n.path("portfolio").isObject());
     List<Segment> choosing = base.segments().stream().filter(Segment::chooses).toList();
     List<String> head = new ArrayList<>(List.of("index", "name"));
     for (SweepPlan.Axis a : plan.axes()) {
@@ -268,6 +345,10 @@ public final class SweepTable {
     }
     if (marksBest()) {
       head.add("best");
+    }
+    if (portfolios) {
+      head.addAll(List.of("portfolio.status", "portfolio.value", "portfolio.gap", "portfolio.introductionCosts",
+          "portfolio.toolingCosts", "portfolio.codes"));
     }
     head.add("problem");
     StringBuilder sb = new StringBuilder();
@@ -303,6 +384,15 @@ public final class SweepTable {
       }
       if (marksBest()) {
         cells.add(text(n.path("best")));
+      }
+      if (portfolios) {
+        JsonNode pf = n.path("portfolio");
+        for (String f : List.of("status", "value", "gap", "introductionCosts", "toolingCosts")) {
+          cells.add(text(pf.path(f)));
+        }
+        List<String> cs = new ArrayList<>();
+        pf.path("codes").forEach(x -> cs.add(x.asText()));
+        cells.add(String.join(" ", cs));
       }
       cells.add(n.path("problem").asText(""));
       line(sb, cells);

@@ -53,11 +53,10 @@ public final class VariantCodes {
         .thenComparing(Comparator.naturalOrder());
     List<String> keys = new ArrayList<>(options.keySet());
     keys.sort(order);
-    int digits = Math.max(2, String.valueOf(keys.size()).length());
     Map<String, String> codes = new LinkedHashMap<>();
     List<Map<String, String>> variants = new ArrayList<>();
     for (int i = 0; i < keys.size(); i++) {
-      codes.put(keys.get(i), "V" + String.format("%0" + digits + "d", i + 1));
+      codes.put(keys.get(i), code(i, keys.size()));
       variants.add(options.get(keys.get(i)));
     }
     return new VariantCodes(codes, variants);
@@ -79,6 +78,12 @@ public final class VariantCodes {
 
   public int size() {
     return variants.size();
+  }
+
+  /** The code of the i-th (from 0) of {@code count} variants: V01, V02, ...; more digits from 100 on. */
+  static String code(int i, int count) {
+    int digits = Math.max(2, String.valueOf(count).length());
+    return "V" + String.format(java.util.Locale.ROOT, "%0" + digits + "d", i + 1);
   }
 
   /** {@code group=option,...} in the map's order: the identity of a variant in a result. */

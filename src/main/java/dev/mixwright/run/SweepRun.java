@@ -8,7 +8,13 @@ import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.SolveSettings;
+import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.Sweep;
+import dev.mixwright.portfolio.IntegerStage;
+import dev.mixwright.portfolio.PortfolioOutcome;
+import dev.mixwright.portfolio.PortfolioSettings;
+import dev.mixwright.report.PortfolioSection;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
@@ -19,6 +25,7 @@ import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.scenario.Scenario;
 import dev.mixwright.scenario.Scenarios;
 import dev.mixwright.scenario.SweepPlan;
+import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Files;
@@ -33,14 +40,28 @@ import java.util.concurrent.atomic.AtomicBoolean;
 /**
  * A sweep as the application runs it: the catalog read once, the plan built from a sweep file,
  * grid axes and scenario files, the rows of an earlier run of the same sweep kept, every other
- * point solved ({@link Sweep}) and the table rewritten after each.
+ * point solved ({@link Sweep}), its integer stage run when the point's catalog has a portfolio
+ * section, and the table rewritten after each.
  */
 public final class SweepRun {
   private SweepRun() {}
 
-  /** What to sweep and how; {@code grid} and {@code sweepFile} exclude each other. */
+  /**
+   * What to sweep and how; {@code grid} and {@code sweepFile} exclude each other; {@code portfolio}:
+   * whether each point goes on to the integer stage (when its catalog has a portfolio section) and
+   * with which settings, the time limit counting per point.
+   */
   public record Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
-      Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace) {}
+      Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace,
+      PortfolioPlan portfolio) {
+
+    /** A sweep of the LP stage alone. */
+    public Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
+        Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace) {
+      this(catalogFile, sweepFile, grid, scenarioFiles, outDir, settings, pricer, warmStart, replace,
+          new PortfolioPlan(false, PortfolioSettings.defaults()));
+    }
+  }
 
   /** What the caller wants to hear while the sweep goes on. */
   public interface Watcher {
@@ -72,6 +93,7 @@ public final class SweepRun {
     if (plan.points().isEmpty()) {
       throw new InputError("nothing to sweep: give --grid PATH=VALUES, a --sweep file, or --scenario files");
     }
+    refusePortfolioAxes(plan, r.portfolio());
     ObjectNode header = Json.pretty().createObjectNode();
     header.put("format", 1);
     header.put("kind", RunFolder.Kind.SWEEP.word());
@@ -83,7 +105,9 @@ public final class SweepRun {
     header.put("pricer", r.pricer().word());
     header.put("gap", r.settings().gapTolerance());
     header.put("warmStart", r.warmStart());
-    header.put("definitionSha256", definition(plan, read.sha256(), r.settings()));
+    boolean integerStage = r.portfolio().run() && catalog.portfolio().isPresent();
+    header.put("portfolio", integerStage);
+    header.put("definitionSha256", definition(plan, read.sha256(), r.settings(), integerStage));
     SweepTable table = new SweepTable(plan, catalog, header);
 
     Files.createDirectories(r.outDir());
@@ -105,7 +129,7 @@ public final class SweepRun {
 
         @Override
         public void solved(Sweep.Row row) {
-          table.add(row);
+          table.add(row, portfolio(row, r.portfolio(), stop));
           try {
             table.write(r.outDir());
           } catch (IOException e) {
@@ -122,6 +146,35 @@ public final class SweepRun {
           b.path("objective").asDouble())));
       return new Outcome(table, plan, catalog, rows.size(), done.size(), complete);
     }
+  }
+
+  /**
+   * An axis over a portfolio term changes nothing the LP stage reads: without the integer stage every
+   * point of it would come out the same, so it is refused, in words. (A catalog without a portfolio
+   * section has its portfolio axes refused where the grid is read.)
+   */
+  private static void refusePortfolioAxes(SweepPlan plan, PortfolioPlan portfolio) {
+    for (SweepPlan.Axis a : plan.axes()) {
+      if (a.target().field().isPortfolioTerm() && !portfolio.run()) {
+        throw new InputError("the axis " + a.target().path() + " changes a term of the integer stage, which"
+            + " --no-portfolio skips — drop --no-portfolio or this axis");
+      }
+    }
+  }
+
+  /**
+   * The point's integer stage, when its catalog has a portfolio section, the plan asks for it and the
+   * LP stage reached its optimum; null otherwise. The stage's time limit counts for this point alone.
+   */
+  private static RunResult.Portfolio portfolio(Sweep.Row row, PortfolioPlan plan, AtomicBoolean stop) {
+    if (!plan.run() || row.outcome() == null || row.catalog().portfolio().isEmpty()
+        || !row.outcome().status().isOptimal()) {
+      return null;
+    }
+    VariantSpace space = new VariantSpace(row.catalog());
+    IntegerStage stage = new IntegerStage(space, plan.settings()).stopWhen(StopCriterion.signal(stop));
+    PortfolioOutcome o = stage.run(row.outcome());
+    return PortfolioSection.of(space, stage.terms(), o);
   }
 
   private static SweepPlan plan(Request r, Catalog catalog) throws CatalogException {
@@ -163,9 +216,13 @@ public final class SweepRun {
   }
 
   /** The hash that says whether an earlier sweep.json in OUT is of this very sweep. */
-  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s) {
+  private static String definition(SweepPlan plan, String catalogSha, SolveSettings s, boolean integerStage) {
     StringBuilder sb = new StringBuilder(catalogSha).append('\n').append(s.gapTolerance()).append('\n')
         .append(s.perRound()).append('\n');
+    if (integerStage) {
+      // rows without a portfolio are not this sweep's; an LP-only sweep keeps the hash it always had
+      sb.append("integer stage\n");
+    }
     for (SweepPlan.Point p : plan.points()) {
       sb.append(p.index()).append(':').append(p.scenario().describe()).append('\n');
     }

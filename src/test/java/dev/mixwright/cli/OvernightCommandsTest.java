@@ -23,7 +23,7 @@ class OvernightCommandsTest {
   @Test
   void aSweepWritesOneTableAsCsvAndJsonAndFinishesWhatAnEarlierRunLeft() throws Exception {
     Path out = dir.resolve("sweep");
-    String[] args = {"sweep", STARTER, "--grid", "resources.testbench.capacity=8000..10000:1000",
+    String[] args = {"sweep", "--no-portfolio", STARTER, "--grid", "resources.testbench.capacity=8000..10000:1000",
         "--grid", "options.compressor.evi.cost=-10%,+10%", "--out", out.toString()};
     CliRun r = CliRun.of(args);
     assertEquals(0, r.code(), r.toString());
@@ -58,7 +58,7 @@ class OvernightCommandsTest {
           after.path("rows").get(i).path("objective").asDouble(), 1e-6 * table.path("rows").get(i).path("objective").asDouble());
     }
 
-    CliRun other = CliRun.of("sweep", STARTER, "--grid", "resources.testbench.capacity=8000..9000:1000",
+    CliRun other = CliRun.of("sweep", "--no-portfolio", STARTER, "--grid", "resources.testbench.capacity=8000..9000:1000",
         "--out", out.toString());
     assertEquals(2, other.code(), other.toString());
     assertTrue(other.err().contains("holds another sweep"), other.err());
@@ -66,7 +66,7 @@ class OvernightCommandsTest {
 
   @Test
   void sweepJsonOnStdoutIsJustJson() throws Exception {
-    CliRun r = CliRun.of("sweep", STARTER, "--grid", "rules.propane-clearance=on,off", "--out",
+    CliRun r = CliRun.of("sweep", "--no-portfolio", STARTER, "--grid", "rules.propane-clearance=on,off", "--out",
         dir.resolve("s").toString(), "--json", "--progress");
     assertEquals(0, r.code(), r.toString());
     JsonNode n = Json.pretty().readTree(r.out());
@@ -77,7 +77,7 @@ class OvernightCommandsTest {
 
   @Test
   void aBadGridOrScenarioIsExitTwoWithThePath() throws Exception {
-    CliRun r = CliRun.of("sweep", STARTER, "--grid", "resources.testbnch.capacity=1..2:1", "--out", dir.toString());
+    CliRun r = CliRun.of("sweep", "--no-portfolio", STARTER, "--grid", "resources.testbnch.capacity=1..2:1", "--out", dir.toString());
     assertEquals(2, r.code(), r.toString());
     assertTrue(r.err().contains("--grid resources.testbnch.capacity=1..2:1: the catalog has no resource 'testbnch'"
         + " — did you mean 'testbench'?"), r.err());
@@ -87,6 +87,57 @@ class OvernightCommandsTest {
     assertEquals(2, s.code(), s.toString());
     assertTrue(s.err().contains("segments.quiet.maxShare: gives 2; maxShare must be in (0, 1]"), s.err());
     assertFalse(s.err().contains("Exception"), s.err());
+  }
+
+  @Test
+  void aSweepRunsTheIntegerStageAtEachPointAndNamesTheChosenVariantsByOneCodeList() throws Exception {
+    Path out = dir.resolve("ranges");
+    CliRun r = CliRun.of("sweep", STARTER, "--grid", "portfolio.maxVariants=3,6", "--portfolio-time-limit", "20s",
+        "--out", out.toString());
+    assertEquals(0, r.code(), r.toString());
+    JsonNode table = Json.pretty().readTree(out.resolve("sweep.json").toFile());
+    JsonNode legend = table.path("portfolioVariants");
+    assertTrue(legend.isObject() && legend.size() > 0, "a code list for the whole sweep");
+    java.util.Set<String> distinct = new java.util.HashSet<>();
+    legend.fields().forEachRemaining(e -> distinct.add(e.getValue().toString()));
+    assertEquals(legend.size(), distinct.size(), "one code, one variant");
+    double[] value = new double[2];
+    boolean[] proven = new boolean[2];
+    for (int i = 0; i < 2; i++) {
+      JsonNode row = table.path("rows").get(i);
+      JsonNode pf = row.path("portfolio");
+      assertTrue(pf.isObject(), "row " + i + " has its portfolio");
+      int limit = i == 0 ? 3 : 6;
+      assertTrue(pf.path("codes").size() >= 1 && pf.path("codes").size() <= limit, pf.toString());
+      // the integer answer never beats the LP optimum of the same point (its relaxation)
+      assertTrue(pf.path("value").asDouble() <= row.path("objective").asDouble() * (1 + 1e-9), pf.toString());
+      for (JsonNode v : pf.path("variants")) {
+        assertEquals(v.path("options"), legend.path(v.path("code").asText()), "the legend names the row's variant");
+      }
+      value[i] = pf.path("value").asDouble();
+      proven[i] = pf.path("status").asText().equals("proven");
+    }
+    if (proven[0] && proven[1]) {
+      assertTrue(value[0] <= value[1] + 1e-6, "at most 3 variants cannot beat at most 6");
+    }
+    List<String> csv = Files.readAllLines(out.resolve("sweep.csv"));
+    assertTrue(csv.get(0).contains("portfolio.value") && csv.get(0).contains("portfolio.codes"), csv.get(0));
+    assertTrue(r.out().contains("variants of the ranges"), r.out());
+    assertTrue(r.out().contains("range: V"), r.out());
+  }
+
+  @Test
+  void aPortfolioAxisIsRefusedWhereNoIntegerStageRuns() {
+    CliRun none = CliRun.of("sweep", "src/test/resources/dev/mixwright/choice/rowing-boats.yaml", "--grid",
+        "portfolio.minLot=10,20", "--out", dir.resolve("a").toString());
+    assertEquals(2, none.code(), none.toString());
+    assertTrue(none.err().contains("--grid portfolio.minLot=10,20: the catalog has no portfolio section to change"),
+        none.err());
+    assertFalse(none.err().contains("Exception"), none.err());
+    CliRun skipped = CliRun.of("sweep", "--no-portfolio", STARTER, "--grid", "portfolio.minLot=100,200", "--out",
+        dir.resolve("b").toString());
+    assertEquals(2, skipped.code(), skipped.toString());
+    assertTrue(skipped.err().contains("which --no-portfolio skips"), skipped.err());
   }
 
   @Test
