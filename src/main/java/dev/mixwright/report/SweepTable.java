@@ -59,6 +59,13 @@ public final class SweepTable {
     return add(r, null);
   }
 
+  /** A point's integer stage as its row holds it (bound and gap null when unknown). */
+  private record PointPortfolio(String status, double value, Double bound, Double gap, double introductionCosts,
+      double toolingCosts, long elapsedMs, List<PointVariant> variants) {}
+
+  /** A variant a point's portfolio chooses, and its units. */
+  private record PointVariant(Map<String, String> options, double units) {}
+
   /** The figures of one resource at one point: shadow price null when the run has none. */
   private record ResourceCell(double capacity, double used, Double shadowPrice) {}
 
@@ -118,20 +125,11 @@ public final class SweepTable {
       }
     }
     if (portfolio != null) {
-      ObjectNode pf = n.putObject("portfolio");
-      pf.put("status", portfolio.status().word());
-      pf.put("value", portfolio.value());
-      Json.putNum(pf, "bound", portfolio.bound() == null ? Double.NaN : portfolio.bound());
-      Json.putNum(pf, "gap", portfolio.gap() == null ? Double.NaN : portfolio.gap());
-      pf.put("introductionCosts", portfolio.introductionCosts());
-      pf.put("toolingCosts", portfolio.toolingCosts());
-      pf.put("elapsedMs", portfolio.elapsedMs());
-      ArrayNode vs = pf.putArray("variants");
-      for (RunResult.PortfolioVariant v : portfolio.variants()) {
-        ObjectNode x = vs.addObject();
-        x.set("options", Json.pretty().valueToTree(v.options()));
-        x.put("units", v.units());
-      }
+      List<PointVariant> vs = new ArrayList<>();
+      portfolio.variants().forEach(v -> vs.add(new PointVariant(v.options(), v.units())));
+      n.set("portfolio", Json.pretty().valueToTree(new PointPortfolio(portfolio.status().word(), portfolio.value(),
+          portfolio.bound(), portfolio.gap(), portfolio.introductionCosts(), portfolio.toolingCosts(),
+          portfolio.elapsedMs(), vs)));
     }
     rows.put(p.index(), n);
     return n;
