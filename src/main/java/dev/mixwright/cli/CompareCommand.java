@@ -35,10 +35,11 @@ final class CompareCommand extends SubCommand {
   @Parameters(index = "1", paramLabel = "RUN_B", description = "a run folder (the after)")
   Path runB;
 
+  /** What the comparison prints besides its table: JSON instead, unchanged rows too, an HTML page as well. */
   @Option(names = "--json", description = "print the comparison as JSON")
   boolean json;
 
-  @Option(names = "--all", description = "list unchanged resources and segments too")
+  @Option(names = {"--all", "-a"}, description = "list unchanged resources and segments too")
   boolean all;
 
   @Option(names = "--page", paramLabel = "FILE", description = "also write the comparison as a self-contained HTML page")

@@ -17,7 +17,7 @@ import picocli.CommandLine.Option;
       "Headline figures first (revenue, cost, margin, one-off costs, units by segment), then the range by variant code with attach rates, the range to build against the ideal LP plan, resource use, shadow prices, and the solver's convergence last. Nothing in it is fetched from a network."
     })
 final class ReportCommand extends RunDirCommand {
-  @Option(names = "--out", paramLabel = "FILE", description = "where to write the page (default RUN_DIR/report.html)")
+  @Option(names = {"--out", "-o"}, paramLabel = "FILE", description = "where to write the page (default RUN_DIR/report.html)")
   Path out;
 
   @Override

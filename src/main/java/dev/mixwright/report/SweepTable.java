@@ -59,6 +59,12 @@ public final class SweepTable {
     return add(r, null);
   }
 
+  /** A point's LP stage as its row holds it (bound and gap null when unknown, no stopReason when none). */
+  private record PointSolve(String status,
+      @com.fasterxml.jackson.annotation.JsonInclude(com.fasterxml.jackson.annotation.JsonInclude.Include.NON_NULL)
+      String stopReason, double objective, Double bound, Double gap, int iterations, int columnsGenerated,
+      int warmStartColumns, long elapsedMs) {}
+
   /** A point's integer stage as its row holds it (bound and gap null when unknown). */
   private record PointPortfolio(String status, double value, Double bound, Double gap, double introductionCosts,
       double toolingCosts, long elapsedMs, List<PointVariant> variants) {}
@@ -90,17 +96,9 @@ public final class SweepTable {
       rows.put(p.index(), n);
       return n;
     }
-    n.put("status", o.status().word());
-    if (!o.stopReason().isEmpty()) {
-      n.put("stopReason", o.stopReason());
-    }
-    n.put("objective", o.objective());
-    Json.putNum(n, "bound", o.bound());
-    Json.putNum(n, "gap", o.gap());
-    n.put("iterations", o.iterations());
-    n.put("columnsGenerated", o.columnsGenerated());
-    n.put("warmStartColumns", r.warmColumns());
-    n.put("elapsedMs", o.elapsedMs());
+    n.setAll((ObjectNode) Json.pretty().valueToTree(new PointSolve(o.status().word(),
+        o.stopReason().isEmpty() ? null : o.stopReason(), o.objective(), Json.num(o.bound()), Json.num(o.gap()),
+        o.iterations(), o.columnsGenerated(), r.warmColumns(), o.elapsedMs())));
     ArrayNode binding = n.putArray("binding");
     ObjectNode res = n.putObject("resources");
     Catalog c = r.catalog();
