@@ -100,6 +100,9 @@ public final class RunSession {
     if (r.scenarioFile().isPresent()) {
       catalog = Inputs.withScenario(catalog, r.scenarioFile().get());
     }
+    if (r.portfolio().run()) {
+      Inputs.refuseUnreachableMinLot(catalog);
+    }
     VariantSpace space = new VariantSpace(catalog);
     RunFolder folder = new RunFolder(r.runDir());
     if (!r.replace() && folder.holdsRun()) {

@@ -141,6 +141,23 @@ class OvernightCommandsTest {
   }
 
   @Test
+  void solveRefusesAMinimumLotNoVariantCanReach() throws Exception {
+    Path sc = dir.resolve("lot.yaml");
+    Files.writeString(sc, "portfolio: {minLot: 90000}\n");
+    CliRun r = CliRun.of("solve", STARTER, "--scenario", sc.toString(), "--out", dir.resolve("lot").toString());
+    assertEquals(2, r.code(), r.toString());
+    // by hand from the catalog: the sum of demand x maxShare over its segments
+    dev.mixwright.catalog.Catalog c = dev.mixwright.catalog.CatalogLoader.load(Path.of(STARTER));
+    double most = c.segments().stream().mapToDouble(s -> s.demand() * s.maxShare()).sum();
+    assertTrue(r.err().contains("portfolio.minLot: 90,000 units, but one variant can sell at most "
+        + String.format(java.util.Locale.ROOT, "%,.0f", most)), r.err());
+    assertFalse(Files.exists(dir.resolve("lot").resolve("result.json")), "nothing solved");
+    // the same lot without the integer stage is no problem
+    assertEquals(0, CliRun.of("solve", STARTER, "--scenario", sc.toString(), "--no-portfolio", "--out",
+        dir.resolve("lp").toString()).code());
+  }
+
+  @Test
   void compareSaysWhatChangedBetweenTwoRuns() throws Exception {
     Path sc = dir.resolve("tight.yaml");
     Files.writeString(sc, "resources: {testbench: {capacity: 8000}}\n");

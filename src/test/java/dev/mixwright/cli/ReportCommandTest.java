@@ -62,4 +62,15 @@ class ReportCommandTest {
     assertEquals(2, r.code(), r::toString);
     assertTrue(r.err().contains("result.json in " + broken + " is damaged"), r::toString);
   }
+
+  @Test
+  void logOfASegmentTheRunDoesNotHaveListsItsSegments() {
+    CliRun typo = CliRun.of("log", run.toString(), "--segment", "retrofti");
+    assertEquals(2, typo.code(), typo::toString);
+    assertTrue(typo.err().contains("--segment retrofti: the run has no such segment; its segments are retrofit,"),
+        typo::toString);
+    CliRun ok = CliRun.of("log", run.toString(), "--segment", "retrofit");
+    assertEquals(0, ok.code(), ok::toString);
+    assertTrue(ok.out().contains("columns in segment retrofit"), ok::toString);
+  }
 }
