@@ -34,7 +34,7 @@ final class Summary {
         ? "at most " + result.buildableVariantsAtMost() : result.buildableVariants()));
     out.println("  LP objective        " + Numbers.money(o.objective()) + cur);
     out.println("  proven bound        " + Numbers.money(o.bound()) + cur + "   gap " + Numbers.percent(o.gap()));
-    out.println(String.format(Locale.ROOT, "  rounds %d, columns %d (seed included), LP stage %s",
+    out.println(String.format(Locale.ROOT, "  rounds %d, columns %d (the starting ones included), LP stage %s",
         o.iterations(), o.columnsGenerated(), Durations.format(o.elapsedMs())));
     List<String> binding = new ArrayList<>();
     for (RunResult.ResourceRow r : result.resources()) {
@@ -84,9 +84,10 @@ final class Summary {
     RunResult.Proof proof = p.proof();
     String change = p.kept() == null ? "" : String.format(Locale.ROOT, " (kept %d, dropped %d, added %d)",
         p.kept().size(), p.dropped().size(), p.added().size());
-    out.println(String.format(Locale.ROOT, "    %d variants%s, MIP %s, pool %d, survivors added %d%s, time %s",
+    out.println(String.format(Locale.ROOT, "    %d variants%s, chosen by %s among %,d candidate variants"
+            + " (%,d of them added to check that none does better%s), time %s",
         p.variants().size(), change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
-        proof.survivorsComplete() ? " (all)" : "", Durations.format(p.elapsedMs())));
+        proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
     if (p.kept() != null) {
       out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"
           : Numbers.money(p.currentRangeValue()) + cur + " as a fixed portfolio") + "; discontinue costs paid "

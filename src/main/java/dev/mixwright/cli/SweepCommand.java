@@ -30,7 +30,7 @@ import picocli.CommandLine.Option;
       "",
       "Grid axes (--grid, repeatable, crossed with each other):",
       "  resources.ID.capacity=10000..16000:1000    figures, FROM..TO:STEP",
-      "  options.GROUP.OPTION.cost=-10%%..+10%%:10%%    changes in percent",
+      "  options.GROUP.OPTION.cost=-10%%..+10%%:10%%   changes in percent",
       "  options.GROUP.OPTION.price=+0,+50,+100     changes, listed",
       "  segments.ID.demand=8000,9000               also segments.ID.maxShare",
       "  rules.ID=on,off                            a rule switched",

@@ -7,6 +7,7 @@ import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.explain.Substitution;
 import dev.mixwright.runfolder.AtomicFiles;
+import dev.mixwright.runfolder.RunFileDamaged;
 import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.runfolder.RunManifest;
 import dev.mixwright.space.VariantSpace;
@@ -56,7 +57,12 @@ public final class HtmlReport {
     AtomicFiles.write(target, render(read(runDir)).getBytes(java.nio.charset.StandardCharsets.UTF_8), true);
   }
 
-  /** result.json (required), catalog.json and run.json (each left out when it does not read). */
+  /**
+   * result.json (required), catalog.json and run.json, each left out when the folder lacks it (ids
+   * then stand in for labels, and the inputs are "not recorded"). One that is there but damaged is
+   * refused in words ({@link RunFileDamaged}), as every command refuses it, rather than drawn
+   * without it: a page must not quietly lose what the folder says.
+   */
   public static Inputs read(Path runDir) throws IOException {
     RunResult result = RunResult.read(runDir);
     RunFolder folder = new RunFolder(runDir);
@@ -64,16 +70,12 @@ public final class HtmlReport {
     if (Files.isRegularFile(folder.catalogCopy())) {
       try {
         catalog = CatalogLoader.parse(folder.verifiedCatalogCopy(), folder.catalogCopy().toString(), null);
-      } catch (IOException | CatalogException e) {
-        catalog = null; // ids then stand in for labels, and the portfolio's prices come from the offers
+      } catch (CatalogException e) {
+        throw new RunFileDamaged(folder.catalogCopy() + " is damaged (" + e.getMessage()
+            + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
       }
     }
-    RunManifest manifest;
-    try {
-      manifest = Files.isRegularFile(folder.manifest()) ? RunManifest.read(folder) : null;
-    } catch (IOException e) {
-      manifest = null;
-    }
+    RunManifest manifest = Files.isRegularFile(folder.manifest()) ? RunManifest.read(folder) : null;
     return new Inputs(result, catalog, manifest);
   }
 

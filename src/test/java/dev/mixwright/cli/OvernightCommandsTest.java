@@ -92,7 +92,7 @@ class OvernightCommandsTest {
   @Test
   void aSweepRunsTheIntegerStageAtEachPointAndNamesTheChosenVariantsByOneCodeList() throws Exception {
     Path out = dir.resolve("ranges");
-    CliRun r = CliRun.of("sweep", STARTER, "--grid", "portfolio.maxVariants=3,6", "--portfolio-time-limit", "20s",
+    CliRun r = CliRun.of("sweep", STARTER, "--grid", "portfolio.maxVariants=3,6", "--portfolio-time-limit", "8s",
         "--out", out.toString());
     assertEquals(0, r.code(), r.toString());
     JsonNode table = Json.pretty().readTree(out.resolve("sweep.json").toFile());
