@@ -5,6 +5,9 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
+import dev.mixwright.report.ComparisonPage;
+import dev.mixwright.report.Figures;
+import dev.mixwright.report.MatrixView;
 import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.RunComparison;
 import dev.mixwright.report.RunResult;
@@ -23,7 +26,7 @@ import picocli.CommandLine.Parameters;
     name = "compare",
     description = {
       "Shows what changed from run A to run B.",
-      "Objective and bound, the catalog figures that differ, offers that are new, dropped or sold in another quantity, and the shadow prices of resources and segments; for segments that choose, their buyers, those who stay out and each offer's share."
+      "Objective and bound, the integer portfolios (value, introduction and tooling costs, variants added and dropped by code), the catalog figures that differ, offers that are new, dropped or sold in another quantity, and the shadow prices of resources and segments; for segments that choose, their buyers, those who stay out and each offer's share. A variant is named by its code in each run (V03→V01: V03 in A, V01 in B)."
     })
 final class CompareCommand extends SubCommand {
   @Parameters(index = "0", paramLabel = "RUN_A", description = "a run folder (the before)")
@@ -32,22 +35,41 @@ final class CompareCommand extends SubCommand {
   @Parameters(index = "1", paramLabel = "RUN_B", description = "a run folder (the after)")
   Path runB;
 
+  /** What the comparison prints besides its table: JSON instead, unchanged rows too, an HTML page as well. */
   @Option(names = "--json", description = "print the comparison as JSON")
   boolean json;
 
-  @Option(names = "--all", description = "list unchanged resources and segments too")
+  @Option(names = {"--all", "-a"}, description = "list unchanged resources and segments too")
   boolean all;
+
+  @Option(names = "--page", paramLabel = "FILE", description = "also write the comparison as a self-contained HTML page")
+  Path page;
+
+  /** The two runs' matrix views, for the names of compared variants. */
+  private MatrixView matrixA;
+  private MatrixView matrixB;
 
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     RunResult a = result(runA);
     RunResult b = result(runB);
-    ObjectNode cmp = RunComparison.compare(a, b, catalog(runA), catalog(runB));
+    Catalog catA = catalog(runA);
+    Catalog catB = catalog(runB);
+    ObjectNode cmp = RunComparison.compare(a, b, catA, catB);
+    matrixA = MatrixView.of(a, catA);
+    matrixB = MatrixView.of(b, catB);
     if (a.portfolioPending() != null || b.portfolioPending() != null) {
       ObjectNode pending = cmp.putObject("portfolioPending");
       pending.put("a", a.portfolioPending());
       pending.put("b", b.portfolioPending());
+    }
+    if (page != null) {
+      if (Files.isDirectory(page)) {
+        throw new UserError("--page " + page + " is a folder — give a file name such as " + page.resolve("compare.html"));
+      }
+      ComparisonPage.write(page, cmp, new ComparisonPage.Runs(runA.toString(), runB.toString(),
+          b.catalog().currency(), matrixA, matrixB));
     }
     if (json) {
       out.println(Json.pretty().writeValueAsString(cmp));
@@ -59,6 +81,9 @@ final class CompareCommand extends SubCommand {
           out.println("run " + (r == a ? "A" : "B") + ": " + pending);
         }
       }
+    }
+    if (page != null) {
+      out.println("comparison page written to " + page);
     }
     return ExitCodes.OK;
   }
@@ -97,6 +122,7 @@ final class CompareCommand extends SubCommand {
     }
     out.println(String.format(Locale.ROOT, "  gap         %18s -> %18s", Numbers.percent(v(s.path("gap").path("a"))),
         Numbers.percent(v(s.path("gap").path("b")))));
+    portfolio(out, c.path("portfolio"));
     JsonNode cc = c.path("catalogChanges");
     if (c.path("sameCatalog").asBoolean()) {
       out.println("catalog: the same");
@@ -120,14 +146,46 @@ final class CompareCommand extends SubCommand {
     for (String kind : new String[] {"new", "dropped", "changed"}) {
       for (JsonNode x : o.path(kind)) {
         out.println(String.format(Locale.ROOT, "  %-8s %-14s %12s -> %-12s %s", kind, x.path("segment").asText(),
-            Numbers.qty(x.path("quantityA").asDouble()), Numbers.qty(x.path("quantityB").asDouble()),
-            RunComparison.variant(x.path("options"))));
+            Numbers.units(x.path("quantityA").asDouble()), Numbers.units(x.path("quantityB").asDouble()),
+            RunComparison.name(x, matrixA, matrixB)));
       }
     }
     section(out, "shadow prices of resources", c.path("resources"), "capacity", "used");
     section(out, "shadow prices of segments", c.path("segments"), "demand", "sold");
     choosing(out, c.path("choosing"));
     out.flush();
+  }
+
+  /** The integer portfolios: status, value and one-off costs, then the variants added and dropped. */
+  private void portfolio(PrintWriter out, JsonNode p) {
+    if (!p.isObject()) {
+      return;
+    }
+    out.println(String.format(Locale.ROOT, "  portfolio   %-18s -> %s", word(p.path("status").path("a")),
+        word(p.path("status").path("b"))));
+    String[][] rows = {{"value", "value"}, {"introductionCosts", "introduction"}, {"toolingCosts", "tooling"},
+        {"discontinueCosts", "discontinue"}};
+    for (String[] f : rows) {
+      JsonNode v = p.path(f[0]);
+      if (v.path("a").isNull() && v.path("b").isNull()) {
+        continue;
+      }
+      out.println(String.format(Locale.ROOT, "    %-13s %16s -> %18s   %s", f[1], money(v.path("a")), money(v.path("b")),
+          v.has("change") ? Figures.signedMoney(v.path("change").asDouble()) : ""));
+    }
+    out.println(String.format(Locale.ROOT, "    variants      %d in both, %d added, %d dropped", p.path("inBoth").asInt(),
+        p.path("added").size(), p.path("dropped").size()));
+    for (String kind : new String[] {"added", "dropped"}) {
+      for (JsonNode x : p.path(kind)) {
+        out.println(String.format(Locale.ROOT, "      %-8s %10s units  %s", kind,
+            Numbers.units(x.path(kind.equals("added") ? "unitsB" : "unitsA").asDouble()),
+            RunComparison.name(x, matrixA, matrixB)));
+      }
+    }
+  }
+
+  private static String word(JsonNode n) {
+    return n.isTextual() ? n.asText() : "none";
   }
 
   private void section(PrintWriter out, String title, JsonNode rows, String f1, String f2) {
@@ -169,7 +227,7 @@ final class CompareCommand extends SubCommand {
           continue;
         }
         out.println(String.format(Locale.ROOT, "    share %6.1f%% -> %6.1f%%  %s", 100 * o.path("shareA").asDouble(),
-            100 * o.path("shareB").asDouble(), RunComparison.variant(o.path("options"))));
+            100 * o.path("shareB").asDouble(), RunComparison.name(o, matrixA, matrixB)));
       }
       if (hidden > 0) {
         out.println("    (" + hidden + (hidden == 1 ? " offer's" : " offers'") + " share unchanged; --all shows them)");
@@ -200,6 +258,6 @@ final class CompareCommand extends SubCommand {
     }
     double d = v.path("change").asDouble();
     double a = v.path("a").asDouble();
-    return Numbers.signed(d) + (a != 0 ? String.format(Locale.ROOT, " (%+.3f%%)", 100 * d / Math.abs(a)) : "");
+    return Figures.signedMoney(d) + (a != 0 ? String.format(Locale.ROOT, " (%+.3f%%)", 100 * d / Math.abs(a)) : "");
   }
 }

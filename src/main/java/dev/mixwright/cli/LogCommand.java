@@ -2,6 +2,7 @@ package dev.mixwright.cli;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.Durations;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.runfolder.ColumnLogReader;
 import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
@@ -47,6 +48,9 @@ final class LogCommand extends RunDirCommand {
     } catch (IOException e) {
       throw new UserError(e.getMessage());
     }
+    if (segment != null) {
+      refuseUnknownSegment(entries);
+    }
     out.println(String.format(Locale.ROOT, "%5s  %9s  %-14s  %14s  %16s  %16s  %s",
         "round", "time", "segment", "reduced cost", "objective after", "bound after", "variant"));
     int shown = 0;
@@ -70,6 +74,23 @@ final class LogCommand extends RunDirCommand {
       PortfolioLogView.print(out, runDir);
     }
     return ExitCodes.OK;
+  }
+
+  /**
+   * A --segment the run does not have is a typo, not an empty answer: refused with the run's segment
+   * ids (from result.json, or the segments the log names when the run has not finished).
+   */
+  private void refuseUnknownSegment(ColumnLogReader.Entries entries) {
+    java.util.Set<String> ids = new java.util.LinkedHashSet<>();
+    try {
+      RunResult.read(runDir).segments().forEach(s -> ids.add(s.id()));
+    } catch (IOException e) {
+      entries.lines().forEach(n -> ids.add(n.path("segment").asText()));
+    }
+    if (!ids.contains(segment)) {
+      throw new UserError("--segment " + segment + ": the run has no such segment; its segments are "
+          + String.join(", ", ids));
+    }
   }
 
   private String variant(JsonNode options) {

@@ -12,10 +12,12 @@ import picocli.CommandLine.Option;
 
 @Command(
     name = "report",
-    description = "Writes one self-contained HTML page for a finished run: headline figures, convergence,"
-        + " resource use, the plan by segment and the integer portfolio. Nothing in it is fetched from a network.")
+    description = {
+      "Writes one self-contained HTML page for a finished run, to read and to hand on.",
+      "Headline figures first (revenue, cost, margin, one-off costs, units by segment), then the range by variant code with attach rates, the range to build against the ideal LP plan, resource use, shadow prices, and the solver's convergence last. Nothing in it is fetched from a network."
+    })
 final class ReportCommand extends RunDirCommand {
-  @Option(names = "--out", paramLabel = "FILE", description = "where to write the page (default RUN_DIR/report.html)")
+  @Option(names = {"--out", "-o"}, paramLabel = "FILE", description = "where to write the page (default RUN_DIR/report.html)")
   Path out;
 
   @Override

@@ -3,8 +3,8 @@ package dev.mixwright.cli;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
-import dev.mixwright.export.MatrixView;
-import dev.mixwright.export.VariantCodes;
+import dev.mixwright.report.MatrixView;
+import dev.mixwright.report.VariantCodes;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
@@ -34,7 +34,7 @@ final class Summary {
         ? "at most " + result.buildableVariantsAtMost() : result.buildableVariants()));
     out.println("  LP objective        " + Numbers.money(o.result().value()) + cur);
     out.println("  proven bound        " + Numbers.money(o.result().bound()) + cur + "   gap " + Numbers.percent(o.result().gap()));
-    out.println(String.format(Locale.ROOT, "  rounds %d, columns %d (seed included), LP stage %s",
+    out.println(String.format(Locale.ROOT, "  rounds %d, columns %d (the starting ones included), LP stage %s",
         o.iterations(), o.columnsGenerated(), Durations.format(o.elapsedMs())));
     List<String> binding = new ArrayList<>();
     for (RunResult.ResourceRow r : result.resources()) {
@@ -84,9 +84,10 @@ final class Summary {
     RunResult.Proof proof = p.proof();
     String change = p.kept() == null ? "" : String.format(Locale.ROOT, " (kept %d, dropped %d, added %d)",
         p.kept().size(), p.dropped().size(), p.added().size());
-    out.println(String.format(Locale.ROOT, "    %d variants%s, MIP %s, pool %d, survivors added %d%s, time %s",
+    out.println(String.format(Locale.ROOT, "    %d variants%s, chosen by %s among %,d candidate variants"
+            + " (%,d of them added to check that none does better%s), time %s",
         p.variants().size(), change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
-        proof.survivorsComplete() ? " (all)" : "", Durations.format(p.elapsedMs())));
+        proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
     if (p.kept() != null) {
       out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"
           : Numbers.money(p.currentRangeValue()) + cur + " as a fixed portfolio") + "; discontinue costs paid "

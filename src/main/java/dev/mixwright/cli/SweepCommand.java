@@ -1,10 +1,11 @@
 package dev.mixwright.cli;
 
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.engine.Engines;
-import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.engine.Tally;
+import dev.mixwright.report.MatrixView;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.run.SweepRun;
 import dev.mixwright.run.SweepWork;
@@ -13,8 +14,10 @@ import dev.mixwright.scenario.SweepPlan;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -24,11 +27,11 @@ import picocli.CommandLine.Option;
     name = "sweep",
     description = {
       "Solves a grid or list of scenarios and writes one table of the results.",
-      "Each scenario is solved to its proven LP optimum; the table holds the objective, bound, binding resources and shadow prices of each scenario (OUT/sweep.csv and OUT/sweep.json, rewritten after every scenario). Neighbouring scenarios start from each other's columns. Along a capacity or demand axis the table holds the value per extra unit between neighbouring points: the capacity value curve, found by re-running the search. Run it again with the same arguments to finish a sweep that was stopped or cut off.",
+      "Each scenario is solved to its proven LP optimum; the table holds the objective, bound, binding resources and shadow prices of each scenario (OUT/sweep.csv and OUT/sweep.json, rewritten after every scenario). When the catalog has a portfolio section, each scenario also runs the integer stage (--portfolio-time-limit counts per scenario) and the table holds its value and the chosen variants by code, one code list for the whole sweep. Neighbouring scenarios start from each other's columns. Along a capacity or demand axis the table holds the value per extra unit between neighbouring points: the capacity value curve, found by re-running the search. Run it again with the same arguments to finish a sweep that was stopped or cut off.",
       "",
       "Grid axes (--grid, repeatable, crossed with each other):",
       "  resources.ID.capacity=10000..16000:1000    figures, FROM..TO:STEP",
-      "  options.GROUP.OPTION.cost=-10%%..+10%%:10%%    changes in percent",
+      "  options.GROUP.OPTION.cost=-10%%..+10%%:10%%   changes in percent",
       "  options.GROUP.OPTION.price=+0,+50,+100     changes, listed",
       "  segments.ID.demand=8000,9000               also segments.ID.maxShare",
       "  rules.ID=on,off                            a rule switched",
@@ -62,18 +65,11 @@ final class SweepCommand extends CatalogCommand {
   @Option(names = "--json", description = "print sweep.json on stdout instead of the table")
   boolean json;
 
+  @Mixin PortfolioOptions portfolio;
+
   @Mixin ProgressOption progressOption;
 
   @Mixin TableReachOption tables;
-
-  @Option(names = "--portfolio", description = "go on to the integer stage at each point, when the catalog has a"
-      + " portfolio section: the range to launch there (sweep.csv's portfolio.* columns)")
-  boolean portfolio;
-
-  @Option(names = "--portfolio-time-limit", paramLabel = "DURATION", defaultValue = "60s",
-      converter = Converters.DurationMs.class,
-      description = "with --portfolio: wall time of the integer stage at each point (default ${DEFAULT-VALUE}; 0 for none)")
-  long portfolioTimeLimitMs;
 
   @Option(names = "--engine", paramLabel = "NAME", defaultValue = Engines.LOCAL,
       description = "what solves the points: local (this machine's threads, the default) or spark (a Spark"
@@ -92,9 +88,7 @@ final class SweepCommand extends CatalogCommand {
     PrintWriter err = spec.commandLine().getErr();
     Boolean progress = progressOption.asked;
     SweepRun.Request request = new SweepRun.Request(catalogFile, Optional.ofNullable(sweepFile), grid, scenarioFiles,
-        outDir, loop.settings(), loop.pricer, !cold, replace, engine, chain,
-        portfolio ? Optional.of(PortfolioSettings.defaults().withTimeLimit(portfolioTimeLimitMs)) : Optional.empty(),
-        tables.reach());
+        outDir, loop.settings(), loop.pricer, !cold, replace, engine, chain, portfolio.plan(), tables.reach());
     SweepRun.Outcome o;
     try (StopSignals signals = StopSignals.install(err)) {
       o = SweepRun.run(request, signals.flag(), new SweepRun.Watcher() {
@@ -165,6 +159,22 @@ final class SweepCommand extends CatalogCommand {
           n.path("status").asText(), n.path("objective").isNumber() ? Numbers.money(n.path("objective").asDouble()) : "",
           prices.length() == 0 ? (n.has("problem") ? n.path("problem").asText() : "no binding resource") : prices,
           slope));
+      JsonNode pf = n.path("portfolio");
+      if (pf.isObject()) {
+        List<String> codes = new ArrayList<>();
+        pf.path("codes").forEach(c -> codes.add(c.asText()));
+        out.println(String.format(Locale.ROOT, "  %-48s %-10s %18s  %s", "", pf.path("status").asText(),
+            Numbers.money(pf.path("value").asDouble()), "range: " + String.join(" ", codes)));
+      }
+    }
+    JsonNode legend = table.toJson().path("portfolioVariants");
+    if (legend.isObject()) {
+      out.println("variants of the ranges (the same code on every row):");
+      legend.fields().forEachRemaining(e -> {
+        Map<String, String> o = new LinkedHashMap<>();
+        e.getValue().fields().forEachRemaining(x -> o.put(x.getKey(), x.getValue().asText()));
+        out.println("  " + e.getKey() + "  " + MatrixView.describe(catalog, o));
+      });
     }
   }
 }

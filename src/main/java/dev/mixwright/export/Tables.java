@@ -3,6 +3,7 @@ package dev.mixwright.export;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.report.MatrixView;
 import dev.mixwright.report.RunResult;
 import java.util.ArrayList;
 import java.util.List;

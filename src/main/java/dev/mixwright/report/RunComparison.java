@@ -20,8 +20,10 @@ import java.util.Set;
 /**
  * What changed from run A to run B: status, objective, bound and gap; the catalog figures that
  * differ (when both runs kept their catalog.json); offers that are new, dropped or sold in another
- * quantity; and each resource's and segment's shadow price and use. Offers are matched by segment
- * and options, resources and segments by id.
+ * quantity; the integer portfolios (value, bound, one-off costs, variants added and dropped); and
+ * each resource's and segment's shadow price and use. Offers and portfolio variants are matched by
+ * options (and segment), resources and segments by id. A variant carries its code in each run it is
+ * in ({@code codeA}, {@code codeB}: the codes of that run's summary, report and export).
  */
 public final class RunComparison {
   /** Quantities and prices closer than this are the same. */
@@ -44,11 +46,16 @@ public final class RunComparison {
     if (catA != null && catB != null) {
       n.set("catalogChanges", catalogChanges(catA, catB));
     }
-    n.set("offers", offers(a, b));
+    VariantCodes ca = VariantCodes.of(a);
+    VariantCodes cb = VariantCodes.of(b);
+    n.set("offers", offers(a, b, ca, cb));
+    if (a.portfolio() != null || b.portfolio() != null) {
+      n.set("portfolio", portfolio(a.portfolio(), b.portfolio(), ca, cb));
+    }
     n.set("resources", byId(rows(a.resources()), rows(b.resources()), List.of("capacity", "used", "shadowPrice")));
     n.set("segments", byId(rows(a.segments()), rows(b.segments()),
         List.of("demand", "sold", "shadowPrice")));
-    ArrayNode choosing = choosing(a, b);
+    ArrayNode choosing = choosing(a, b, ca, cb);
     if (!choosing.isEmpty()) {
       n.set("choosing", choosing);
     }
@@ -80,7 +87,7 @@ public final class RunComparison {
    * B (0 where it is not offered). Absent when no segment chooses, so fixed-demand comparisons read
    * as before.
    */
-  private static ArrayNode choosing(RunResult a, RunResult b) {
+  private static ArrayNode choosing(RunResult a, RunResult b, VariantCodes ca, VariantCodes cb) {
     ArrayNode out = Json.pretty().createArrayNode();
     Map<String, RunResult.SegmentRow> sa = new LinkedHashMap<>();
     Map<String, RunResult.SegmentRow> sb = new LinkedHashMap<>();
@@ -108,9 +115,7 @@ public final class RunComparison {
       collectShares(b, id, yc ? y.buyers() : Double.NaN, 1, shares, options);
       ArrayNode offers = o.putArray("offers");
       shares.forEach((k, v) -> {
-        ObjectNode r = offers.addObject();
-        ObjectNode opts = r.putObject("options");
-        options.get(k).forEach(opts::put);
+        ObjectNode r = coded(offers.addObject(), options.get(k), ca, cb);
         r.put("shareA", v[0]);
         r.put("shareB", v[1]);
       });
@@ -225,7 +230,61 @@ public final class RunComparison {
     return s;
   }
 
-  private static ObjectNode offers(RunResult a, RunResult b) {
+  /**
+   * Both integer portfolios: status, value, bound, introduction, tooling and discontinue costs (each
+   * {a, b, change}; a run without a portfolio has nulls), the number of variants, and the variants
+   * added (in B only) and dropped (in A only) with their codes and units.
+   */
+  private static ObjectNode portfolio(RunResult.Portfolio a, RunResult.Portfolio b, VariantCodes ca,
+      VariantCodes cb) {
+    ObjectNode n = Json.pretty().createObjectNode();
+    ObjectNode st = n.putObject("status");
+    st.put("a", a == null || a.status() == null ? null : a.status().word());
+    st.put("b", b == null || b.status() == null ? null : b.status().word());
+    pair(n.putObject("value"), a == null ? null : a.value(), b == null ? null : b.value());
+    pair(n.putObject("bound"), a == null ? null : a.bound(), b == null ? null : b.bound());
+    pair(n.putObject("introductionCosts"), a == null ? null : a.introductionCosts(),
+        b == null ? null : b.introductionCosts());
+    pair(n.putObject("toolingCosts"), a == null ? null : a.toolingCosts(), b == null ? null : b.toolingCosts());
+    pair(n.putObject("discontinueCosts"), a == null ? null : a.discontinueCosts(),
+        b == null ? null : b.discontinueCosts());
+    pair(n.putObject("variants"), a == null ? null : a.variants().size(), b == null ? null : b.variants().size());
+    Map<String, RunResult.PortfolioVariant> va = new LinkedHashMap<>();
+    Map<String, RunResult.PortfolioVariant> vb = new LinkedHashMap<>();
+    if (a != null) {
+      a.variants().forEach(v -> va.put(variant(v.options()), v));
+    }
+    if (b != null) {
+      b.variants().forEach(v -> vb.put(variant(v.options()), v));
+    }
+    ArrayNode added = n.putArray("added");
+    ArrayNode dropped = n.putArray("dropped");
+    int kept = 0;
+    for (Map.Entry<String, RunResult.PortfolioVariant> e : vb.entrySet()) {
+      if (va.containsKey(e.getKey())) {
+        kept++;
+      } else {
+        added.add(portfolioVariant(e.getValue(), ca, cb, 0, e.getValue().units()));
+      }
+    }
+    for (Map.Entry<String, RunResult.PortfolioVariant> e : va.entrySet()) {
+      if (!vb.containsKey(e.getKey())) {
+        dropped.add(portfolioVariant(e.getValue(), ca, cb, e.getValue().units(), 0));
+      }
+    }
+    n.put("inBoth", kept);
+    return n;
+  }
+
+  private static ObjectNode portfolioVariant(RunResult.PortfolioVariant v, VariantCodes ca, VariantCodes cb,
+      double ua, double ub) {
+    ObjectNode o = coded(Json.pretty().createObjectNode(), v.options(), ca, cb);
+    o.put("unitsA", ua);
+    o.put("unitsB", ub);
+    return o;
+  }
+
+  private static ObjectNode offers(RunResult a, RunResult b, VariantCodes ca, VariantCodes cb) {
     Map<String, RunResult.Offer> oa = offerMap(a);
     Map<String, RunResult.Offer> ob = offerMap(b);
     ObjectNode n = Json.pretty().createObjectNode();
@@ -236,12 +295,12 @@ public final class RunComparison {
     for (Map.Entry<String, RunResult.Offer> e : ob.entrySet()) {
       RunResult.Offer x = oa.get(e.getKey());
       if (x == null) {
-        added.add(offer(e.getValue(), 0, e.getValue().quantity()));
+        added.add(offer(e.getValue(), 0, e.getValue().quantity(), ca, cb));
       } else {
         double qa = x.quantity();
         double qb = e.getValue().quantity();
         if (Math.abs(qa - qb) > SAME * Math.max(1, Math.abs(qa))) {
-          changed.add(offer(e.getValue(), qa, qb));
+          changed.add(offer(e.getValue(), qa, qb, ca, cb));
         } else {
           same++;
         }
@@ -249,20 +308,28 @@ public final class RunComparison {
     }
     for (Map.Entry<String, RunResult.Offer> e : oa.entrySet()) {
       if (!ob.containsKey(e.getKey())) {
-        dropped.add(offer(e.getValue(), e.getValue().quantity(), 0));
+        dropped.add(offer(e.getValue(), e.getValue().quantity(), 0, ca, cb));
       }
     }
     n.put("unchanged", same);
     return n;
   }
 
-  private static ObjectNode offer(RunResult.Offer any, double qa, double qb) {
+  private static ObjectNode offer(RunResult.Offer any, double qa, double qb, VariantCodes ca, VariantCodes cb) {
     ObjectNode o = Json.pretty().createObjectNode();
     o.put("segment", any.segment());
-    ObjectNode opts = o.putObject("options");
-    any.options().forEach(opts::put);
+    coded(o, any.options(), ca, cb);
     o.put("quantityA", qa);
     o.put("quantityB", qb);
+    return o;
+  }
+
+  /** The variant's code in each run (null where the run does not hold it) and its options. */
+  private static ObjectNode coded(ObjectNode o, Map<String, String> options, VariantCodes ca, VariantCodes cb) {
+    o.put("codeA", ca.code(options));
+    o.put("codeB", cb.code(options));
+    ObjectNode opts = o.putObject("options");
+    options.forEach(opts::put);
     return o;
   }
 
@@ -283,6 +350,20 @@ public final class RunComparison {
       }
     });
     return String.join(",", parts);
+  }
+
+  /**
+   * A compared variant for people: its code in each run ({@code V03→V01}; {@code A V05} or {@code B
+   * V02} when only one run holds it) and the labels of the choices in which that run's variants
+   * differ ({@code a}, {@code b}: the runs' matrix views), or its options when the view has none.
+   */
+  public static String name(JsonNode x, MatrixView a, MatrixView b) {
+    String ca = x.path("codeA").isTextual() ? x.path("codeA").asText() : null;
+    String cb = x.path("codeB").isTextual() ? x.path("codeB").asText() : null;
+    String code = ca != null && cb != null ? (ca.equals(cb) ? ca : ca + "→" + cb) : cb != null ? "B " + cb
+        : ca != null ? "A " + ca : "";
+    String what = cb != null ? b.describe(cb) : ca != null ? a.describe(ca) : "";
+    return (code + "  " + (what.isEmpty() ? variant(x.path("options")) : what)).strip();
   }
 
   /** The same for the options object of a comparison's offer. */

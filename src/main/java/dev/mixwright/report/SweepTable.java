@@ -11,7 +11,6 @@ import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.Sweep;
-import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.scenario.Scenario;
@@ -36,8 +35,6 @@ public final class SweepTable {
   public static final String JSON_FILE = "sweep.json";
   public static final String CSV_FILE = "sweep.csv";
   /** The header field that says each point also ran the integer stage. */
-  public static final String INTEGER_STAGE = "integerStage";
-  private static final List<String> PORTFOLIO_FIELDS = List.of("status", "value", "bound", "gap", "variants");
 
   private final SweepPlan plan;
   private final Catalog base;
@@ -61,6 +58,31 @@ public final class SweepTable {
   }
 
   public ObjectNode add(Sweep.Row r) {
+    return add(r, null);
+  }
+
+  /** A point's LP stage as its row holds it (bound and gap null when unknown, no stopReason when none). */
+  private record PointSolve(String status,
+      @com.fasterxml.jackson.annotation.JsonInclude(com.fasterxml.jackson.annotation.JsonInclude.Include.NON_NULL)
+      String stopReason, double objective, Double bound, Double gap, int iterations, int columnsGenerated,
+      int warmStartColumns, long elapsedMs) {}
+
+  /** A point's integer stage as its row holds it (bound and gap null when unknown). */
+  private record PointPortfolio(String status, double value, Double bound, Double gap, double introductionCosts,
+      double toolingCosts, long elapsedMs, List<PointVariant> variants) {}
+
+  /** A variant a point's portfolio chooses, and its units. */
+  private record PointVariant(Map<String, String> options, double units) {}
+
+  /** The figures of one resource at one point: shadow price null when the run has none. */
+  private record ResourceCell(double capacity, double used, Double shadowPrice) {}
+
+  /**
+   * A solved point and, when its integer stage ran, its portfolio: status, value, bound, gap, the
+   * one-off costs and the chosen variants (their codes, shared by the whole table, are set when the
+   * table is written: {@link #codes}).
+   */
+  public ObjectNode add(Sweep.Row r, RunResult.Portfolio portfolio) {
     ObjectNode n = Json.pretty().createObjectNode();
     SweepPlan.Point p = r.point();
     n.put("index", p.index());
@@ -76,17 +98,9 @@ public final class SweepTable {
       rows.put(p.index(), n);
       return n;
     }
-    n.put("status", o.status().word());
-    if (!o.stopReason().isEmpty()) {
-      n.put("stopReason", o.stopReason());
-    }
-    n.put("objective", o.result().value());
-    Json.putNum(n, "bound", o.result().bound());
-    Json.putNum(n, "gap", o.result().gap());
-    n.put("iterations", o.iterations());
-    n.put("columnsGenerated", o.columnsGenerated());
-    n.put("warmStartColumns", r.warmColumns());
-    n.put("elapsedMs", o.elapsedMs());
+    n.setAll((ObjectNode) Json.pretty().valueToTree(new PointSolve(o.status().word(),
+        o.stopReason().isEmpty() ? null : o.stopReason(), o.objective(), Json.num(o.bound()), Json.num(o.gap()),
+        o.iterations(), o.columnsGenerated(), r.warmColumns(), o.elapsedMs())));
     ArrayNode binding = n.putArray("binding");
     ObjectNode res = n.putObject("resources");
     Catalog c = r.catalog();
@@ -95,10 +109,9 @@ public final class SweepTable {
       if (r.binding(i)) {
         binding.add(rr.id());
       }
-      ObjectNode x = res.putObject(rr.id());
-      x.put("capacity", rr.capacity());
-      x.put("used", r.used()[i]);
-      Json.putNum(x, "shadowPrice", o.duals().resource(i).orElse(Double.NaN));
+      double price = o.duals().resource(i).orElse(Double.NaN);
+      res.set(rr.id(), Json.pretty().valueToTree(new ResourceCell(rr.capacity(), r.used()[i],
+          Double.isFinite(price) ? price : null)));
     }
     ObjectNode segs = n.putObject("segments");
     for (int s = 0; s < c.segments().size(); s++) {
@@ -111,26 +124,60 @@ public final class SweepTable {
         x.put("sold", sold(o, s));
       }
     }
+    if (portfolio != null) {
+      List<PointVariant> vs = new ArrayList<>();
+      portfolio.variants().forEach(v -> vs.add(new PointVariant(v.options(), v.units())));
+      n.set("portfolio", Json.pretty().valueToTree(new PointPortfolio(portfolio.status().word(), portfolio.value(),
+          portfolio.bound(), portfolio.gap(), portfolio.introductionCosts(), portfolio.toolingCosts(),
+          portfolio.elapsedMs(), vs)));
+    }
     rows.put(p.index(), n);
     return n;
   }
 
   /**
-   * Adds the integer stage's answer at this point to its row: the status, the range's value and
-   * bound, their gap and the number of variants it introduces.
+   * Codes for the variants the points' portfolios choose, shared by the whole table so that one code
+   * is one variant on every row: by units over all rows, largest first, ties by the variant's text
+   * (as {@link VariantCodes} orders a run's). Sets each row's {@code portfolio.codes}; returns code to
+   * options, in code order.
    */
-  public static void putPortfolio(ObjectNode row, PortfolioOutcome o) {
-    ObjectNode n = row.putObject("portfolio");
-    n.put("status", o.status().word());
-    Json.putNum(n, "value", o.result().value());
-    Json.putNum(n, "bound", o.result().bound());
-    Json.putNum(n, "gap", o.result().gap());
-    n.put("variants", o.offer().variants().size());
-  }
-
-  /** Whether the header says the sweep runs the integer stage at each point (then the CSV has its columns). */
-  private boolean integerStage() {
-    return header.path(INTEGER_STAGE).asBoolean(false);
+  private Map<String, Map<String, String>> codes() {
+    Map<String, Double> units = new java.util.HashMap<>();
+    Map<String, Map<String, String>> options = new java.util.HashMap<>();
+    for (ObjectNode n : rows.values()) {
+      for (JsonNode v : n.path("portfolio").path("variants")) {
+        Map<String, String> o = new java.util.LinkedHashMap<>();
+        v.path("options").fields().forEachRemaining(e -> o.put(e.getKey(), e.getValue().asText()));
+        String k = VariantCodes.key(o);
+        options.putIfAbsent(k, o);
+        units.merge(k, v.path("units").asDouble(), Double::sum);
+      }
+    }
+    List<String> keys = new ArrayList<>(options.keySet());
+    keys.sort(java.util.Comparator.comparingDouble((String k) -> -Math.rint(units.get(k) * 1e6) / 1e6)
+        .thenComparing(java.util.Comparator.naturalOrder()));
+    Map<String, String> codeOf = new java.util.HashMap<>();
+    Map<String, Map<String, String>> legend = new java.util.LinkedHashMap<>();
+    for (int i = 0; i < keys.size(); i++) {
+      String code = VariantCodes.code(i, keys.size());
+      codeOf.put(keys.get(i), code);
+      legend.put(code, options.get(keys.get(i)));
+    }
+    for (ObjectNode n : rows.values()) {
+      if (n.path("portfolio").isObject()) {
+        List<String> cs = new ArrayList<>();
+        for (JsonNode v : n.path("portfolio").path("variants")) {
+          Map<String, String> o = new java.util.LinkedHashMap<>();
+          v.path("options").fields().forEachRemaining(e -> o.put(e.getKey(), e.getValue().asText()));
+          String code = codeOf.get(VariantCodes.key(o));
+          cs.add(code);
+          ((ObjectNode) v).put("code", code);
+        }
+        cs.sort(java.util.Comparator.naturalOrder());
+        cs.forEach(((ObjectNode) n.path("portfolio")).putArray("codes")::add);
+      }
+    }
+    return legend;
   }
 
   /** Units the outcome's plan sells in segment s. */
@@ -249,10 +296,14 @@ public final class SweepTable {
   public ObjectNode toJson() {
     slopes();
     best();
+    Map<String, Map<String, String>> legend = codes();
     ObjectNode n = header.deepCopy();
     ArrayNode axes = n.putArray("axes");
     for (SweepPlan.Axis a : plan.axes()) {
       axes.add(a.target().path());
+    }
+    if (!legend.isEmpty()) {
+      n.set("portfolioVariants", Json.pretty().valueToTree(legend));
     }
     ArrayNode rs = n.putArray("rows");
     rows.values().forEach(rs::add);
@@ -263,6 +314,7 @@ public final class SweepTable {
   public String toCsv() {
     slopes();
     best();
+    boolean portfolios = !codes().isEmpty() || rows.values().stream().anyMatch(n -> n.path("portfolio").isObject());
     List<Segment> choosing = base.segments().stream().filter(Segment::chooses).toList();
     List<String> head = new ArrayList<>(List.of("index", "name"));
     for (SweepPlan.Axis a : plan.axes()) {
@@ -289,11 +341,12 @@ public final class SweepTable {
     for (Segment c : choosing) {
       head.add("sold." + c.id());
     }
-    if (integerStage()) {
-      PORTFOLIO_FIELDS.forEach(f -> head.add("portfolio." + f));
-    }
     if (marksBest()) {
       head.add("best");
+    }
+    if (portfolios) {
+      head.addAll(List.of("portfolio.status", "portfolio.value", "portfolio.gap", "portfolio.introductionCosts",
+          "portfolio.toolingCosts", "portfolio.codes"));
     }
     head.add("problem");
     StringBuilder sb = new StringBuilder();
@@ -327,11 +380,17 @@ public final class SweepTable {
       for (Segment c : choosing) {
         cells.add(text(n.path("segments").path(c.id()).path("sold")));
       }
-      if (integerStage()) {
-        PORTFOLIO_FIELDS.forEach(f -> cells.add(text(n.path("portfolio").path(f))));
-      }
       if (marksBest()) {
         cells.add(text(n.path("best")));
+      }
+      if (portfolios) {
+        JsonNode pf = n.path("portfolio");
+        for (String f : List.of("status", "value", "gap", "introductionCosts", "toolingCosts")) {
+          cells.add(text(pf.path(f)));
+        }
+        List<String> cs = new ArrayList<>();
+        pf.path("codes").forEach(x -> cs.add(x.asText()));
+        cells.add(String.join(" ", cs));
       }
       cells.add(n.path("problem").asText(""));
       line(sb, cells);

@@ -79,4 +79,24 @@ public final class Inputs {
       throw new IllegalStateException(e);
     }
   }
+
+  /**
+   * A minimum lot above all the demand one variant could meet (every segment's demand times its
+   * maxShare, added up) leaves no variant to offer: the integer stage would "prove" an empty range.
+   * Refused in words before anything is solved.
+   */
+  public static void refuseUnreachableMinLot(Catalog catalog) {
+    catalog.portfolio().ifPresent(p -> {
+      double most = 0;
+      for (dev.mixwright.catalog.Segment s : catalog.segments()) {
+        most += s.demand() * s.maxShare();
+      }
+      if (p.minLot() > most * (1 + 1e-9)) {
+        throw new InputError(String.format(java.util.Locale.ROOT, "portfolio.minLot: %,.0f units, but one variant can"
+            + " sell at most %,.0f (each segment's demand times its maxShare, added up), so no variant could be"
+            + " offered and the range would be empty — lower minLot to %,.0f or less", p.minLot(), most,
+            Math.floor(most)));
+      }
+    });
+  }
 }

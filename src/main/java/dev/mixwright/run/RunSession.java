@@ -127,6 +127,9 @@ public final class RunSession {
     if (r.scenarioFile().isPresent()) {
       catalog = Inputs.withScenario(catalog, r.scenarioFile().get());
     }
+    if (r.portfolio().run()) {
+      Inputs.refuseUnreachableMinLot(catalog);
+    }
     ScenarioSetStep.Loaded scenarios = set == null ? null : ScenarioSetStep.load(set, catalog);
     VariantSpace space = new VariantSpace(catalog);
     RunFolder folder = new RunFolder(r.runDir());

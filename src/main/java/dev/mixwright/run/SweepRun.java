@@ -13,7 +13,6 @@ import dev.mixwright.engine.Engines;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.Tally;
 import dev.mixwright.engine.Watch;
-import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;
@@ -24,6 +23,7 @@ import dev.mixwright.runfolder.RunLock;
 import dev.mixwright.scenario.Scenario;
 import dev.mixwright.scenario.Scenarios;
 import dev.mixwright.scenario.SweepPlan;
+import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Files;
@@ -38,8 +38,8 @@ import java.util.concurrent.atomic.AtomicBoolean;
 /**
  * A sweep as the application runs it: the catalog read once, the plan built from a sweep file,
  * grid axes and scenario files, the rows of an earlier run of the same sweep kept, every other
- * point solved by an engine in chains ({@link SweepWork}) and the table rewritten by this thread as
- * each chain comes in.
+ * point solved by an engine in chains ({@link SweepWork}), each going on to the integer stage when its
+ * catalog has a portfolio section, and the table rewritten by this thread as each chain comes in.
  */
 public final class SweepRun {
   private SweepRun() {}
@@ -48,12 +48,13 @@ public final class SweepRun {
    * What to sweep and how; {@code grid} and {@code sweepFile} exclude each other. {@code engine} names
    * the engine that solves the points ({@link Engines}); {@code chain}: points solved one after another
    * from each other's columns, the pieces an engine spreads (0: the whole sweep in one piece);
-   * {@code integerStage}: when present, each point goes on to the integer stage with these settings;
-   * {@code tables} says where the catalog's tables may be (the user's choice on the command line).
+   * {@code portfolio}: whether each point goes on to the integer stage (when its catalog has a portfolio
+   * section) and with which settings, the time limit counting per point; {@code tables} says where the
+   * catalog's tables may be (the user's choice on the command line).
    */
   public record Request(Path catalogFile, Optional<Path> sweepFile, List<String> grid, List<Path> scenarioFiles,
       Path outDir, SolveSettings settings, PricerChoice pricer, boolean warmStart, boolean replace, String engine,
-      int chain, Optional<PortfolioSettings> integerStage, TableReach tables) {}
+      int chain, PortfolioPlan portfolio, TableReach tables) {}
 
   /** What the caller wants to hear while the sweep goes on. */
   public interface Watcher {
@@ -88,6 +89,7 @@ public final class SweepRun {
     if (plan.points().isEmpty()) {
       throw new InputError("nothing to sweep: give --grid PATH=VALUES, a --sweep file, or --scenario files");
     }
+    refusePortfolioAxes(plan, r.portfolio());
     ObjectNode header = Json.pretty().createObjectNode();
     header.put("format", 1);
     header.put("kind", RunFolder.Kind.SWEEP.word());
@@ -99,8 +101,10 @@ public final class SweepRun {
     header.put("pricer", r.pricer().word());
     header.put("gap", r.settings().gapTolerance());
     header.put("warmStart", r.warmStart());
-    header.put(SweepTable.INTEGER_STAGE, r.integerStage().isPresent());
-    header.put("definitionSha256", definition(plan, read.sha256(), r.settings(), r.integerStage()));
+    boolean integerStage = r.portfolio().run() && catalog.portfolio().isPresent();
+    Optional<PortfolioSettings> stage = integerStage ? Optional.of(r.portfolio().settings()) : Optional.empty();
+    header.put("portfolio", integerStage);
+    header.put("definitionSha256", definition(plan, read.sha256(), r.settings(), stage));
     SweepTable table = new SweepTable(plan, catalog, header);
 
     if (r.replace()) {
@@ -117,7 +121,7 @@ public final class SweepRun {
       AtomicFiles.write(r.outDir().resolve(RunFolder.CATALOG_COPY), CatalogWriter.toJson(catalog));
       table.write(r.outDir());
       Job job = SweepWork.job(catalog, plan, r.settings(), r.pricer(), r.warmStart(),
-          r.integerStage().orElse(null), r.chain(), done);
+          stage.orElse(null), r.chain(), done);
       Tally tally = new Tally(plan.points().size() - done.size());
       int solvedNow = 0;
       try {
@@ -180,6 +184,20 @@ public final class SweepRun {
           + e.getMessage() + " (" + solved[0] + " points written to " + outDir + ")", e);
     }
     return solved[0];
+  }
+
+  /**
+   * An axis over a portfolio term changes nothing the LP stage reads: without the integer stage every
+   * point of it would come out the same, so it is refused, in words. (A catalog without a portfolio
+   * section has its portfolio axes refused where the grid is read.)
+   */
+  private static void refusePortfolioAxes(SweepPlan plan, PortfolioPlan portfolio) {
+    for (SweepPlan.Axis a : plan.axes()) {
+      if (a.target().field().isPortfolioTerm() && !portfolio.run()) {
+        throw new InputError("the axis " + a.target().path() + " changes a term of the integer stage, which"
+            + " --no-portfolio skips — drop --no-portfolio or this axis");
+      }
+    }
   }
 
   private static SweepPlan plan(Request r, Catalog catalog) throws CatalogException {

@@ -12,6 +12,8 @@ import dev.mixwright.engine.Job;
 import dev.mixwright.engine.PointWork;
 import dev.mixwright.portfolio.IntegerStage;
 import dev.mixwright.portfolio.PortfolioSettings;
+import dev.mixwright.report.PortfolioSection;
+import dev.mixwright.report.RunResult;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.Json;
 import dev.mixwright.scenario.SweepPlan;
@@ -121,16 +123,25 @@ public final class SweepWork implements PointWork {
         .run(skip, Thread.currentThread()::isInterrupted, new Sweep.Listener() {
           @Override
           public void solved(Sweep.Row row) {
-            ObjectNode n = rowMaker.add(row);
-            if (s.integerStage() != null && row.outcome() != null && row.outcome().status().isOptimal()
-                && row.catalog().portfolio().isPresent()) {
-              SweepTable.putPortfolio(n, new IntegerStage(new VariantSpace(row.catalog()), s.integerStage())
-                  .stopWhen(StopCriterion.signal(Thread.currentThread()::isInterrupted)).run(row.outcome()));
-            }
-            rows.add(n);
+            rows.add(rowMaker.add(row, portfolio(row, s.integerStage())));
           }
         });
     return Json.compact().writeValueAsBytes(rows);
+  }
+
+  /**
+   * The point's integer stage, when the sweep asks for it, the point's catalog has a portfolio section
+   * and its LP stage reached the optimum; null otherwise. The stage's time limit counts for this point.
+   */
+  private static RunResult.Portfolio portfolio(Sweep.Row row, PortfolioSettings settings) {
+    if (settings == null || row.outcome() == null || row.catalog().portfolio().isEmpty()
+        || !row.outcome().status().isOptimal()) {
+      return null;
+    }
+    VariantSpace space = new VariantSpace(row.catalog());
+    IntegerStage stage = new IntegerStage(space, settings)
+        .stopWhen(StopCriterion.signal(Thread.currentThread()::isInterrupted));
+    return PortfolioSection.of(space, stage.terms(), stage.run(row.outcome()));
   }
 
   private static byte[] indices(int[] c) {

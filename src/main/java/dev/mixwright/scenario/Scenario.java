@@ -58,6 +58,11 @@ public record Scenario(String name, List<Change> changes) implements Serializabl
     Field(String word) {
       this.word = word;
     }
+
+    /** A term of the catalog's portfolio section, which only the integer stage reads. */
+    public boolean isPortfolioTerm() {
+      return this == INTRODUCTION_COST || this == MAX_VARIANTS || this == MIN_LOT;
+    }
   }
 
   /**

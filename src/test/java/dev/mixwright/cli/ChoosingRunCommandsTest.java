@@ -126,7 +126,7 @@ class ChoosingRunCommandsTest {
   @Test
   void aPriceSweepIsACurveWithItsBestPointMarked() throws Exception {
     Path out = tmp.resolve("sweep");
-    CliRun s = CliRun.of("sweep", STARTER, "--grid", "options.capacity.c14.price=+0,+1200,+2400", "--out",
+    CliRun s = CliRun.of("sweep", "--no-portfolio", STARTER, "--grid", "options.capacity.c14.price=+0,+1200,+2400", "--out",
         out.toString());
     assertEquals(0, s.code(), s::toString);
     assertTrue(s.err().contains("best price of the sweep"), s::toString);

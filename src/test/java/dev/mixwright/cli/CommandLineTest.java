@@ -214,7 +214,7 @@ class CommandLineTest {
   void helpTextsKeepTheirTablesAndOneLineSummaries() {
     CliRun sweep = CliRun.of("sweep", "--help");
     assertTrue(sweep.out().contains("\n  rules.ID=on,off                            a rule switched\n"), sweep.out());
-    assertTrue(sweep.out().contains("\n  options.GROUP.OPTION.cost=-10%..+10%:10%    changes in percent\n"), sweep.out());
+    assertTrue(sweep.out().contains("\n  options.GROUP.OPTION.cost=-10%..+10%:10%   changes in percent\n"), sweep.out());
     CliRun main = CliRun.of("--help");
     String bench = main.out().substring(main.out().indexOf("  bench "));
     assertTrue(bench.substring(0, bench.indexOf("  report ")).trim().endsWith("listed."), main.out());

@@ -149,7 +149,7 @@ class DamagedRunFolderTest {
   void aSweepNeverOverwritesASolveRun() throws IOException {
     Path dir = fresh("solve-then-sweep");
     String before = Files.readString(dir.resolve(RunFolder.CATALOG_COPY));
-    CliRun sweep = CliRun.of("sweep", STARTER, "--grid", "resources.testbench.capacity=8000..9000:1000",
+    CliRun sweep = CliRun.of("sweep", "--no-portfolio", STARTER, "--grid", "resources.testbench.capacity=8000..9000:1000",
         "--out", dir.toString());
     assertEquals(2, sweep.code(), sweep::toString);
     assertTrue(sweep.err().contains("holds a solve run"), sweep::toString);

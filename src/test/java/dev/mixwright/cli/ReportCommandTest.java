@@ -29,8 +29,11 @@ class ReportCommandTest {
     assertTrue(Files.isRegularFile(page));
     assertTrue(r.out().contains(page.toString()));
     String html = Files.readString(page);
-    assertEquals(3, html.split("<svg", -1).length - 1);
+    assertEquals(1, html.split("<svg", -1).length - 1, "the convergence chart; the other charts are bars of HTML");
     assertFalse(html.contains("http"));
+    // the permissions of any new file (0644 under umask 022), as an export's: the page is made to be handed on
+    Path probe = Files.writeString(tmp.resolve("probe"), "x");
+    assertEquals(Files.getPosixFilePermissions(probe), Files.getPosixFilePermissions(page));
   }
 
   @Test
@@ -58,5 +61,16 @@ class ReportCommandTest {
     CliRun r = CliRun.of("report", broken.toString());
     assertEquals(2, r.code(), r::toString);
     assertTrue(r.err().contains("result.json in " + broken + " is damaged"), r::toString);
+  }
+
+  @Test
+  void logOfASegmentTheRunDoesNotHaveListsItsSegments() {
+    CliRun typo = CliRun.of("log", run.toString(), "--segment", "retrofti");
+    assertEquals(2, typo.code(), typo::toString);
+    assertTrue(typo.err().contains("--segment retrofti: the run has no such segment; its segments are retrofit,"),
+        typo::toString);
+    CliRun ok = CliRun.of("log", run.toString(), "--segment", "retrofit");
+    assertEquals(0, ok.code(), ok::toString);
+    assertTrue(ok.out().contains("columns in segment retrofit"), ok::toString);
   }
 }

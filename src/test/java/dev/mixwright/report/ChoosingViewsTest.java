@@ -48,21 +48,21 @@ class ChoosingViewsTest {
   void theReportShowsSharesStayingOutPricePointsAndWhoTakesFromWhom() throws Exception {
     RunResult r = result(1.5, 0.5);
     String html = HtmlReport.render(r);
-    assertTrue(html.contains("chooses by multinomial logit"), "the segment is said to choose");
+    assertTrue(html.contains("Buyers choose among the offers (multinomial logit)"), "the segment is said to choose");
     assertTrue(html.contains("stay out (buy none of these)"));
     assertTrue(html.contains(">50.0%<"), "share of the first offer, 1.5/3");
     assertTrue(html.contains(">16.7%<"), "share of the second offer, 0.5/3");
     assertTrue(html.contains(">33.3%<"), "staying out, 1/3");
     assertTrue(html.contains("Price points chosen"));
-    assertTrue(html.contains("<code>hull=shell@4300</code> 500 units"));
+    assertTrue(html.contains("hull <b>shell@4300</b> 500 units"), "no catalog.json: the choice id stands in for its label");
     // Offer 1 takes from offer 2 what offer 2 would gain without it (multinomial logit, Train,
     // Discrete Choice Methods with Simulation, ch. 3): 1000·0.5/1.5 − 1000·0.5/3 = 166.67, and from
-    // staying out 1000/1.5 − 1000/3 = 333.33.
-    assertTrue(html.contains(">166.67<"), "offer 1 takes 166.67 from offer 2");
-    assertTrue(html.contains(">333.33<"), "offer 1 takes 333.33 from staying out");
+    // staying out 1000/1.5 − 1000/3 = 333.33; buyers are shown in whole units, 167 and 333.
+    assertTrue(html.contains(">167<"), "offer 1 takes 167 from offer 2");
+    assertTrue(html.contains(">333<"), "offer 1 takes 333 from staying out");
     // Offer 2 takes from offer 1: 1000·1.5/2.5 − 500 = 100, and from staying out 1000/2.5 − 1000/3 = 66.67.
     assertTrue(html.contains(">100<"), "offer 2 takes 100 from offer 1");
-    assertTrue(html.contains(">66.67<"), "offer 2 takes 66.67 from staying out");
+    assertTrue(html.contains(">67<"), "offer 2 takes 67 from staying out");
     assertFalse(html.contains("<script"));
     // the fixed segment keeps its plain table
     assertTrue(html.contains("demand 120, sold 60"));

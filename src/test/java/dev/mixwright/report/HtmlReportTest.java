@@ -7,11 +7,13 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.cli.Main;
+import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.runfolder.Json;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.Locale;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -37,28 +39,102 @@ class HtmlReportTest {
   }
 
   @Test
-  void pageOfASolvedRunHoldsItsFigures() throws Exception {
+  void pageOfASolvedRunPutsTheBusinessFirstAndTheSolverLast() throws Exception {
     Path page = run.resolve("page.html");
     HtmlReport.write(run, page);
-    assertTrue(Files.isRegularFile(page));
     String html = Files.readString(page);
     assertTrue(html.startsWith("<!DOCTYPE html>"));
-    assertTrue(html.contains(String.format(Locale.ROOT, "%,.2f", result.get("objective").asDouble())), "objective shown");
-    assertTrue(html.contains(escapedOnce(result.get("catalog").get("name").asText())), "catalog name shown");
-    // convergence, resources, segments; the starter catalog has a portfolio section but no chart for it
-    assertEquals(3, count(html, "<svg"));
-    for (JsonNode r : result.get("resources")) {
-      assertTrue(html.contains(">" + r.get("id").asText() + "<"), "resource " + r.get("id"));
+    int last = -1;
+    for (String id : new String[] {"headline", "range", "against", "resources", "prices", "segments", "solver"}) {
+      int at = html.indexOf("<h2 id=\"" + id + "\"");
+      assertTrue(at > last, "section " + id + " in its place");
+      last = at;
     }
+    // the inputs: file, SHA-256, scenario, date, version
+    JsonNode cat = result.get("catalog");
+    assertTrue(html.contains(escapedOnce(cat.get("name").asText())), "catalog name shown");
+    assertTrue(html.contains(cat.get("sha256").asText()));
+    assertTrue(html.contains(escapedOnce(cat.get("file").asText())));
+    assertTrue(html.contains("scenario: <b>none (the catalog as written)</b>"));
+    assertTrue(html.contains("run started: <b>20"));
+    assertTrue(html.contains("page drawn by: <b>mixwright "));
+    assertFalse(html.contains("class=\"warn\""), "an optimal run with its portfolio needs no warning");
+
+    // headline: the margin the integer stage itself wrote for its variants, less the one-off costs,
+    // is the portfolio's value
+    JsonNode p = result.get("portfolio");
+    double margin = 0;
+    for (JsonNode v : p.get("variants")) {
+      margin += v.get("margin").asDouble();
+    }
+    assertEquals(p.get("value").asDouble(), margin - p.get("introductionCosts").asDouble()
+        - p.get("toolingCosts").asDouble(), 1e-6 * Math.abs(margin));
+    String headline = html.substring(html.indexOf("id=\"headline\""), html.indexOf("id=\"range\""));
+    assertTrue(headline.contains(Figures.money(margin) + " <small>EUR</small>"), "margin card");
+    assertTrue(headline.contains(Figures.money(p.get("value").asDouble()) + " <small>EUR</small>"), "value card");
+    assertTrue(headline.contains(Figures.money(p.get("introductionCosts").asDouble())), "introduction costs apart");
+    assertTrue(headline.contains("tooling costs"));
     for (JsonNode s : result.get("segments")) {
-      assertTrue(html.contains("Segment " + s.get("id").asText()), "segment " + s.get("id"));
+      assertTrue(headline.contains(">" + s.get("id").asText() + "<"), "units of segment " + s.get("id"));
     }
-    assertTrue(result.get("portfolio").isObject(), "the starter catalog has an integer stage");
-    assertTrue(html.contains("Integer portfolio"));
-    assertTrue(html.contains(HtmlReport.money(result.get("portfolio").get("value").asDouble())));
-    assertEquals(result.get("offers").size() + result.get("portfolio").get("variants").size(), count(html, "<code>"),
-        "one row per LP offer and per portfolio variant");
+
+    // codes and labels, never group=option strings
+    RunResult rr = RunResult.read(run);
+    VariantCodes codes = VariantCodes.of(rr);
+    for (RunResult.PortfolioVariant v : rr.portfolio().variants()) {
+      assertTrue(html.contains("<td class=\"code\">" + codes.code(v.options()) + "</td>"), "matrix row of a variant");
+    }
+    assertTrue(html.contains("Heating capacity class"), "group labels of the catalog");
+    assertFalse(html.contains("capacity="), "no group=option text where labels exist");
+
+    // the portfolio against the LP plan, in money
+    String against = html.substring(html.indexOf("id=\"against\""), html.indexOf("id=\"resources\""));
+    assertTrue(against.contains(Figures.money(result.get("objective").asDouble() - p.get("value").asDouble())));
+    assertTrue(against.contains(p.get("status").asText().equals("proven") ? "Proven the best range" : "Not proven"));
+    // shadow prices have a chart of their own; the convergence chart is the page's only SVG
+    assertEquals(1, count(html, "<svg"));
+    assertTrue(html.substring(html.indexOf("id=\"prices\"")).contains("does not limit the plan")
+        || result.get("resources").findValues("shadowPrice").stream().allMatch(n -> n.asDouble() > 0));
     assertSelfContained(html);
+  }
+
+  @Test
+  void theRangeToBuildStaysWithinCapacityAndItsAttachRatesAddUp() throws Exception {
+    HtmlReport.Inputs in = HtmlReport.read(run);
+    assertTrue(in.catalog() != null && in.manifest() != null);
+    dev.mixwright.space.VariantSpace space = new dev.mixwright.space.VariantSpace(in.catalog());
+    PlanFigures range = PlanFigures.portfolio(in.result(), space);
+    double[] use = range.resourceUse(space);
+    for (int i = 0; i < use.length; i++) {
+      double cap = in.catalog().resources().get(i).capacity();
+      assertTrue(use[i] <= cap * (1 + 1e-9) + 1e-6, "resource " + i + " used " + use[i] + " of " + cap);
+    }
+    // margin through the catalog equals the integer stage's own margins
+    double margin = 0;
+    for (RunResult.PortfolioVariant v : in.result().portfolio().variants()) {
+      margin += v.margin();
+    }
+    assertEquals(margin, range.margin(), 1e-6 * Math.abs(margin));
+    assertEquals(range.revenue() - range.margin(), range.cost(), 1e-6);
+    java.util.Map<String, Double> perGroup = new java.util.LinkedHashMap<>();
+    range.attachRates().forEach(a -> perGroup.merge(a.group(), a.share(), Double::sum));
+    perGroup.forEach((g, sum) -> assertEquals(1.0, sum, 1e-9, "attach rates of " + g));
+  }
+
+  @Test
+  void aStoppedOrInfeasibleRunIsWarnedAboutAtTheTop() {
+    for (RunStatus status : new RunStatus[] {RunStatus.STOPPED, RunStatus.INFEASIBLE}) {
+      RunResult r = new RunResult(status, "time limit", 900, 1000.0, 0.1, 2, 3, 3, "12", null, null, null, 10,
+          new RunResult.CatalogRef("tiny", "tiny.yaml", "ab", "EUR", "year"), "bnb", List.of(),
+          List.of(new RunResult.ResourceRow("line", 10, 5, 0.0, false)),
+          List.of(new RunResult.SegmentRow("s", 8, 0, 0.0)), List.of(), null, null, null);
+      String html = HtmlReport.render(r);
+      int warn = html.indexOf("class=\"warn\"");
+      assertTrue(warn > 0 && warn < html.indexOf("<h2"), status + ": a warning above every section");
+      assertTrue(html.substring(warn).startsWith(status == RunStatus.STOPPED
+          ? "class=\"warn\">This run stopped before it finished (time limit)"
+          : "class=\"warn\">No plan meets"));
+    }
   }
 
   @Test
@@ -82,13 +158,13 @@ class HtmlReportTest {
     assertFalse(html.contains("<script"), "a choice name must not become markup");
     assertFalse(html.contains("<b>range"));
     assertFalse(html.contains("s<1>"));
-    assertTrue(html.contains("colour=&lt;script&gt;alert(1)&lt;/script&gt;"));
+    assertTrue(html.contains("&lt;script&gt;alert(1)&lt;/script&gt;"));
     assertTrue(html.contains("Tom &amp; Jerry&#39;s &lt;b&gt;range&lt;/b&gt;"));
     assertTrue(html.contains("line&quot;A&quot;"));
-    assertFalse(html.contains("extra=none"), "optional groups at none are left out");
     assertTrue(html.contains("1,234.50"));
-    assertFalse(html.contains("Integer portfolio"), "no portfolio in the run, none on the page");
-    assertEquals(3, count(html, "<svg"));
+    assertTrue(html.contains("scenario: <b>not recorded</b>"), "no run.json in the folder");
+    assertFalse(html.contains("id=\"against\""), "no portfolio in the run, none on the page");
+    assertEquals(1, count(html, "<svg"));
     // the bound exists in round 2 only: the dashed series has one point, the objective two
     assertEquals(3, count(html, "<circle"));
     assertSelfContained(html);

@@ -1,6 +1,5 @@
-package dev.mixwright.export;
+package dev.mixwright.report;
 
-import dev.mixwright.report.RunResult;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
@@ -11,7 +10,8 @@ import java.util.Map;
  * Short codes for the distinct variants of a run ({@code V01}, {@code V02}, ...), a function of
  * result.json alone so that every view of one run (summary, export, compare) gives a variant the same
  * code. Order: the variants of the LP plan by units sold, all segments together, largest first; then
- * the variants only the integer portfolio holds, by their portfolio units; ties by the variant's text
+ * the variants only the integer portfolio holds, by their portfolio units; then the variants of the
+ * range on sale today that neither sells (kept unsold, or dropped); ties by the variant's text
  * ({@code group=option,...} in the file's group order). Units are compared at 1e-6, so round-off in
  * the last digits of an LP value cannot swap two codes. Codes have at least two digits, more when a
  * run has 100 variants or more.
@@ -40,18 +40,23 @@ public final class VariantCodes {
         options.putIfAbsent(k, v.options());
         portfolioUnits.merge(k, v.units(), Double::sum);
       }
+      for (List<RunResult.RangeVariant> today : java.util.Arrays.asList(result.portfolio().kept(),
+          result.portfolio().dropped())) {
+        if (today != null) {
+          today.forEach(v -> options.putIfAbsent(key(v.options()), v.options()));
+        }
+      }
     }
     Comparator<String> order = Comparator
-        .comparing((String k) -> lpUnits.containsKey(k) ? 0 : 1)
-        .thenComparing(k -> -rounded(lpUnits.containsKey(k) ? lpUnits.get(k) : portfolioUnits.get(k)))
+        .comparing((String k) -> lpUnits.containsKey(k) ? 0 : portfolioUnits.containsKey(k) ? 1 : 2)
+        .thenComparing(k -> -rounded(lpUnits.containsKey(k) ? lpUnits.get(k) : portfolioUnits.getOrDefault(k, 0.0)))
         .thenComparing(Comparator.naturalOrder());
     List<String> keys = new ArrayList<>(options.keySet());
     keys.sort(order);
-    int digits = Math.max(2, String.valueOf(keys.size()).length());
     Map<String, String> codes = new LinkedHashMap<>();
     List<Map<String, String>> variants = new ArrayList<>();
     for (int i = 0; i < keys.size(); i++) {
-      codes.put(keys.get(i), "V" + String.format("%0" + digits + "d", i + 1));
+      codes.put(keys.get(i), code(i, keys.size()));
       variants.add(options.get(keys.get(i)));
     }
     return new VariantCodes(codes, variants);
@@ -73,6 +78,12 @@ public final class VariantCodes {
 
   public int size() {
     return variants.size();
+  }
+
+  /** The code of the i-th (from 0) of {@code count} variants: V01, V02, ...; more digits from 100 on. */
+  static String code(int i, int count) {
+    int digits = Math.max(2, String.valueOf(count).length());
+    return "V" + String.format(java.util.Locale.ROOT, "%0" + digits + "d", i + 1);
   }
 
   /** {@code group=option,...} in the map's order: the identity of a variant in a result. */

@@ -1,9 +1,8 @@
-package dev.mixwright.export;
+package dev.mixwright.report;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
-import dev.mixwright.report.RunResult;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
@@ -105,6 +104,33 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
           result.portfolio() == null ? Double.NaN : inPortfolio.getOrDefault(code, 0.0)));
     }
     return new MatrixView(shared, varying, segments, result.portfolio() != null, rows);
+  }
+
+  /**
+   * A variant's short description: the texts of its choices in the groups where the run's variants
+   * differ, joined by " · " (what the code alone does not say); empty for a code the view lacks.
+   */
+  public String describe(String code) {
+    for (Row r : rows) {
+      if (r.code().equals(code)) {
+        return String.join(" · ", r.cells().stream().filter(c -> !c.isEmpty()).toList());
+      }
+    }
+    return "";
+  }
+
+  /**
+   * A variant on its own: the texts of its choices in every group, optional groups at none left out,
+   * joined by " · " ({@code catalog} may be null: ids then).
+   */
+  public static String describe(Catalog catalog, Map<String, String> options) {
+    List<String> parts = new ArrayList<>();
+    options.forEach((g, c) -> {
+      if (!c.equals(Group.NONE)) {
+        parts.add(choiceText(catalog, g, c));
+      }
+    });
+    return String.join(" · ", parts);
   }
 
   /** The table's heading: the code, the varying groups, the segments, total and portfolio. */
