@@ -908,8 +908,6 @@ public final class HtmlReport {
     return sb.toString();
   }
 
-  }
-
   private static String svgOpen(int w, int h, String label) {
     return "<svg viewBox=\"0 0 " + w + " " + h + "\" width=\"" + w + "\" height=\"" + h
         + "\" role=\"img\" aria-label=\"" + escape(label) + "\">\n";

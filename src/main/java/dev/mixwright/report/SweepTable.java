@@ -99,7 +99,7 @@ public final class SweepTable {
       return n;
     }
     n.setAll((ObjectNode) Json.pretty().valueToTree(new PointSolve(o.status().word(),
-        o.stopReason().isEmpty() ? null : o.stopReason(), o.objective(), Json.num(o.bound()), Json.num(o.gap()),
+        o.stopReason().isEmpty() ? null : o.stopReason(), o.result().value(), Json.num(o.result().bound()), Json.num(o.result().gap()),
         o.iterations(), o.columnsGenerated(), r.warmColumns(), o.elapsedMs())));
     ArrayNode binding = n.putArray("binding");
     ObjectNode res = n.putObject("resources");

@@ -13,6 +13,7 @@ import dev.mixwright.engine.Engines;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.Tally;
 import dev.mixwright.engine.Watch;
+import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.report.SweepTable;
 import dev.mixwright.runfolder.AtomicFiles;
 import dev.mixwright.runfolder.Checksums;

@@ -14,6 +14,8 @@ import dev.mixwright.engine.Job;
 import dev.mixwright.engine.ThreadPoolEngine;
 import dev.mixwright.engine.Watch;
 import dev.mixwright.catalog.TableReach;
+import dev.mixwright.portfolio.PortfolioSettings;
+import dev.mixwright.run.PortfolioPlan;
 import dev.mixwright.run.PricerChoice;
 import dev.mixwright.run.SweepRun;
 import dev.mixwright.run.SweepWork;
@@ -76,7 +78,8 @@ class SparkSweepTest {
 
   private SweepRun.Request request(Path out, String engine) {
     return new SweepRun.Request(Path.of(STARTER), Optional.empty(), GRID, List.of(), out,
-        SolveSettings.defaults(), PricerChoice.BNB, true, false, engine, CHAIN, Optional.empty(),
+        SolveSettings.defaults(), PricerChoice.BNB, true, false, engine, CHAIN,
+        new PortfolioPlan(false, PortfolioSettings.defaults()),
         TableReach.CATALOG_FOLDER);
   }
 
