@@ -90,6 +90,9 @@ public final class ThreadPoolEngine implements Engine {
         if (f == null) {
           continue;
         }
+        if (f.fault() != null && stopping) {
+          continue; // a point in progress when the stop came, interrupted by it: abandoned, not failed
+        }
         if (f.fault() != null) {
           watch.failed(f.point(), 0, String.valueOf(f.fault()));
           throw new JobFailed("point " + f.point() + " failed: " + f.fault(), f.fault());
