@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
@@ -101,11 +102,11 @@ final class CapacityRangeReport {
     out.println(String.format(Locale.ROOT, "  %-14s %14s %12s   %-34s %12s %12s", "resource", "capacity",
         "shadow price", "holds for capacity in", "below", "above"));
     for (CapacityRanges.Range r : ranges) {
-      String range = "[" + Numbers.money(r.low()) + ", "
-          + (Double.isInfinite(r.high()) ? "no limit" : Numbers.money(r.high())) + "]" + (r.exact() ? "" : " at least");
+      String range = "[" + Figures.money(r.low()) + ", "
+          + (Double.isInfinite(r.high()) ? "no limit" : Figures.money(r.high())) + "]" + (r.exact() ? "" : " at least");
       out.println(String.format(Locale.ROOT, "  %-14s %14s %12s   %-34s %12s %12s", r.resource(),
-          Numbers.money(r.capacity()), Numbers.money(r.price()), range, Numbers.money(r.priceBelow()),
-          Numbers.money(r.priceAbove())));
+          Figures.money(r.capacity()), Figures.money(r.price()), range, Figures.money(r.priceBelow()),
+          Figures.money(r.priceAbove())));
     }
     if (!result.status().isOptimal()) {
       out.println("  note: the run ended " + result.status().word()

@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
@@ -171,7 +172,7 @@ final class CheckCommand extends CatalogCommand {
         c.rules().size(), space.nogoodCount()));
     out.println("  " + c.resources().size() + " resources");
     for (Resource r : c.resources()) {
-      out.println(String.format(Locale.ROOT, "    %-16s capacity %s %s", r.id(), Numbers.units(r.capacity()),
+      out.println(String.format(Locale.ROOT, "    %-16s capacity %s %s", r.id(), Figures.units(r.capacity()),
           r.unit() == null ? "" : r.unit()));
     }
     out.println("  buildable variants: " + facts.total().text());
@@ -179,13 +180,13 @@ final class CheckCommand extends CatalogCommand {
     for (int s = 0; s < c.segments().size(); s++) {
       Segment seg = c.segments().get(s);
       out.println(String.format(Locale.ROOT, "    %-16s %s, accepts %s variants", seg.id(), seg.chooses()
-          ? "chooses (see below)" : "demand " + Numbers.units(seg.demand()) + ", max share " + Numbers.percent(seg.maxShare()),
+          ? "chooses (see below)" : "demand " + Figures.units(seg.demand()) + ", max share " + Figures.percent(seg.maxShare()),
           facts.perSegment().get(s).text()));
     }
     c.portfolio().ifPresent(p -> out.println(String.format(Locale.ROOT,
         "  portfolio: introduction cost %s per variant, at most %s variants, minimum lot %s",
-        Numbers.money(p.introductionCost()), p.maxVariants() == Integer.MAX_VALUE ? "unlimited" : p.maxVariants(),
-        Numbers.units(p.minLot()))));
+        Figures.money(p.introductionCost()), p.maxVariants() == Integer.MAX_VALUE ? "unlimited" : p.maxVariants(),
+        Figures.units(p.minLot()))));
     choiceLines.forEach(out::println);
     for (String note : notes) {
       out.println("  note: " + note);

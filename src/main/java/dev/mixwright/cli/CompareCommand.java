@@ -120,8 +120,8 @@ final class CompareCommand extends SubCommand {
       out.println(String.format(Locale.ROOT, "  %-11s %18s -> %18s   %s", f, money(v.path("a")), money(v.path("b")),
           change(v)));
     }
-    out.println(String.format(Locale.ROOT, "  gap         %18s -> %18s", Numbers.percent(v(s.path("gap").path("a"))),
-        Numbers.percent(v(s.path("gap").path("b")))));
+    out.println(String.format(Locale.ROOT, "  gap         %18s -> %18s", Figures.percent(v(s.path("gap").path("a"))),
+        Figures.percent(v(s.path("gap").path("b")))));
     portfolio(out, c.path("portfolio"));
     JsonNode cc = c.path("catalogChanges");
     if (c.path("sameCatalog").asBoolean()) {
@@ -146,7 +146,7 @@ final class CompareCommand extends SubCommand {
     for (String kind : new String[] {"new", "dropped", "changed"}) {
       for (JsonNode x : o.path(kind)) {
         out.println(String.format(Locale.ROOT, "  %-8s %-14s %12s -> %-12s %s", kind, x.path("segment").asText(),
-            Numbers.units(x.path("quantityA").asDouble()), Numbers.units(x.path("quantityB").asDouble()),
+            Figures.units(x.path("quantityA").asDouble()), Figures.units(x.path("quantityB").asDouble()),
             RunComparison.name(x, matrixA, matrixB)));
       }
     }
@@ -178,7 +178,7 @@ final class CompareCommand extends SubCommand {
     for (String kind : new String[] {"added", "dropped"}) {
       for (JsonNode x : p.path(kind)) {
         out.println(String.format(Locale.ROOT, "      %-8s %10s units  %s", kind,
-            Numbers.units(x.path(kind.equals("added") ? "unitsB" : "unitsA").asDouble()),
+            Figures.units(x.path(kind.equals("added") ? "unitsB" : "unitsA").asDouble()),
             RunComparison.name(x, matrixA, matrixB)));
       }
     }
@@ -202,7 +202,7 @@ final class CompareCommand extends SubCommand {
         continue;
       }
       out.println(String.format(Locale.ROOT, "  %-14s %14s %14s %12s %14s %14s", r.path("id").asText(),
-          money(p.path("a")), money(p.path("b")), p.has("change") ? Numbers.signed(p.path("change").asDouble()) : "",
+          money(p.path("a")), money(p.path("b")), p.has("change") ? Figures.signed(p.path("change").asDouble()) : "",
           arrow(r.path(f1)), arrow(r.path(f2))));
     }
     if (hidden > 0) {
@@ -236,8 +236,8 @@ final class CompareCommand extends SubCommand {
   }
 
   private static String arrow(JsonNode v) {
-    return Math.abs(v.path("change").asDouble()) <= 1e-9 ? Numbers.qty(v(v.path("a")))
-        : Numbers.qty(v(v.path("a"))) + "->" + Numbers.qty(v(v.path("b")));
+    return Math.abs(v.path("change").asDouble()) <= 1e-9 ? Figures.qty(v(v.path("a")))
+        : Figures.qty(v(v.path("a"))) + "->" + Figures.qty(v(v.path("b")));
   }
 
   private static double v(JsonNode n) {
@@ -245,11 +245,11 @@ final class CompareCommand extends SubCommand {
   }
 
   private static String money(JsonNode n) {
-    return n.isNumber() ? Numbers.money(n.asDouble()) : "—";
+    return n.isNumber() ? Figures.money(n.asDouble()) : "—";
   }
 
   private static String text(JsonNode n) {
-    return n.isNumber() ? Numbers.qty(n.asDouble()) : n.isNull() ? "(none)" : n.asText();
+    return n.isNumber() ? Figures.qty(n.asDouble()) : n.isNull() ? "(none)" : n.asText();
   }
 
   private static String change(JsonNode v) {

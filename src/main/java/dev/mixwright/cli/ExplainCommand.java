@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
@@ -235,7 +236,7 @@ final class ExplainCommand extends RunDirCommand {
     out.println("  = reduced cost         " + fmt(e.reducedCost()));
     if (run.status() != RunStatus.INFEASIBLE) {
       if (qty > 0) {
-        out.println("  in the plan: " + Numbers.qty(qty) + " units" + (e.reducedCost() <= 1e-7 ? ""
+        out.println("  in the plan: " + Figures.qty(qty) + " units" + (e.reducedCost() <= 1e-7 ? ""
             : chooses ? " (held by its attraction: it pays more than its resources' worth, but sells only as"
                 + " many as the logit lets it)"
             : " (at its share limit: it pays more than its resources' worth)"));
@@ -291,31 +292,31 @@ final class ExplainCommand extends RunDirCommand {
   private static void print(PrintWriter out, VariantSpace space, Substitution sub, double qty, double price) {
     String seg = space.catalog().segments().get(sub.segment()).id();
     out.println(String.format(Locale.ROOT, "  segment %s chooses by multinomial logit: at the price it pays"
-        + " here, %s, its attraction against staying out is w = %s", seg, Numbers.money(price), w(sub.attraction())));
+        + " here, %s, its attraction against staying out is w = %s", seg, Figures.money(price), w(sub.attraction())));
     if (sub.offered()) {
       out.println(String.format(Locale.ROOT, "  the plan sells it to %s of %s buyers (%s); with the plan's %d other"
               + " offers (W = %s) the logit gives it %s buyers (%s), taken as follows:",
-          Numbers.qty(qty), Numbers.qty(sub.buyers()), pct(qty / sub.buyers()), sub.others().size(),
-          w(sub.othersAttraction()), Numbers.qty(sub.sales()), pct(sub.share())));
+          Figures.qty(qty), Figures.qty(sub.buyers()), pct(qty / sub.buyers()), sub.others().size(),
+          w(sub.othersAttraction()), Figures.qty(sub.sales()), pct(sub.share())));
     } else {
       out.println(String.format(Locale.ROOT, "  added to the plan's %d offers here (W = %s), the logit gives it %s"
               + " buyers (%s of %s), taken as follows:", sub.others().size(), w(sub.othersAttraction()),
-          Numbers.qty(sub.sales()), pct(sub.share()), Numbers.qty(sub.buyers())));
+          Figures.qty(sub.sales()), pct(sub.share()), Figures.qty(sub.buyers())));
     }
     List<Substitution.Taken> most = new ArrayList<>(sub.others());
     most.sort((a, b) -> Double.compare(b.taken(), a.taken()));
     for (Substitution.Taken t : most.subList(0, Math.min(SHOWN, most.size()))) {
-      out.println(String.format(Locale.ROOT, "    %12s  from %s (w %s; %s -> %s)", Numbers.qty(t.taken()),
+      out.println(String.format(Locale.ROOT, "    %12s  from %s (w %s; %s -> %s)", Figures.qty(t.taken()),
           RunComparison.variant(space.describe(t.choices())), w(t.attraction()),
-          Numbers.qty(t.salesWithout()), Numbers.qty(t.salesWithout() - t.taken())));
+          Figures.qty(t.salesWithout()), Figures.qty(t.salesWithout() - t.taken())));
     }
     if (most.size() > SHOWN) {
       double rest = most.subList(SHOWN, most.size()).stream().mapToDouble(Substitution.Taken::taken).sum();
-      out.println(String.format(Locale.ROOT, "    %12s  from the %d other offers (see --json)", Numbers.qty(rest),
+      out.println(String.format(Locale.ROOT, "    %12s  from the %d other offers (see --json)", Figures.qty(rest),
           most.size() - SHOWN));
     }
-    out.println(String.format(Locale.ROOT, "    %12s  from staying out (%s -> %s)", Numbers.qty(sub.fromStayingOut()),
-        Numbers.qty(sub.stayingOutWithout()), Numbers.qty(sub.stayingOutWithout() - sub.fromStayingOut())));
+    out.println(String.format(Locale.ROOT, "    %12s  from staying out (%s -> %s)", Figures.qty(sub.fromStayingOut()),
+        Figures.qty(sub.stayingOutWithout()), Figures.qty(sub.stayingOutWithout() - sub.fromStayingOut())));
     out.println("  every alternative loses the same fraction of its buyers (the logit's proportional"
         + " substitution); these are the logit's figures, and where a resource binds the plan may sell less"
         + " than this");

@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.report.RunResult;
@@ -64,8 +65,8 @@ final class LogCommand extends RunDirCommand {
       out.println(String.format(Locale.ROOT, "%5d  %9s  %-14s  %14s  %16s  %16s  %s",
           n.path("iteration").asInt(), Durations.format(n.path("elapsedMs").asLong()), seg,
           n.path("iteration").asInt() == 0 ? "seed" : String.format(Locale.ROOT, "%,.4f", n.path("reducedCost").asDouble()),
-          Numbers.money(n.path("objectiveAfter").asDouble()),
-          b.isNumber() ? Numbers.money(b.asDouble()) : "—", variant(n.path("options"))));
+          Figures.money(n.path("objectiveAfter").asDouble()),
+          b.isNumber() ? Figures.money(b.asDouble()) : "—", variant(n.path("options"))));
     }
     out.println(shown + " columns" + (segment == null ? "" : " in segment " + segment)
         + (entries.droppedTornLines() > 0 ? "; " + entries.droppedTornLines()

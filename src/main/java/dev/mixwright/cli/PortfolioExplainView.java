@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.explain.PortfolioExplainer;
@@ -67,18 +68,18 @@ final class PortfolioExplainView {
       return;
     }
     Catalog cat = space.catalog();
-    out.println("  integer portfolio (worth " + Numbers.money(e.portfolioValue()) + "):");
+    out.println("  integer portfolio (worth " + Figures.money(e.portfolioValue()) + "):");
     if (e.offered()) {
       StringBuilder sb = new StringBuilder();
       for (int s = 0; s < e.sales().length; s++) {
         if (e.sales()[s] > 0) {
           sb.append(sb.length() == 0 ? "" : ", ").append(cat.segments().get(s).id()).append(' ')
-              .append(Numbers.qty(e.sales()[s]));
+              .append(Figures.qty(e.sales()[s]));
         }
       }
-      out.println("    in it: sells " + sb + "; margin " + Numbers.money(e.margin()) + " against introduction cost "
-          + Numbers.money(cat.portfolio().get().introductionCost())
-          + (e.tooling() > 0 ? " and a share of tooling " + Numbers.money(e.tooling()) : ""));
+      out.println("    in it: sells " + sb + "; margin " + Figures.money(e.margin()) + " against introduction cost "
+          + Figures.money(cat.portfolio().get().introductionCost())
+          + (e.tooling() > 0 ? " and a share of tooling " + Figures.money(e.tooling()) : ""));
       return;
     }
     boolean anySegment = false;
@@ -93,26 +94,26 @@ final class PortfolioExplainView {
     for (int s = 0; s < e.reducedCost().length; s++) {
       double d = e.reducedCost()[s];
       out.println(String.format(Locale.ROOT, "      %-14s %s", cat.segments().get(s).id(),
-          d == Double.NEGATIVE_INFINITY ? "not accepted there" : Numbers.signed(d) + " per unit"));
+          d == Double.NEGATIVE_INFINITY ? "not accepted there" : Figures.signed(d) + " per unit"));
     }
     if (e.lotValue() == Double.NEGATIVE_INFINITY) {
-      out.println("    no segment can take its minimum lot of " + Numbers.qty(cat.portfolio().get().minLot())
+      out.println("    no segment can take its minimum lot of " + Figures.qty(cat.portfolio().get().minLot())
           + " units, so it cannot be offered at all");
       return;
     }
     // a variant on sale today carries −discontinue instead of the introduction cost (issue 10)
-    out.println("    its best lot earns " + Numbers.money(e.lotValue()) + ", minus "
+    out.println("    its best lot earns " + Figures.money(e.lotValue()) + ", minus "
         + (e.lotValue() - e.psi() == cat.portfolio().get().introductionCost() ? "introduction cost " : "its fixed cost ")
-        + Numbers.money(e.lotValue() - e.psi()) + " = " + Numbers.money(e.psi())
-        + (e.tooling() > 0 ? " (and its options' tooling " + Numbers.money(e.tooling()) + ")" : ""));
+        + Figures.money(e.lotValue() - e.psi()) + " = " + Figures.money(e.psi())
+        + (e.tooling() > 0 ? " (and its options' tooling " + Figures.money(e.tooling()) + ")" : ""));
     if (e.ruledOut()) {
-      out.println("    so any portfolio holding it is worth at most " + Numbers.money(e.boundWith())
+      out.println("    so any portfolio holding it is worth at most " + Figures.money(e.boundWith())
           + ", not more than the portfolio found: it cannot be part of a better one");
     } else if (e.proven()) {
-      out.println("    a portfolio holding it could be worth up to " + Numbers.money(e.boundWith())
+      out.println("    a portfolio holding it could be worth up to " + Figures.money(e.boundWith())
           + " by the bound, so the proof gave it to the MIP, which found no better portfolio than the one offered");
     } else {
-      out.println("    a portfolio holding it could be worth up to " + Numbers.money(e.boundWith())
+      out.println("    a portfolio holding it could be worth up to " + Figures.money(e.boundWith())
           + " by the bound: it is not ruled out, and the run did not prove its portfolio optimal");
     }
   }

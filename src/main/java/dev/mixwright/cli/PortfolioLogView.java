@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.runfolder.Json;
@@ -43,11 +44,11 @@ final class PortfolioLogView {
         String kind = n.path("kind").asText();
         JsonNode v = n.path("value");
         String value = !v.isNumber() ? "—"
-            : kind.equals("survivors") ? "threshold " + Numbers.money(v.asDouble()) : Numbers.money(v.asDouble());
+            : kind.equals("survivors") ? "threshold " + Figures.money(v.asDouble()) : Figures.money(v.asDouble());
         JsonNode b = n.path("bound");
         out.println(String.format(Locale.ROOT, "%9s  %-10s  %18s  %18s  %6d  %s",
             Durations.format(n.path("elapsedMs").asLong()), kind, value,
-            b.isNumber() ? Numbers.money(b.asDouble()) : "—", n.path("pool").asInt(), n.path("note").asText()));
+            b.isNumber() ? Figures.money(b.asDouble()) : "—", n.path("pool").asInt(), n.path("note").asText()));
       }
     }
     if (torn > 0) {

@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.Durations;
@@ -157,19 +158,19 @@ final class Progress implements ColGenListener {
     String rate = secs > 0 && added > 0 ? String.format(Locale.ROOT, "%.1f col/s", added / secs) : "";
     return String.format(Locale.ROOT, "%s%8s  round %d  obj %s  bound %s  gap %s  cols %d  %s",
         prefix, Durations.format(elapsedMs), r.iteration(), compact(r.objective()), compact(r.bound()),
-        Numbers.percent(r.gap()), r.columns(), rate).stripTrailing();
+        Figures.percent(r.gap()), r.columns(), rate).stripTrailing();
   }
 
   private static String compact(double v) {
     if (!Double.isFinite(v)) {
       return "—";
     }
-    return Math.abs(v) >= 1e5 ? String.format(Locale.ROOT, "%,.0f", v) : Numbers.money(v);
+    return Math.abs(v) >= 1e5 ? String.format(Locale.ROOT, "%,.0f", v) : Figures.money(v);
   }
 
   static String line(IterationRecord r) {
     return String.format(Locale.ROOT, "round %4d  objective %s  bound %s  gap %s  columns %d (+%d)  %s%s",
-        r.iteration(), Numbers.money(r.objective()), Numbers.money(r.bound()), Numbers.percent(r.gap()),
+        r.iteration(), Figures.money(r.objective()), Figures.money(r.bound()), Figures.percent(r.gap()),
         r.columns(), r.added(), Durations.format(r.elapsedMs()), r.exactPricing() ? "" : "  (heuristic)");
   }
 }

@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.portfolio.PortfolioListener;
@@ -45,7 +46,7 @@ final class RunView {
     if (o instanceof RunOutcome.Solved s) {
       Summary.print(out, s.space(), s.lp(), s.result(), s.runDir(), allOffers);
     } else if (o instanceof RunOutcome.AlreadyOptimal a) {
-      out.println(a.runDir() + ": the run is already optimal (objective " + Numbers.money(a.objective())
+      out.println(a.runDir() + ": the run is already optimal (objective " + Figures.money(a.objective())
           + "); nothing to resume");
     } else if (o instanceof RunOutcome.EndedInfeasible i) {
       out.println(i.runDir() + ": the run ended infeasible (" + i.reason()
@@ -69,7 +70,7 @@ final class RunView {
       }
       return List.of(e -> {
         err.println(String.format(Locale.ROOT, "portfolio %-10s value %s  bound %s  pool %d  %s  %s",
-            e.kind().word(), Numbers.money(e.value()), Numbers.money(e.bound()), e.pool(), e.note(),
+            e.kind().word(), Figures.money(e.value()), Figures.money(e.bound()), e.pool(), e.note(),
             Durations.format(e.elapsedMs())));
         err.flush();
       });
@@ -87,7 +88,7 @@ final class RunView {
               + " (%s so far)%s", p.runDir(), p.session(), p.pooledColumns(),
           p.leftOut() > 0 ? " (" + p.leftOut() + " left out: no longer sellable or duplicated)" : "",
           p.afterRound(), Durations.format(p.elapsedMs()),
-          Double.isFinite(p.bound()) ? ", bound " + Numbers.money(p.bound()) : ""));
+          Double.isFinite(p.bound()) ? ", bound " + Figures.money(p.bound()) : ""));
       out.flush();
     }
   }

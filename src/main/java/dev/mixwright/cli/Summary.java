@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.colgen.RunStatus;
 import dev.mixwright.colgen.SolveOutcome;
@@ -32,14 +33,14 @@ final class Summary {
         + (o.stopReason().isEmpty() ? "" : " (" + o.stopReason() + ")"));
     out.println("  buildable variants  " + (result.buildableVariants() == null
         ? "at most " + result.buildableVariantsAtMost() : result.buildableVariants()));
-    out.println("  LP objective        " + Numbers.money(o.result().value()) + cur);
-    out.println("  proven bound        " + Numbers.money(o.result().bound()) + cur + "   gap " + Numbers.percent(o.result().gap()));
+    out.println("  LP objective        " + Figures.money(o.result().value()) + cur);
+    out.println("  proven bound        " + Figures.money(o.result().bound()) + cur + "   gap " + Figures.percent(o.result().gap()));
     out.println(String.format(Locale.ROOT, "  rounds %d, columns %d (the starting ones included), LP stage %s",
         o.iterations(), o.columnsGenerated(), Durations.format(o.elapsedMs())));
     List<String> binding = new ArrayList<>();
     for (RunResult.ResourceRow r : result.resources()) {
       if (r.shadowPrice() != null && r.shadowPrice() > 1e-9) {
-        binding.add(r.id() + " " + Numbers.price(r.shadowPrice()));
+        binding.add(r.id() + " " + Figures.price(r.shadowPrice()));
       }
     }
     out.println("  shadow prices       " + (binding.isEmpty() ? "none (no resource limits the plan)" : String.join(", ", binding)));
@@ -61,7 +62,7 @@ final class Summary {
 
   /** The matrix view's lines, each indented. */
   static void matrix(PrintWriter out, MatrixView m, int maxRows, String indent) {
-    m.lines(Numbers::units, maxRows).forEach(line -> out.println(indent + line));
+    m.lines(Figures::units, maxRows).forEach(line -> out.println(indent + line));
   }
 
   /** The summary lines of the integer stage, when the result has one. */
@@ -77,10 +78,10 @@ final class Summary {
     String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();
     out.println("  integer portfolio   " + p.status().word() + (p.reason().isEmpty() ? ""
         : " (" + p.reason() + ")"));
-    out.println("    value             " + Numbers.money(p.value()) + cur
-        + "   after introduction costs " + Numbers.money(p.introductionCosts()) + cur);
-    out.println("    bound             " + Numbers.money(orNaN(p.bound())) + cur
-        + "   gap " + Numbers.percent(orNaN(p.gap())));
+    out.println("    value             " + Figures.money(p.value()) + cur
+        + "   after introduction costs " + Figures.money(p.introductionCosts()) + cur);
+    out.println("    bound             " + Figures.money(orNaN(p.bound())) + cur
+        + "   gap " + Figures.percent(orNaN(p.gap())));
     RunResult.Proof proof = p.proof();
     String change = p.kept() == null ? "" : String.format(Locale.ROOT, " (kept %d, dropped %d, added %d)",
         p.kept().size(), p.dropped().size(), p.added().size());
@@ -90,8 +91,8 @@ final class Summary {
         proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
     if (p.kept() != null) {
       out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"
-          : Numbers.money(p.currentRangeValue()) + cur + " as a fixed portfolio") + "; discontinue costs paid "
-          + Numbers.money(p.discontinueCosts() == null ? 0 : p.discontinueCosts()) + cur);
+          : Figures.money(p.currentRangeValue()) + cur + " as a fixed portfolio") + "; discontinue costs paid "
+          + Figures.money(p.discontinueCosts() == null ? 0 : p.discontinueCosts()) + cur);
     }
     int shown = 0;
     for (RunResult.PortfolioVariant v : p.variants()) {
@@ -101,7 +102,7 @@ final class Summary {
       }
       StringBuilder sales = new StringBuilder();
       v.sales().forEach((s, q) -> sales.append(sales.length() == 0 ? "" : ", ").append(s).append(' ')
-          .append(Numbers.units(q)));
+          .append(Figures.units(q)));
       out.println("      " + codes.code(v.options()) + "  " + sales);
     }
     printScenarios(out, p, cur);
@@ -124,14 +125,14 @@ final class Summary {
         break;
       }
       out.println(String.format(Locale.ROOT, "      %-" + width + "s %7.3f %14s %14s %14s%s", r.id(), r.weight(),
-          Numbers.money(r.value()), Numbers.money(r.bestAlone()), Numbers.money(r.regret()),
+          Figures.money(r.value()), Figures.money(r.bestAlone()), Figures.money(r.regret()),
           r.bestAloneStatus().isProven() ? "" : "  (best alone heuristic)"));
     }
     RunResult.HoldOut h = p.holdOut();
     if (h != null) {
       out.println(String.format(Locale.ROOT, "    hold-out check    %d scenarios of %s%s: mean %s, 5%% %s, 95%% %s%s",
           h.scenarios(), h.source(), h.lotsMissed() > 0 ? " (" + h.lotsMissed() + " miss a minimum lot)" : "",
-          Numbers.money(orNaN(h.mean())), Numbers.money(orNaN(h.p5())), Numbers.money(orNaN(h.p95())), cur));
+          Figures.money(orNaN(h.mean())), Figures.money(orNaN(h.p5())), Figures.money(orNaN(h.p95())), cur));
     }
   }
 

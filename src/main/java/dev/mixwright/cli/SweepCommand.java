@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
@@ -96,7 +97,7 @@ final class SweepCommand extends CatalogCommand {
         public void solved(ObjectNode row, Tally tally) {
           if (shows(progress)) {
             err.println("  " + row.path("name").asText() + ": " + (row.path("objective").isNumber()
-                ? row.path("status").asText() + ", objective " + Numbers.money(row.path("objective").asDouble())
+                ? row.path("status").asText() + ", objective " + Figures.money(row.path("objective").asDouble())
                 : row.path("status").asText()) + "   [" + tally.line("point") + "]");
             err.flush();
           }
@@ -146,17 +147,17 @@ final class SweepCommand extends CatalogCommand {
       n.path("resources").fields().forEachRemaining(e -> {
         double p = e.getValue().path("shadowPrice").asDouble();
         if (p > 1e-9) {
-          prices.append(prices.length() == 0 ? "" : ", ").append(e.getKey()).append(' ').append(Numbers.money(p));
+          prices.append(prices.length() == 0 ? "" : ", ").append(e.getKey()).append(' ').append(Figures.money(p));
         }
       });
       StringBuilder slope = new StringBuilder();
       n.path("valuePerUnit").fields().forEachRemaining(e -> {
         if (e.getValue().isNumber()) {
-          slope.append("  +1 unit: ").append(Numbers.money(e.getValue().asDouble()));
+          slope.append("  +1 unit: ").append(Figures.money(e.getValue().asDouble()));
         }
       });
       out.println(String.format(Locale.ROOT, "  %-48s %-10s %18s  %s%s", n.path("name").asText(),
-          n.path("status").asText(), n.path("objective").isNumber() ? Numbers.money(n.path("objective").asDouble()) : "",
+          n.path("status").asText(), n.path("objective").isNumber() ? Figures.money(n.path("objective").asDouble()) : "",
           prices.length() == 0 ? (n.has("problem") ? n.path("problem").asText() : "no binding resource") : prices,
           slope));
       JsonNode pf = n.path("portfolio");
@@ -164,7 +165,7 @@ final class SweepCommand extends CatalogCommand {
         List<String> codes = new ArrayList<>();
         pf.path("codes").forEach(c -> codes.add(c.asText()));
         out.println(String.format(Locale.ROOT, "  %-48s %-10s %18s  %s", "", pf.path("status").asText(),
-            Numbers.money(pf.path("value").asDouble()), "range: " + String.join(" ", codes)));
+            Figures.money(pf.path("value").asDouble()), "range: " + String.join(" ", codes)));
       }
     }
     JsonNode legend = table.toJson().path("portfolioVariants");
