@@ -190,9 +190,8 @@ public final class IntegerStage {
     double treeBound = Double.POSITIVE_INFINITY;
     boolean closed;
     boolean survivorsProve;
-    long nodes;
-    int openNodes;
-    int workers;
+    /** The branch-and-price tree's size when it ran; none when it did not. */
+    PortfolioOutcome.Tree tree = new PortfolioOutcome.Tree(0, 0, 0);
 
     Search(double bound) {
       this.bound = bound;
@@ -321,9 +320,7 @@ public final class IntegerStage {
     s.incumbent = r.incumbent();
     s.treeBound = r.bound();
     s.closed = r.closed();
-    s.nodes = r.nodes();
-    s.openNodes = r.open();
-    s.workers = r.workers();
+    s.tree = new PortfolioOutcome.Tree(r.nodes(), r.open(), r.workers());
     if (!r.closed() && s.reason.isEmpty()) {
       s.reason = r.reason();
     }
@@ -397,7 +394,7 @@ public final class IntegerStage {
         new PortfolioOutcome.Offer(offered(space, pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
         lpBound, rx, new PortfolioOutcome.SurvivorProof(s.theta, s.added, s.complete, pool.size()),
         new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal),
-        new PortfolioOutcome.Tree(s.nodes, s.openNodes, s.workers), clock.elapsedMs(),
+        s.tree, clock.elapsedMs(),
         RangeChange.of(space, pool, inc, pool.current().isEmpty() ? null : todaysRange(pool)));
     emit(PortfolioEvent.Kind.END, o.result().value(), o.result().bound(), pool.size(), o.offer().variants().size(), o.status().word()
         + (reason.isEmpty() ? "" : ": " + reason));
