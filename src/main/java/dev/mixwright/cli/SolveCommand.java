@@ -1,6 +1,5 @@
 package dev.mixwright.cli;
 
-import dev.mixwright.portfolio.ScenarioStage;
 import dev.mixwright.run.RunSession;
 import dev.mixwright.run.ScenarioSetPlan;
 import java.nio.file.Path;
@@ -26,22 +25,10 @@ final class SolveCommand extends CatalogCommand {
       description = "solve the catalog changed by this scenario file (capacities, prices, costs, demand, rules)")
   Path scenarioFile;
 
-  @Option(names = "--scenario-set", paramLabel = "FILE",
-      description = "choose one range for every scenario of this set (a list with weights, or seeded draws):"
-          + " introductions shared, a production plan per scenario; needs a portfolio section")
-  Path scenarioSet;
-
-  @Option(names = "--worst-case",
-      description = "with --scenario-set: maximise the worst scenario's margin instead of the weighted mean")
-  boolean worstCase;
-
-  @Option(names = "--hold-out", paramLabel = "FILE",
-      description = "with --scenario-set: evaluate the chosen range on the scenarios of this second set (e.g. many"
-          + " draws) and report its mean and 5 %% / 95 %% quantiles")
-  Path holdOut;
-
   @Option(names = "--all-offers", description = "list every variant of the plan in the summary, not the first eight")
   boolean allOffers;
+
+  @Mixin ScenarioSetOptions scenarioSet;
 
   @Mixin SolveOptions solve;
 
@@ -55,12 +42,7 @@ final class SolveCommand extends CatalogCommand {
   public Integer call() throws Exception {
     RunSession.SolveRequest request = new RunSession.SolveRequest(catalogFile, Optional.ofNullable(scenarioFile),
         runDir, replace, solve.settings(), solve.loop.pricer, portfolio.plan(), tables.reach());
-    if (scenarioSet == null && (worstCase || holdOut != null)) {
-      throw new UserError((worstCase ? "--worst-case" : "--hold-out") + " applies to a range across scenarios; add"
-          + " --scenario-set FILE");
-    }
-    ScenarioSetPlan set = scenarioSet == null ? null : new ScenarioSetPlan(scenarioSet,
-        worstCase ? ScenarioStage.Aim.WORST : ScenarioStage.Aim.MEAN, Optional.ofNullable(holdOut));
+    ScenarioSetPlan set = scenarioSet.plan();
     return RunView.run(spec.commandLine(), progress.asked, allOffers, session -> session.solve(request, set));
   }
 }
