@@ -46,8 +46,10 @@ final class Summary {
     out.println("  shadow prices       " + (binding.isEmpty() ? "none (no resource limits the plan)" : String.join(", ", binding)));
     MatrixView matrix = MatrixView.of(result, space.catalog());
     VariantCodes codes = VariantCodes.of(result);
-    out.println("  offers              " + result.offers().size() + " (variant, segment) pairs, "
-        + matrix.rows().size() + " variants, units by segment:");
+    long lpVariants = result.offers().stream().map(RunResult.Offer::options).distinct().count();
+    out.println("  offers              " + result.offers().size() + " (variant, segment) pairs of " + lpVariants
+        + " variants" + (matrix.rows().size() > lpVariants ? "; the table adds the portfolio's other variants ("
+            + matrix.rows().size() + " rows)" : "") + ", units by segment:");
     matrix(out, matrix, allOffers ? Integer.MAX_VALUE : SHOWN_VARIANTS, "    ");
     if (!allOffers && matrix.rows().size() > SHOWN_VARIANTS) {
       out.println("    (every variant: solve with --all-offers, or mixwright export " + runDir + " --format text)");
@@ -83,11 +85,15 @@ final class Summary {
     out.println("    bound             " + Figures.money(orNaN(p.bound())) + cur
         + "   gap " + Figures.percent(orNaN(p.gap())));
     RunResult.Proof proof = p.proof();
-    String change = p.kept() == null ? "" : String.format(Locale.ROOT, " (kept %d, dropped %d, added %d)",
+    String change = p.kept() == null ? "" : String.format(Locale.ROOT, "; against today's range: kept %d, dropped %d, added %d;",
         p.kept().size(), p.dropped().size(), p.added().size());
-    out.println(String.format(Locale.ROOT, "    %d variants%s, chosen by %s among %,d candidate variants"
+    // a pinned variant of today's range that no segment buys stays on sale, outside the selling variants
+    long idle = p.kept() == null ? 0 : p.kept().stream().filter(k -> k.sales() == null || k.sales().isEmpty()).count();
+    String onSale = idle == 0 ? p.variants().size() + " variants," : (p.variants().size() + idle) + " variants on sale ("
+        + idle + " kept from today's range, selling nothing)" + (p.kept() == null ? "," : "");
+    out.println(String.format(Locale.ROOT, "    %s%s chosen by %s among %,d candidate variants"
             + " (%,d of them added to check that none does better%s), time %s",
-        p.variants().size(), change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
+        onSale, change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
         proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
     if (p.kept() != null) {
       out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"
