@@ -321,28 +321,29 @@ public final class HtmlReport {
       }
       Map<Map<String, String>, double[]> lpBy = lp.byVariant();
       Map<Map<String, String>, double[]> rangeBy = range == null ? Map.of() : range.byVariant();
+      // the figures first, next to the code, so that a wide catalog's choices scroll and the figures do not
       h.append("<div class=\"scroll\"><table class=\"wide\">\n<tr><th>variant</th>");
-      matrix.groups().forEach(g -> h.append("<th>").append(escape(g.head())).append("</th>"));
-      matrix.segments().forEach(s -> h.append("<th class=\"n\">").append(escape(s)).append("</th>"));
-      h.append("<th class=\"n\">LP units</th><th class=\"n\">LP margin").append(cur).append("</th>");
       if (range != null) {
         h.append("<th class=\"n\">portfolio units</th><th class=\"n\">portfolio margin").append(cur).append("</th>");
       }
+      h.append("<th class=\"n\">LP units</th><th class=\"n\">LP margin").append(cur).append("</th>");
+      matrix.segments().forEach(s -> h.append("<th class=\"n\">LP ").append(escape(s)).append("</th>"));
+      matrix.groups().forEach(g -> h.append("<th>").append(escape(g.head())).append("</th>"));
       h.append("</tr>\n");
       for (MatrixView.Row row : matrix.rows()) {
         h.append("<tr><td class=\"code\">").append(row.code()).append("</td>");
-        row.cells().forEach(c -> h.append("<td>").append(escape(c)).append("</td>"));
-        for (double u : row.units()) {
-          num(u == 0 ? "" : Figures.units(u));
-        }
-        double[] l = lpBy.get(row.options());
-        num(row.total() == 0 ? "—" : Figures.units(row.total()));
-        num(l == null ? "—" : Figures.money(l[1]));
         if (range != null) {
           double[] p = rangeBy.get(row.options());
           num(p == null ? "—" : Figures.units(p[0]));
           num(p == null ? "—" : Figures.money(p[1]));
         }
+        double[] l = lpBy.get(row.options());
+        num(row.total() == 0 ? "—" : Figures.units(row.total()));
+        num(l == null ? "—" : Figures.money(l[1]));
+        for (double u : row.units()) {
+          num(u == 0 ? "" : Figures.units(u));
+        }
+        row.cells().forEach(c -> h.append("<td>").append(escape(c)).append("</td>"));
         h.append("</tr>\n");
       }
       h.append("</table></div>\n");
