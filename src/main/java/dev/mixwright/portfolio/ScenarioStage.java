@@ -191,6 +191,33 @@ public final class ScenarioStage {
    */
   public Outcome run(List<SolveOutcome> lps, List<List<int[]>> alone, double[] aloneBounds) {
     clock = new StageClock(settings.timeLimitMs(), stop);
+    seed(lps, alone);
+    int cap = variantCap();
+    if (pools.get(0).size() == 0 || cap == 0) {
+      Evaluated none = evaluate(new int[0]);
+      return outcome(PortfolioStatus.PROVEN, "", none, none.objective(), null, Double.NaN, 0, true);
+    }
+    VariantPricer pricer = new VariantPricer(spaces, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
+    double[][] start = startingPrices(lps);
+    Relaxed rx = relax(pricer, start[0], start[1], weight.clone(), cap);
+
+    // incumbent: the best of each scenario's own range, then the MIP over the pool from it
+    Evaluated inc = bestOwnRange(alone);
+    MipRun first = mip(inc, clock.msLeft() == 0 ? 0 : Math.max(1, clock.msLeft() / 2));
+    if (first.best() != null && first.best().objective() > inc.objective()) {
+      inc = first.best();
+    }
+    Proof p = quickProof(pricer, rx, inc, Math.min(rx.best().value(), objective(aloneBounds)));
+    boolean closed = new ValueBound(p.incumbent().objective(), p.bound(), terms.get(0).gapFloor())
+        .within(settings.gap());
+    return closed
+        ? outcome(PortfolioStatus.PROVEN, "", p.incumbent(), p.bound(), rx, p.theta(), p.added(), p.complete())
+        : outcome(PortfolioStatus.HEURISTIC, p.reason() + " (branch-and-price runs for one scenario only)",
+            p.incumbent(), p.bound(), rx, p.theta(), p.added(), p.complete());
+  }
+
+  /** The pools start with every scenario's LP columns and each scenario's own best range. */
+  private void seed(List<SolveOutcome> lps, List<List<int[]>> alone) {
     for (SolveOutcome lp : lps) {
       if (!lp.status().isInfeasible()) {
         for (Column c : lp.master().columns()) {
@@ -201,13 +228,10 @@ public final class ScenarioStage {
     for (List<int[]> range : alone) {
       range.forEach(this::add);
     }
-    PortfolioTerms t0 = terms.get(0);
-    int cap = variantCap();
-    if (pools.get(0).size() == 0 || cap == 0) {
-      Evaluated none = evaluate(new int[0]);
-      return outcome(PortfolioStatus.PROVEN, "", none, none.objective(), null, Double.NaN, 0, true);
-    }
-    VariantPricer pricer = new VariantPricer(spaces, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
+  }
+
+  /** The LP stages' shadow prices, stacked by scenario and scaled to each scenario's weight: {π, μ}. */
+  private double[][] startingPrices(List<SolveOutcome> lps) {
     double[] pi0 = new double[scenarios * resourceCount];
     double[] mu0 = new double[scenarios * segmentCount];
     for (int k = 0; k < lps.size(); k++) {
@@ -223,9 +247,11 @@ public final class ScenarioStage {
         }
       }
     }
-    Relaxed rx = relax(pricer, pi0, mu0, weight.clone(), cap);
+    return new double[][] {pi0, mu0};
+  }
 
-    // incumbent: the best of each scenario's own range, then the MIP over the pool from it
+  /** The best across the set of the scenarios' own best ranges (the empty range when none does better). */
+  private Evaluated bestOwnRange(List<List<int[]>> alone) {
     Evaluated inc = evaluate(new int[0]);
     for (List<int[]> range : alone) {
       int[] members = range.stream().mapToInt(this::indexOf).filter(i -> i >= 0).toArray();
@@ -234,63 +260,52 @@ public final class ScenarioStage {
         inc = e;
       }
     }
-    MipRun first = mip(inc, clock.msLeft() == 0 ? 0 : Math.max(1, clock.msLeft() / 2));
-    if (first.best() != null && first.best().objective() > inc.objective()) {
-      inc = first.best();
-    }
-    double bound = Math.min(rx.best().value(), objective(aloneBounds));
-    // quick proof
+    return inc;
+  }
+
+  /**
+   * The quick proof: every variant whose ψ at the relaxation's prices could make a range better than the
+   * incumbent is listed into the pool and the MIP over the pool solved again; when it is optimal, its
+   * bound holds for the whole space. {@code reason} says why it did not prove, when it did not.
+   */
+  private record Proof(Evaluated incumbent, double bound, double theta, int added, boolean complete, String reason) {}
+
+  private Proof quickProof(VariantPricer pricer, Relaxed rx, Evaluated inc, double bound) {
     LagrangianPortfolioBound b = rx.best();
-    double theta = Double.NaN;
-    int added = 0;
-    boolean complete = false;
-    String reason = "";
-    PortfolioStatus status = PortfolioStatus.HEURISTIC;
-    if (b.isFinite() && settings.engine().provesContinuous() && clock.signalled().isEmpty()) {
-      theta = inc.objective() - b.valueAtLambda() + b.lambda();
-      double slack = 1e-7 * (1 + Math.abs(inc.objective()));
-      PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
-          t0.introductionCost(), t0.hasTooling() ? t0.choiceCost() : null, theta - slack,
-          settings.survivorLimit() + 1, pools.get(0).keys(), clock.phase(0.2).deadlineNanos(), rx.weights()));
-      complete = out.exact() && out.found().size() <= settings.survivorLimit();
-      if (complete) {
-        int before = pools.get(0).size();
-        for (PricedVariant f : out.found()) {
-          add(f.choices());
-        }
-        added = pools.get(0).size() - before;
-        MipRun again = mip(inc, clock.msLeft());
-        if (again.best() != null && again.best().objective() > inc.objective()) {
-          inc = again.best();
-        }
-        if (again.status() == MipStatus.OPTIMAL) {
-          // every range better than the incumbent lies in the pool, where the MIP bounds it; the
-          // status follows from the gap below, so a MIP that disagrees with the exact evaluation
-          // (round-off at a lot) cannot claim a proof
-          bound = Math.min(bound, Math.max(inc.objective(), again.bound()));
-        } else {
-          reason = "the MIP over the pool with every variant that could be part of a better range was not solved to"
-              + " optimality in the time limit";
-          if (again.status().hasSolution()) {
-            bound = Math.min(bound, again.bound());
-          }
-        }
-      } else {
-        reason = out.exact() ? "too many variants could be part of a better range to prove it over the pool"
-            : "the listing of the variants that could be part of a better range was cut short";
-      }
-    } else {
-      reason = clock.signalled().orElse(b.isFinite() ? "the MIP solver proves no bound for continuous sales"
-          : "the relaxation found no finite bound");
+    if (!b.isFinite() || !settings.engine().provesContinuous() || clock.signalled().isPresent()) {
+      return new Proof(inc, bound, Double.NaN, 0, false, clock.signalled().orElse(b.isFinite()
+          ? "the MIP solver proves no bound for continuous sales" : "the relaxation found no finite bound"));
     }
-    if (status == PortfolioStatus.HEURISTIC && ValueBound.gap(inc.objective(), bound) <= settings.gap()) {
-      status = PortfolioStatus.PROVEN;
-      reason = "";
+    PortfolioTerms t0 = terms.get(0);
+    double theta = inc.objective() - b.valueAtLambda() + b.lambda();
+    double slack = 1e-7 * (1 + Math.abs(inc.objective()));
+    PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
+        t0.introductionCost(), t0.hasTooling() ? t0.choiceCost() : null, theta - slack,
+        settings.survivorLimit() + 1, pools.get(0).keys(), clock.phase(0.2).deadlineNanos(), rx.weights()));
+    boolean complete = out.exact() && out.found().size() <= settings.survivorLimit();
+    if (!complete) {
+      return new Proof(inc, bound, theta, 0, false, out.exact()
+          ? "too many variants could be part of a better range to prove it over the pool"
+          : "the listing of the variants that could be part of a better range was cut short");
     }
-    if (status == PortfolioStatus.HEURISTIC) {
-      reason = reason + " (branch-and-price runs for one scenario only)";
+    int before = pools.get(0).size();
+    for (PricedVariant f : out.found()) {
+      add(f.choices());
     }
-    return outcome(status, reason, inc, bound, rx, theta, added, complete);
+    int added = pools.get(0).size() - before;
+    MipRun again = mip(inc, clock.msLeft());
+    if (again.best() != null && again.best().objective() > inc.objective()) {
+      inc = again.best();
+    }
+    if (again.status() == MipStatus.OPTIMAL) {
+      // every range better than the incumbent lies in the pool, where the MIP bounds it; the status
+      // follows from the gap, so a MIP that disagrees with the exact evaluation (round-off at a lot)
+      // cannot claim a proof
+      return new Proof(inc, Math.min(bound, Math.max(inc.objective(), again.bound())), theta, added, true, "");
+    }
+    return new Proof(inc, again.status().hasSolution() ? Math.min(bound, again.bound()) : bound, theta, added, true,
+        "the MIP over the pool with every variant that could be part of a better range was not solved to"
+            + " optimality in the time limit");
   }
 
   private Outcome outcome(PortfolioStatus status, String reason, Evaluated e, double bound, Relaxed rx,
