@@ -1,5 +1,6 @@
 package dev.mixwright.pricing;
 
+import dev.mixwright.testing.Odometer;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
@@ -121,12 +122,7 @@ final class PricingCases {
       if (space.isColumn(v, s)) {
         out.add(new Scored(v.clone(), ReducedCosts.of(space, v, s, pi, mu)));
       }
-      int g = groups - 1;
-      while (g >= 0 && ++v[g] == space.choiceCount(g)) {
-        v[g] = 0;
-        g--;
-      }
-      if (g < 0) {
+      if (!Odometer.next(space, v)) {
         break;
       }
     }

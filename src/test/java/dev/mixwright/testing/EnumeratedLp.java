@@ -280,12 +280,7 @@ public final class EnumeratedLp {
           }
         }
       }
-      int g = groups - 1;
-      while (g >= 0 && ++v[g] == space.choiceCount(g)) {
-        v[g] = 0;
-        g--;
-      }
-      if (g < 0) {
+      if (!Odometer.next(space, v)) {
         break;
       }
     }

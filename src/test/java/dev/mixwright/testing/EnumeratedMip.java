@@ -191,12 +191,7 @@ public final class EnumeratedMip {
       if (sold && !excluded(space, v)) {
         variants.add(v.clone());
       }
-      int g = groups - 1;
-      while (g >= 0 && ++v[g] == space.choiceCount(g)) {
-        v[g] = 0;
-        g--;
-      }
-      if (g < 0) {
+      if (!Odometer.next(space, v)) {
         break;
       }
     }
