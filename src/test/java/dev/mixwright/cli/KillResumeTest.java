@@ -69,7 +69,9 @@ class KillResumeTest {
     long seed = System.nanoTime();
     Random rnd = new Random(seed);
     String why = "seed " + seed;
-    for (int point = 0; point < 3; point++) {
+    // 8 solves and 2 resumes killed here, and 10 kills landed inside the integer stage (plus those of
+    // its chains' LP stages) in the test of both stages below: 20 and more SIGKILLs in all
+    for (int point = 0; point < 8; point++) {
       Path run = dir.resolve("run" + point);
       ChildJvm child = ChildJvm.start(dir, "solve" + point, solve(run));
       assertTrue(child.awaitFile(run.resolve(RunFolder.MANIFEST), 60_000), child.transcript());
@@ -78,7 +80,7 @@ class KillResumeTest {
       child.process.destroyForcibly();
       child.waitFor(30);
       assertNothingDurableLost(run);
-      if (point == 1) {
+      if (point == 1 || point == 5) {
         // The resume itself killed too: the log must stay continuous across several sessions.
         ChildJvm again = ChildJvm.start(dir, "resume" + point, "resume", run.toString(), "--no-progress", "--no-portfolio");
         Thread.sleep(1500 + rnd.nextInt(2500));
