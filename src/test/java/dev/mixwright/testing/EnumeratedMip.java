@@ -135,24 +135,7 @@ public final class EnumeratedMip {
             logit.setCoefficient(stay[s], -Math.exp(space.utility(w, s) - space.stayOut(s)));
           }
         }
-        for (int g = 0; g < groups; g++) {
-          if (w[g] >= c.groups().get(g).options().size()) {
-            continue; // none
-          }
-          Option o = c.groups().get(g).options().get(w[g]);
-          if (o.tooling() <= 0) {
-            continue;
-          }
-          int key = space.offset(g) + w[g];
-          MPVariable t = tools.computeIfAbsent(key, kk -> {
-            MPVariable z = relaxed ? solver.makeNumVar(0, 1, "") : solver.makeBoolVar("");
-            obj.setCoefficient(z, -o.tooling());
-            return z;
-          });
-          MPConstraint need = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0);
-          need.setCoefficient(y, 1);
-          need.setCoefficient(t, -1);
-        }
+        needTooling(solver, obj, tools, space, w, y, relaxed);
       }
       params.setDoubleParam(MPSolverParameters.DoubleParam.RELATIVE_MIP_GAP, 1e-9);
       MPSolver.ResultStatus st = solver.solve(params);
@@ -215,5 +198,32 @@ public final class EnumeratedMip {
       }
     }
     return false;
+  }
+
+  /**
+   * Tooling of variant w (introduced when y is 1): each of its options with tooling needs that
+   * option's variable, one per option for the whole model and paid once (−tooling in the objective),
+   * binary, or between 0 and 1 when {@code relaxed}.
+   */
+  static void needTooling(MPSolver solver, MPObjective obj, Map<Integer, MPVariable> tools, VariantSpace space,
+      int[] w, MPVariable y, boolean relaxed) {
+    Catalog c = space.catalog();
+    for (int g = 0; g < w.length; g++) {
+      if (w[g] >= c.groups().get(g).options().size()) {
+        continue; // none
+      }
+      Option o = c.groups().get(g).options().get(w[g]);
+      if (o.tooling() <= 0) {
+        continue;
+      }
+      MPVariable t = tools.computeIfAbsent(space.offset(g) + w[g], kk -> {
+        MPVariable z = relaxed ? solver.makeNumVar(0, 1, "") : solver.makeBoolVar("");
+        obj.setCoefficient(z, -o.tooling());
+        return z;
+      });
+      MPConstraint need = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0);
+      need.setCoefficient(y, 1);
+      need.setCoefficient(t, -1);
+    }
   }
 }

@@ -6,7 +6,6 @@ import com.google.ortools.linearsolver.MPSolver;
 import com.google.ortools.linearsolver.MPSolverParameters;
 import com.google.ortools.linearsolver.MPVariable;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.PortfolioSpec;
 import dev.mixwright.master.Natives;
 import dev.mixwright.space.VariantSpace;
@@ -113,24 +112,7 @@ public final class EnumeratedScenarioMip {
             lot.setCoefficient(x, -1);
           }
         }
-        Catalog c = first.catalog();
-        for (int g = 0; g < groups; g++) {
-          if (w[g] >= c.groups().get(g).options().size()) {
-            continue; // none
-          }
-          Option o = c.groups().get(g).options().get(w[g]);
-          if (o.tooling() <= 0) {
-            continue;
-          }
-          MPVariable t = tools.computeIfAbsent(first.offset(g) + w[g], kk -> {
-            MPVariable z = solver.makeBoolVar("");
-            obj.setCoefficient(z, -o.tooling());
-            return z;
-          });
-          MPConstraint need = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0);
-          need.setCoefficient(y, 1);
-          need.setCoefficient(t, -1);
-        }
+        EnumeratedMip.needTooling(solver, obj, tools, first, w, y, false);
       }
       params.setDoubleParam(MPSolverParameters.DoubleParam.RELATIVE_MIP_GAP, 1e-9);
       MPSolver.ResultStatus st = solver.solve(params);
