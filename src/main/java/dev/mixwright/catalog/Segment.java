@@ -56,6 +56,22 @@ public record Segment(
     return new Segment(id, label, choice.buyers(), 1, accepts, value, Optional.of(choice));
   }
 
+  /**
+   * This segment with another demand and every other field kept; for a segment that chooses, the
+   * demand is its number of buyers, so its choice section changes with it.
+   */
+  public Segment withDemand(double d) {
+    return choice.isPresent()
+        ? choosing(id, label, accepts, value, new Choice(d, choice.get().stayOut(), choice.get().priceWeight(),
+            choice.get().utility()))
+        : new Segment(id, label, d, maxShare, accepts, value, Optional.empty());
+  }
+
+  /** This segment (with a fixed demand) with another maxShare and every other field kept. */
+  public Segment withMaxShare(double share) {
+    return new Segment(id, label, demand, share, accepts, value, choice);
+  }
+
   /** True when the segment's buyers choose by multinomial logit (it has a {@code choice} section). */
   public boolean chooses() {
     return choice.isPresent();

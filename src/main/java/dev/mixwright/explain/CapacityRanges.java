@@ -216,7 +216,8 @@ public final class CapacityRanges {
       Resource old = res.get(resource);
       res.set(resource, new Resource(old.id(), old.label(), old.unit(), capacity));
       Catalog c = new Catalog(catalog.format(), catalog.name(), catalog.currency(), catalog.period(), res,
-          catalog.groups(), catalog.rules(), catalog.segments(), catalog.portfolio());
+          catalog.groups(), catalog.rules(), catalog.segments(), catalog.portfolio(), catalog.current(),
+          catalog.exclude());
       VariantSpace space = new VariantSpace(c);
       SolveOutcome out = new ColumnGeneration(space, pricer.apply(space), null, settings,
         StopCriterion.never(), System.nanoTime()).run(pool);

@@ -260,8 +260,13 @@ public record Scenario(String name, List<Change> changes) implements Serializabl
           double v = a.apply(base);
           problem = demand ? nonNegative(v, a, base, "a demand", false)
               : (v > 0 && v <= 1 ? null : "gives " + Where.num(v) + "; maxShare must be in (0, 1]");
-          segments.set(s, new Segment(old.id(), old.label(), demand ? v : old.demand(),
-              demand ? old.maxShare() : v, old.accepts(), old.value()));
+          if (problem == null && !demand && old.chooses()) {
+            problem = "segment '" + old.id() + "' chooses: it has no maxShare (its buyers choose by the"
+                + " multinomial logit); change its demand, which is its buyers";
+          }
+          if (problem == null) {
+            segments.set(s, demand ? old.withDemand(v) : old.withMaxShare(v));
+          }
         }
         case RULE -> {
           int found = -1;
@@ -315,8 +320,9 @@ public record Scenario(String name, List<Change> changes) implements Serializabl
         kept.add(rules.get(i));
       }
     }
+    // every field the scenario does not change is carried over: today's range and the exclusions too
     return new Catalog(c.format(), c.name(), c.currency(), c.period(), resources, groups, kept, segments,
-        Optional.ofNullable(portfolio));
+        Optional.ofNullable(portfolio), c.current(), c.exclude());
   }
 
   private static String unknown(String kind, String id, List<String> ids) {

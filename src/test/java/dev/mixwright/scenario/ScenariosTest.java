@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
+import java.util.Map;
 import dev.mixwright.catalog.CatalogException;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.CatalogProblem;
@@ -70,6 +71,35 @@ class ScenariosTest {
     assertTrue(c.rules().stream().noneMatch(r -> "propane-clearance".equals(r.id())));
     // The result is a catalog the loader accepts as it stands.
     assertEquals(c, CatalogLoader.parse(CatalogWriter.toJson(c), "c.json", null));
+  }
+
+  @Test
+  void aScenarioKeepsTodaysRangeTheExclusionsAndTheChoiceOfASegment() throws Exception {
+    // the shipped starter: segments that choose, a range on sale today; before, a scenario dropped
+    // the range and the exclusions, and a demand change made a choosing segment a fixed one
+    Catalog shipped = CatalogLoader.load(Path.of("catalogs/heatpump-starter.yaml"));
+    Catalog withExclude = shipped.withCurrentRange(shipped.current(), List.of(Map.of("capacity", "c9",
+        "refrigerant", "r32")));
+    Scenario s = Scenarios.load(file("s.yaml", """
+        format: 1
+        resources: {inverter: {capacity: "-10%"}}
+        segments: {retrofit: {demand: "+20%"}}
+        """), withExclude);
+    Catalog c = s.applyTo(withExclude);
+    assertEquals(withExclude.current(), c.current());
+    assertEquals(withExclude.exclude(), c.exclude());
+    Segment before = withExclude.segments().get(withExclude.segmentIndex("retrofit"));
+    Segment after = c.segments().get(c.segmentIndex("retrofit"));
+    assertTrue(after.chooses(), "still a segment that chooses");
+    assertEquals(before.choice().get().buyers() * 1.2, after.choice().get().buyers(), 1e-6);
+    assertEquals(before.choice().get().utility(), after.choice().get().utility());
+    assertEquals(after.choice().get().buyers(), after.demand());
+
+    CatalogException e = assertThrows(CatalogException.class, () -> Scenarios.load(file("m.yaml", """
+        format: 1
+        segments: {retrofit: {maxShare: 0.5}}
+        """), withExclude).applyTo(withExclude));
+    assertTrue(e.getMessage().contains("chooses"), e.getMessage());
   }
 
   @Test
