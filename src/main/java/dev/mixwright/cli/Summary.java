@@ -85,12 +85,13 @@ final class Summary {
     out.println("    bound             " + Figures.money(orNaN(p.bound())) + cur
         + "   gap " + Figures.percent(orNaN(p.gap())));
     RunResult.Proof proof = p.proof();
-    String change = p.kept() == null ? "" : String.format(Locale.ROOT, "; against today's range: kept %d, dropped %d, added %d;",
-        p.kept().size(), p.dropped().size(), p.added().size());
+    String change = p.kept() == null ? "," : String.format(Locale.ROOT,
+        "; against today's range: kept %d, dropped %d, added %d;", p.kept().size(), p.dropped().size(),
+        p.added().size());
     // a pinned variant of today's range that no segment buys stays on sale, outside the selling variants
     long idle = p.kept() == null ? 0 : p.kept().stream().filter(k -> k.sales() == null || k.sales().isEmpty()).count();
-    String onSale = idle == 0 ? p.variants().size() + " variants," : (p.variants().size() + idle) + " variants on sale ("
-        + idle + " kept from today's range, selling nothing)" + (p.kept() == null ? "," : "");
+    String onSale = idle == 0 ? p.variants().size() + " variants" : (p.variants().size() + idle) + " variants on sale ("
+        + idle + " kept from today's range, selling nothing)";
     out.println(String.format(Locale.ROOT, "    %s%s chosen by %s among %,d candidate variants"
             + " (%,d of them added to check that none does better%s), time %s",
         onSale, change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
