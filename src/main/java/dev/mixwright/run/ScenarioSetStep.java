@@ -102,7 +102,7 @@ final class ScenarioSetStep {
     RunResult.HoldOut check = set.holdOut().isEmpty() ? null
         : holdOut(set.holdOut().get(), set.holdOutCatalogs(), o.range(), set.plan().holdOut().get());
     VariantSpace base = spaces.get(0);
-    RunResult.Portfolio p = PortfolioSection.ofScenarios(new VariantSpace(base.catalog()), PortfolioTerms.of(base), o,
+    RunResult.Portfolio p = PortfolioSection.ofScenarios(base, PortfolioTerms.of(base), o,
         w, settings.engine().word()).withScenarios(set.plan().aim().isWorst() ? "worst" : "mean", rows, check);
     return result.withPortfolio(p, (System.nanoTime() - startNanos) / 1_000_000);
   }
