@@ -62,14 +62,12 @@ final class Progress implements ColGenListener {
   }
 
   static Progress choose(PrintWriter err, Boolean asked, String prefix) {
-    if (Boolean.FALSE.equals(asked)) {
-      return null;
-    }
-    boolean terminal = stderrIsTerminal();
-    if (!terminal && asked == null) {
-      return null;
-    }
-    return new Progress(err, terminal, terminalWidth(), prefix);
+    return wanted(asked) ? new Progress(err, stderrIsTerminal(), terminalWidth(), prefix) : null;
+  }
+
+  /** Whether progress is shown: as --progress / --no-progress says, else when stderr is a terminal. */
+  static boolean wanted(Boolean asked) {
+    return asked != null ? asked : stderrIsTerminal();
   }
 
   /** Whether file descriptor 2 is a terminal: Linux names it under /proc; elsewhere the console decides. */

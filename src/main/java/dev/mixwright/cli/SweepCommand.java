@@ -95,7 +95,7 @@ final class SweepCommand extends CatalogCommand {
       o = SweepRun.run(request, signals.flag(), new SweepRun.Watcher() {
         @Override
         public void solved(ObjectNode row, Tally tally) {
-          if (shows(progress)) {
+          if (Progress.wanted(progress)) {
             err.println("  " + row.path("name").asText() + ": " + (row.path("objective").isNumber()
                 ? row.path("status").asText() + ", objective " + Figures.money(row.path("objective").asDouble())
                 : row.path("status").asText()) + "   [" + tally.line("point") + "]");
@@ -112,7 +112,7 @@ final class SweepCommand extends CatalogCommand {
 
         @Override
         public void finished(String engineName, Tally tally) {
-          if (shows(progress)) {
+          if (Progress.wanted(progress)) {
             err.println("mixwright: engine " + engineName + ": " + tally.summary("point"));
             err.flush();
           }
@@ -132,10 +132,6 @@ final class SweepCommand extends CatalogCommand {
     }
     out.flush();
     return o.complete() ? ExitCodes.OK : ExitCodes.STOPPED;
-  }
-
-  private static boolean shows(Boolean progress) {
-    return progress != null && progress || Progress.stderrIsTerminal() && progress == null;
   }
 
   private static void print(PrintWriter out, SweepTable table, SweepPlan plan, Catalog catalog, int solved,
