@@ -54,8 +54,8 @@ final class CompareCommand extends SubCommand {
     PrintWriter out = spec.commandLine().getOut();
     RunResult a = result(runA);
     RunResult b = result(runB);
-    Catalog catA = catalog(runA);
-    Catalog catB = catalog(runB);
+    Catalog catA = RunCatalog.read(runA);
+    Catalog catB = RunCatalog.read(runB);
     ObjectNode cmp = RunComparison.compare(a, b, catA, catB);
     matrixA = MatrixView.of(a, catA);
     matrixB = MatrixView.of(b, catB);
@@ -93,20 +93,6 @@ final class CompareCommand extends SubCommand {
       return RunResult.read(run);
     } catch (IOException e) {
       throw new UserError(e.getMessage());
-    }
-  }
-
-  private static Catalog catalog(Path run) {
-    Path f = new RunFolder(run).catalogCopy();
-    if (!Files.isRegularFile(f)) {
-      return null;
-    }
-    try {
-      return CatalogLoader.parse(new RunFolder(run).verifiedCatalogCopy(), f.toString(), null);
-    } catch (IOException e) {
-      throw new UserError(e.getMessage());
-    } catch (CatalogException e) {
-      return null; // the figures are then compared through result.json only
     }
   }
 

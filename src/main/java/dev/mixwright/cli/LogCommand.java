@@ -4,13 +4,13 @@ import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.report.RunResult;
+import dev.mixwright.report.VariantNames;
 import dev.mixwright.runfolder.ColumnLogReader;
 import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Iterator;
 import java.util.Locale;
 import java.util.Map;
 import picocli.CommandLine.Command;
@@ -24,7 +24,7 @@ final class LogCommand extends RunDirCommand {
   @Option(names = "--segment", paramLabel = "S", description = "only columns of this segment")
   String segment;
 
-  @Option(names = "--full", description = "show every group of a variant, optional groups at none included")
+  @Option(names = "--full", description = "name each variant by all its options (group=option) instead of its code; optional groups at none included")
   boolean full;
 
   @Option(names = "--portfolio", description = "show only the integer stage's log (incumbents and bound over time)")
@@ -52,25 +52,37 @@ final class LogCommand extends RunDirCommand {
     if (segment != null) {
       refuseUnknownSegment(entries);
     }
-    out.println(String.format(Locale.ROOT, "%5s  %9s  %-14s  %14s  %16s  %16s  %s",
-        "round", "time", "segment", "reduced cost", "objective after", "bound after", "variant"));
+    VariantNames names = names();
+    out.println(String.format(Locale.ROOT, "  %-14s  %14s  %s", "segment", "reduced cost", "variant"));
     int shown = 0;
+    int round = -1;
     for (JsonNode n : entries.lines()) {
       String seg = n.path("segment").asText();
       if (segment != null && !segment.equals(seg)) {
         continue;
       }
       shown++;
-      JsonNode b = n.path("boundAfter");
-      out.println(String.format(Locale.ROOT, "%5d  %9s  %-14s  %14s  %16s  %16s  %s",
-          n.path("iteration").asInt(), Durations.format(n.path("elapsedMs").asLong()), seg,
-          n.path("iteration").asInt() == 0 ? "seed" : String.format(Locale.ROOT, "%,.4f", n.path("reducedCost").asDouble()),
-          Figures.money(n.path("objectiveAfter").asDouble()),
-          b.isNumber() ? Figures.money(b.asDouble()) : "—", variant(n.path("options"))));
+      int it = n.path("iteration").asInt();
+      if (it != round || shown == 1) {
+        // objective and bound belong to the round, not to each column: said once per round
+        round = it;
+        JsonNode b = n.path("boundAfter");
+        out.println(String.format(Locale.ROOT, "round %d at %s%s: objective after %s, bound after %s", it,
+            Durations.format(n.path("elapsedMs").asLong()), it == 0 ? ", the starting columns" : "",
+            Figures.money(n.path("objectiveAfter").asDouble()), b.isNumber() ? Figures.money(b.asDouble()) : "—"));
+      }
+      Map<String, String> options = VariantNames.options(n.path("options"));
+      out.println(String.format(Locale.ROOT, "  %-14s  %14s  %s", seg,
+          it == 0 ? "start" : Figures.price(n.path("reducedCost").asDouble()),
+          full || names == null ? every(options) : names.shortName(options)));
     }
     out.println(shown + " columns" + (segment == null ? "" : " in segment " + segment)
         + (entries.droppedTornLines() > 0 ? "; " + entries.droppedTornLines()
             + " torn last line dropped (the run was cut off while writing it)" : ""));
+    if (names != null && !full && shown > 0) {
+      out.println("variants by their codes in the run's summary and report; \"V04 but X\": a variant outside the");
+      out.println("plan, named by the nearest coded variant and the options that differ (--full: every option)");
+    }
     if (segment == null) {
       PortfolioLogView.print(out, runDir);
     }
@@ -94,16 +106,19 @@ final class LogCommand extends RunDirCommand {
     }
   }
 
-  private String variant(JsonNode options) {
-    StringBuilder sb = new StringBuilder();
-    Iterator<Map.Entry<String, JsonNode>> it = options.fields();
-    while (it.hasNext()) {
-      Map.Entry<String, JsonNode> e = it.next();
-      if (!full && e.getValue().asText().equals("none")) {
-        continue;
-      }
-      sb.append(sb.length() == 0 ? "" : ",").append(e.getKey()).append('=').append(e.getValue().asText());
+  /** Every group of a variant as group=option, optional groups at none included. */
+  private static String every(Map<String, String> options) {
+    return String.join(",", options.entrySet().stream().map(e -> e.getKey() + "=" + e.getValue()).toList());
+  }
+
+  /** The run's variant names, or null before result.json exists (a run still going or cut off). */
+  private VariantNames names() {
+    RunResult result;
+    try {
+      result = RunResult.read(runDir);
+    } catch (IOException e) {
+      return null;
     }
-    return sb.toString();
+    return VariantNames.of(result, RunCatalog.read(runDir));
   }
 }

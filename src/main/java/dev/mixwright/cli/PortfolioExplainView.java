@@ -90,7 +90,8 @@ final class PortfolioExplainView {
       out.println("    not in it: no segment can take it (see above), so it cannot be offered");
       return;
     }
-    out.println("    not in it. At the relaxation's prices its reduced cost per segment is:");
+    out.println("    not in it. Per unit, per segment, what it earns above its resources' worth (at the prices of the"
+        + " upper limit on any range's value, where a variant may be introduced in part):");
     for (int s = 0; s < e.reducedCost().length; s++) {
       double d = e.reducedCost()[s];
       out.println(String.format(Locale.ROOT, "      %-14s %s", cat.segments().get(s).id(),
@@ -111,10 +112,11 @@ final class PortfolioExplainView {
           + ", not more than the portfolio found: it cannot be part of a better one");
     } else if (e.proven()) {
       out.println("    a portfolio holding it could be worth up to " + Figures.money(e.boundWith())
-          + " by the bound, so the proof gave it to the MIP, which found no better portfolio than the one offered");
+          + " by the upper limit, so it was among the candidates of the exact search, which found no better portfolio"
+          + " than the one offered");
     } else {
       out.println("    a portfolio holding it could be worth up to " + Figures.money(e.boundWith())
-          + " by the bound: it is not ruled out, and the run did not prove its portfolio optimal");
+          + " by the upper limit: it is not ruled out, and the run did not prove its portfolio the best");
     }
   }
 

@@ -1,6 +1,7 @@
 package dev.mixwright.cli;
 
 import dev.mixwright.report.Figures;
+import dev.mixwright.report.StageWords;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.portfolio.PortfolioListener;
@@ -69,8 +70,9 @@ final class RunView {
         return List.of();
       }
       return List.of(e -> {
-        err.println(String.format(Locale.ROOT, "portfolio %-10s value %s  bound %s  pool %d  %s  %s",
-            e.kind().word(), Figures.money(e.value()), Figures.money(e.bound()), e.pool(), e.note(),
+        err.println(String.format(Locale.ROOT, "range %s: %s%s, upper limit %s  (%s)", StageWords.step(e.kind().word()),
+            StageWords.what(e.kind().word(), e.pool(), e.count(), e.note()),
+            e.kind().isPortfolio() ? "; best range " + Figures.money(e.value()) : "", Figures.money(e.bound()),
             Durations.format(e.elapsedMs())));
         err.flush();
       });
@@ -84,7 +86,7 @@ final class RunView {
 
     @Override
     public void resuming(RunSession.ResumePoint p) {
-      out.println(String.format(Locale.ROOT, "resuming %s: session %d, %d columns from the pool%s, after round %d"
+      out.println(String.format(Locale.ROOT, "resuming %s: session %d, %d columns from the earlier sessions%s, after round %d"
               + " (%s so far)%s", p.runDir(), p.session(), p.pooledColumns(),
           p.leftOut() > 0 ? " (" + p.leftOut() + " left out: no longer sellable or duplicated)" : "",
           p.afterRound(), Durations.format(p.elapsedMs()),

@@ -73,7 +73,7 @@ public final class PortfolioExplainer {
 
   /**
    * Words for a variant on sale today, empty for a new one: whether the portfolio keeps it and, when
-   * it drops it, its value in the plan (its best lot at the relaxation's prices) against the
+   * it drops it, its value in the plan (its best lot at the prices of the relaxation) against the
    * discontinue cost it saves, and what a new variant would pay to be introduced instead.
    */
   public List<String> currentRangeWords(int[] v, PortfolioVerdict verdict) {
@@ -92,7 +92,7 @@ public final class PortfolioExplainer {
             + " dropping it costs " + disc);
       }
       return List.of(String.format(Locale.ROOT, "on sale today and dropped: its best lot earns %,.2f at the"
-          + " relaxation's prices; keeping it would save the discontinue cost %s, so it is worth %,.2f kept,"
+          + " prices of the upper limit on any range's value; keeping it would save the discontinue cost %s, so it is worth %,.2f kept,"
           + " against the variants introduced elsewhere at %s each; a portfolio keeping it is worth at most %,.2f,"
           + " and the portfolio found, %,.2f, pays the %s", verdict.lotValue(), disc, verdict.psi(), intro,
           verdict.boundWith(), verdict.portfolioValue(), disc));

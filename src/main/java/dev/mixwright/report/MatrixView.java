@@ -204,7 +204,7 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
     return b.toString().stripTrailing();
   }
 
-  static String groupHead(Catalog catalog, String groupId) {
+  public static String groupHead(Catalog catalog, String groupId) {
     if (catalog != null) {
       int g = catalog.groupIndex(groupId);
       if (g >= 0 && hasText(catalog.groups().get(g).label())) {
@@ -215,7 +215,7 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
   }
 
   /** The option's label (with its price point, {@code 12 kW @5300}), or the choice id. */
-  static String choiceText(Catalog catalog, String groupId, String choice) {
+  public static String choiceText(Catalog catalog, String groupId, String choice) {
     if (catalog == null) {
       return choice;
     }

@@ -84,7 +84,7 @@ class ChoosingRunCommandsTest {
 
   @Test
   void logShowsThePricePointsOfChoosingColumns() {
-    CliRun l = CliRun.of("log", run.toString(), "--segment", "retrofit");
+    CliRun l = CliRun.of("log", run.toString(), "--segment", "retrofit", "--full");
     assertEquals(0, l.code(), l::toString);
     assertTrue(l.out().contains("capacity=c"), l::toString);
     assertTrue(l.out().contains("columns in segment retrofit"), l::toString);
@@ -93,7 +93,7 @@ class ChoosingRunCommandsTest {
       pricePoint |= variant(o.path("options")).contains("@");
     }
     assertTrue(pricePoint, "the demo plan sells a price point");
-    assertTrue(CliRun.of("log", run.toString()).out().contains("@"));
+    assertTrue(CliRun.of("log", run.toString(), "--full").out().contains("@"));
   }
 
   @Test

@@ -162,6 +162,113 @@ class CommandLineTest {
     assertTrue(l.out().contains("reduced cost") && l.out().contains("bound after"), l.out());
   }
 
+  /** The code on a summary row, and the LP total units printed on it. */
+  private record SummaryRow(String code, String total) {}
+
+  /** The matrix rows of the summary: the code, then the row's LP total (the last column but one). */
+  private static List<SummaryRow> summaryRows(String out) {
+    List<SummaryRow> rows = new java.util.ArrayList<>();
+    for (String line : out.split("\n")) {
+      String t = line.strip();
+      if (t.matches("V[0-9]+\\s{2,}.*")) {
+        String[] cells = t.split("\\s{2,}");
+        if (cells.length < 4) {
+          continue; // the portfolio's list: code and sales
+        }
+        rows.add(new SummaryRow(cells[0], cells[cells.length - 2]));
+      }
+    }
+    return rows;
+  }
+
+  /**
+   * explain VNN names the variant the summary's row VNN shows: the LP units result.json gives that
+   * variant are the row's total; the log names each column of result.json's variants by that code.
+   */
+  @Test
+  void explainAndLogUseTheSummaryCodes() throws IOException {
+    JsonNode r = JSON.readTree(run.resolve("result.json").toFile());
+    List<SummaryRow> rows = summaryRows(solved.out());
+    assertTrue(rows.size() >= 3, solved.out());
+    java.util.Map<String, JsonNode> optionsOf = new java.util.HashMap<>();
+    for (SummaryRow row : rows) {
+      CliRun e = CliRun.of("explain", run.toString(), row.code(), "--json");
+      assertEquals(0, e.code(), e::toString);
+      JsonNode x = JSON.readTree(e.out());
+      assertEquals(row.code(), x.get("code").asText());
+      JsonNode options = x.get("options");
+      optionsOf.put(row.code(), options);
+      double units = 0;
+      for (JsonNode o : r.get("offers")) {
+        if (o.get("options").equals(options)) {
+          units += o.get("quantity").asDouble();
+        }
+      }
+      assertEquals(row.total(), units == 0 ? "-" : dev.mixwright.report.Figures.units(units), row.code());
+      CliRun same = CliRun.of("explain", run.toString(), "--variant", row.code().toLowerCase(java.util.Locale.ROOT));
+      assertEquals(0, same.code(), same::toString);
+      assertTrue(same.out().startsWith("variant " + row.code() + ": "), same.out());
+    }
+    CliRun l = CliRun.of("log", run.toString());
+    assertEquals(0, l.code(), l::toString);
+    List<String> columns = Files.readAllLines(run.resolve("columns.jsonl"));
+    List<String> logRows = new java.util.ArrayList<>();
+    String columnPart = l.out().substring(0, l.out().indexOf("\n" + columns.size() + " columns"));
+    for (String line : columnPart.split("\n")) {
+      if (line.startsWith("  ") && !line.startsWith("  segment")) {
+        logRows.add(line);
+      }
+    }
+    assertEquals(columns.size(), logRows.size(), l.out());
+    int coded = 0;
+    for (int i = 0; i < columns.size(); i++) {
+      String name = logRows.get(i).split("\\s{2,}")[3];
+      JsonNode options = JSON.readTree(columns.get(i)).get("options");
+      if (optionsOf.containsKey(name)) {
+        coded++;
+        assertEquals(optionsOf.get(name), options, logRows.get(i));
+      }
+      assertTrue(logRows.get(i).length() <= 100, "a log line fits 100 columns: " + logRows.get(i));
+    }
+    assertTrue(coded >= rows.size() / 2, l.out());
+  }
+
+  @Test
+  void anUnknownCodeIsRefusedWithTheRunsCodes() {
+    CliRun e = CliRun.of("explain", run.toString(), "V99");
+    assertEquals(2, e.code(), e::toString);
+    assertTrue(e.err().contains("no variant V99") && e.err().contains("V01, V02"), e.err());
+    assertFalse(e.err().contains("Exception"), e.err());
+    CliRun twice = CliRun.of("explain", run.toString(), "V01", "--variant", "V02");
+    assertEquals(2, twice.code(), twice::toString);
+  }
+
+  /** Words of the solver a planner should not meet (issue 10), sought as words in every printed line. */
+  private static void assertPlain(String text) {
+    for (String line : text.split("\n")) {
+      for (String word : dev.mixwright.report.StageWords.JARGON) {
+        assertFalse(java.util.regex.Pattern.compile("(?i)\\b" + word).matcher(line).find(),
+            "'" + word + "' in: " + line);
+      }
+    }
+  }
+
+  @Test
+  void theLogsAndExplainSpeakPlainWords() {
+    CliRun p = CliRun.of("log", run.toString(), "--portfolio");
+    assertEquals(0, p.code(), p::toString);
+    assertTrue(p.out().contains("upper limit") && p.out().contains("better range"), p.out());
+    assertPlain(p.out());
+    CliRun l = CliRun.of("log", run.toString());
+    assertPlain(l.out());
+    CliRun e = CliRun.of("explain", run.toString(), "V02");
+    assertEquals(0, e.code(), e::toString);
+    assertPlain(e.out());
+    CliRun out = CliRun.of("explain", run.toString(), "--segment", "quiet", "--variant",
+        "capacity=c5,compressor=scroll,refrigerant=r32,casing=acoustic,controller=basic");
+    assertPlain(out.out());
+  }
+
   @Test
   void logDropsATornLastLine(@TempDir Path dir) throws IOException {
     List<String> lines = Files.readAllLines(run.resolve("columns.jsonl"));

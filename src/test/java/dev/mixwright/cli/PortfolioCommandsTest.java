@@ -65,8 +65,8 @@ class PortfolioCommandsTest {
 
     Run log = run("log", runDir.toString(), "--portfolio");
     assertEquals(0, log.code(), log.err());
-    assertTrue(log.out().contains("integer stage"), log.out());
-    assertTrue(log.out().contains("incumbent"), log.out());
+    assertTrue(log.out().contains("choosing the range"), log.out());
+    assertTrue(log.out().contains("better range"), log.out());
     assertTrue(log.out().contains("proven"), log.out());
   }
 
