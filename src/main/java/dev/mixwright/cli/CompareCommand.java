@@ -3,8 +3,6 @@ package dev.mixwright.cli;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.catalog.CatalogException;
-import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.report.ComparisonPage;
 import dev.mixwright.report.Figures;
 import dev.mixwright.report.MatrixView;
@@ -12,7 +10,6 @@ import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.RunComparison;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.runfolder.Json;
-import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
@@ -212,8 +209,8 @@ final class CompareCommand extends SubCommand {
           hidden++;
           continue;
         }
-        out.println(String.format(Locale.ROOT, "    share %6.1f%% -> %6.1f%%  %s", 100 * o.path("shareA").asDouble(),
-            100 * o.path("shareB").asDouble(), RunComparison.name(o, matrixA, matrixB)));
+        out.println(String.format(Locale.ROOT, "    share %6s -> %6s  %s", Figures.share(o.path("shareA").asDouble()),
+            Figures.share(o.path("shareB").asDouble()), RunComparison.name(o, matrixA, matrixB)));
       }
       if (hidden > 0) {
         out.println("    (" + hidden + (hidden == 1 ? " offer's" : " offers'") + " share unchanged; --all shows them)");
@@ -244,6 +241,6 @@ final class CompareCommand extends SubCommand {
     }
     double d = v.path("change").asDouble();
     double a = v.path("a").asDouble();
-    return Figures.signedMoney(d) + (a != 0 ? String.format(Locale.ROOT, " (%+.3f%%)", 100 * d / Math.abs(a)) : "");
+    return Figures.signedMoney(d) + (a != 0 ? " (" + Figures.signedPercent(d / Math.abs(a)) + ")" : "");
   }
 }

@@ -154,7 +154,7 @@ final class ExplainCommand extends RunDirCommand {
       PortfolioExplainView.print(out, space, verdict);
       if (verdict != null) {
         // issue 10: a variant on sale today, kept or dropped
-        new dev.mixwright.explain.PortfolioExplainer(space).currentRangeWords(v, verdict).forEach(w -> out.println("    " + w));
+        new dev.mixwright.explain.PortfolioExplainer(space).currentRangeWords(v, verdict, Figures::money).forEach(w -> out.println("    " + w));
       }
       if (ranges != null) {
         CapacityRangeReport.print(out, ranges, run.result());
@@ -460,6 +460,6 @@ final class ExplainCommand extends RunDirCommand {
   private static final int SHOWN = 8;
 
   private static String w(double attraction) {
-    return String.format(Locale.ROOT, "%.4g", attraction);
+    return Figures.attraction(attraction);
   }
 }

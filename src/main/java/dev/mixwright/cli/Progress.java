@@ -163,7 +163,7 @@ final class Progress implements ColGenListener {
     if (!Double.isFinite(v)) {
       return "—";
     }
-    return Math.abs(v) >= 1e5 ? String.format(Locale.ROOT, "%,.0f", v) : Figures.money(v);
+    return Math.abs(v) >= 1e5 ? Figures.wholeMoney(v) : Figures.money(v);
   }
 
   static String line(IterationRecord r) {

@@ -92,7 +92,7 @@ final class Summary {
     long idle = p.kept() == null ? 0 : p.kept().stream().filter(k -> k.sales() == null || k.sales().isEmpty()).count();
     String onSale = idle == 0 ? p.variants().size() + " variants" : (p.variants().size() + idle) + " variants on sale ("
         + idle + " kept from today's range, selling nothing)";
-    out.println(String.format(Locale.ROOT, "    %s%s chosen by %s among %,d candidate variants"
+    out.println(String.format(Locale.ROOT, "    %s%s chosen by the exact search (%s) among %,d candidate variants"
             + " (%,d of them added to check that none does better%s), time %s",
         onSale, change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
         proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
@@ -131,7 +131,7 @@ final class Summary {
         out.println("      ... " + (p.scenarios().size() - 12) + " more in result.json");
         break;
       }
-      out.println(String.format(Locale.ROOT, "      %-" + width + "s %7.3f %14s %14s %14s%s", r.id(), r.weight(),
+      out.println(String.format(Locale.ROOT, "      %-" + width + "s %7s %14s %14s %14s%s", r.id(), Figures.weight(r.weight()),
           Figures.money(r.value()), Figures.money(r.bestAlone()), Figures.money(r.regret()),
           r.bestAloneStatus().isProven() ? "" : "  (best alone heuristic)"));
     }

@@ -143,13 +143,13 @@ final class SweepCommand extends CatalogCommand {
       n.path("resources").fields().forEachRemaining(e -> {
         double p = e.getValue().path("shadowPrice").asDouble();
         if (p > 1e-9) {
-          prices.append(prices.length() == 0 ? "" : ", ").append(e.getKey()).append(' ').append(Figures.money(p));
+          prices.append(prices.length() == 0 ? "" : ", ").append(e.getKey()).append(' ').append(Figures.price(p));
         }
       });
       StringBuilder slope = new StringBuilder();
       n.path("valuePerUnit").fields().forEachRemaining(e -> {
         if (e.getValue().isNumber()) {
-          slope.append("  +1 unit: ").append(Figures.money(e.getValue().asDouble()));
+          slope.append("  +1 unit: ").append(Figures.price(e.getValue().asDouble()));
         }
       });
       out.println(String.format(Locale.ROOT, "  %-48s %-10s %18s  %s%s", n.path("name").asText(),

@@ -7,7 +7,7 @@ import dev.mixwright.portfolio.VariantPricer;
 import dev.mixwright.space.VariantSpace;
 import java.util.Arrays;
 import java.util.List;
-import java.util.Locale;
+import java.util.function.DoubleFunction;
 
 /**
  * Explains a variant against a run's integer portfolio with the argument of the proof
@@ -72,17 +72,17 @@ public final class PortfolioExplainer {
   }
 
   /**
-   * Words for a variant on sale today, empty for a new one: whether the portfolio keeps it and, when
+   * Words for a variant on sale today, empty for a new one ({@code money} writes a sum of money): whether the portfolio keeps it and, when
    * it drops it, its value in the plan (its best lot at the prices of the relaxation) against the
    * discontinue cost it saves, and what a new variant would pay to be introduced instead.
    */
-  public List<String> currentRangeWords(int[] v, PortfolioVerdict verdict) {
+  public List<String> currentRangeWords(int[] v, PortfolioVerdict verdict, DoubleFunction<String> money) {
     for (CurrentVariant c : space.catalog().current()) {
       if (!Arrays.equals(space.parse(c.variant()), v)) {
         continue;
       }
-      String intro = String.format(Locale.ROOT, "%,.2f", terms.introductionCost());
-      String disc = String.format(Locale.ROOT, "%,.2f", c.discontinue());
+      String intro = money.apply(terms.introductionCost());
+      String disc = money.apply(c.discontinue());
       if (verdict.offered()) {
         return List.of("on sale today and kept" + (c.keep() ? " (pinned)" : "") + ": it pays no introduction cost"
             + " (a new variant pays " + intro + "), and dropping it would cost " + disc);
@@ -91,11 +91,11 @@ public final class PortfolioExplainer {
         return List.of("on sale today and dropped: an exclude entry or a rule bars it from the new range;"
             + " dropping it costs " + disc);
       }
-      return List.of(String.format(Locale.ROOT, "on sale today and dropped: its best lot earns %,.2f at the"
-          + " prices of the upper limit on any range's value; keeping it would save the discontinue cost %s, so it is worth %,.2f kept,"
-          + " against the variants introduced elsewhere at %s each; a portfolio keeping it is worth at most %,.2f,"
-          + " and the portfolio found, %,.2f, pays the %s", verdict.lotValue(), disc, verdict.psi(), intro,
-          verdict.boundWith(), verdict.portfolioValue(), disc));
+      return List.of("on sale today and dropped: its best lot earns " + money.apply(verdict.lotValue()) + " at the"
+          + " prices of the upper limit on any range's value; keeping it would save the discontinue cost " + disc
+          + ", so it is worth " + money.apply(verdict.psi()) + " kept, against the variants introduced elsewhere at "
+          + intro + " each; a portfolio keeping it is worth at most " + money.apply(verdict.boundWith())
+          + ", and the portfolio found, " + money.apply(verdict.portfolioValue()) + ", pays the " + disc);
     }
     return List.of();
   }

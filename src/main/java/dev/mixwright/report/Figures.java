@@ -18,7 +18,11 @@ import java.util.Locale;
  *   <li>{@link #price}: 4 decimals — shadow prices and reduced costs, money per unit of a resource
  *       or segment, often small;
  *   <li>{@link #percent}: 3 decimals — gaps; a gap below 0.0005% shows as 0.000%;
- *   <li>{@link #share}: 1 decimal — shares of buyers and attach rates.
+ *   <li>{@link #share}: 1 decimal — shares of buyers and attach rates;
+ *   <li>{@link #weight}: 3 decimals — a scenario's weight, a fraction of 1;
+ *   <li>{@link #attraction}: 4 significant digits — a multinomial logit attraction w, which spans
+ *       orders of magnitude;
+ *   <li>{@link #signedPercent}: 3 decimals with a sign — a relative change.
  * </ul>
  *
  * {@link #qty} is for a figure whose kind the caller does not know (a catalog field in a comparison):
@@ -81,6 +85,24 @@ public final class Figures {
 
   public static String share(double fraction) {
     return Double.isFinite(fraction) ? fixed(100 * fraction, "%.1f") + "%" : "—";
+  }
+
+  public static String weight(double w) {
+    return fixed(w, "%.3f");
+  }
+
+  public static String attraction(double w) {
+    return fixed(w, "%.4g");
+  }
+
+  /** A relative change (a fraction) in percent, with its sign: +1.250%. */
+  public static String signedPercent(double fraction) {
+    return Double.isFinite(fraction) ? fixed(100 * fraction, "%+,.3f") + "%" : "—";
+  }
+
+  /** Money rounded to whole units of the currency, where a line has little room (the live progress line). */
+  public static String wholeMoney(double v) {
+    return fixed(v, "%,.0f");
   }
 
   /** A change in money per unit, with its sign. */

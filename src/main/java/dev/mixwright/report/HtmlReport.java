@@ -577,7 +577,7 @@ public final class HtmlReport {
         i++;
         h.append("<tr><td>").append(i).append("</td><td>").append(variantName(o.options())).append("</td>");
         num(o.price() == null ? "—" : Figures.money(o.price()));
-        num(o.attraction() == null ? "—" : String.format(Locale.ROOT, "%.4g", o.attraction()));
+        num(o.attraction() == null ? "—" : Figures.attraction(o.attraction()));
         num(Figures.units(o.quantity()));
         num(Figures.share(o.share() != null ? o.share() : o.quantity() / buyers));
         num(Figures.money(o.unitMargin()));

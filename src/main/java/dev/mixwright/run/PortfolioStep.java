@@ -7,6 +7,7 @@ import dev.mixwright.portfolio.IntegerStage;
 import dev.mixwright.portfolio.PortfolioListener;
 import dev.mixwright.portfolio.PortfolioOutcome;
 import dev.mixwright.portfolio.PortfolioSettings;
+import dev.mixwright.report.Figures;
 import dev.mixwright.report.PortfolioPending;
 import dev.mixwright.report.PortfolioSection;
 import dev.mixwright.report.ResultWriter;
@@ -113,10 +114,9 @@ final class PortfolioStep {
       }
     }
     stage.warmStart(c);
-    cp.note().accept(String.format(Locale.ROOT, "continuing the integer stage from %s: %d variants in its pool%s",
-        PortfolioCheckpoint.FILE, c.pool().size(), c.incumbent().isEmpty() ? ", no incumbent yet"
-            : ", an incumbent of " + c.incumbent().size() + " variants worth " + String.format(Locale.ROOT, "%.2f",
-                c.value())));
+    cp.note().accept(String.format(Locale.ROOT, "continuing the integer stage from %s: %d candidate variants%s",
+        PortfolioCheckpoint.FILE, c.pool().size(), c.incumbent().isEmpty() ? ", no range found yet"
+            : ", a best range of " + c.incumbent().size() + " variants worth " + Figures.money(c.value())));
   }
 
   private static boolean fits(VariantSpace space, int[] v) {

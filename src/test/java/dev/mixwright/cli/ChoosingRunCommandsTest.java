@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
+import dev.mixwright.report.Figures;
 import dev.mixwright.runfolder.Json;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -121,6 +122,19 @@ class ChoosingRunCommandsTest {
     assertTrue(c.out().contains("share"), c::toString);
     JsonNode j = Json.pretty().readTree(CliRun.of("compare", run.toString(), dearer.toString(), "--json").out());
     assertEquals(2, j.path("choosing").size());
+    // a share is written as every share a person reads (Figures.share), its pair from the JSON
+    JsonNode moved = null;
+    for (JsonNode seg : j.path("choosing")) {
+      for (JsonNode o : seg.path("offers")) {
+        if (moved == null && Math.abs(o.path("shareA").asDouble() - o.path("shareB").asDouble()) > 5e-4) {
+          moved = o;
+        }
+      }
+    }
+    assertTrue(moved != null, j::toString);
+    String pair = Figures.share(moved.path("shareA").asDouble()) + " -> "
+        + String.format("%6s", Figures.share(moved.path("shareB").asDouble()));
+    assertTrue(c.out().lines().anyMatch(l -> l.strip().startsWith("share") && l.contains(pair)), pair + "\n" + c);
   }
 
   @Test
@@ -143,5 +157,14 @@ class ChoosingRunCommandsTest {
       assertEquals(r.path("index").asInt() == best, r.path("best").asBoolean(), r::toString);
     }
     assertTrue(Files.readString(out.resolve("sweep.csv")).lines().findFirst().orElseThrow().endsWith(",best,problem"));
+    // the table a person reads writes shadow prices as Figures.price, the CSV as plain numbers
+    for (JsonNode r : rows) {
+      r.path("resources").fields().forEachRemaining(e -> {
+        double p = e.getValue().path("shadowPrice").asDouble();
+        if (p > 1e-9) {
+          assertTrue(s.out().contains(e.getKey() + " " + Figures.price(p)), s::toString);
+        }
+      });
+    }
   }
 }
