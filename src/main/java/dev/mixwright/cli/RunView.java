@@ -85,6 +85,14 @@ final class RunView {
     }
 
     @Override
+    public void scenarioProgress(String line) {
+      if (Progress.wanted(progress)) {
+        err.println("mixwright: " + line.strip());
+        err.flush();
+      }
+    }
+
+    @Override
     public void resuming(RunSession.ResumePoint p) {
       out.println(String.format(Locale.ROOT, "resuming %s: session %d, %d columns from the earlier sessions%s, after round %d"
               + " (%s so far)%s", p.runDir(), p.session(), p.pooledColumns(),

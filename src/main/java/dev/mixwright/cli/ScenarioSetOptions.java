@@ -1,5 +1,6 @@
 package dev.mixwright.cli;
 
+import dev.mixwright.engine.Engines;
 import dev.mixwright.portfolio.ScenarioStage;
 import dev.mixwright.run.ScenarioSetPlan;
 import java.nio.file.Path;
@@ -22,13 +23,20 @@ final class ScenarioSetOptions {
           + " draws) and report its mean and 5 %% / 95 %% quantiles")
   Path holdOut;
 
+  @Option(names = "--engine", paramLabel = "NAME", defaultValue = Engines.LOCAL,
+      description = "with --scenario-set: what solves each scenario on its own and evaluates the hold-out"
+          + " scenarios: local (this machine's threads, the default) or spark (a Spark cluster, when run through"
+          + " spark-submit with the spark module's jar)")
+  String engine;
+
   /** The set to solve across, or null for a single catalog; the two options that need a set refused without one. */
   ScenarioSetPlan plan() {
-    if (scenarioSet == null && (worstCase || holdOut != null)) {
-      throw new UserError((worstCase ? "--worst-case" : "--hold-out") + " applies to a range across scenarios; add"
-          + " --scenario-set FILE");
+    boolean otherEngine = !engine.equals(Engines.LOCAL);
+    if (scenarioSet == null && (worstCase || holdOut != null || otherEngine)) {
+      throw new UserError((worstCase ? "--worst-case" : holdOut != null ? "--hold-out" : "--engine")
+          + " applies to a range across scenarios; add --scenario-set FILE");
     }
     return scenarioSet == null ? null : new ScenarioSetPlan(scenarioSet,
-        worstCase ? ScenarioStage.Aim.WORST : ScenarioStage.Aim.MEAN, Optional.ofNullable(holdOut));
+        worstCase ? ScenarioStage.Aim.WORST : ScenarioStage.Aim.MEAN, Optional.ofNullable(holdOut), engine);
   }
 }

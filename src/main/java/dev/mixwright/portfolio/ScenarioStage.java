@@ -183,6 +183,30 @@ public final class ScenarioStage {
   }
 
   /**
+   * What the stage takes from a scenario's LP stage: its columns' choices (they seed the pool) and
+   * its shadow prices, π by resource and μ by segment (the first prices; both null when the LP had
+   * none, as when nothing can be sold). Small and serialisable, so that a scenario solved on another
+   * machine hands in no more than this.
+   */
+  public record Start(List<int[]> columns, double[] resourcePrices, double[] segmentPrices)
+      implements java.io.Serializable {
+    private static final long serialVersionUID = 1L;
+
+    public Start {
+      columns = List.copyOf(columns);
+    }
+
+    public static Start of(SolveOutcome lp) {
+      if (lp.status().isInfeasible()) {
+        return new Start(List.of(), null, null);
+      }
+      List<int[]> cols = lp.master().columns().stream().map(Column::choices).toList();
+      boolean priced = lp.duals() != null && lp.duals().known();
+      return new Start(cols, priced ? lp.duals().resource() : null, priced ? lp.duals().segment() : null);
+    }
+  }
+
+  /**
    * As {@link #run(List, List)}, with {@code aloneBounds}: per scenario a bound on its own best range
    * (+∞ for none). No range earns more in scenario k than the best range for k alone, so the
    * wait-and-see value Σ_k p_k aloneBound_k (the worst case: min_k aloneBound_k) bounds the range
@@ -190,6 +214,11 @@ public final class ScenarioStage {
    * recourse problem's optimum; recalled from memory).
    */
   public Outcome run(List<SolveOutcome> lps, List<List<int[]>> alone, double[] aloneBounds) {
+    return choose(lps.stream().map(Start::of).toList(), alone, aloneBounds);
+  }
+
+  /** As {@link #run(List, List, double[])}, from what each scenario's LP stage hands in. */
+  public Outcome choose(List<Start> lps, List<List<int[]>> alone, double[] aloneBounds) {
     clock = new StageClock(settings.timeLimitMs(), stop);
     seed(lps, alone);
     int cap = variantCap();
@@ -217,13 +246,9 @@ public final class ScenarioStage {
   }
 
   /** The pools start with every scenario's LP columns and each scenario's own best range. */
-  private void seed(List<SolveOutcome> lps, List<List<int[]>> alone) {
-    for (SolveOutcome lp : lps) {
-      if (!lp.status().isInfeasible()) {
-        for (Column c : lp.master().columns()) {
-          add(c.choices());
-        }
-      }
+  private void seed(List<Start> lps, List<List<int[]>> alone) {
+    for (Start lp : lps) {
+      lp.columns().forEach(this::add);
     }
     for (List<int[]> range : alone) {
       range.forEach(this::add);
@@ -231,16 +256,16 @@ public final class ScenarioStage {
   }
 
   /** The LP stages' shadow prices, stacked by scenario and scaled to each scenario's weight: {π, μ}. */
-  private double[][] startingPrices(List<SolveOutcome> lps) {
+  private double[][] startingPrices(List<Start> lps) {
     double[] pi0 = new double[scenarios * resourceCount];
     double[] mu0 = new double[scenarios * segmentCount];
     for (int k = 0; k < lps.size(); k++) {
-      SolveOutcome lp = lps.get(k);
-      if (!lp.status().isInfeasible() && lp.duals() != null) {
-        System.arraycopy(lp.duals().resource(), 0, pi0, k * resourceCount, resourceCount);
+      Start lp = lps.get(k);
+      if (lp.resourcePrices() != null) {
+        System.arraycopy(lp.resourcePrices(), 0, pi0, k * resourceCount, resourceCount);
         for (int s = 0; s < segmentCount; s++) {
           // the LP stage's margins are unweighted: scale its prices to the scenario's weight
-          mu0[k * segmentCount + s] = Math.max(0.0, lp.duals().segment()[s]) * weight[k];
+          mu0[k * segmentCount + s] = Math.max(0.0, lp.segmentPrices()[s]) * weight[k];
         }
         for (int r = 0; r < resourceCount; r++) {
           pi0[k * resourceCount + r] *= weight[k];

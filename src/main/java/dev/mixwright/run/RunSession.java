@@ -64,6 +64,12 @@ public final class RunSession {
     /** Something a person should know that is not an error (a torn line dropped, a file gone). */
     default void note(String text) {}
 
+    /**
+     * A line of progress of a scenario set's per-scenario work on its engine: scenarios done, failed
+     * and left with the time a scenario, after each point and at the end.
+     */
+    default void scenarioProgress(String line) {}
+
     /** A resume is about to run its loop from this point. */
     default void resuming(ResumePoint p) {}
   }
@@ -403,7 +409,7 @@ public final class RunSession {
       }
       ResultWriter.write(folder.dir(), lpResult.withPortfolioPending(PortfolioPending.RUNNING));
       RunResult result = ScenarioSetStep.attach(set, r.pricer(), r.settings(), r.portfolio().settings(), lpResult,
-          startNanos, stop::get, watcher::note);
+          startNanos, stop::get, watcher);
       return stop.get() ? result.withPortfolioPending(PortfolioPending.INTERRUPTED) : result;
     };
   }

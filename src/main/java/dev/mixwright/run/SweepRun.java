@@ -78,7 +78,13 @@ public final class SweepRun {
     if (r.sweepFile().isPresent() && !r.grid().isEmpty()) {
       throw new InputError("give the grid either with --grid or in the --sweep file, not both");
     }
-    Engine engine = engine(r.engine());
+    try (Engine engine = engine(r.engine())) {
+      return run(r, engine, stop, watcher);
+    }
+  }
+
+  private static Outcome run(Request r, Engine engine, AtomicBoolean stop, Watcher watcher) throws IOException,
+      CatalogException {
     CatalogLoader.Hashed read = Inputs.hashedCatalog(r.catalogFile(), r.tables());
     Catalog catalog = read.catalog();
     SweepPlan plan;
@@ -141,7 +147,7 @@ public final class SweepRun {
   }
 
   /** The engine a person asked for; one that is not on the class path is bad input. */
-  private static Engine engine(String name) {
+  static Engine engine(String name) {
     return Engines.find(name).orElseThrow(() -> new InputError("no engine named '" + name + "' in this program"
         + " (it has " + String.join(", ", Engines.names()) + ")"
         + (name.equalsIgnoreCase("spark") ? "; the Spark engine runs in the jar of the spark module through"

@@ -8,6 +8,7 @@ import dev.mixwright.catalog.CatalogWriter;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.Sweep;
+import dev.mixwright.engine.Bytes;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.PointWork;
 import dev.mixwright.portfolio.IntegerStage;
@@ -23,8 +24,6 @@ import java.io.ByteArrayOutputStream;
 import java.io.DataInputStream;
 import java.io.DataOutputStream;
 import java.io.IOException;
-import java.io.ObjectInputStream;
-import java.io.ObjectOutputStream;
 import java.io.Serializable;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
@@ -59,7 +58,7 @@ public final class SweepWork implements PointWork {
    */
   public static Job job(Catalog catalog, SweepPlan plan, SolveSettings settings, PricerChoice pricer, boolean warmStart,
       PortfolioSettings integerStage, int chain, Set<Integer> done) {
-    byte[] shared = serialise(new Shared(CatalogWriter.toJson(catalog), plan, settings, pricer, warmStart,
+    byte[] shared = Bytes.of(new Shared(CatalogWriter.toJson(catalog), plan, settings, pricer, warmStart,
         integerStage));
     List<byte[]> points = new ArrayList<>();
     for (int[] c : chains(plan.solveOrder(), chain, done)) {
@@ -104,7 +103,7 @@ public final class SweepWork implements PointWork {
 
   @Override
   public byte[] compute(byte[] sharedBytes, byte[] chainBytes) throws Exception {
-    Shared s = (Shared) deserialise(sharedBytes);
+    Shared s = (Shared) Bytes.read(sharedBytes);
     Catalog catalog = CatalogLoader.parse(s.catalogJson(), "catalog.json", null);
     Set<Integer> chain = new HashSet<>();
     for (int i : readIndices(chainBytes)) {
@@ -166,29 +165,6 @@ public final class SweepWork implements PointWork {
       return c;
     } catch (IOException e) {
       throw new UncheckedIOException(e);
-    }
-  }
-
-  private static byte[] serialise(Object o) {
-    ByteArrayOutputStream b = new ByteArrayOutputStream();
-    try (ObjectOutputStream out = new ObjectOutputStream(b)) {
-      out.writeObject(o);
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
-    return b.toByteArray();
-  }
-
-  private static Object deserialise(byte[] bytes) throws IOException, ClassNotFoundException {
-    try (ObjectInputStream in = new ObjectInputStream(new ByteArrayInputStream(bytes)) {
-      @Override
-      protected Class<?> resolveClass(java.io.ObjectStreamClass desc) throws IOException, ClassNotFoundException {
-        // On a Spark executor the project's classes sit on the task's loader, not the system one.
-        ClassLoader l = Thread.currentThread().getContextClassLoader();
-        return l == null ? super.resolveClass(desc) : Class.forName(desc.getName(), false, l);
-      }
-    }) {
-      return in.readObject();
     }
   }
 }

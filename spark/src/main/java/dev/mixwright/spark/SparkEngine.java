@@ -34,7 +34,9 @@ import scala.runtime.BoxedUnit;
  * as it arrives; a retried or speculative second copy of a point that was already done is dropped.
  * Uses the active Spark context (a test's, spark-shell's) and otherwise starts one: on the master
  * that {@code spark.master} names (spark-submit's {@code --master}, or {@code -Dspark.master=...}), or
- * in local mode on every core with 4 tries a task.
+ * in local mode on every core with 4 tries a task. A context it started serves every job of the
+ * driver (a scenario set runs two: the scenarios' own solves, then the hold-out check) and is
+ * stopped by {@link #close}.
  */
 public final class SparkEngine implements Engine {
   static final String NAME = "spark";
@@ -42,6 +44,9 @@ public final class SparkEngine implements Engine {
   static final int LOCAL_TRIES = 4;
   /** Set on the conf of a context this engine starts, so it knows to stop it. */
   private static final String STARTED_HERE = "spark.mixwright.startedByEngine";
+
+  /** The context this engine started, stopped by {@link #close}; null while it uses none of its own. */
+  private SparkContext started;
 
   @Override
   public String name() {
@@ -69,10 +74,12 @@ public final class SparkEngine implements Engine {
       return 0;
     }
     // A context that was running before (spark-shell's, a test's) is used and left running; one this
-    // engine starts, it stops after the job, before the JVM exits, so that a local cluster's workers
-    // are not left relaunching executors during the shutdown.
+    // engine starts, it stops on close, before the JVM exits, so that a local cluster's workers are not
+    // left relaunching executors during the shutdown.
     SparkContext sc = SparkContext.getOrCreate(conf());
-    boolean ours = sc.getConf().contains(STARTED_HERE);
+    if (sc.getConf().contains(STARTED_HERE)) {
+      started = sc;
+    }
     LinkedBlockingQueue<Event> events = new LinkedBlockingQueue<>();
     SparkListener listener = new SparkListener() {
       @Override
@@ -109,9 +116,14 @@ public final class SparkEngine implements Engine {
       return drain(n, events, watch, stop, future);
     } finally {
       sc.removeSparkListener(listener);
-      if (ours) {
-        sc.stop();
-      }
+    }
+  }
+
+  @Override
+  public void close() {
+    if (started != null) {
+      started.stop();
+      started = null;
     }
   }
 

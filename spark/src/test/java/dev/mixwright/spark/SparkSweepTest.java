@@ -33,7 +33,6 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicBoolean;
-import org.apache.spark.SparkConf;
 import org.apache.spark.SparkContext;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
@@ -59,14 +58,7 @@ class SparkSweepTest {
 
   @BeforeAll
   static void startCluster() throws Exception {
-    // local-cluster launches each executor through SPARK_HOME's launcher, which wants a jars folder;
-    // the classes themselves come from this JVM's class path (the pom sets SPARK_HOME here).
-    Files.createDirectories(Path.of(System.getenv("SPARK_HOME"), "jars"));
-    SparkConf conf = new SparkConf().setAppName("mixwright test").setMaster("local-cluster[2,1,1024]")
-        .set("spark.executor.memory", "512m")
-        .set("spark.executor.extraClassPath", System.getProperty("java.class.path"))
-        .set("spark.ui.enabled", "false");
-    spark = SparkContext.getOrCreate(conf);
+    spark = LocalCluster.start();
   }
 
   @AfterAll
