@@ -326,7 +326,7 @@ final class BenchCommand extends SubCommand {
     long t0 = System.nanoTime();
     double[] capacity = capacities(space);
     double[] demand = demands(space);
-    try (FullLp lp = new FullLp(capacity, demand, true)) {
+    try (FullLp lp = new FullLp(capacity, demand, FullLp.Solver.GLOP_DUAL)) {
       VariantEnumerator en = new VariantEnumerator(space);
       double[] use = new double[space.resourceCount()];
       for (int s = 0; s < space.segmentCount(); s++) {
