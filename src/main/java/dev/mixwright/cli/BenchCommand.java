@@ -49,7 +49,8 @@ import picocli.CommandLine.Option;
     description = {
       "Measures column generation against solving the whole LP with every column listed.",
       "Runs on generated catalogs and prints the tables of docs/performance.md (Markdown).",
-      "Takes minutes; --quick runs the small sizes only."
+      "Takes minutes; --quick runs the small sizes only and gives each family's solve 10 s.",
+      "Ends with the generator's families (--families): check, time to round 1, column generation and the count."
     })
 final class BenchCommand extends SubCommand {
   @Option(names = "--full-columns", split = ",", paramLabel = "E",
@@ -65,6 +66,14 @@ final class BenchCommand extends SubCommand {
 
   @Option(names = "--skip-ablation", description = "leave out the runs with each acceleration on and off")
   boolean skipAblation;
+
+  @Option(names = "--families", split = ",", paramLabel = "NAME",
+      description = "families of the generator for the section on check, round 1 and the count (default: all seven;"
+          + " 'none' leaves the section out)")
+  List<String> families;
+
+  @Option(names = "--only-families", description = "run only the section on the generator's families")
+  boolean onlyFamilies;
 
   @Option(names = "--seed", paramLabel = "X", defaultValue = "1", description = "seed of the generated catalogs (default ${DEFAULT-VALUE})")
   long seed;
@@ -94,6 +103,10 @@ final class BenchCommand extends SubCommand {
     }
     List<Integer> full = fullColumns != null ? fullColumns : quick ? List.of(4, 5) : List.of(4, 5, 6);
     List<Integer> spaces = spaceSizes != null ? spaceSizes : quick ? List.of(9) : List.of(9, 15, 25);
+    List<CatalogGenerator.Family> chosen = families();
+    if (onlyFamilies && chosen.isEmpty()) {
+      throw new UserError("--only-families with --families none leaves nothing to measure; name a family");
+    }
     Natives.load();
     Runtime rt = Runtime.getRuntime();
     line("Machine: " + rt.availableProcessors() + " cores, JVM max heap " + mib(rt.maxMemory()) + " MiB, "
@@ -101,7 +114,40 @@ final class BenchCommand extends SubCommand {
         + System.getProperty("os.name") + " " + System.getProperty("os.arch") + ".");
     line("Settings of column generation: " + describe(SolveSettings.defaults()) + ", pricer bnb.");
     line("");
+    if (!onlyFamilies) {
+      classicSections(full, spaces);
+    }
+    if (!chosen.isEmpty()) {
+      new FamilyBench(this::line, this::note, seed, quick ? FamilyBench.Limits.QUICK : FamilyBench.Limits.FULL)
+          .run(chosen);
+    }
+    if (outFile != null) {
+      AtomicFiles.write(outFile, report.toString());
+    }
+    return ExitCodes.OK;
+  }
 
+  /** The families named by --families (all seven when not given, none for 'none'). */
+  private List<CatalogGenerator.Family> families() {
+    if (families == null) {
+      return List.of(CatalogGenerator.Family.values());
+    }
+    if (families.size() == 1 && families.get(0).trim().equalsIgnoreCase("none")) {
+      return List.of();
+    }
+    List<CatalogGenerator.Family> out = new ArrayList<>();
+    for (String w : families) {
+      try {
+        out.add(CatalogGenerator.Family.of(w.trim()));
+      } catch (IllegalArgumentException e) {
+        throw new UserError("--families: " + e.getMessage() + ", or none");
+      }
+    }
+    return out;
+  }
+
+  /** The sections that came before the families: full LP, pricers, choosing segments, ablation. */
+  private void classicSections(List<Integer> full, List<Integer> spaces) {
     List<Instance> instances = new ArrayList<>();
     for (int e : full) {
       instances.add(byColumns(e));
@@ -179,10 +225,6 @@ final class BenchCommand extends SubCommand {
       subjects.addAll(large);
       ablation(subjects);
     }
-    if (outFile != null) {
-      AtomicFiles.write(outFile, report.toString());
-    }
-    return ExitCodes.OK;
   }
 
   /** Wall time allowed to each run of a choosing catalog: the entry rules measured may not finish. */
@@ -326,7 +368,7 @@ final class BenchCommand extends SubCommand {
     long t0 = System.nanoTime();
     double[] capacity = capacities(space);
     double[] demand = demands(space);
-    try (FullLp lp = new FullLp(capacity, demand, true)) {
+    try (FullLp lp = new FullLp(capacity, demand, FullLp.Solver.GLOP_DUAL)) {
       VariantEnumerator en = new VariantEnumerator(space);
       double[] use = new double[space.resourceCount()];
       for (int s = 0; s < space.segmentCount(); s++) {

@@ -4,8 +4,9 @@ import com.google.ortools.linearsolver.MPSolver;
 import com.google.ortools.linearsolver.MPVariable;
 
 /**
- * The whole master LP with every column written out, solved once on GLOP: the approach a planner
- * tries first, kept as the benchmark's baseline (same rows as {@link RestrictedMaster}).
+ * The whole master LP with every column written out, solved once: the approach a planner tries
+ * first, kept as the benchmark's baseline (same rows as {@link RestrictedMaster}), on GLOP or on
+ * HiGHS (both through MPSolver; see {@link Solver}).
  *
  * <p>GLOP runs with its dual simplex ({@code use_dual_simplex:true}), which was far faster than the
  * default primal simplex on this LP in measurement (see docs/performance.md): with 0 ≤ x ≤ u and
@@ -16,21 +17,63 @@ import com.google.ortools.linearsolver.MPVariable;
  */
 public final class FullLp implements AutoCloseable {
   private final Rows rows;
+  private final Solver solver;
   private int columns;
   private LpStatus lastStatus;
 
-  /** The outcome of the solve: status, objective, simplex iterations and the row duals. */
+  /**
+   * The outcome of the solve: status, objective, simplex iterations and the row duals (empty when
+   * the solve was not optimal or the solver's duals are not read, see {@link Solver#readsDuals}).
+   */
   public record Result(LpStatus status, double objective, long simplexIterations, double[] resourceDual,
       double[] segmentDual) {}
 
-  /**
-   * @param dualSimplex true for GLOP's dual simplex (the baseline's best setting), false for its
-   *     default
-   */
-  public FullLp(double[] capacity, double[] demand, boolean dualSimplex) {
-    rows = new Rows("GLOP", capacity, demand);
-    if (dualSimplex) {
-      rows.solver.setSolverSpecificParametersAsString("use_dual_simplex:true");
+  /** The LP solver that solves the full LP, with its setting. */
+  public enum Solver {
+    /** GLOP with its dual simplex: the baseline's best GLOP setting. */
+    GLOP_DUAL("GLOP", "use_dual_simplex:true"),
+    /** GLOP with its default (primal) simplex. */
+    GLOP("GLOP", ""),
+    /**
+     * HiGHS through MPSolver with its defaults (it picks its own simplex and presolve). In OR-Tools
+     * 9.14 it ignores MPSolver's time limit, so it is only handed LPs it can finish, and a row's
+     * dual value reads back the row's activity (measured: max 2x + y, x + y ≤ 3 gives 3.0 where
+     * GLOP gives the true 2.0), so its duals are not returned. It prints a banner on stdout that
+     * no MPSolver setting silences.
+     */
+    HIGHS("HIGHS", "", false);
+
+    private final String id;
+    private final String parameters;
+    private final boolean duals;
+
+    Solver(String id, String parameters) {
+      this(id, parameters, true);
+    }
+
+    Solver(String id, String parameters, boolean duals) {
+      this.id = id;
+      this.parameters = parameters;
+      this.duals = duals;
+    }
+
+    /** Whether the row duals it returns are the LP's dual values. */
+    public boolean readsDuals() {
+      return duals;
+    }
+
+    /** The name a table prints. */
+    public String word() {
+      return this == GLOP_DUAL ? "GLOP (dual simplex)" : this == GLOP ? "GLOP" : "HiGHS";
+    }
+  }
+
+  /** @param solver which LP solver solves it */
+  public FullLp(double[] capacity, double[] demand, Solver solver) {
+    this.solver = solver;
+    rows = new Rows(solver.id, capacity, demand);
+    if (!solver.parameters.isEmpty()) {
+      rows.solver.setSolverSpecificParametersAsString(solver.parameters);
     }
   }
 
@@ -45,6 +88,12 @@ public final class FullLp implements AutoCloseable {
   }
 
   public Result solve() {
+    if (columns == 0 && !solver.readsDuals()) {
+      // HiGHS ends an LP without columns with a status (99) MPSolver's Java enum does not know, and
+      // reading that solver afterwards aborts the JVM; nothing sold is the optimum, at duals 0
+      lastStatus = LpStatus.OPTIMAL;
+      return new Result(LpStatus.OPTIMAL, 0, 0, new double[0], new double[0]);
+    }
     MPSolver.ResultStatus rs = rows.solver.solve();
     long iters = rows.solver.iterations();
     lastStatus = Rows.lpStatus(rs);
@@ -53,6 +102,9 @@ public final class FullLp implements AutoCloseable {
     }
     if (!lastStatus.isOptimal()) {
       return new Result(lastStatus, Double.NaN, iters, new double[0], new double[0]);
+    }
+    if (!solver.readsDuals()) {
+      return new Result(LpStatus.OPTIMAL, rows.objective.value(), iters, new double[0], new double[0]);
     }
     return new Result(LpStatus.OPTIMAL, rows.objective.value(), iters, rows.resourceDuals(),
         rows.segmentDuals());
