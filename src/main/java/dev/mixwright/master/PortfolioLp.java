@@ -36,6 +36,9 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   /** Stay-out x_s0 per choosing segment (null for a fixed one), and the attraction rows to verify. */
   private final MPVariable[] stay;
   private final List<double[]> attractions = new ArrayList<>();
+  private final List<MPConstraint> attractionRows = new ArrayList<>();
+  /** Per block, the index into {@link #attractionRows} of each entry's row (−1 for none); grown lazily. */
+  private final List<int[]> attractionOf = new ArrayList<>();
 
   /** The worst scenario's rows ({@link #worstCase}), null while the objective is the margin itself. */
   private MPConstraint[] worstRows;
@@ -69,8 +72,44 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
     if (stay[s] == null) {
       throw new IllegalArgumentException("segment " + s + " does not choose");
     }
-    rows.addAttractionRow("w" + i + "_" + s, b.x()[k], stay[s], attraction);
+    MPConstraint row = rows.addAttractionRow("w" + i + "_" + s, b.x()[k], stay[s], attraction);
     attractions.add(new double[] {i, k, attraction});
+    while (attractionOf.size() <= i) {
+      int[] none = new int[blocks.get(attractionOf.size()).segments().length];
+      java.util.Arrays.fill(none, -1);
+      attractionOf.add(none);
+    }
+    attractionOf.get(i)[k] = attractionRows.size();
+    attractionRows.add(row);
+  }
+
+  /**
+   * After an optimal solve, β ≥ 0 of the attraction rows of block i, aligned with its segments (0
+   * where the entry has none: a fixed segment, or no row added).
+   */
+  public double[] attractionDuals(int i) {
+    double[] beta = new double[blocks.get(i).segments().length];
+    if (i < attractionOf.size()) {
+      int[] at = attractionOf.get(i);
+      for (int k = 0; k < beta.length; k++) {
+        beta[k] = at[k] < 0 ? 0.0 : Rows.nonNegativeDual(attractionRows.get(at[k]));
+      }
+    }
+    return beta;
+  }
+
+  /**
+   * After an optimal solve, per segment row Σ_j w_j·β_j over its attraction rows: the price the
+   * attraction rows put on a buyer who stays out (0 for a segment that does not choose).
+   */
+  public double[] stayOutDuals() {
+    double[] out = new double[demand.length];
+    for (int j = 0; j < attractions.size(); j++) {
+      double[] a = attractions.get(j);
+      int s = blocks.get((int) a[0]).segments()[(int) a[1]];
+      out[s] += a[2] * Rows.nonNegativeDual(attractionRows.get(j));
+    }
+    return out;
   }
 
   /**

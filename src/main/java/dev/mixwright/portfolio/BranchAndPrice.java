@@ -33,7 +33,9 @@ import java.util.concurrent.atomic.AtomicReference;
  * </pre>
  *
  * valid at any prices π, μ ≥ 0 and any λ ≥ max(0, rest), because the tooling of the options of
- * offered variants is certainly paid. The free variants are the pool's undecided ones and the whole
+ * offered variants is certainly paid. With segments that choose, the master's variants are valued
+ * with their own attraction rows' duals and caps, and the constant gains the stay-out's term
+ * ({@link ChoicePrices}), so at a node's optimal duals the bound meets the node's objective. The free variants are the pool's undecided ones and the whole
  * space outside the pool; the pricer lists the latter above the threshold and bounds the rest, so
  * bounds hold while column generation is still running, and a node is pruned as soon as its bound
  * falls to the incumbent (plus the gap tolerance). At a solved node, reduced-cost fixing bars every
@@ -554,12 +556,13 @@ final class BranchAndPrice {
       VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
           pool.keysBelow(have), deadlineNanos);
       PricingOutcome out = pricer.price(q);
-      double constant = terms.rowValue(pi, mu) + cp.constant() - offeredTooling;
+      ChoicePrices beta = ChoicePrices.of(lp, have);
+      double constant = terms.rowValue(pi, mu) + beta.constant(terms, mu) + cp.constant() - offeredTooling;
       double[] psi = new double[have];
       double[] listed = new double[have + out.found().size()];
       int n = 0;
       for (int i = 0; i < have; i++) {
-        psi[i] = VariantPricer.value(space, terms, pool.get(i).choices(), q);
+        psi[i] = beta.psi(space.offsets(), pool.get(i), i, pi, mu, q.charge(), q.penalty(), terms.minLot());
         if (node.isOffered(i)) {
           constant += psi[i];
         } else if (!node.isBarred(i)) {

@@ -22,7 +22,8 @@ import java.util.List;
  *   to {1} × P_v, P_v = {0 ≤ x ≤ u, Σ x ≥ L}, so the maximum is max(0, ψ(v) − λ) with
  *     ψ(v) = g(d(v)) − F,   g(d) = max_{x ∈ P_v} Σ_s d_s x_s          ({@link LotValue})
  *   and the pricing problem is max_v ψ(v) over the whole space ({@link VariantPricer}, exact).
- * Bound (valid for any π, μ ≥ 0, so for every round): {@link LagrangianPortfolioBound}.
+ * Bound (valid for any π, μ ≥ 0, so for every round): {@link LagrangianPortfolioBound}, with the
+ *   pool's variants valued at their attraction rows' duals β ({@link ChoicePrices}).
  * </pre>
  *
  * The Lagrangian subproblem (per variant, over conv({0} ∪ {1} × P_v)) has the integrality property,
@@ -62,20 +63,22 @@ final class Relaxation {
   /** A bound and the pricing behind it. */
   record Probe(LagrangianPortfolioBound bound, List<PricedVariant> found, boolean exact) {}
 
-  /** The bound at prices (π, μ): one pricing call for the k best outside the pool. */
-  Probe bound(Pool pool, double[] pi, double[] mu, int k) {
+  /**
+   * The bound at prices (π, μ) and the attraction rows' β ({@link ChoicePrices}): one pricing call for
+   * the k best outside the pool.
+   */
+  Probe bound(Pool pool, double[] pi, double[] mu, ChoicePrices beta, int k) {
     VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost(), null, 0.0, k, pool.keys(), deadlineNanos);
     PricingOutcome out = pricer.price(q);
     double[] listed = new double[pool.size() + out.found().size()];
     for (int i = 0; i < pool.size(); i++) {
-      // the query charges F; a current variant carries its own fixed cost (CurrentRange)
-      listed[i] = VariantPricer.value(space, terms, pool.get(i).choices(), q) + terms.introductionCost()
-          - pool.get(i).fixedCost();
+      // a current variant carries its own fixed cost (CurrentRange)
+      listed[i] = beta.psi(space.offsets(), pool.get(i), i, pi, mu, pool.get(i).fixedCost(), null, terms.minLot());
     }
     for (int i = 0; i < out.found().size(); i++) {
       listed[pool.size() + i] = out.found().get(i).reducedCost();
     }
-    double constant = terms.rowValue(pi, mu) + pool.current().constant();
+    double constant = terms.rowValue(pi, mu) + beta.constant(terms, mu) + pool.current().constant();
     return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone()),
         out.found(), out.exact());
   }
@@ -83,7 +86,7 @@ final class Relaxation {
   RelaxationResult run(Pool pool, double[] lpPi, double[] lpMu) {
     long t0 = clock.elapsedMs();
     int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
-    LagrangianPortfolioBound best = bound(pool, lpPi, lpMu, k).bound();
+    LagrangianPortfolioBound best = bound(pool, lpPi, lpMu, ChoicePrices.none(terms.segmentCount()), k).bound();
     double lpPriceBound = best.value();
     try (PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap)) {
       pool.choice().enter(lp);
@@ -101,7 +104,7 @@ final class Relaxation {
           throw new IllegalStateException("the relaxed portfolio master ended " + sol.status()
               + "; it is feasible and bounded by construction, so this is a solver fault");
         }
-        Probe probe = bound(pool, sol.resourceDual(), sol.segmentDual(), k);
+        Probe probe = bound(pool, sol.resourceDual(), sol.segmentDual(), ChoicePrices.of(lp, pool.size()), k);
         if (probe.bound().value() < best.value()) {
           best = probe.bound();
         }

@@ -1,0 +1,80 @@
+package dev.mixwright.portfolio;
+
+import dev.mixwright.master.PortfolioLp;
+
+/**
+ * The duals of a relaxed master's attraction rows, for a Lagrangian bound that keeps what the master
+ * knows about segments that choose. Relax, besides resources (π ≥ 0) and segment rows (μ), every
+ * attraction row x_sv − w_sv·x_s0 ≤ 0 of a master variant with its β_sv ≥ 0 (Gallego, Ratliff &amp;
+ * Shebalov 2015, Operations Research 63(1), the sales-based rows; the Lagrangian argument of
+ * Geoffrion 1974, Mathematical Programming Study 2). For any portfolio S and its sales,
+ *
+ * <pre>
+ *   value(S) ≤ π·b + Σ_s μ_s·D_s + Σ_{s chooses} D_s·(Σ_v w_sv β_sv − μ_s)⁺ + Σ_{v ∈ S} ψ_β(v),
+ *   ψ_β(v) = max { Σ_s (m_vs − π·a_v − μ_s − β_sv) x_s : 0 ≤ x_s ≤ cap_vs, Σ_s x_s ≥ L } − F_v,
+ * </pre>
+ *
+ * because the buyers row holds with equality (D_s = buyers_s, so μ_s may be any number), each
+ * relaxed attraction row is ≤ 0 (β ≥ 0), and the stay-out x_s0 ∈ [0, buyers_s] is left with the
+ * coefficient Σ_v w_sv β_sv − μ_s. The per-variant cap may be any valid cap: for a master variant its
+ * own cap_vs = min(maxShare·D_s, buyers_s·w/(1+w)) ({@link ChoiceRows#cap}, valid whatever else is
+ * offered); for a variant outside the master β_sv = 0 and the pricer's looser per-segment bound
+ * (buyers_s) is an upper bound on its ψ_β, since {@link LotValue} is nondecreasing in every reduced
+ * cost and in every cap. At the master's optimal duals this is LP duality on the master's own rows,
+ * so over the pool the bound meets the master's objective; with β = 0 (the old bound) a variant of
+ * a choosing segment was valued as if it could take all the segment's buyers. Cost: O(pool · S · R)
+ * per bound.
+ */
+record ChoicePrices(double[][] beta, double[] stayOut) {
+
+  /** No attraction rows priced: β = 0 (the bound of docs/portfolio.md, step 1). */
+  static ChoicePrices none(int segments) {
+    return new ChoicePrices(new double[0][], new double[segments]);
+  }
+
+  /** β of the first {@code blocks} blocks of an optimally solved master (block i = pool variant i). */
+  static ChoicePrices of(PortfolioLp lp, int blocks) {
+    double[][] beta = new double[blocks][];
+    for (int i = 0; i < blocks; i++) {
+      beta[i] = lp.attractionDuals(i);
+    }
+    return new ChoicePrices(beta, lp.stayOutDuals());
+  }
+
+  /** Σ over choosing segments of D_s·(Σ_v w_sv β_sv − μ_s)⁺: the stay-out's share of the constant. */
+  double constant(PortfolioTerms terms, double[] mu) {
+    double c = 0;
+    for (int s = 0; s < stayOut.length; s++) {
+      if (stayOut[s] > mu[s]) {
+        c += terms.demand()[s] * (stayOut[s] - mu[s]);
+      }
+    }
+    return c;
+  }
+
+  /**
+   * ψ_β of pool variant {@code i} (its own caps, its β when the master holds it), less {@code
+   * charge} and the penalties of its choices ({@code penalty} null for none); −∞ when its lot cannot
+   * be sold.
+   */
+  double psi(int[] offsets, PoolVariant v, int i, double[] pi, double[] mu, double charge, double[] penalty,
+      double minLot) {
+    int n = v.segments().length;
+    double[] d = new double[n];
+    double piA = 0;
+    for (int r = 0; r < pi.length; r++) {
+      piA += pi[r] * v.use()[r];
+    }
+    double[] b = i < beta.length ? beta[i] : null;
+    for (int k = 0; k < n; k++) {
+      d[k] = v.margin()[k] - piA - mu[v.segments()[k]] - (b == null ? 0.0 : b[k]);
+    }
+    double p = 0;
+    if (penalty != null) {
+      for (int g = 0; g < v.choices().length; g++) {
+        p += penalty[offsets[g] + v.choices()[g]];
+      }
+    }
+    return LotValue.best(d, v.upper(), minLot) - charge - p;
+  }
+}
