@@ -22,7 +22,8 @@ public final class VariantCodes {
 
   private VariantCodes(Map<String, String> codeByKey, List<Map<String, String>> variants) {
     this.codeByKey = codeByKey;
-    this.variants = variants;
+    // copied once: callers index it in loops, and a copy per call made a table of n rows cost n²
+    this.variants = List.copyOf(variants);
   }
 
   public static VariantCodes of(RunResult result) {
@@ -69,7 +70,7 @@ public final class VariantCodes {
 
   /** The variants in code order: the first is V01. */
   public List<Map<String, String>> variants() {
-    return List.copyOf(variants);
+    return variants;
   }
 
   public String codeAt(int i) {

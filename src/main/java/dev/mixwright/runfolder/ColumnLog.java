@@ -22,10 +22,13 @@ import java.util.List;
  * pool: a line holds what rebuilds its column (segment and options; margin and use are recomputed
  * from the catalog), so {@code mixwright resume} can refill the master from it.
  *
- * <p>Each line is written and forced to disk before the next ({@link FileChannel#force}), so a
- * crash at any moment loses at most the line being written. Each line ends with a CRC-32C of the
- * text before it, so a line cut short or garbled by the crash is recognised and dropped by {@link
- * ColumnLogReader}, never misread. Fields: session, iteration, segment, options, reducedCost,
+ * <p>The lines of one round's columns are written together and forced to disk once ({@link
+ * FileChannel#force}) before the listener returns, so everything the loop announced is on disk
+ * before the round's state is, and a crash loses at most the round being written (its columns are
+ * found again by pricing). Forcing each line on its own cost one disk flush per column: measured, 61
+ * of 78 s of a solve that added 22,866 columns of segments that choose. Each line ends with a CRC-32C
+ * of the text before it, so a line cut short or garbled by the crash is recognised and dropped by
+ * {@link ColumnLogReader}, never misread. Fields: session, iteration, segment, options, reducedCost,
  * margin, objectiveAfter, boundAfter, elapsedMs, crc.
  */
 public final class ColumnLog implements ColGenListener, AutoCloseable {
@@ -75,15 +78,20 @@ public final class ColumnLog implements ColGenListener, AutoCloseable {
 
   @Override
   public void columnsAdded(List<Column> columns, double objectiveAfter, double boundAfter, long elapsedMs) {
+    if (columns.isEmpty()) {
+      return;
+    }
     try {
+      StringBuilder text = new StringBuilder(columns.size() * 256);
       for (Column c : columns) {
-        ByteBuffer buf = ByteBuffer.wrap(line(c, objectiveAfter, boundAfter, elapsedMs).getBytes(StandardCharsets.UTF_8));
-        WriteFaults.check(file);
-        while (buf.hasRemaining()) {
-          channel.write(buf);
-        }
-        channel.force(false);
+        text.append(line(c, objectiveAfter, boundAfter, elapsedMs));
       }
+      ByteBuffer buf = ByteBuffer.wrap(text.toString().getBytes(StandardCharsets.UTF_8));
+      WriteFaults.check(file);
+      while (buf.hasRemaining()) {
+        channel.write(buf);
+      }
+      channel.force(false);
     } catch (JsonProcessingException e) {
       throw new UncheckedIOException(e);
     } catch (IOException e) {
