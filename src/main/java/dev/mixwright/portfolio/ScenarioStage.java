@@ -69,8 +69,8 @@ public final class ScenarioStage {
   private StageClock clock;
 
   /**
-   * @param spaces one per scenario, of one catalog's structure (groups, rules, segments) with the
-   *     scenario's figures; none with a current range
+   * @param spaces one per scenario, of one catalog's structure (groups, rules, segments, the range on
+   *     sale today) with the scenario's figures
    * @param weights normalised, aligned with {@code spaces}
    */
   public ScenarioStage(List<VariantSpace> spaces, double[] weights, Aim aim, PortfolioSettings settings) {
@@ -86,9 +86,6 @@ public final class ScenarioStage {
     this.segmentCount = spaces.get(0).segmentCount();
     List<PortfolioTerms> t = new ArrayList<>();
     for (VariantSpace s : spaces) {
-      if (!s.catalog().current().isEmpty()) {
-        throw new IllegalArgumentException("a range across scenarios does not take a current range");
-      }
       t.add(PortfolioTerms.of(s));
     }
     this.terms = List.copyOf(t);
@@ -136,7 +133,8 @@ public final class ScenarioStage {
   /** The scenarios' plans of one range; null when some scenario cannot meet its lots. */
   private record Evaluated(int[] members, Plan[] plans, double[] values, double objective) {}
 
-  private Evaluated evaluate(int[] members) {
+  private Evaluated evaluate(int[] chosen) {
+    int[] members = withPinned(chosen);
     Plan[] plans = new Plan[scenarios];
     double[] values = new double[scenarios];
     for (int k = 0; k < scenarios; k++) {
@@ -147,6 +145,17 @@ public final class ScenarioStage {
       values[k] = plans[k].value();
     }
     return new Evaluated(members.clone(), plans, values, objective(values));
+  }
+
+  /** The range with today's pinned variants in it (they are never dropped), each once, in pool order. */
+  private int[] withPinned(int[] chosen) {
+    return java.util.stream.IntStream.concat(Arrays.stream(chosen), Arrays.stream(pools.get(0).pinned())).distinct()
+        .sorted().toArray();
+  }
+
+  /** −Σ disc over today's unpinned variants: what every range's value holds besides its own terms. */
+  private double currentConstant() {
+    return pools.get(0).current().constant();
   }
 
   private boolean add(int[] v) {
@@ -220,7 +229,17 @@ public final class ScenarioStage {
   /** As {@link #run(List, List, double[])}, from what each scenario's LP stage hands in. */
   public Outcome choose(List<Start> lps, List<List<int[]>> alone, double[] aloneBounds) {
     clock = new StageClock(settings.timeLimitMs(), stop);
+    // today's variants join first, so the pricer (which skips the pool and charges F) prices new
+    // variants only, and every bound sees a current one with its own fixed cost (CurrentRange)
+    CurrentRange today = pools.get(0).current();
+    for (int i = 0; i < today.size(); i++) {
+      add(today.variant(i));
+    }
     seed(lps, alone);
+    if (evaluate(new int[0]) == null) {
+      throw new IllegalArgumentException("the variants of today's range marked keep cannot meet the minimum lot in"
+          + " every scenario, so no range can");
+    }
     int cap = variantCap();
     if (pools.get(0).size() == 0 || cap == 0) {
       Evaluated none = evaluate(new int[0]);
@@ -374,7 +393,7 @@ public final class ScenarioStage {
     for (int i = 0; i < out.found().size(); i++) {
       listed[p0.size() + i] = out.found().get(i).reducedCost();
     }
-    double constant = 0;
+    double constant = currentConstant();
     for (int s = 0; s < scenarios; s++) {
       constant += terms.get(s).rowValue(Arrays.copyOfRange(pi, s * resourceCount, (s + 1) * resourceCount),
           Arrays.copyOfRange(mu, s * segmentCount, (s + 1) * segmentCount));
@@ -404,7 +423,7 @@ public final class ScenarioStage {
           throw new IllegalStateException("the relaxed range master across scenarios ended " + sol.status()
               + "; it is feasible and bounded by construction, so this is a solver fault");
         }
-        z = sol.objective();
+        z = sol.objective() + currentConstant();
         double[] omega = aim.isWorst() ? simplex(lp.worstCaseDuals()) : weight;
         Relaxation.Probe probe = bound(pricer, sol.resourceDual(), sol.segmentDual(), omega, k, cap,
             phase.deadlineNanos());
@@ -550,6 +569,9 @@ public final class ScenarioStage {
         Entries e = entries(i);
         int b = m.addScenarioVariant(e.segments(), e.margin(), e.use(), e.upper(), e.fixedCost(), e.minLot(), e.lotOf(),
             e.tools());
+        if (pools.get(0).get(i).pinned()) {
+          m.fixIntroduction(b, 1, 1);
+        }
         for (int j = 0; j < e.attraction().length; j++) {
           if (!Double.isNaN(e.attraction()[j])) {
             m.addAttraction(b, j, e.attraction()[j]);
@@ -567,8 +589,9 @@ public final class ScenarioStage {
       }
       int[] members = java.util.stream.IntStream.range(0, n).filter(i -> sol.y()[i] > 0.5).toArray();
       Evaluated e = evaluate(members);
-      // a range the exact per-scenario LPs refuse (round-off at a lot) is not used
-      return new MipRun(e == null ? MipStatus.FAILED : sol.status(), e, sol.bound());
+      // a range the exact per-scenario LPs refuse (round-off at a lot) is not used; the MIP's
+      // objective leaves out the discontinue costs of today's range (a constant)
+      return new MipRun(e == null ? MipStatus.FAILED : sol.status(), e, sol.bound() + currentConstant());
     }
   }
 

@@ -49,10 +49,6 @@ final class ScenarioSetStep {
       throw new InputError("--scenario-set chooses one range across the scenarios, so the catalog needs a portfolio"
           + " section (introductionCost, maxVariants, minLot); add one");
     }
-    if (!catalog.current().isEmpty()) {
-      throw new InputError("--scenario-set does not take a current range yet; solve without current: or without"
-          + " the set");
-    }
     SweepRun.engine(plan.engine()); // an engine not on the class path is refused before anything is solved
     ScenarioSet set = read(plan.file(), catalog, "--scenario-set");
     List<Catalog> cats = catalogs(set, catalog, plan.file());
@@ -103,9 +99,15 @@ final class ScenarioSetStep {
       double[] w = set.set().weights();
       ScenarioStage stage = new ScenarioStage(spaces, w, set.plan().aim(), settings)
           .stopWhen(StopCriterion.signal(stop));
-      ScenarioStage.Outcome o = stage.choose(alone.stream().map(ScenarioWork.Alone::lp).toList(),
-          alone.stream().map(ScenarioWork.Alone::range).toList(),
-          alone.stream().mapToDouble(ScenarioWork.Alone::bound).toArray());
+      ScenarioStage.Outcome o;
+      try {
+        o = stage.choose(alone.stream().map(ScenarioWork.Alone::lp).toList(),
+            alone.stream().map(ScenarioWork.Alone::range).toList(),
+            alone.stream().mapToDouble(ScenarioWork.Alone::bound).toArray());
+      } catch (IllegalArgumentException e) {
+        throw new InputError("current: " + e.getMessage() + " — give those variants keep: false, or leave out the"
+            + " scenarios that starve them");
+      }
       List<RunResult.ScenarioRow> rows = new ArrayList<>();
       for (int k = 0; k < alone.size(); k++) {
         ScenarioWork.Alone b = alone.get(k);

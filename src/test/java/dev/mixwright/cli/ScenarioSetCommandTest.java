@@ -80,5 +80,16 @@ class ScenarioSetCommandTest {
     CliRun stray = CliRun.of("solve", STARTER, "--worst-case", "--out", dir.resolve("y").toString());
     assertEquals(2, stray.code(), stray.toString());
     assertTrue(stray.err().contains("--scenario-set"), stray.err());
+    CliRun engineAlone = CliRun.of("solve", STARTER, "--engine", "spark", "--out", dir.resolve("z").toString());
+    assertEquals(2, engineAlone.code(), engineAlone.toString());
+    assertTrue(engineAlone.err().contains("--engine") && engineAlone.err().contains("--scenario-set"),
+        engineAlone.err());
+    // this jar has no Spark: the engine is refused before anything is solved
+    Path fine = Files.writeString(dir.resolve("fine.yaml"), "scenarios:\n  - {id: base, weight: 1}\n");
+    CliRun noSpark = CliRun.of("solve", STARTER, "--scenario-set", fine.toString(), "--engine", "spark", "--out",
+        dir.resolve("w").toString());
+    assertEquals(2, noSpark.code(), noSpark.toString());
+    assertTrue(noSpark.err().contains("no engine named 'spark'"), noSpark.err());
+    assertFalse(Files.exists(dir.resolve("w").resolve("result.json")), "nothing solved");
   }
 }

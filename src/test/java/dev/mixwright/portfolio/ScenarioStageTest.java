@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CurrentVariant;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.scenario.Scenario;
 import dev.mixwright.scenario.Scenario.Amount;
@@ -142,5 +143,63 @@ class ScenarioStageTest {
         assertEquals(full.value(), worst.value(), tol(full.value()));
       }
     });
+  }
+
+  /** Up to three of the base's sellable variants on sale today, the first sometimes pinned. */
+  private static Catalog withTodaysRange(Catalog base, Random rnd) {
+    VariantSpace plain = new VariantSpace(base);
+    List<int[]> all = new ArrayList<>(EnumeratedMip.sellable(plain));
+    if (all.isEmpty()) {
+      return base;
+    }
+    double f = base.portfolio().orElseThrow().introductionCost();
+    List<CurrentVariant> cur = new ArrayList<>();
+    int n = 1 + rnd.nextInt(Math.min(3, all.size()));
+    for (int j = 0; j < n; j++) {
+      int[] v = all.remove(rnd.nextInt(all.size()));
+      cur.add(new CurrentVariant(plain.describe(v), rnd.nextInt(3) * (f + 50), j == 0 && rnd.nextDouble() < 0.4));
+    }
+    return base.withCurrentRange(cur, List.of());
+  }
+
+  @Test
+  void aRangeOnSaleTodayIsKeptDroppedOrReplacedAsTheEnumeratedTwoStageMipSays() {
+    int[] compared = new int[1];
+    int[] proven = new int[1];
+    Cases.each(CASES, (seed, rnd) -> {
+      Catalog c = withTodaysRange(base(rnd, (int) (seed & 7)), rnd);
+      int n = 2 + rnd.nextInt(2);
+      List<VariantSpace> spaces = spaces(c, rnd, n);
+      double[] w = weights(rnd, n);
+      boolean worst = rnd.nextInt(3) == 0;
+      EnumeratedScenarioMip.Result full;
+      try {
+        full = EnumeratedScenarioMip.solve(spaces, w, worst, 60_000); // SCIP over every variant and scenario
+      } catch (IllegalStateException pinnedLotsDoNotFit) {
+        return;
+      }
+      assertTrue(full.optimal(), "the reference should solve a small case");
+      compared[0]++;
+      ScenarioStage.Outcome o = new ScenarioStage(spaces, w, worst ? ScenarioStage.Aim.WORST : ScenarioStage.Aim.MEAN,
+          StageRuns.settings()).run(spaces.stream().map(StageRuns::lp).toList(), List.of());
+      String where = (worst ? "worst case" : "mean") + ", " + n + " scenarios, " + c.current().size()
+          + " on sale today, " + o.status().word() + " " + o.reason();
+      assertTrue(full.value() <= o.bound() + tol(full.value()), where + ": bound " + o.bound()
+          + " below the enumerated optimum " + full.value());
+      assertTrue(o.value() <= full.value() + tol(full.value()), where + ": better than the optimum?");
+      for (CurrentVariant cv : c.current()) {
+        int[] v = spaces.get(0).parse(cv.variant());
+        if (cv.keep()) {
+          assertTrue(o.range().stream().anyMatch(r -> java.util.Arrays.equals(r, v)), where + ": a pinned variant dropped");
+        }
+      }
+      if (o.status().isProven()) {
+        proven[0]++;
+        assertEquals(full.value(), o.value(), tol(full.value()), where);
+      }
+    });
+    assertTrue(compared[0] >= CASES / 2, "most cases should be feasible, got " + compared[0] + " of " + CASES);
+    assertTrue(proven[0] >= compared[0] * 2 / 3, "most compared cases should be proven, got " + proven[0] + " of "
+        + compared[0]);
   }
 }

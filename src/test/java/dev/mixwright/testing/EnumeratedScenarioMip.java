@@ -6,13 +6,17 @@ import com.google.ortools.linearsolver.MPSolver;
 import com.google.ortools.linearsolver.MPSolverParameters;
 import com.google.ortools.linearsolver.MPVariable;
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.CurrentVariant;
 import dev.mixwright.catalog.PortfolioSpec;
 import dev.mixwright.master.Natives;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 
 /**
  * Independent reference for one range across scenarios, for tests only: the two-stage stochastic
@@ -26,8 +30,9 @@ import java.util.Map;
  *   Σ y_v ≤ K,  y_v ≤ t_o (o in v),  y, t ∈ {0,1},  x ≥ 0
  * </pre>
  *
- * Scenario catalogs share groups, rules and segments; figures differ. No current range, no segments
- * that choose.
+ * Scenario catalogs share groups, rules, segments and today's range; figures differ. Today's range
+ * as in {@link EnumeratedMip} (from the spec's words): a current variant pays no F, dropping it costs
+ * its discontinue cost (−disc·(1 − y)), a pinned one has y = 1. No segments that choose.
  */
 public final class EnumeratedScenarioMip {
   private EnumeratedScenarioMip() {}
@@ -77,9 +82,30 @@ public final class EnumeratedScenarioMip {
       MPConstraint limit = p.maxVariants() == Integer.MAX_VALUE ? null
           : solver.makeConstraint(Double.NEGATIVE_INFINITY, p.maxVariants());
       Map<Integer, MPVariable> tools = new HashMap<>();
+      Map<String, CurrentVariant> current = new HashMap<>();
+      for (CurrentVariant cv : first.catalog().current()) {
+        current.put(Arrays.toString(first.parse(cv.variant())), cv);
+      }
+      double constant = 0;
+      Set<String> listed = new HashSet<>();
+      variants.forEach(w -> listed.add(Arrays.toString(w)));
+      for (Map.Entry<String, CurrentVariant> e : current.entrySet()) {
+        if (!listed.contains(e.getKey()) && !e.getValue().keep()) {
+          constant -= e.getValue().discontinue(); // no segment takes it: dropped
+        }
+      }
       for (int[] w : variants) {
         MPVariable y = solver.makeBoolVar("");
-        obj.setCoefficient(y, -p.introductionCost());
+        CurrentVariant cur = current.get(Arrays.toString(w));
+        if (cur == null) {
+          obj.setCoefficient(y, -p.introductionCost());
+        } else {
+          obj.setCoefficient(y, cur.discontinue()); // −disc·(1 − y) = −disc + disc·y
+          constant -= cur.discontinue();
+          if (cur.keep()) {
+            y.setLb(1);
+          }
+        }
         if (limit != null) {
           limit.setCoefficient(y, 1);
         }
@@ -119,7 +145,7 @@ public final class EnumeratedScenarioMip {
       if (st != MPSolver.ResultStatus.OPTIMAL && st != MPSolver.ResultStatus.FEASIBLE) {
         throw new IllegalStateException("the enumerated two-stage model ended " + st);
       }
-      return new Result(obj.value(), obj.bestBound(), st == MPSolver.ResultStatus.OPTIMAL);
+      return new Result(obj.value() + constant, obj.bestBound() + constant, st == MPSolver.ResultStatus.OPTIMAL);
     } finally {
       params.delete();
       solver.delete();

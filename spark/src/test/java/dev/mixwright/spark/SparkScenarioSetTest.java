@@ -12,7 +12,6 @@ import dev.mixwright.engine.Engine;
 import dev.mixwright.engine.Engines;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.ThreadPoolEngine;
-import dev.mixwright.engine.Watch;
 import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.portfolio.ScenarioStage;
 import dev.mixwright.run.PortfolioPlan;
@@ -30,9 +29,6 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.atomic.AtomicBoolean;
-import org.apache.spark.SparkContext;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -42,7 +38,7 @@ import org.junit.jupiter.api.io.TempDir;
  * regrets and hold-out figures apart from timings; and a hold-out point that fails once is retried
  * without losing or doubling a scenario.
  */
-class SparkScenarioSetTest {
+class SparkScenarioSetTest extends OnLocalCluster {
   static final Path SMALL = Path.of("catalogs/ventilation-small.yaml");
   static final String SET = """
       scenarios:
@@ -58,21 +54,7 @@ class SparkScenarioSetTest {
         segments: {flats: {demand: {normal: {sd: "20%"}}}}
       """;
 
-  static SparkContext spark;
-
   @TempDir Path dir;
-
-  @BeforeAll
-  static void startCluster() throws Exception {
-    spark = LocalCluster.start();
-  }
-
-  @AfterAll
-  static void stopCluster() {
-    if (spark != null) {
-      spark.stop();
-    }
-  }
 
   private JsonNode portfolio(String engine, Path set, Path hold) throws Exception {
     Path out = dir.resolve(engine);
@@ -111,10 +93,10 @@ class SparkScenarioSetTest {
     Job failing = new Job(FailsFirstAttempt.Scenarios.class.getName(), check.shared(), check.points());
     assertEquals(3, check.size());
 
-    double[][] expected = results(new ThreadPoolEngine(1), check, new int[check.size()], new ArrayList<>());
+    double[][] expected = values(new ThreadPoolEngine(1), check, new int[check.size()], new ArrayList<>());
     int[] timesDone = new int[check.size()];
     List<Integer> failedPoints = new ArrayList<>();
-    double[][] got = results(new SparkEngine(), failing, timesDone, failedPoints);
+    double[][] got = values(new SparkEngine(), failing, timesDone, failedPoints);
 
     assertEquals(List.of(FailsFirstAttempt.POINT), failedPoints, "the one failure on purpose was heard");
     assertEquals("[1, 1, 1]", Arrays.toString(timesDone), "every point done exactly once");
@@ -124,23 +106,9 @@ class SparkScenarioSetTest {
     assertEquals(Arrays.deepToString(expected), Arrays.deepToString(got));
   }
 
-  private static double[][] results(Engine engine, Job job, int[] timesDone, List<Integer> failed)
+  private static double[][] values(Engine engine, Job job, int[] timesDone, List<Integer> failed)
       throws Engine.JobFailed {
-    double[][] out = new double[job.size()][];
-    int done = engine.run(job, new Watch() {
-      @Override
-      public void done(int point, byte[] result, long millis) {
-        timesDone[point]++;
-        out[point] = ScenarioWork.values(result);
-      }
-
-      @Override
-      public void failed(int point, int attempt, String why) {
-        failed.add(point);
-      }
-    }, () -> false);
-    assertEquals(job.size(), done);
-    return out;
+    return Arrays.stream(results(engine, job, timesDone, failed)).map(ScenarioWork::values).toArray(double[][]::new);
   }
 
   /** The node with every {@code elapsedMs} left out, at any depth. */

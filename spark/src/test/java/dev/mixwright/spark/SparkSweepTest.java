@@ -8,11 +8,9 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.colgen.SolveSettings;
-import dev.mixwright.engine.Engine;
 import dev.mixwright.engine.Engines;
 import dev.mixwright.engine.Job;
 import dev.mixwright.engine.ThreadPoolEngine;
-import dev.mixwright.engine.Watch;
 import dev.mixwright.catalog.TableReach;
 import dev.mixwright.portfolio.PortfolioSettings;
 import dev.mixwright.run.PortfolioPlan;
@@ -27,15 +25,10 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.atomic.AtomicBoolean;
-import org.apache.spark.SparkContext;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -44,7 +37,7 @@ import org.junit.jupiter.api.io.TempDir;
  * against the same sweeps on the thread pool: the same table apart from timings, and a task that
  * fails once is retried without losing or doubling a point.
  */
-class SparkSweepTest {
+class SparkSweepTest extends OnLocalCluster {
   static final String STARTER = "catalogs/heatpump-starter.yaml";
   static final List<String> GRID = List.of("resources.testbench.capacity=8000..11000:1000",
       "rules.propane-clearance=on,off");
@@ -52,21 +45,7 @@ class SparkSweepTest {
   /** A comma outside double quotes: where a CSV line splits into cells (names hold quoted commas). */
   static final String CELL = ",(?=(?:[^\"]*\"[^\"]*\")*[^\"]*$)";
 
-  static SparkContext spark;
-
   @TempDir Path dir;
-
-  @BeforeAll
-  static void startCluster() throws Exception {
-    spark = LocalCluster.start();
-  }
-
-  @AfterAll
-  static void stopCluster() {
-    if (spark != null) {
-      spark.stop();
-    }
-  }
 
   private SweepRun.Request request(Path out, String engine) {
     return new SweepRun.Request(Path.of(STARTER), Optional.empty(), GRID, List.of(), out,
@@ -97,37 +76,18 @@ class SparkSweepTest {
     Job sweep = SweepWork.job(c, plan, SolveSettings.defaults(), PricerChoice.BNB, true, null, CHAIN, Set.of());
     Job failing = new Job(FailsFirstAttempt.class.getName(), sweep.shared(), sweep.points());
 
-    Map<Integer, byte[]> expected = results(new ThreadPoolEngine(1), sweep, new int[sweep.size()], new ArrayList<>());
+    byte[][] expected = results(new ThreadPoolEngine(1), sweep, new int[sweep.size()], new ArrayList<>());
     int[] timesDone = new int[sweep.size()];
     List<Integer> failedPoints = new ArrayList<>();
-    Map<Integer, byte[]> got = results(new SparkEngine(), failing, timesDone, failedPoints);
+    byte[][] got = results(new SparkEngine(), failing, timesDone, failedPoints);
 
     assertEquals(List.of(FailsFirstAttempt.POINT), failedPoints, "the one failure on purpose was heard");
     int[] once = new int[sweep.size()];
     Arrays.fill(once, 1);
     assertEquals(Arrays.toString(once), Arrays.toString(timesDone), "every point done exactly once");
     for (int p = 0; p < sweep.size(); p++) {
-      assertEquals(rowsWithoutTimes(expected.get(p)), rowsWithoutTimes(got.get(p)), "point " + p);
+      assertEquals(rowsWithoutTimes(expected[p]), rowsWithoutTimes(got[p]), "point " + p);
     }
-  }
-
-  private static Map<Integer, byte[]> results(Engine engine, Job job, int[] timesDone, List<Integer> failed)
-      throws Engine.JobFailed {
-    Map<Integer, byte[]> out = new HashMap<>();
-    int done = engine.run(job, new Watch() {
-      @Override
-      public void done(int point, byte[] result, long millis) {
-        timesDone[point]++;
-        out.put(point, result);
-      }
-
-      @Override
-      public void failed(int point, int attempt, String why) {
-        failed.add(point);
-      }
-    }, () -> false);
-    assertEquals(job.size(), done);
-    return out;
   }
 
   private static List<JsonNode> rowsWithoutTimes(byte[] result) {
