@@ -112,8 +112,10 @@ final class ScenarioSetStep {
       for (int k = 0; k < alone.size(); k++) {
         ScenarioWork.Alone b = alone.get(k);
         double v = o.scenarioValue()[k];
-        rows.add(new RunResult.ScenarioRow(set.set().members().get(k).id(), w[k], v, b.value(), b.value() - v,
-            b.status()));
+        // The chosen range is itself a range for this scenario alone, so the best one alone is worth at
+        // least v; a scenario's own solve stopped at its time limit below that must not show a negative regret.
+        double best = Math.max(b.value(), v);
+        rows.add(new RunResult.ScenarioRow(set.set().members().get(k).id(), w[k], v, best, best - v, b.status()));
       }
       RunResult.HoldOut check = set.holdOut().isEmpty() ? null
           : holdOut(engine, base, set.holdOut().get(), o.range(), set.plan().holdOut().get(), stop, watcher);
