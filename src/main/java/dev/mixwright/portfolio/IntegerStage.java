@@ -319,15 +319,57 @@ public final class IntegerStage {
     BranchAndPrice.Result r = bp.run(s.incumbent, s.bound);
     s.incumbent = r.incumbent();
     s.treeBound = r.bound();
-    s.closed = r.closed();
+    s.closed = r.closed() && r.retired() == 0;
     s.tree = new PortfolioOutcome.Tree(r.nodes(), r.open(), r.workers());
     if (!r.closed() && s.reason.isEmpty()) {
       s.reason = r.reason();
     }
+    String retired = r.retired() == 0 ? "" : "; " + r.retired() + " nodes retired to a proof set of "
+        + r.proofSet().length + " variants";
     emit(PortfolioEvent.Kind.TREE, r.incumbent().value(), Math.min(s.bound, r.bound()), pool.size(), (int) Math.min(
-        Integer.MAX_VALUE, r.nodes()), r.closed()
-        ? "branch-and-price closed the tree: no portfolio is better than the incumbent"
-        : r.reason());
+        Integer.MAX_VALUE, r.nodes()), (r.closed()
+        ? r.retired() == 0 ? "branch-and-price closed the tree: no portfolio is better than the incumbent"
+            : "branch-and-price left only retired nodes"
+        : r.reason()) + retired);
+    if (r.closed() && r.retired() > 0) {
+      proofOverRetired(pool, r, s);
+    }
+  }
+
+  /**
+   * The tree closed with retired nodes ({@link BranchAndPrice}): every portfolio better than the
+   * incumbent lies in one of them and is made of the proof set's variants, so a MIP over the proof set
+   * (and the incumbent's variants) decides the whole space; stopped early, its bound over that set
+   * still bounds every better portfolio.
+   */
+  private void proofOverRetired(Pool pool, BranchAndPrice.Result r, Search s) {
+    java.util.TreeSet<Integer> over = new java.util.TreeSet<>();
+    for (int i : r.proofSet()) {
+      over.add(i);
+    }
+    for (int i : s.incumbent.members()) {
+      over.add(i);
+    }
+    MipRun run = mip(pool, over.stream().mapToInt(Integer::intValue).toArray(), s.incumbent, clock.msLeft());
+    if (run.plan() != null && run.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
+      s.incumbent = run.plan();
+      emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
+          "MIP over the variants of the retired nodes of the tree");
+    }
+    // a better portfolio lies in the proof set, where the MIP bounds it; any other is worth at most the floor
+    double floor = Math.max(s.incumbent.value(), r.floor());
+    if (run.status() == MipStatus.OPTIMAL && settings.engine().provesContinuous()) {
+      s.closed = true;
+      s.treeBound = Math.min(s.treeBound, Math.max(floor, run.bound()));
+    } else {
+      if (run.status().hasSolution() && settings.engine().provesContinuous()) {
+        s.treeBound = Math.min(s.treeBound, Math.max(floor, run.bound()));
+      }
+      if (s.reason.isEmpty()) {
+        s.reason = "the MIP over the variants the branch-and-price tree left was not solved to optimality in the"
+            + " time limit";
+      }
+    }
   }
 
   /**
@@ -416,26 +458,37 @@ public final class IntegerStage {
   private record MipRun(MipStatus status, Plan plan, double bound) {}
 
   private MipRun mip(Pool pool, Plan hint, long timeMs) {
+    return mip(pool, java.util.stream.IntStream.range(0, pool.size()).toArray(), hint, timeMs);
+  }
+
+  /** The MIP over the pool variants {@code over} (pool indices, ascending; they must hold the hint's members). */
+  private MipRun mip(Pool pool, int[] over, Plan hint, long timeMs) {
     mipSolves++;
     try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
         terms.choiceCost(), terms.wholeUnits())) {
       pool.choice().enter(m);
-      for (PoolVariant v : pool.all()) {
+      Map<Integer, Integer> at = new HashMap<>();
+      for (int j = 0; j < over.length; j++) {
+        PoolVariant v = pool.get(over[j]);
         int i = m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot(),
             v.tools());
         pool.choice().attract(m, i, v);
         if (v.pinned()) {
           m.fixIntroduction(i, 1, 1);
         }
+        at.put(over[j], j);
       }
-      double[] y = new double[pool.size()];
-      double[][] x = new double[pool.size()][];
-      for (int i = 0; i < pool.size(); i++) {
-        x[i] = new double[pool.get(i).segments().length];
+      double[] y = new double[over.length];
+      double[][] x = new double[over.length][];
+      for (int j = 0; j < over.length; j++) {
+        x[j] = new double[pool.get(over[j]).segments().length];
       }
       for (int j = 0; j < hint.members().length; j++) {
-        y[hint.members()[j]] = 1;
-        x[hint.members()[j]] = hint.sales().get(j);
+        Integer i = at.get(hint.members()[j]);
+        if (i != null) {
+          y[i] = 1;
+          x[i] = hint.sales().get(j);
+        }
       }
       m.hint(y, x);
       MipSolution sol = m.solve(timeMs, settings.gap(), clock.signalFlag());
@@ -444,7 +497,7 @@ public final class IntegerStage {
         List<Integer> members = new ArrayList<>();
         for (int i = 0; i < sol.y().length; i++) {
           if (sol.y()[i] > 0.5) {
-            members.add(i);
+            members.add(over[i]);
           }
         }
         plan = FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray());
