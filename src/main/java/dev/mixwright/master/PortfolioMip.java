@@ -153,44 +153,6 @@ public final class PortfolioMip implements PortfolioShape, AutoCloseable {
     return i;
   }
 
-  /**
-   * A block for every variant the model does not list, priced instead of listed: n ∈ {0, ..., maxCount}
-   * such variants, using r_k ≥ 0 of resource k and selling q_s ≥ 0 in segment s, worth π·r + μ·q +
-   * perVariant·n, with r_k ≤ capacity_k·n and q_s ≤ demand_s·n (none used when n = 0), n counting
-   * toward the variant limit. When perVariant bounds ψ(w) = max over w's lots of Σ_s (m_ws − π·a_w −
-   * μ_s) x_s − F_w of every unlisted variant w, any portfolio's unlisted part is worth at most what the
-   * block charges for its rows, so the model's optimum bounds every portfolio over the whole space
-   * (the Lagrangian argument applied to the unlisted variants alone). Only resources with π_k &gt; 0
-   * and segments with μ_s &gt; 0 get a variable (the others would stay at 0). Call after the rows
-   * are made (and {@link #chooseIn}); the block has no tooling, lot or attraction row.
-   */
-  public void addOutside(double[] resourcePrice, double[] segmentPrice, double perVariant, int maxCount,
-      double[] capacity) {
-    MPVariable n = solver.makeIntVar(0.0, maxCount, "outside");
-    objective.setCoefficient(n, perVariant);
-    rows.addToLimit(n);
-    for (int k = 0; k < resourcePrice.length; k++) {
-      if (resourcePrice[k] > 0) {
-        MPVariable r = solver.makeNumVar(0.0, Double.POSITIVE_INFINITY, "outside_r" + k);
-        objective.setCoefficient(r, resourcePrice[k]);
-        rows.addToResource(k, r);
-        MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "outside_rl" + k);
-        link.setCoefficient(r, 1.0);
-        link.setCoefficient(n, -capacity[k]);
-      }
-    }
-    for (int s = 0; s < segmentPrice.length; s++) {
-      if (segmentPrice[s] > 0) {
-        MPVariable q = solver.makeNumVar(0.0, Double.POSITIVE_INFINITY, "outside_q" + s);
-        objective.setCoefficient(q, segmentPrice[s]);
-        rows.addToSegment(s, q);
-        MPConstraint link = solver.makeConstraint(Double.NEGATIVE_INFINITY, 0.0, "outside_ql" + s);
-        link.setCoefficient(q, 1.0);
-        link.setCoefficient(n, -demand[s]);
-      }
-    }
-  }
-
   /** As {@link PortfolioLp#chooseIn}: segment s's row becomes its buyers row with a stay-out. */
   public void chooseIn(int s) {
     stay[s] = rows.makeBuyersRow(s, demand[s]);

@@ -203,24 +203,6 @@ final class Rows implements AutoCloseable {
     return row;
   }
 
-  /**
-   * Puts v into resource row r, segment row s or the variant limit with coefficient 1 (for a block
-   * that stands for variants the model does not list; see {@link PortfolioMip#addOutside}).
-   */
-  void addToResource(int r, MPVariable v) {
-    resourceRows[r].setCoefficient(v, 1.0);
-  }
-
-  void addToSegment(int s, MPVariable v) {
-    segmentRows[s].setCoefficient(v, 1.0);
-  }
-
-  void addToLimit(MPVariable v) {
-    if (limitRow != null) {
-      limitRow.setCoefficient(v, 1.0);
-    }
-  }
-
   /** Moves the right-hand side of resource row r. */
   void setCapacity(int r, double value) {
     resourceRows[r].setUb(value);
