@@ -282,12 +282,13 @@ public final class IntegerStage {
     if (!s.complete) {
       return;
     }
+    int before = pool.size();
     for (var f : out.found()) {
       pool.add(f.choices());
     }
     // all the time left: where the survivors are few enough to list, this MIP proved faster than the
     // tree in every measurement (docs/portfolio.md); stopped early, its bound still counts
-    MipRun again = mip(pool, s.incumbent, clock.msLeft());
+    MipRun again = mip(pool, passing(pool, before, b, s), s.incumbent, clock.msLeft());
     if (again.plan() != null && again.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
       s.incumbent = again.plan();
       emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
@@ -305,6 +306,39 @@ public final class IntegerStage {
       s.survivorsProve = true;
       s.treeBound = Math.max(s.incumbent.value(), again.bound());
     }
+  }
+
+  /**
+   * The pool variants a portfolio better than the incumbent may hold: the survivors (pool indices from
+   * {@code firstSurvivor} on), the incumbent's and pinned variants, and every earlier pool variant w
+   * that passes the survivor test B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w) &gt; incumbent at the bound's prices.
+   * ψ is taken with β = 0 and the per-segment caps, which is at least the ψ the bound used
+   * ({@link ChoicePrices}), so a variant failing the test cannot be part of a better portfolio and the
+   * MIP over the rest still decides the whole space; it is smaller, so SCIP proves it sooner.
+   */
+  private int[] passing(Pool pool, int firstSurvivor, LagrangianPortfolioBound b, Search s) {
+    java.util.TreeSet<Integer> keep = new java.util.TreeSet<>();
+    for (int i = firstSurvivor; i < pool.size(); i++) {
+      keep.add(i);
+    }
+    for (int i : s.incumbent.members()) {
+      keep.add(i);
+    }
+    for (int i : pool.pinned()) {
+      keep.add(i);
+    }
+    // as the survivors' threshold: a little below the incumbent, so whatever is left out is worth at most it
+    double z = s.incumbent.value() - 1e-7 * (1 + Math.abs(s.incumbent.value()));
+    VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), 0.0, null, Double.NEGATIVE_INFINITY, 1,
+        null, 0);
+    for (int i = 0; i < firstSurvivor; i++) {
+      PoolVariant v = pool.get(i);
+      double psi = VariantPricer.value(space, terms, v.choices(), at) - v.fixedCost();
+      if (b.withVariant(psi) - terms.toolingOf(space, v.choices()) > z) {
+        keep.add(i);
+      }
+    }
+    return keep.stream().mapToInt(Integer::intValue).toArray();
   }
 
   /** The branch-and-price tree over the rest of the time, from the incumbent so far. */
