@@ -589,21 +589,7 @@ final class BranchAndPrice {
       for (int i : node.offered()) {
         members.add(i);
       }
-      Set<Integer> paid = offeredTools(node);
-      for (int i = 0; i < probe.psi.length; i++) {
-        if (node.isOffered(i) || node.isBarred(i)) {
-          continue;
-        }
-        double extra = 0;
-        for (int t : pool.get(i).tools()) {
-          if (!paid.contains(t)) {
-            extra += terms.choiceCost()[t];
-          }
-        }
-        if (probe.bound.withVariant(probe.psi[i]) - extra > z) {
-          members.add(i);
-        }
-      }
+      members.addAll(freeByTest(node, probe, z, true));
       for (PricedVariant w : out.found()) {
         int at = pool.indexOrAdd(w.choices());
         if (at >= 0) {
@@ -633,6 +619,15 @@ final class BranchAndPrice {
       synchronized (lock) {
         z = incumbent.value() + tolerance(incumbent.value());
       }
+      return freeByTest(node, probe, z, false).stream().mapToInt(Integer::intValue).toArray();
+    }
+
+    /**
+     * The free pool variants of the master that pass ({@code passing}) or fail the test
+     * bound-with-w − tooling(w) &gt; z at the probe's prices, tooling counted beyond what the node's
+     * offered variants pay already.
+     */
+    private List<Integer> freeByTest(TreeNode node, NodeProbe probe, double z, boolean passing) {
       List<Integer> out = new ArrayList<>();
       Set<Integer> paid = offeredTools(node);
       for (int i = 0; i < probe.psi.length; i++) {
@@ -645,11 +640,11 @@ final class BranchAndPrice {
             extra += terms.choiceCost()[t];
           }
         }
-        if (probe.bound.withVariant(probe.psi[i]) - extra <= z) {
+        if ((probe.bound.withVariant(probe.psi[i]) - extra > z) == passing) {
           out.add(i);
         }
       }
-      return out.stream().mapToInt(Integer::intValue).toArray();
+      return out;
     }
 
     /** The Lagrangian bound of the node at prices (π, μ): one pricing call outside the master's variants. */

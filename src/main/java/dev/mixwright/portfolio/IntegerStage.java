@@ -38,7 +38,9 @@ import java.util.function.Consumer;
  *   <li>Otherwise: {@link BranchAndPrice} over the whole space, from that incumbent and the bound B, with
  *       the introduction y_v of a variant as the branching decision ({@link VariantBranching}); nodes
  *       are bounded by column generation with the exact variant pricer, and reduced-cost fixing bars
- *       the pool variants that cannot be part of a better portfolio below a node.
+ *       the pool variants that cannot be part of a better portfolio below a node. A node whose
+ *       survivors are few is retired; when only retired nodes are left, one MIP over their variants
+ *       decides ({@link #proofOverRetired}).
  * </ol>
  *
  * The bound reported is the least of the LP stage's bound, B, and the tree's bound (the largest
