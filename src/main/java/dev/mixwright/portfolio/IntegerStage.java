@@ -38,7 +38,9 @@ import java.util.function.Consumer;
  *   <li>Otherwise: {@link BranchAndPrice} over the whole space, from that incumbent and the bound B, with
  *       the introduction y_v of a variant as the branching decision ({@link VariantBranching}); nodes
  *       are bounded by column generation with the exact variant pricer, and reduced-cost fixing bars
- *       the pool variants that cannot be part of a better portfolio below a node.
+ *       the pool variants that cannot be part of a better portfolio below a node. A node whose
+ *       survivors are few is retired; when only retired nodes are left, one MIP over their variants
+ *       decides ({@link #proofOverRetired}).
  * </ol>
  *
  * The bound reported is the least of the LP stage's bound, B, and the tree's bound (the largest
@@ -282,12 +284,13 @@ public final class IntegerStage {
     if (!s.complete) {
       return;
     }
+    int before = pool.size();
     for (var f : out.found()) {
       pool.add(f.choices());
     }
     // all the time left: where the survivors are few enough to list, this MIP proved faster than the
     // tree in every measurement (docs/portfolio.md); stopped early, its bound still counts
-    MipRun again = mip(pool, s.incumbent, clock.msLeft());
+    MipRun again = mip(pool, passing(pool, before, b, s), s.incumbent, clock.msLeft());
     if (again.plan() != null && again.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
       s.incumbent = again.plan();
       emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
@@ -307,6 +310,39 @@ public final class IntegerStage {
     }
   }
 
+  /**
+   * The pool variants a portfolio better than the incumbent may hold: the survivors (pool indices from
+   * {@code firstSurvivor} on), the incumbent's and pinned variants, and every earlier pool variant w
+   * that passes the survivor test B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w) &gt; incumbent at the bound's prices.
+   * ψ is taken with β = 0 and the per-segment caps, which is at least the ψ the bound used
+   * ({@link ChoicePrices}), so a variant failing the test cannot be part of a better portfolio and the
+   * MIP over the rest still decides the whole space; it is smaller, so SCIP proves it sooner.
+   */
+  private int[] passing(Pool pool, int firstSurvivor, LagrangianPortfolioBound b, Search s) {
+    java.util.TreeSet<Integer> keep = new java.util.TreeSet<>();
+    for (int i = firstSurvivor; i < pool.size(); i++) {
+      keep.add(i);
+    }
+    for (int i : s.incumbent.members()) {
+      keep.add(i);
+    }
+    for (int i : pool.pinned()) {
+      keep.add(i);
+    }
+    // as the survivors' threshold: a little below the incumbent, so whatever is left out is worth at most it
+    double z = s.incumbent.value() - 1e-7 * (1 + Math.abs(s.incumbent.value()));
+    VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), 0.0, null, Double.NEGATIVE_INFINITY, 1,
+        null, 0);
+    for (int i = 0; i < firstSurvivor; i++) {
+      PoolVariant v = pool.get(i);
+      double psi = VariantPricer.value(space, terms, v.choices(), at) - v.fixedCost();
+      if (b.withVariant(psi) - terms.toolingOf(space, v.choices()) > z) {
+        keep.add(i);
+      }
+    }
+    return keep.stream().mapToInt(Integer::intValue).toArray();
+  }
+
   /** The branch-and-price tree over the rest of the time, from the incumbent so far. */
   private void tree(Pool pool, Search s) {
     Optional<String> signalled = clock.signalled();
@@ -319,15 +355,57 @@ public final class IntegerStage {
     BranchAndPrice.Result r = bp.run(s.incumbent, s.bound);
     s.incumbent = r.incumbent();
     s.treeBound = r.bound();
-    s.closed = r.closed();
+    s.closed = r.closed() && r.retired() == 0;
     s.tree = new PortfolioOutcome.Tree(r.nodes(), r.open(), r.workers());
     if (!r.closed() && s.reason.isEmpty()) {
       s.reason = r.reason();
     }
+    String retired = r.retired() == 0 ? "" : "; " + r.retired() + " nodes retired to a proof set of "
+        + r.proofSet().length + " variants";
     emit(PortfolioEvent.Kind.TREE, r.incumbent().value(), Math.min(s.bound, r.bound()), pool.size(), (int) Math.min(
-        Integer.MAX_VALUE, r.nodes()), r.closed()
-        ? "branch-and-price closed the tree: no portfolio is better than the incumbent"
-        : r.reason());
+        Integer.MAX_VALUE, r.nodes()), (r.closed()
+        ? r.retired() == 0 ? "branch-and-price closed the tree: no portfolio is better than the incumbent"
+            : "branch-and-price left only retired nodes"
+        : r.reason()) + retired);
+    if (r.closed() && r.retired() > 0) {
+      proofOverRetired(pool, r, s);
+    }
+  }
+
+  /**
+   * The tree closed with retired nodes ({@link BranchAndPrice}): every portfolio better than the
+   * incumbent lies in one of them and is made of the proof set's variants, so a MIP over the proof set
+   * (and the incumbent's variants) decides the whole space; stopped early, its bound over that set
+   * still bounds every better portfolio.
+   */
+  private void proofOverRetired(Pool pool, BranchAndPrice.Result r, Search s) {
+    java.util.TreeSet<Integer> over = new java.util.TreeSet<>();
+    for (int i : r.proofSet()) {
+      over.add(i);
+    }
+    for (int i : s.incumbent.members()) {
+      over.add(i);
+    }
+    MipRun run = mip(pool, over.stream().mapToInt(Integer::intValue).toArray(), s.incumbent, clock.msLeft());
+    if (run.plan() != null && run.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
+      s.incumbent = run.plan();
+      emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
+          "MIP over the variants of the retired nodes of the tree");
+    }
+    // a better portfolio lies in the proof set, where the MIP bounds it; any other is worth at most the floor
+    double floor = Math.max(s.incumbent.value(), r.floor());
+    if (run.status() == MipStatus.OPTIMAL && settings.engine().provesContinuous()) {
+      s.closed = true;
+      s.treeBound = Math.min(s.treeBound, Math.max(floor, run.bound()));
+    } else {
+      if (run.status().hasSolution() && settings.engine().provesContinuous()) {
+        s.treeBound = Math.min(s.treeBound, Math.max(floor, run.bound()));
+      }
+      if (s.reason.isEmpty()) {
+        s.reason = "the MIP over the variants the branch-and-price tree left was not solved to optimality in the"
+            + " time limit";
+      }
+    }
   }
 
   /**
@@ -416,26 +494,37 @@ public final class IntegerStage {
   private record MipRun(MipStatus status, Plan plan, double bound) {}
 
   private MipRun mip(Pool pool, Plan hint, long timeMs) {
+    return mip(pool, java.util.stream.IntStream.range(0, pool.size()).toArray(), hint, timeMs);
+  }
+
+  /** The MIP over the pool variants {@code over} (pool indices, ascending; they must hold the hint's members). */
+  private MipRun mip(Pool pool, int[] over, Plan hint, long timeMs) {
     mipSolves++;
     try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
         terms.choiceCost(), terms.wholeUnits())) {
       pool.choice().enter(m);
-      for (PoolVariant v : pool.all()) {
+      Map<Integer, Integer> at = new HashMap<>();
+      for (int j = 0; j < over.length; j++) {
+        PoolVariant v = pool.get(over[j]);
         int i = m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot(),
             v.tools());
         pool.choice().attract(m, i, v);
         if (v.pinned()) {
           m.fixIntroduction(i, 1, 1);
         }
+        at.put(over[j], j);
       }
-      double[] y = new double[pool.size()];
-      double[][] x = new double[pool.size()][];
-      for (int i = 0; i < pool.size(); i++) {
-        x[i] = new double[pool.get(i).segments().length];
+      double[] y = new double[over.length];
+      double[][] x = new double[over.length][];
+      for (int j = 0; j < over.length; j++) {
+        x[j] = new double[pool.get(over[j]).segments().length];
       }
       for (int j = 0; j < hint.members().length; j++) {
-        y[hint.members()[j]] = 1;
-        x[hint.members()[j]] = hint.sales().get(j);
+        Integer i = at.get(hint.members()[j]);
+        if (i != null) {
+          y[i] = 1;
+          x[i] = hint.sales().get(j);
+        }
       }
       m.hint(y, x);
       MipSolution sol = m.solve(timeMs, settings.gap(), clock.signalFlag());
@@ -444,7 +533,7 @@ public final class IntegerStage {
         List<Integer> members = new ArrayList<>();
         for (int i = 0; i < sol.y().length; i++) {
           if (sol.y()[i] > 0.5) {
-            members.add(i);
+            members.add(over[i]);
           }
         }
         plan = FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray());
