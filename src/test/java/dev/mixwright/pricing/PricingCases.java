@@ -113,6 +113,56 @@ final class PricingCases {
         c.format(), c.name(), c.currency(), c.period(), c.resources(), gs, rules, c.segments(), c.portfolio());
   }
 
+  /**
+   * The catalog plus rules of the generator's {@code multi} family: when each of two or three groups
+   * holds one or two listed choices, each of two other groups must hold one of about half its
+   * choices. They compile to nogoods of three and four groups.
+   */
+  static Catalog withMultiRules(Catalog c, Random rnd, int count) {
+    List<Group> gs = c.groups();
+    if (gs.size() < 4) {
+      return c;
+    }
+    List<Rule> rules = new ArrayList<>(c.rules());
+    for (int n = 0; n < count; n++) {
+      int when = gs.size() >= 5 && rnd.nextBoolean() ? 3 : 2;
+      List<Integer> pick = new ArrayList<>();
+      while (pick.size() < when + 2) {
+        int g = rnd.nextInt(gs.size());
+        if (!pick.contains(g)) {
+          pick.add(g);
+        }
+      }
+      LinkedHashMap<String, List<String>> w = new LinkedHashMap<>();
+      for (int k = 0; k < when; k++) {
+        Group g = gs.get(pick.get(k));
+        List<String> ids = new ArrayList<>(List.of(g.choiceId(rnd.nextInt(g.choiceCount()))));
+        String second = g.choiceId(rnd.nextInt(g.choiceCount()));
+        if (rnd.nextBoolean() && !ids.contains(second)) {
+          ids.add(second);
+        }
+        w.put(g.id(), ids);
+      }
+      LinkedHashMap<String, List<String>> req = new LinkedHashMap<>();
+      for (int k = when; k < when + 2; k++) {
+        Group g = gs.get(pick.get(k));
+        List<String> ids = new ArrayList<>();
+        for (int x = 0; x < g.choiceCount(); x++) {
+          if (rnd.nextDouble() < 0.5) {
+            ids.add(g.choiceId(x));
+          }
+        }
+        if (ids.isEmpty()) {
+          ids.add(g.choiceId(0));
+        }
+        req.put(g.id(), ids);
+      }
+      rules.add(new Rule(null, w, req, Map.of()));
+    }
+    return new Catalog(
+        c.format(), c.name(), c.currency(), c.period(), c.resources(), gs, rules, c.segments(), c.portfolio());
+  }
+
   /** Every column of segment s, best reduced cost first. */
   static List<Scored> enumerate(VariantSpace space, int s, double[] pi, double mu) {
     int groups = space.groupCount();
