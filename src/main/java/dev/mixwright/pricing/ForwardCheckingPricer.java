@@ -9,8 +9,9 @@ import java.util.Arrays;
  * Exact k-best pricing by depth-first branch-and-bound with forward checking; needs no memory beyond
  * a few arrays per choice, so it serves every space, whatever the width of its rules.
  *
- * <p>Groups are assigned in one order fixed per space ({@link SearchOrder}: groups in many rules
- * first), and the rules are propagated by {@link ForwardChecker}: once every group of a nogood but its
+ * <p>Groups are assigned in an order chosen per query ({@link SearchOrder#byRegret}: groups whose
+ * best choice leads the second by most first, near-ties last, groups without rules at the end), and
+ * the rules are propagated by {@link ForwardChecker}: once every group of a nogood but its
  * last is assigned and holds a member choice, that last group's member choices leave its domain; an
  * emptied domain cuts the branch. Choices are tried best weight first, so the first whose bound
  * fails ends the loop. The k best are kept in a min-heap whose k-th score is the pruning level.
@@ -47,8 +48,11 @@ import java.util.Arrays;
 public final class ForwardCheckingPricer extends NodeLimitedPricer {
   private final int groups;
   private final int[] offset;
-  private final int[] order;
-  private final ForwardChecker rules;
+  private final int[] staticOrder; // ties and groups without rules follow it
+  private final int[] nextOrder;
+  private final Positions positions = new Positions();
+  private int[] order;
+  private ForwardChecker rules; // built again only when a query's order differs from the last one
 
   // Per-query state, reused between queries.
   private final boolean[] usable;
@@ -80,8 +84,10 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
     for (int g = 0; g < groups; g++) {
       maxChoices = Math.max(maxChoices, space.choiceCount(g));
     }
-    order = SearchOrder.of(space);
-    rules = new ForwardChecker(space, order, new Positions());
+    staticOrder = SearchOrder.of(space);
+    nextOrder = new int[groups];
+    order = staticOrder.clone();
+    rules = new ForwardChecker(space, order, positions);
     usable = new boolean[total];
     sorted = new int[total];
     usableCount = new int[groups];
@@ -96,7 +102,7 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
     tailFound = new double[maxChoices];
   }
 
-  /** The group order of the search (a copy), for logs and tests. */
+  /** The group order of the last query's search (a copy; before any, the static order), for logs and tests. */
   public int[] groupOrder() {
     return order.clone();
   }
@@ -105,6 +111,11 @@ public final class ForwardCheckingPricer extends NodeLimitedPricer {
   PricingOutcome price(PricingQuery q, long nodeBudget) {
     run = new QueryRun(space, q);
     w = run.w;
+    SearchOrder.byRegret(space, w, staticOrder, nextOrder);
+    if (!Arrays.equals(nextOrder, order)) {
+      order = nextOrder.clone();
+      rules = new ForwardChecker(space, order, positions);
+    }
     Arrays.fill(tail, Double.POSITIVE_INFINITY); // no tail bound until a tail search sets one
     for (int g = 0; g < groups; g++) {
       prepareGroup(g);

@@ -79,13 +79,7 @@ final class PricingCases {
     }
     List<Rule> rules = new ArrayList<>(c.rules());
     for (int n = 0; n < count; n++) {
-      List<Integer> pick = new ArrayList<>();
-      while (pick.size() < 3) {
-        int g = rnd.nextInt(gs.size());
-        if (!pick.contains(g)) {
-          pick.add(g);
-        }
-      }
+      List<Integer> pick = distinctGroups(rnd, gs.size(), 3);
       LinkedHashMap<String, List<String>> two = new LinkedHashMap<>();
       for (int k = 0; k < 2; k++) {
         Group g = gs.get(pick.get(k));
@@ -97,20 +91,75 @@ final class PricingCases {
         f.put(third.id(), List.of(third.choiceId(rnd.nextInt(third.choiceCount()))));
         rules.add(new Rule(null, Map.of(), Map.of(), f));
       } else {
-        List<String> req = new ArrayList<>();
-        for (int k = 0; k < third.choiceCount(); k++) {
-          if (rnd.nextDouble() < 0.5) {
-            req.add(third.choiceId(k));
-          }
-        }
-        if (req.isEmpty()) {
-          req.add(third.choiceId(0));
-        }
-        rules.add(new Rule(null, two, Map.of(third.id(), req), Map.of()));
+        rules.add(new Rule(null, two, Map.of(third.id(), aboutHalf(third, rnd)), Map.of()));
       }
     }
+    return withRules(c, rules);
+  }
+
+  /**
+   * The catalog plus rules of the generator's {@code multi} family: when each of two or three groups
+   * holds one or two listed choices, each of two other groups must hold one of about half its
+   * choices. They compile to nogoods of three and four groups.
+   */
+  static Catalog withMultiRules(Catalog c, Random rnd, int count) {
+    List<Group> gs = c.groups();
+    if (gs.size() < 4) {
+      return c;
+    }
+    List<Rule> rules = new ArrayList<>(c.rules());
+    for (int n = 0; n < count; n++) {
+      int when = gs.size() >= 5 && rnd.nextBoolean() ? 3 : 2;
+      List<Integer> pick = distinctGroups(rnd, gs.size(), when + 2);
+      LinkedHashMap<String, List<String>> w = new LinkedHashMap<>();
+      for (int k = 0; k < when; k++) {
+        Group g = gs.get(pick.get(k));
+        List<String> ids = new ArrayList<>(List.of(g.choiceId(rnd.nextInt(g.choiceCount()))));
+        String second = g.choiceId(rnd.nextInt(g.choiceCount()));
+        if (rnd.nextBoolean() && !ids.contains(second)) {
+          ids.add(second);
+        }
+        w.put(g.id(), ids);
+      }
+      LinkedHashMap<String, List<String>> req = new LinkedHashMap<>();
+      for (int k = when; k < when + 2; k++) {
+        Group g = gs.get(pick.get(k));
+        req.put(g.id(), aboutHalf(g, rnd));
+      }
+      rules.add(new Rule(null, w, req, Map.of()));
+    }
+    return withRules(c, rules);
+  }
+
+  private static Catalog withRules(Catalog c, List<Rule> rules) {
     return new Catalog(
-        c.format(), c.name(), c.currency(), c.period(), c.resources(), gs, rules, c.segments(), c.portfolio());
+        c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), rules, c.segments(), c.portfolio());
+  }
+
+  /** {@code size} distinct groups of 0..groups-1, in the order drawn. */
+  private static List<Integer> distinctGroups(Random rnd, int groups, int size) {
+    List<Integer> pick = new ArrayList<>();
+    while (pick.size() < size) {
+      int g = rnd.nextInt(groups);
+      if (!pick.contains(g)) {
+        pick.add(g);
+      }
+    }
+    return pick;
+  }
+
+  /** Each choice of g with probability one half (its first when none was drawn), for a require. */
+  private static List<String> aboutHalf(Group g, Random rnd) {
+    List<String> ids = new ArrayList<>();
+    for (int x = 0; x < g.choiceCount(); x++) {
+      if (rnd.nextDouble() < 0.5) {
+        ids.add(g.choiceId(x));
+      }
+    }
+    if (ids.isEmpty()) {
+      ids.add(g.choiceId(0));
+    }
+    return ids;
   }
 
   /** Every column of segment s, best reduced cost first. */
