@@ -62,9 +62,21 @@ final class Summary {
     out.flush();
   }
 
-  /** The matrix view's lines, each indented. */
+  /** Characters a line of the summary may take: $COLUMNS when the shell exports it, else 120. */
+  static int width() {
+    try {
+      int c = Integer.parseInt(System.getenv().getOrDefault("COLUMNS", "").trim());
+      return c >= 60 ? c : DEFAULT_WIDTH;
+    } catch (NumberFormatException e) {
+      return DEFAULT_WIDTH;
+    }
+  }
+
+  static final int DEFAULT_WIDTH = 120;
+
+  /** The matrix view's lines, each indented, cut into blocks that fit {@link #width()}. */
   static void matrix(PrintWriter out, MatrixView m, int maxRows, String indent) {
-    m.lines(Figures::units, maxRows).forEach(line -> out.println(indent + line));
+    m.lines(Figures::units, maxRows, width() - indent.length()).forEach(line -> out.println(indent + line));
   }
 
   /** The summary lines of the integer stage, when the result has one. */
