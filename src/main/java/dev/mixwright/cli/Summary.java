@@ -7,6 +7,7 @@ import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.report.MatrixView;
 import dev.mixwright.report.VariantCodes;
 import dev.mixwright.report.RunResult;
+import dev.mixwright.report.StageWords;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -90,12 +91,17 @@ final class Summary {
       return;
     }
     String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();
-    out.println("  integer portfolio   " + p.status().word() + (p.reason().isEmpty() ? ""
-        : " (" + p.reason() + ")"));
+    out.println("  integer portfolio   " + (p.status().isProven() ? "proven the best range"
+        : "not proven the best" + (p.reason().isEmpty() ? "" : " (" + StageWords.plain(p.reason()) + ")")));
     out.println("    value             " + Figures.money(p.value()) + cur
         + "   after introduction costs " + Figures.money(p.introductionCosts()) + cur);
     out.println("    bound             " + Figures.money(orNaN(p.bound())) + cur
         + "   gap " + Figures.percent(orNaN(p.gap())));
+    if (!p.status().isProven() && p.bound() != null) {
+      // what the gap is worth and what to do about it, as the report says it
+      out.println("    a better range would be worth at most " + Figures.money(p.bound() - p.value()) + cur
+          + " more; if that matters, give the search more time (--portfolio-time-limit) and solve again");
+    }
     RunResult.Proof proof = p.proof();
     String change = p.kept() == null ? "," : String.format(Locale.ROOT,
         "; against today's range: kept %d, dropped %d, added %d;", p.kept().size(), p.dropped().size(),
@@ -104,9 +110,9 @@ final class Summary {
     long idle = p.kept() == null ? 0 : p.kept().stream().filter(k -> k.sales() == null || k.sales().isEmpty()).count();
     String onSale = idle == 0 ? p.variants().size() + " variants" : (p.variants().size() + idle) + " variants on sale ("
         + idle + " kept from today's range, selling nothing)";
-    out.println(String.format(Locale.ROOT, "    %s%s chosen by the exact search (%s) among %,d candidate variants"
+    out.println(String.format(Locale.ROOT, "    %s%s chosen by the exact search among %,d candidate variants"
             + " (%,d of them added to check that none does better%s), time %s",
-        onSale, change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
+        onSale, change, proof.poolVariants(), proof.survivorsAdded(),
         proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
     if (p.kept() != null) {
       out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"

@@ -483,7 +483,7 @@ public final class HtmlReport {
         return;
       }
       h.append("<p class=\"hotw\"><b>Not proven the best.</b> The search for the best range stopped")
-          .append(p.reason().isEmpty() ? "" : " (" + escape(p.reason()) + ")")
+          .append(p.reason().isEmpty() ? "" : " (" + escape(StageWords.plain(p.reason())) + ")")
           .append(" before it could rule out every other range. A better range would be worth at most <b>")
           .append(escape(Figures.money(open) + cur)).append("</b> more (")
           .append(escape(Figures.percent(p.gap()))).append(" of this one). If that sum matters, give the search more"
