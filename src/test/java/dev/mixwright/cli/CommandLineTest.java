@@ -165,17 +165,22 @@ class CommandLineTest {
   /** The code on a summary row, and the LP total units printed on it. */
   private record SummaryRow(String code, String total) {}
 
-  /** The matrix rows of the summary: the code, then the row's LP total (the last column but one). */
+  /**
+   * The matrix rows of the summary: the code, then the row's LP total (the last column but one), from
+   * the block of the table that holds the units (a wide table comes in blocks of group columns).
+   */
   private static List<SummaryRow> summaryRows(String out) {
     List<SummaryRow> rows = new java.util.ArrayList<>();
+    boolean units = false;
     for (String line : out.split("\n")) {
       String t = line.strip();
-      if (t.matches("V[0-9]+\\s{2,}.*")) {
+      if (t.startsWith("variant ")) {
+        units = t.contains("LP total");
+      } else if (units && t.matches("V[0-9]+\\s{2,}.*")) {
         String[] cells = t.split("\\s{2,}");
-        if (cells.length < 4) {
-          continue; // the portfolio's list: code and sales
-        }
         rows.add(new SummaryRow(cells[0], cells[cells.length - 2]));
+      } else if (!t.matches("V[0-9]+\\s{2,}.*")) {
+        units = false;
       }
     }
     return rows;
