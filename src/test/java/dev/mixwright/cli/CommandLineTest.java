@@ -301,6 +301,26 @@ class CommandLineTest {
     assertEquals("stopped", r.get("status").asText());
     assertTrue(r.get("stopReason").asText().contains("iteration limit"));
     assertTrue(r.get("bound").asDouble() > r.get("objective").asDouble());
+    // issue 10: "an alternative optimum" only on an optimal run; a stopped run's columns outside the
+    // plan are explained at its last shadow prices, and it says so
+    java.util.Set<String> offered = new java.util.HashSet<>();
+    r.get("offers").forEach(o -> offered.add(o.get("segment").asText() + o.get("options")));
+    int explained = 0;
+    for (String line : Files.readAllLines(out.resolve("columns.jsonl"))) {
+      JsonNode c = JSON.readTree(line);
+      if (explained == 6 || offered.contains(c.get("segment").asText() + c.get("options"))) {
+        continue;
+      }
+      StringBuilder v = new StringBuilder();
+      c.get("options").fields().forEachRemaining(f -> v.append(v.length() == 0 ? "" : ",").append(f.getKey()).append('=')
+          .append(f.getValue().asText()));
+      CliRun e = CliRun.of("explain", out.toString(), "--segment", c.get("segment").asText(), "--variant", v.toString());
+      assertEquals(0, e.code(), e::toString);
+      assertFalse(e.out().contains("alternative optimum"), e.out());
+      assertTrue(e.out().contains("the run ended stopped"), e.out());
+      explained++;
+    }
+    assertTrue(explained > 0, "the stopped run has columns outside its plan");
   }
 
   @Test
