@@ -110,9 +110,10 @@ final class Summary {
     long idle = p.kept() == null ? 0 : p.kept().stream().filter(k -> k.sales() == null || k.sales().isEmpty()).count();
     String onSale = idle == 0 ? p.variants().size() + " variants" : (p.variants().size() + idle) + " variants on sale ("
         + idle + " kept from today's range, selling nothing)";
-    out.println(String.format(Locale.ROOT, "    %s%s chosen by the exact search among %,d candidate variants"
+    out.println("    " + onSale + (change.equals(",") ? "" : change.substring(0, change.length() - 1)));
+    out.println(String.format(Locale.ROOT, "    chosen by the exact search among %,d candidate variants"
             + " (%,d of them added to check that none does better%s), time %s",
-        onSale, change, proof.poolVariants(), proof.survivorsAdded(),
+        proof.poolVariants(), proof.survivorsAdded(),
         proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
     if (p.kept() != null) {
       out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"
