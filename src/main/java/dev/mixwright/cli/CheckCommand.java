@@ -180,7 +180,7 @@ final class CheckCommand extends CatalogCommand {
     for (int s = 0; s < c.segments().size(); s++) {
       Segment seg = c.segments().get(s);
       out.println(String.format(Locale.ROOT, "    %-16s %s, accepts %s variants", seg.id(), seg.chooses()
-          ? "chooses (see below)" : "demand " + Figures.units(seg.demand()) + ", max share " + Figures.percent(seg.maxShare()),
+          ? "chooses (see below)" : "demand " + Figures.units(seg.demand()) + ", max share " + Figures.share(seg.maxShare()),
           facts.perSegment().get(s).text()));
     }
     c.portfolio().ifPresent(p -> out.println(String.format(Locale.ROOT,

@@ -185,7 +185,7 @@ final class CompareCommand extends SubCommand {
         continue;
       }
       out.println(String.format(Locale.ROOT, "  %-14s %14s %14s %12s %14s %14s", r.path("id").asText(),
-          money(p.path("a")), money(p.path("b")), p.has("change") ? Figures.signed(p.path("change").asDouble()) : "",
+          price(p.path("a")), price(p.path("b")), p.has("change") ? Figures.signed(p.path("change").asDouble()) : "",
           arrow(r.path(f1)), arrow(r.path(f2))));
     }
     if (hidden > 0) {
@@ -202,7 +202,7 @@ final class CompareCommand extends SubCommand {
     for (JsonNode s : segs) {
       out.println(String.format(Locale.ROOT, "  %-14s buyers %s, buy %s, stay out %s, shadow price of a buyer %s -> %s",
           s.path("id").asText(), arrow(s.path("buyers")), arrow(s.path("sold")), arrow(s.path("stayOut")),
-          money(s.path("shadowPrice").path("a")), money(s.path("shadowPrice").path("b"))));
+          price(s.path("shadowPrice").path("a")), price(s.path("shadowPrice").path("b"))));
       int hidden = 0;
       for (JsonNode o : s.path("offers")) {
         if (!all && Math.abs(o.path("shareA").asDouble() - o.path("shareB").asDouble()) <= 5e-4) {
@@ -219,8 +219,8 @@ final class CompareCommand extends SubCommand {
   }
 
   private static String arrow(JsonNode v) {
-    return Math.abs(v.path("change").asDouble()) <= 1e-9 ? Figures.qty(v(v.path("a")))
-        : Figures.qty(v(v.path("a"))) + "->" + Figures.qty(v(v.path("b")));
+    return Math.abs(v.path("change").asDouble()) <= 1e-9 ? Figures.units(v(v.path("a")))
+        : Figures.units(v(v.path("a"))) + "->" + Figures.units(v(v.path("b")));
   }
 
   private static double v(JsonNode n) {
@@ -229,6 +229,11 @@ final class CompareCommand extends SubCommand {
 
   private static String money(JsonNode n) {
     return n.isNumber() ? Figures.money(n.asDouble()) : "—";
+  }
+
+  /** A shadow price, as every shadow price a person reads. */
+  private static String price(JsonNode n) {
+    return n.isNumber() ? Figures.price(n.asDouble()) : "—";
   }
 
   private static String text(JsonNode n) {

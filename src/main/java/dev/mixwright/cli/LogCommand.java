@@ -81,7 +81,8 @@ final class LogCommand extends RunDirCommand {
             + " torn last line dropped (the run was cut off while writing it)" : ""));
     if (names != null && !full && shown > 0) {
       out.println("variants by their codes in the run's summary and report; \"V04 but X\": a variant outside the");
-      out.println("plan, named by the nearest coded variant and the options that differ (--full: every option)");
+      out.println("plan, named by the nearest coded variant and the options that differ (--full: every option);");
+      out.println("reduced cost: what a unit of the variant earns above the worth of what it uses, when it entered");
     }
     if (segment == null) {
       PortfolioLogView.print(out, runDir);

@@ -74,7 +74,7 @@ final class PortfolioExplainView {
       for (int s = 0; s < e.sales().length; s++) {
         if (e.sales()[s] > 0) {
           sb.append(sb.length() == 0 ? "" : ", ").append(cat.segments().get(s).id()).append(' ')
-              .append(Figures.qty(e.sales()[s]));
+              .append(Figures.units(e.sales()[s]));
         }
       }
       out.println("    in it: sells " + sb + "; margin " + Figures.money(e.margin()) + " against introduction cost "

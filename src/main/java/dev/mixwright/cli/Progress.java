@@ -169,6 +169,6 @@ final class Progress implements ColGenListener {
   static String line(IterationRecord r) {
     return String.format(Locale.ROOT, "round %4d  objective %s  bound %s  gap %s  columns %d (+%d)  %s%s",
         r.iteration(), Figures.money(r.objective()), Figures.money(r.bound()), Figures.percent(r.gap()),
-        r.columns(), r.added(), Durations.format(r.elapsedMs()), r.exactPricing() ? "" : "  (heuristic)");
+        r.columns(), r.added(), Durations.format(r.elapsedMs()), r.exactPricing() ? "" : "  (quick search: bound not updated)");
   }
 }

@@ -4,6 +4,7 @@ import dev.mixwright.report.Figures;
 import dev.mixwright.report.StageWords;
 import dev.mixwright.colgen.ColGenListener;
 import dev.mixwright.colgen.Durations;
+import dev.mixwright.portfolio.PortfolioEvent;
 import dev.mixwright.portfolio.PortfolioListener;
 import dev.mixwright.run.RunOutcome;
 import dev.mixwright.run.RunSession;
@@ -70,10 +71,10 @@ final class RunView {
         return List.of();
       }
       return List.of(e -> {
-        err.println(String.format(Locale.ROOT, "range %s: %s%s, upper limit %s  (%s)", StageWords.step(e.kind().word()),
-            StageWords.what(e.kind().word(), e.pool(), e.count(), e.note()),
-            e.kind().isPortfolio() ? "; best range " + Figures.money(e.value()) : "", Figures.money(e.bound()),
-            Durations.format(e.elapsedMs())));
+        err.println(String.format(Locale.ROOT, "range %8s  %-12s  best %14s  upper limit %14s  %s",
+            Durations.format(e.elapsedMs()), StageWords.step(e.kind().word()),
+            e.kind().isPortfolio() || e.kind() == PortfolioEvent.Kind.MIP ? Figures.money(e.value()) : "—",
+            Figures.money(e.bound()), StageWords.what(e.kind().word(), e.pool(), e.count(), e.note())));
         err.flush();
       });
     }

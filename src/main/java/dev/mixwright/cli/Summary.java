@@ -7,6 +7,7 @@ import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.report.MatrixView;
 import dev.mixwright.report.VariantCodes;
 import dev.mixwright.report.RunResult;
+import dev.mixwright.report.StageWords;
 import dev.mixwright.space.VariantSpace;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -62,9 +63,21 @@ final class Summary {
     out.flush();
   }
 
-  /** The matrix view's lines, each indented. */
+  /** Characters a line of the summary may take: $COLUMNS when the shell exports it, else 120. */
+  static int width() {
+    try {
+      int c = Integer.parseInt(System.getenv().getOrDefault("COLUMNS", "").trim());
+      return c >= 60 ? c : DEFAULT_WIDTH;
+    } catch (NumberFormatException e) {
+      return DEFAULT_WIDTH;
+    }
+  }
+
+  static final int DEFAULT_WIDTH = 120;
+
+  /** The matrix view's lines, each indented, cut into blocks that fit {@link #width()}. */
   static void matrix(PrintWriter out, MatrixView m, int maxRows, String indent) {
-    m.lines(Figures::units, maxRows).forEach(line -> out.println(indent + line));
+    m.lines(Figures::units, maxRows, width() - indent.length()).forEach(line -> out.println(indent + line));
   }
 
   /** The summary lines of the integer stage, when the result has one. */
@@ -78,12 +91,17 @@ final class Summary {
       return;
     }
     String cur = space.catalog().currency() == null ? "" : " " + space.catalog().currency();
-    out.println("  integer portfolio   " + p.status().word() + (p.reason().isEmpty() ? ""
-        : " (" + p.reason() + ")"));
+    out.println("  integer portfolio   " + (p.status().isProven() ? "proven the best range"
+        : "not proven the best" + (p.reason().isEmpty() ? "" : " (" + StageWords.plain(p.reason()) + ")")));
     out.println("    value             " + Figures.money(p.value()) + cur
         + "   after introduction costs " + Figures.money(p.introductionCosts()) + cur);
     out.println("    bound             " + Figures.money(orNaN(p.bound())) + cur
         + "   gap " + Figures.percent(orNaN(p.gap())));
+    if (!p.status().isProven() && p.bound() != null) {
+      // what the gap is worth and what to do about it, as the report says it
+      out.println("    a better range would be worth at most " + Figures.money(p.bound() - p.value()) + cur
+          + " more; if that matters, give the search more time (--portfolio-time-limit) and solve again");
+    }
     RunResult.Proof proof = p.proof();
     String change = p.kept() == null ? "," : String.format(Locale.ROOT,
         "; against today's range: kept %d, dropped %d, added %d;", p.kept().size(), p.dropped().size(),
@@ -92,9 +110,10 @@ final class Summary {
     long idle = p.kept() == null ? 0 : p.kept().stream().filter(k -> k.sales() == null || k.sales().isEmpty()).count();
     String onSale = idle == 0 ? p.variants().size() + " variants" : (p.variants().size() + idle) + " variants on sale ("
         + idle + " kept from today's range, selling nothing)";
-    out.println(String.format(Locale.ROOT, "    %s%s chosen by the exact search (%s) among %,d candidate variants"
+    out.println("    " + onSale + (change.equals(",") ? "" : change.substring(0, change.length() - 1)));
+    out.println(String.format(Locale.ROOT, "    chosen by the exact search among %,d candidate variants"
             + " (%,d of them added to check that none does better%s), time %s",
-        onSale, change, p.solver().engine(), proof.poolVariants(), proof.survivorsAdded(),
+        proof.poolVariants(), proof.survivorsAdded(),
         proof.survivorsComplete() ? ", every one that could" : "", Durations.format(p.elapsedMs())));
     if (p.kept() != null) {
       out.println("    today's range     " + (p.currentRangeValue() == null ? "does not fit as a fixed portfolio"

@@ -96,6 +96,9 @@ public final class HtmlReport {
     return v == null ? "development" : v;
   }
 
+  /** The width of the page's content at its widest (main's max-width less its padding). */
+  static final int PAGE_WIDTH_PX = 1072;
+
   static String css() {
     return "body{margin:0;background:#f6f5f1;color:" + INK + ";font:15px/1.5 system-ui,-apple-system,'Segoe UI',sans-serif}\n"
         + "main{max-width:1120px;margin:0 auto;padding:20px 24px 56px}\n"
@@ -117,6 +120,8 @@ public final class HtmlReport {
         + "table{border-collapse:collapse;width:100%;font-size:13.5px}\n"
         + ".scroll table{margin:0}\n"
         + "table.wide td,table.wide th{white-space:nowrap}\n"
+        + "table.opts{background:#fff;border:1px solid " + GRID + "}table.opts td{line-height:1.6}\n"
+        + ".o{white-space:nowrap;margin-right:10px;display:inline-block}.o .what{font-size:12px}\n"
         + "th,td{border-bottom:1px solid " + GRID + ";padding:5px 8px;text-align:left;vertical-align:top}\n"
         + "th{background:#eceae3;font-weight:600;font-size:12.5px}\n"
         + "td.n,th.n{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}\n"
@@ -143,7 +148,7 @@ public final class HtmlReport {
         + "@media (max-width:640px){main{padding:12px 12px 40px}h1{font-size:21px}"
         + ".bar{grid-template-columns:1fr auto;grid-template-areas:'l v' 't t'}.bar .l{grid-area:l;text-align:left;font-weight:600}"
         + ".bar .t{grid-area:t}.bar .v{grid-area:v;text-align:right}.cards{grid-template-columns:1fr 1fr}"
-        + ".card span{font-size:15px}}\n";
+        + ".card span{font-size:15px}.o{white-space:normal}}\n";
   }
 
   /** One page being drawn: the inputs and what every section shares (codes, matrix, plans, currency). */
@@ -328,7 +333,10 @@ public final class HtmlReport {
       }
       h.append("<th class=\"n\">LP units</th><th class=\"n\">LP margin").append(cur).append("</th>");
       matrix.segments().forEach(s -> h.append("<th class=\"n\">LP ").append(escape(s)).append("</th>"));
-      matrix.groups().forEach(g -> h.append("<th>").append(escape(g.head())).append("</th>"));
+      boolean fold = foldGroups();
+      if (!fold) {
+        matrix.groups().forEach(g -> h.append("<th>").append(escape(g.head())).append("</th>"));
+      }
       h.append("</tr>\n");
       for (MatrixView.Row row : matrix.rows()) {
         h.append("<tr><td class=\"code\">").append(row.code()).append("</td>");
@@ -343,11 +351,55 @@ public final class HtmlReport {
         for (double u : row.units()) {
           num(u == 0 ? "" : Figures.units(u));
         }
-        row.cells().forEach(c -> h.append("<td>").append(escape(c)).append("</td>"));
+        if (!fold) {
+          row.cells().forEach(c -> h.append("<td>").append(escape(c)).append("</td>"));
+        }
         h.append("</tr>\n");
       }
       h.append("</table></div>\n");
+      if (fold) {
+        // too many groups for one row of columns: each variant's choices as one paragraph that wraps
+        h.append("<h3>Options of each variant</h3>\n<p class=\"note\">The groups in which the variants differ,"
+            + " one line per variant (the choices all share are above).</p>\n<table class=\"opts\">\n");
+        for (MatrixView.Row row : matrix.rows()) {
+          h.append("<tr><td class=\"code\">").append(row.code()).append("</td><td>");
+          for (int g = 0; g < matrix.groups().size(); g++) {
+            String c = row.cells().get(g);
+            if (c.isEmpty()) {
+              continue;
+            }
+            h.append(g == 0 ? "" : " ").append("<span class=\"o\"><span class=\"what\">")
+                .append(escape(matrix.groups().get(g).head())).append("</span> ").append(escape(c)).append("</span>");
+          }
+          h.append("</td></tr>\n");
+        }
+        h.append("</table>\n");
+      }
       attachRates(range != null ? range : lp);
+    }
+
+    /**
+     * Whether the group columns would make the range's table wider than the page (1,120 px less
+     * its padding): then they fold into a table of their own, one wrapping line per variant, rather
+     * than a table that scrolls sideways past what a planner can keep in view. The width is
+     * estimated from the longest text of each column at about 7.5 px a character, plus the cell's
+     * padding, against the figure columns' share.
+     */
+    private boolean foldGroups() {
+      double px = 0;
+      // the code, units and money columns: their headings or their widest figures
+      px += 4 * 7.5 + 16 + 2 * (14 * 7.5 + 16) + (range != null ? 2 * (20 * 7.5 + 16) : 0);
+      for (String seg : matrix.segments()) {
+        px += Math.max(seg.length() + 3, 7) * 7.5 + 16;
+      }
+      for (int g = 0; g < matrix.groups().size(); g++) {
+        int chars = matrix.groups().get(g).head().length();
+        for (MatrixView.Row row : matrix.rows()) {
+          chars = Math.max(chars, row.cells().get(g).length());
+        }
+        px += chars * 7.5 + 16;
+      }
+      return px > PAGE_WIDTH_PX;
     }
 
     private void num(String text) {
@@ -431,7 +483,7 @@ public final class HtmlReport {
         return;
       }
       h.append("<p class=\"hotw\"><b>Not proven the best.</b> The search for the best range stopped")
-          .append(p.reason().isEmpty() ? "" : " (" + escape(p.reason()) + ")")
+          .append(p.reason().isEmpty() ? "" : " (" + escape(StageWords.plain(p.reason())) + ")")
           .append(" before it could rule out every other range. A better range would be worth at most <b>")
           .append(escape(Figures.money(open) + cur)).append("</b> more (")
           .append(escape(Figures.percent(p.gap()))).append(" of this one). If that sum matters, give the search more"

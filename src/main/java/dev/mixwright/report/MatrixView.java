@@ -146,19 +146,26 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
     return h;
   }
 
+  /** The view as text lines of any width: {@link #lines(DoubleFunction, int, int)} without a limit. */
+  public List<String> lines(DoubleFunction<String> units, int maxRows) {
+    return lines(units, maxRows, Integer.MAX_VALUE);
+  }
+
   /**
    * The view as text lines: the shared choices, then the table with at most {@code maxRows} rows
-   * (a line says how many more there are); {@code units} formats a number of units.
+   * (a line says how many more there are); {@code units} formats a number of units. A table wider
+   * than {@code width} characters is cut into blocks of group columns, each led by the variant's
+   * code: the first holds the units and the groups that fit beside them, the next ones the other
+   * groups, so that a catalog of thirty groups still reads on a terminal; the shared choices wrap.
    */
-  public List<String> lines(DoubleFunction<String> units, int maxRows) {
+  public List<String> lines(DoubleFunction<String> units, int maxRows, int width) {
     List<String> out = new ArrayList<>();
     if (!shared.isEmpty()) {
-      StringBuilder b = new StringBuilder("all variants: ");
-      for (int i = 0; i < shared.size(); i++) {
-        Shared s = shared.get(i);
-        b.append(i == 0 ? "" : ", ").append(s.groupHead()).append(' ').append(s.choiceText());
+      List<String> parts = new ArrayList<>();
+      for (Shared s : shared) {
+        parts.add(s.groupHead() + ": " + s.choiceText());
       }
-      out.add(b.toString());
+      out.addAll(wrap("all variants: ", parts, width, ";"));
     }
     List<String> head = header();
     List<List<String>> cells = new ArrayList<>();
@@ -177,19 +184,118 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
       }
       cells.add(line);
     }
-    int[] width = new int[head.size()];
-    for (int c = 0; c < width.length; c++) {
-      width[c] = head.get(c).length();
+    int[] w = new int[head.size()];
+    for (int c = 0; c < w.length; c++) {
+      w[c] = head.get(c).length();
       for (List<String> line : cells) {
-        width[c] = Math.max(width[c], line.get(c).length());
+        w[c] = Math.max(w[c], line.get(c).length());
       }
     }
     int textColumns = 1 + groups.size();
-    out.add(row(head, width, textColumns));
-    cells.forEach(line -> out.add(row(line, width, textColumns)));
+    List<List<Integer>> blocks = blocks(w, textColumns, width);
+    for (int b = 0; b < blocks.size(); b++) {
+      List<Integer> cols = blocks.get(b);
+      if (b > 0) {
+        out.add("");
+      }
+      out.add(row(pick(head, cols), pick(w, cols, width), textColumns(cols, textColumns)));
+      for (List<String> line : cells) {
+        out.add(row(pick(line, cols), pick(w, cols, width), textColumns(cols, textColumns)));
+      }
+    }
     if (rows.size() > shown) {
       out.add("... " + (rows.size() - shown) + " more variants");
     }
+    return out;
+  }
+
+  /**
+   * The columns of each block: all in one when the table fits {@code width}; else the code, the
+   * groups that fit and the number columns, then the code and the next groups that fit, and so on
+   * (a block holds at least one group, so a group wider than the line still shows, its cells cut).
+   */
+  private static List<List<Integer>> blocks(int[] w, int textColumns, int width) {
+    int total = -2;
+    for (int x : w) {
+      total += x + 2;
+    }
+    List<List<Integer>> blocks = new ArrayList<>();
+    List<Integer> all = new ArrayList<>();
+    for (int c = 0; c < w.length; c++) {
+      all.add(c);
+    }
+    if (total <= width || textColumns == 1) {
+      blocks.add(all);
+      return blocks;
+    }
+    int numbers = 0;
+    for (int c = textColumns; c < w.length; c++) {
+      numbers += w[c] + 2;
+    }
+    int g = 1;
+    boolean first = true;
+    while (g < textColumns) {
+      List<Integer> block = new ArrayList<>();
+      block.add(0);
+      int used = w[0] + (first ? numbers : 0);
+      do {
+        block.add(g);
+        used += w[g] + 2;
+        g++;
+      } while (g < textColumns && used + w[g] + 2 <= width);
+      if (first) {
+        for (int c = textColumns; c < w.length; c++) {
+          block.add(c);
+        }
+        first = false;
+      }
+      blocks.add(block);
+    }
+    return blocks;
+  }
+
+  /** How many of a block's columns are text (the code and its groups): they come first. */
+  private static int textColumns(List<Integer> cols, int textColumns) {
+    int n = 0;
+    for (int c : cols) {
+      n += c < textColumns ? 1 : 0;
+    }
+    return n;
+  }
+
+  private static List<String> pick(List<String> line, List<Integer> cols) {
+    List<String> out = new ArrayList<>();
+    cols.forEach(c -> out.add(line.get(c)));
+    return out;
+  }
+
+  /** The widths of a block's columns, a text column no wider than the line leaves it. */
+  private static int[] pick(int[] w, List<Integer> cols, int width) {
+    int[] out = new int[cols.size()];
+    for (int i = 0; i < out.length; i++) {
+      out[i] = w[cols.get(i)];
+    }
+    if (out.length > 1 && width < Integer.MAX_VALUE) {
+      out[1] = Math.min(out[1], Math.max(8, width - out[0] - 2));
+    }
+    return out;
+  }
+
+  /** {@code lead} then the parts, {@code separator} after each but the last, wrapped at {@code width} with the next lines indented. */
+  private static List<String> wrap(String lead, List<String> parts, int width, String separator) {
+    List<String> out = new ArrayList<>();
+    StringBuilder b = new StringBuilder(lead);
+    for (int i = 0; i < parts.size(); i++) {
+      String part = parts.get(i) + (i < parts.size() - 1 ? separator : "");
+      boolean fresh = b.length() == lead.length() || b.toString().isBlank();
+      if (!fresh && b.length() + 1 + part.length() > width) {
+        out.add(b.toString());
+        b = new StringBuilder("  ");
+        fresh = true;
+      }
+      b.append(fresh ? "" : " ").append(part);
+    }
+    out.add(b.toString());
     return out;
   }
 
@@ -198,6 +304,9 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
     StringBuilder b = new StringBuilder();
     for (int c = 0; c < cells.size(); c++) {
       String s = cells.get(c);
+      if (s.length() > width[c]) {
+        s = s.substring(0, width[c] - 1) + "…";
+      }
       String pad = " ".repeat(width[c] - s.length());
       b.append(c == 0 ? "" : "  ").append(c < textColumns ? s + pad : pad + s);
     }

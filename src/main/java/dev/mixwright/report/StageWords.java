@@ -64,7 +64,8 @@ public final class StageWords {
             + "; limit for these only";
       }
       case "survivors":
-        return n.startsWith("every")
+        return n.startsWith("every") && count == 0 ? "no other variant could beat it"
+            : n.startsWith("every")
             ? String.format(Locale.ROOT, "%,d candidates added: all that could beat it", count)
             : String.format(Locale.ROOT, "%,d or more could beat it: too many to check", count);
       case "tree":

@@ -12,6 +12,16 @@ record CliRun(int code, String out, String err) {
     return new CliRun(code, out.toString(), err.toString());
   }
 
+  /** Words of the solver a planner should not meet (issue 10), sought as words in every line of {@code text}. */
+  static void assertPlain(String text) {
+    for (String line : text.split("\n")) {
+      for (String word : dev.mixwright.report.StageWords.JARGON) {
+        org.junit.jupiter.api.Assertions.assertFalse(
+            java.util.regex.Pattern.compile("(?i)\\b" + word).matcher(line).find(), "'" + word + "' in: " + line);
+      }
+    }
+  }
+
   @Override
   public String toString() {
     return "exit " + code + "\n--- stdout\n" + out + "--- stderr\n" + err;

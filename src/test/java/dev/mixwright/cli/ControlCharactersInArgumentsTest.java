@@ -29,6 +29,7 @@ class ControlCharactersInArgumentsTest {
 
   @Test
   void anArgumentPicocliRefusesIsShownEscaped() {
+    // log takes the run folder alone: picocli refuses the second argument and shows it
     CliRun r = CliRun.of("log", "some-run", "capacity=" + ESC + "c14");
     assertEquals(ExitCodes.BAD_INPUT, r.code(), r.toString());
     assertTrue(r.err().contains("\\u001B[31mc14"), r.toString());

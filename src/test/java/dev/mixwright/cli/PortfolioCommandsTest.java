@@ -63,6 +63,13 @@ class PortfolioCommandsTest {
     assertEquals(80, first.get("sales").get("north").asDouble(), 1e-6);
     assertTrue(Files.isRegularFile(runDir.resolve("portfolio.jsonl")));
 
+    // the integer stage's progress lines, asked for although stderr is no terminal, speak plain words
+    Run shown = run("solve", dir.resolve("hand-100.yaml").toString(), "--out", dir.resolve("shown").toString(),
+        "--progress");
+    assertEquals(0, shown.code(), shown.err());
+    assertTrue(shown.err().contains("better range") && shown.err().contains("upper limit"), shown.err());
+    CliRun.assertPlain(shown.err());
+    CliRun.assertPlain(shown.out());
     Run log = run("log", runDir.toString(), "--portfolio");
     assertEquals(0, log.code(), log.err());
     assertTrue(log.out().contains("choosing the range"), log.out());

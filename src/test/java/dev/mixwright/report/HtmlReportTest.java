@@ -85,6 +85,18 @@ class HtmlReportTest {
       assertTrue(html.contains("<td class=\"code\">" + codes.code(v.options()) + "</td>"), "matrix row of a variant");
     }
     assertTrue(html.contains("Heating capacity class"), "group labels of the catalog");
+    // six labelled groups do not fit beside the figures at the page's width: each variant's choices
+    // fold into a line of their own, every choice of the matrix kept
+    String options = html.substring(html.indexOf("Options of each variant"));
+    MatrixView m = MatrixView.of(rr, HtmlReport.read(run).catalog());
+    for (MatrixView.Row row : m.rows()) {
+      String line = options.substring(options.indexOf("<td class=\"code\">" + row.code() + "</td>"));
+      line = line.substring(0, line.indexOf("</tr>"));
+      for (int g = 0; g < m.groups().size(); g++) {
+        assertTrue(line.contains(HtmlReport.escape(m.groups().get(g).head()) + "</span> "
+            + HtmlReport.escape(row.cells().get(g))), row.code() + " " + m.groups().get(g).head());
+      }
+    }
     assertFalse(html.contains("capacity="), "no group=option text where labels exist");
 
     // the portfolio against the LP plan, in money
@@ -161,6 +173,8 @@ class HtmlReportTest {
     assertTrue(html.contains("&lt;script&gt;alert(1)&lt;/script&gt;"));
     assertTrue(html.contains("Tom &amp; Jerry&#39;s &lt;b&gt;range&lt;/b&gt;"));
     assertTrue(html.contains("line&quot;A&quot;"));
+    // two short groups fit beside the figures: they stay columns of the one table
+    assertTrue(html.contains("<th>colour</th>") && !html.contains("Options of each variant"));
     assertTrue(html.contains("1,234.50"));
     assertTrue(html.contains("scenario: <b>not recorded</b>"), "no run.json in the folder");
     assertFalse(html.contains("id=\"against\""), "no portfolio in the run, none on the page");
