@@ -31,8 +31,11 @@ public record RangeChange(
   }
 
   static RangeChange of(VariantSpace space, Pool pool, Plan plan, Plan today) {
-    CurrentRange cr = pool.current();
-    List<OfferedVariant> offered = IntegerStage.offered(space, pool, plan);
+    return of(space, pool.current(), IntegerStage.offered(space, pool, plan), today == null ? Double.NaN : today.value());
+  }
+
+  /** The change that offering {@code offered} makes to today's range {@code cr}. */
+  static RangeChange of(VariantSpace space, CurrentRange cr, List<OfferedVariant> offered, double todayValue) {
     List<OfferedVariant> kept = new ArrayList<>();
     List<OfferedVariant> added = new ArrayList<>();
     Set<Integer> keptIndex = new HashSet<>();
@@ -59,6 +62,6 @@ public record RangeChange(
         paid += cr.discontinue(i);
       }
     }
-    return new RangeChange(kept, dropped, added, paid, today == null ? Double.NaN : today.value());
+    return new RangeChange(kept, dropped, added, paid, todayValue);
   }
 }

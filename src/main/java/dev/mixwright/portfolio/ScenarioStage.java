@@ -103,7 +103,8 @@ public final class ScenarioStage {
   public record Outcome(PortfolioStatus status, String reason, ValueBound result, List<int[]> range,
       double[] scenarioValue, List<List<OfferedVariant>> plans, double introductionCosts, double toolingCosts,
       double relaxationObjective, int rounds, boolean converged, double survivorThreshold, int survivorsAdded,
-      boolean survivorsComplete, int poolSize, int mipSolves, long elapsedMs) {
+      boolean survivorsComplete, int poolSize, int mipSolves, long elapsedMs, List<OfferedVariant> mean,
+      RangeChange change) {
 
     public double value() {
       return result.value();
@@ -365,12 +366,36 @@ public final class ScenarioStage {
     double intro = e.members().length == 0 ? 0 : e.plans()[0].introduction();
     double tooling = e.members().length == 0 ? 0 : e.plans()[0].tooling();
     double bnd = Math.max(bound, e.objective());
+    List<OfferedVariant> mean = weightedMean(range, plans);
+    // today's range is valued per scenario elsewhere (each scenario's own solve), so not here: NaN
+    RangeChange change = RangeChange.of(spaces.get(0), pools.get(0).current(), mean, Double.NaN);
     return new Outcome(status, reason, new ValueBound(e.objective(), bnd), range, e.values(), plans, intro, tooling,
         rx == null ? e.objective() : rx.objective(), rx == null ? 0 : rx.rounds(), rx == null || rx.converged(),
-        theta, added, complete, pools.get(0).size(), mipSolves, clock.elapsedMs());
+        theta, added, complete, pools.get(0).size(), mipSolves, clock.elapsedMs(), mean, change);
   }
 
   private int mipSolves;
+
+  /** Each variant of the range with its sales and margin as the weighted mean over the scenarios' plans. */
+  private List<OfferedVariant> weightedMean(List<int[]> range, List<List<OfferedVariant>> plans) {
+    List<OfferedVariant> out = new ArrayList<>();
+    for (int[] v : range) {
+      double[] sales = new double[spaces.get(0).segmentCount()];
+      double margin = 0;
+      for (int k = 0; k < scenarios; k++) {
+        for (OfferedVariant w : plans.get(k)) {
+          if (Arrays.equals(w.choices(), v)) {
+            for (int s = 0; s < sales.length; s++) {
+              sales[s] += weight[k] * w.sales()[s];
+            }
+            margin += weight[k] * w.margin();
+          }
+        }
+      }
+      out.add(new OfferedVariant(v, sales, margin));
+    }
+    return out;
+  }
 
   // ---------------------------------------------------------------- relaxation
 

@@ -89,25 +89,14 @@ public final class PortfolioSection {
    * relaxation prices, which are per scenario.
    */
   public static RunResult.Portfolio ofScenarios(VariantSpace space, PortfolioTerms terms, ScenarioStage.Outcome o,
-      double[] weights, String engine) {
+      String engine) {
     Catalog cat = space.catalog();
     List<RunResult.PortfolioVariant> variants = new ArrayList<>();
-    for (int[] v : o.range()) {
-      double[] sales = new double[cat.segments().size()];
-      double margin = 0;
-      for (int k = 0; k < weights.length; k++) {
-        for (OfferedVariant w : o.plans().get(k)) {
-          if (java.util.Arrays.equals(w.choices(), v)) {
-            for (int s = 0; s < sales.length; s++) {
-              sales[s] += weights[k] * w.sales()[s];
-            }
-            margin += weights[k] * w.margin();
-          }
-        }
-      }
-      OfferedVariant mean = new OfferedVariant(v, sales, margin);
-      variants.add(new RunResult.PortfolioVariant(space.describe(v), sales(cat, mean), mean.units(), margin,
-          terms.introductionCost()));
+    Set<dev.mixwright.space.VariantKey> kept = new HashSet<>();
+    o.change().kept().forEach(v -> kept.add(space.key(v.choices())));
+    for (OfferedVariant mean : o.mean()) {
+      variants.add(new RunResult.PortfolioVariant(space.describe(mean.choices()), sales(cat, mean), mean.units(),
+          mean.margin(), kept.contains(space.key(mean.choices())) ? 0.0 : terms.introductionCost()));
     }
     variants.sort((a, b) -> Double.compare(b.margin(), a.margin()));
     RunResult.Terms tn = new RunResult.Terms(terms.introductionCost(),
@@ -116,7 +105,9 @@ public final class PortfolioSection {
     return new RunResult.Portfolio(o.status(), o.reason(), o.value(), Json.num(o.bound()), Json.num(o.gap()),
         variants, o.introductionCosts(), o.toolingCosts(), null, tn, null, null,
         new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize()),
-        new RunResult.Solver(engine, o.mipSolves(), o.status().isProven()), o.elapsedMs());
+        new RunResult.Solver(engine, o.mipSolves(), o.status().isProven()), o.elapsedMs(),
+        range(space, o.change(), r -> r.kept()), range(space, o.change(), null), range(space, o.change(), r -> r.added()),
+        o.change().hasCurrentRange() ? o.change().discontinueCosts() : null, null, null, null, null);
   }
 
   /** Kept or added (with sales) or, with no getter, dropped (options only); null without a current range. */

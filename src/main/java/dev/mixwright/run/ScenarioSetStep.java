@@ -121,7 +121,7 @@ final class ScenarioSetStep {
           : holdOut(engine, base, set.holdOut().get(), o.range(), set.plan().holdOut().get(), stop, watcher);
       VariantSpace first = spaces.get(0);
       RunResult.Portfolio p = PortfolioSection.ofScenarios(first, PortfolioTerms.of(first), o,
-          w, settings.engine().word()).withScenarios(set.plan().aim().isWorst() ? "worst" : "mean", rows, check);
+          settings.engine().word()).withScenarios(set.plan().aim().isWorst() ? "worst" : "mean", rows, check);
       return result.withPortfolio(p, (System.nanoTime() - startNanos) / 1_000_000);
     }
   }

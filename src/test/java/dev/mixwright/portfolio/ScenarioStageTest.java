@@ -1,6 +1,7 @@
 package dev.mixwright.portfolio;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
@@ -193,6 +194,27 @@ class ScenarioStageTest {
           assertTrue(o.range().stream().anyMatch(r -> java.util.Arrays.equals(r, v)), where + ": a pinned variant dropped");
         }
       }
+      // the change against today's range, as the report lists it: kept and added make up the range,
+      // kept are today's, dropped are today's outside the range and pay exactly their discontinue costs
+      VariantSpace sp = spaces.get(0);
+      java.util.Set<dev.mixwright.space.VariantKey> inRange = new java.util.HashSet<>();
+      o.range().forEach(r -> inRange.add(sp.key(r)));
+      java.util.Set<dev.mixwright.space.VariantKey> today = new java.util.HashSet<>();
+      double paid = 0;
+      for (CurrentVariant cv : c.current()) {
+        int[] v = sp.parse(cv.variant());
+        today.add(sp.key(v));
+        if (!inRange.contains(sp.key(v))) {
+          paid += cv.discontinue();
+        }
+      }
+      RangeChange ch = o.change();
+      assertEquals(inRange.size(), ch.kept().size() + ch.added().size(), where + ": kept and added make the range");
+      ch.kept().forEach(k -> assertTrue(today.contains(sp.key(k.choices())), where + ": kept but not on sale today"));
+      ch.added().forEach(a -> assertFalse(today.contains(sp.key(a.choices())), where + ": added but on sale today"));
+      assertEquals(today.size() - ch.kept().size(), ch.dropped().size(), where + ": dropped");
+      assertEquals(paid, ch.discontinueCosts(), 1e-9, where + ": discontinue costs paid");
+      assertEquals(o.range().size(), o.mean().size(), where);
       if (o.status().isProven()) {
         proven[0]++;
         assertEquals(full.value(), o.value(), tol(full.value()), where);
