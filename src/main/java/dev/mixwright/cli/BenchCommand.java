@@ -49,7 +49,7 @@ import picocli.CommandLine.Option;
     description = {
       "Measures column generation against solving the whole LP with every column listed.",
       "Runs on generated catalogs and prints the tables of docs/performance.md (Markdown).",
-      "Takes minutes; --quick runs the small sizes only and gives each family's solve 10 s.",
+      "Takes minutes; --quick runs the small sizes only and gives each family's solve 5 s.",
       "Ends with the generator's families (--families): check, time to round 1, column generation and the count."
     })
 final class BenchCommand extends SubCommand {
