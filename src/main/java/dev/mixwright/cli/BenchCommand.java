@@ -366,19 +366,8 @@ final class BenchCommand extends SubCommand {
     VariantSpace space = in.space;
     quiet();
     long t0 = System.nanoTime();
-    double[] capacity = capacities(space);
-    double[] demand = demands(space);
-    try (FullLp lp = new FullLp(capacity, demand, FullLp.Solver.GLOP_DUAL)) {
-      VariantEnumerator en = new VariantEnumerator(space);
-      double[] use = new double[space.resourceCount()];
-      for (int s = 0; s < space.segmentCount(); s++) {
-        int seg = s;
-        double upper = space.catalog().segments().get(s).columnBound();
-        en.forEach(s, v -> {
-          lp.addColumn(seg, space.margin(v, seg), space.use(v, use), upper);
-          return true;
-        });
-      }
+    try (FullLp lp = new FullLp(capacities(space), demands(space), FullLp.Solver.GLOP_DUAL)) {
+      listColumns(space, lp);
       long t1 = System.nanoTime();
       FullLp.Result r = lp.solve();
       long t2 = System.nanoTime();
@@ -386,6 +375,20 @@ final class BenchCommand extends SubCommand {
         throw new IllegalStateException("the full LP of " + in.label + " ended " + r.status());
       }
       return new FullRun(t1 - t0, t2 - t1, r.objective(), r.simplexIterations(), peakHeap());
+    }
+  }
+
+  /** Every (buildable variant, segment that accepts it) column of the space, added to {@code lp}. */
+  static void listColumns(VariantSpace space, FullLp lp) {
+    VariantEnumerator en = new VariantEnumerator(space);
+    double[] use = new double[space.resourceCount()];
+    for (int s = 0; s < space.segmentCount(); s++) {
+      int seg = s;
+      double upper = space.catalog().segments().get(s).columnBound();
+      en.forEach(s, v -> {
+        lp.addColumn(seg, space.margin(v, seg), space.use(v, use), upper);
+        return true;
+      });
     }
   }
 
@@ -565,7 +568,7 @@ final class BenchCommand extends SubCommand {
     return String.join("; ", parts);
   }
 
-  private static double[] capacities(VariantSpace space) {
+  static double[] capacities(VariantSpace space) {
     double[] c = new double[space.resourceCount()];
     for (int r = 0; r < c.length; r++) {
       c[r] = space.catalog().resources().get(r).capacity();
@@ -573,7 +576,7 @@ final class BenchCommand extends SubCommand {
     return c;
   }
 
-  private static double[] demands(VariantSpace space) {
+  static double[] demands(VariantSpace space) {
     double[] d = new double[space.segmentCount()];
     for (int s = 0; s < d.length; s++) {
       d[s] = space.catalog().segments().get(s).demand();

@@ -16,7 +16,6 @@ import dev.mixwright.runfolder.RunFolder;
 import dev.mixwright.space.BudgetedCount;
 import dev.mixwright.space.SpaceCount;
 import dev.mixwright.space.SpaceCounter;
-import dev.mixwright.space.VariantEnumerator;
 import dev.mixwright.space.VariantSpace;
 import java.io.IOException;
 import java.math.BigInteger;
@@ -273,25 +272,8 @@ final class FamilyBench {
   private static Timed solveFull(Small small, FullLp.Solver solver) {
     VariantSpace space = small.space;
     long t0 = System.nanoTime();
-    double[] capacity = new double[space.resourceCount()];
-    for (int r = 0; r < capacity.length; r++) {
-      capacity[r] = space.catalog().resources().get(r).capacity();
-    }
-    double[] demand = new double[space.segmentCount()];
-    for (int s = 0; s < demand.length; s++) {
-      demand[s] = space.catalog().segments().get(s).demand();
-    }
-    try (FullLp lp = new FullLp(capacity, demand, solver)) {
-      VariantEnumerator en = new VariantEnumerator(space);
-      double[] use = new double[space.resourceCount()];
-      for (int s = 0; s < space.segmentCount(); s++) {
-        int seg = s;
-        double upper = space.catalog().segments().get(s).columnBound();
-        en.forEach(s, v -> {
-          lp.addColumn(seg, space.margin(v, seg), space.use(v, use), upper);
-          return true;
-        });
-      }
+    try (FullLp lp = new FullLp(BenchCommand.capacities(space), BenchCommand.demands(space), solver)) {
+      BenchCommand.listColumns(space, lp);
       FullLp.Result r = lp.solve();
       if (!r.status().isOptimal()) {
         throw new IllegalStateException("the full LP (" + solver.word() + ") of " + small.spec + " ended " + r.status());
