@@ -42,7 +42,9 @@ import picocli.CommandLine.Option;
  * The benchmark of docs/performance.md: on the same generated catalogs, the full LP (every column
  * listed, one GLOP solve) against column generation, the exact pricers against each other on the
  * same duals, and each acceleration of the loop switched on and off. Every ratio comes from one run
- * in one JVM; memory is measured per phase after {@code System.gc()}.
+ * in one JVM; memory is measured per phase after {@code System.gc()}. Then the generator's families
+ * ({@link FamilyBench}): check and solve as a user runs them, against the code before issue 11 and
+ * against HiGHS on the full LP of smaller catalogs.
  */
 @Command(
     name = "bench",

@@ -76,7 +76,7 @@ final class FamilyBench {
 
   /** What was measured on one family's large catalog. */
   record Measured(CatalogGenerator.Family family, long checkWallMs, int checkExit, SpaceCount count, long countMs,
-      Long roundOneMs, long lpMs, String lpStatus, int rounds, long solveWallMs, OldCount before) {}
+      Long roundOneMs, long lpMs, String lpStatus, int rounds, OldCount before) {}
 
   /** The count solve did before its first round until issue 11; {@code done} false when cut off at the cap. */
   record OldCount(long ms, boolean done, String text) {}
@@ -111,10 +111,8 @@ final class FamilyBench {
 
     note.accept("families: " + f.word() + ", solve in its own JVM (LP stage, limit " + limits.solveMs / 1000 + " s)");
     Path runDir = work.resolve(f.word() + "-run");
-    t0 = System.nanoTime();
     child(List.of("solve", file.toString(), "--out", runDir.toString(), "--replace", "--no-portfolio",
         "--no-progress", "--time-limit", limits.solveMs + "ms"), limits.solveMs + 60_000);
-    long solveWall = msSince(t0);
     RunResult r = RunResult.read(runDir);
     Long roundOne = firstMasterSolveMs(new RunFolder(runDir).columnLog());
 
@@ -128,7 +126,7 @@ final class FamilyBench {
         + limits.oldCountMs / 1000 + " s)");
     OldCount before = oldCount(space, limits.oldCountMs);
     return new Measured(f, checkMs, checkExit, count, countMs, roundOne, r.elapsedMs(), r.status().word(),
-        r.iterations(), solveWall, before);
+        r.iterations(), before);
   }
 
   /** The exact counts, in all and per segment, that solve ran before its first round until issue 11. */
