@@ -55,7 +55,7 @@ public final class CatalogLoader {
   }
 
   private static ObjectMapper yamlMapper() {
-    YAMLFactory factory = YAMLFactory.builder().loaderOptions(yamlOptions()).build();
+    YAMLFactory factory = new YamlShape.Factory(yamlOptions());
     return YAMLMapper.builder(factory)
         .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
         .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
@@ -138,10 +138,11 @@ public final class CatalogLoader {
     }
     if (yaml) {
       longestLine(body, name);
-      YamlShape.check(body, name, YAML_OPTIONS);
     }
     try {
       return (yaml ? YAML : JSON).readTree(body);
+    } catch (YamlShape.Refused e) {
+      throw new CatalogException(e.in(name));
     } catch (JsonProcessingException e) {
       throw new CatalogException(syntaxProblem(e, name, yaml));
     }

@@ -42,14 +42,16 @@ import picocli.CommandLine.Option;
  * The benchmark of docs/performance.md: on the same generated catalogs, the full LP (every column
  * listed, one GLOP solve) against column generation, the exact pricers against each other on the
  * same duals, and each acceleration of the loop switched on and off. Every ratio comes from one run
- * in one JVM; memory is measured per phase after {@code System.gc()}.
+ * in one JVM; memory is measured per phase after {@code System.gc()}. Then the generator's families
+ * ({@link FamilyBench}): check and solve as a user runs them, against the code before issue 11 and
+ * against HiGHS on the full LP of smaller catalogs.
  */
 @Command(
     name = "bench",
     description = {
       "Measures column generation against solving the whole LP with every column listed.",
       "Runs on generated catalogs and prints the tables of docs/performance.md (Markdown).",
-      "Takes minutes; --quick runs the small sizes only and gives each family's solve 10 s.",
+      "Takes minutes; --quick runs the small sizes only and gives each family's solve 5 s.",
       "Ends with the generator's families (--families): check, time to round 1, column generation and the count."
     })
 final class BenchCommand extends SubCommand {
@@ -366,19 +368,8 @@ final class BenchCommand extends SubCommand {
     VariantSpace space = in.space;
     quiet();
     long t0 = System.nanoTime();
-    double[] capacity = capacities(space);
-    double[] demand = demands(space);
-    try (FullLp lp = new FullLp(capacity, demand, FullLp.Solver.GLOP_DUAL)) {
-      VariantEnumerator en = new VariantEnumerator(space);
-      double[] use = new double[space.resourceCount()];
-      for (int s = 0; s < space.segmentCount(); s++) {
-        int seg = s;
-        double upper = space.catalog().segments().get(s).columnBound();
-        en.forEach(s, v -> {
-          lp.addColumn(seg, space.margin(v, seg), space.use(v, use), upper);
-          return true;
-        });
-      }
+    try (FullLp lp = new FullLp(capacities(space), demands(space), FullLp.Solver.GLOP_DUAL)) {
+      listColumns(space, lp);
       long t1 = System.nanoTime();
       FullLp.Result r = lp.solve();
       long t2 = System.nanoTime();
@@ -386,6 +377,20 @@ final class BenchCommand extends SubCommand {
         throw new IllegalStateException("the full LP of " + in.label + " ended " + r.status());
       }
       return new FullRun(t1 - t0, t2 - t1, r.objective(), r.simplexIterations(), peakHeap());
+    }
+  }
+
+  /** Every (buildable variant, segment that accepts it) column of the space, added to {@code lp}. */
+  static void listColumns(VariantSpace space, FullLp lp) {
+    VariantEnumerator en = new VariantEnumerator(space);
+    double[] use = new double[space.resourceCount()];
+    for (int s = 0; s < space.segmentCount(); s++) {
+      int seg = s;
+      double upper = space.catalog().segments().get(s).columnBound();
+      en.forEach(s, v -> {
+        lp.addColumn(seg, space.margin(v, seg), space.use(v, use), upper);
+        return true;
+      });
     }
   }
 
@@ -565,7 +570,7 @@ final class BenchCommand extends SubCommand {
     return String.join("; ", parts);
   }
 
-  private static double[] capacities(VariantSpace space) {
+  static double[] capacities(VariantSpace space) {
     double[] c = new double[space.resourceCount()];
     for (int r = 0; r < c.length; r++) {
       c[r] = space.catalog().resources().get(r).capacity();
@@ -573,7 +578,7 @@ final class BenchCommand extends SubCommand {
     return c;
   }
 
-  private static double[] demands(VariantSpace space) {
+  static double[] demands(VariantSpace space) {
     double[] d = new double[space.segmentCount()];
     for (int s = 0; s < d.length; s++) {
       d[s] = space.catalog().segments().get(s).demand();
