@@ -367,14 +367,43 @@ public final class ScenarioStage {
     double tooling = e.members().length == 0 ? 0 : e.plans()[0].tooling();
     double bnd = Math.max(bound, e.objective());
     List<OfferedVariant> mean = weightedMean(range, plans);
-    // today's range is valued per scenario elsewhere (each scenario's own solve), so not here: NaN
-    RangeChange change = RangeChange.of(spaces.get(0), pools.get(0).current(), mean, Double.NaN);
+    RangeChange change = RangeChange.of(spaces.get(0), pools.get(0).current(), mean, todaysRange());
     return new Outcome(status, reason, new ValueBound(e.objective(), bnd), range, e.values(), plans, intro, tooling,
         rx == null ? e.objective() : rx.objective(), rx == null ? 0 : rx.rounds(), rx == null || rx.converged(),
         theta, added, complete, pools.get(0).size(), mipSolves, clock.elapsedMs(), mean, change);
   }
 
   private int mipSolves;
+
+  /**
+   * Today's range as one fixed range across the scenarios (every current variant some segment takes,
+   * nothing else, no variant limit), valued by the set's aim; NaN without a current range or when it
+   * does not fit its lots in some scenario. A variant the catalog excludes from new ranges is left out
+   * here, where the single-scenario stage still sells it.
+   */
+  private double todaysRange() {
+    CurrentRange cr = pools.get(0).current();
+    if (cr.isEmpty()) {
+      return Double.NaN;
+    }
+    List<Integer> members = new ArrayList<>();
+    for (int i = 0; i < cr.size(); i++) {
+      int at = indexOf(cr.variant(i));
+      if (at >= 0) {
+        members.add(at);
+      }
+    }
+    int[] m = members.stream().mapToInt(Integer::intValue).toArray();
+    double[] values = new double[scenarios];
+    for (int k = 0; k < scenarios; k++) {
+      Plan p = FixedPortfolio.solve(pools.get(k), terms.get(k), m, false);
+      if (p == null) {
+        return Double.NaN;
+      }
+      values[k] = p.value();
+    }
+    return objective(values);
+  }
 
   /** Each variant of the range with its sales and margin as the weighted mean over the scenarios' plans. */
   private List<OfferedVariant> weightedMean(List<int[]> range, List<List<OfferedVariant>> plans) {

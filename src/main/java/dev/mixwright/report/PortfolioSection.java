@@ -107,7 +107,8 @@ public final class PortfolioSection {
         new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize()),
         new RunResult.Solver(engine, o.mipSolves(), o.status().isProven()), o.elapsedMs(),
         range(space, o.change(), r -> r.kept()), range(space, o.change(), null), range(space, o.change(), r -> r.added()),
-        o.change().hasCurrentRange() ? o.change().discontinueCosts() : null, null, null, null, null);
+        o.change().hasCurrentRange() ? o.change().discontinueCosts() : null,
+        o.change().hasCurrentRange() ? Json.num(o.change().currentRangeValue()) : null, null, null, null);
   }
 
   /** Kept or added (with sales) or, with no getter, dropped (options only); null without a current range. */

@@ -215,6 +215,12 @@ class ScenarioStageTest {
       assertEquals(today.size() - ch.kept().size(), ch.dropped().size(), where + ": dropped");
       assertEquals(paid, ch.discontinueCosts(), 1e-9, where + ": discontinue costs paid");
       assertEquals(o.range().size(), o.mean().size(), where);
+      // today's range is one of the ranges the enumerated MIP chooses among when it fits the variant limit
+      double todays = ch.currentRangeValue();
+      if (!Double.isNaN(todays) && c.current().size() <= c.portfolio().orElseThrow().maxVariants()) {
+        assertTrue(todays <= full.value() + tol(full.value()), where + ": today's range " + todays
+            + " above the enumerated optimum " + full.value());
+      }
       if (o.status().isProven()) {
         proven[0]++;
         assertEquals(full.value(), o.value(), tol(full.value()), where);
