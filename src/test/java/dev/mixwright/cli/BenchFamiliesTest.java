@@ -7,24 +7,14 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import dev.mixwright.catalog.CatalogGenerator;
 import dev.mixwright.space.SpaceCounter;
 import dev.mixwright.space.VariantSpace;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import org.junit.jupiter.api.Test;
 
 /** The bench's section on the generator's families: its options and the "before" count it times. */
 class BenchFamiliesTest {
-  private record Run(int code, String out, String err) {}
-
-  private static Run run(String... args) {
-    StringWriter out = new StringWriter();
-    StringWriter err = new StringWriter();
-    int code = Main.run(args, new PrintWriter(out), new PrintWriter(err));
-    return new Run(code, out.toString(), err.toString());
-  }
 
   @Test
   void anUnknownFamilyIsRefusedInWordsBeforeAnythingRuns() {
-    Run r = run("bench", "--quick", "--only-families", "--families", "classic,sparse");
+    CliRun r = CliRun.of("bench", "--quick", "--only-families", "--families", "classic,sparse");
     assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
     assertTrue(r.err().contains("--families") && r.err().contains("sparse") && r.err().contains("multi"), r.err());
     assertFalse(r.err().contains("Exception"), r.err());
@@ -33,7 +23,7 @@ class BenchFamiliesTest {
 
   @Test
   void onlyFamiliesWithNoFamilyIsRefused() {
-    Run r = run("bench", "--only-families", "--families", "none");
+    CliRun r = CliRun.of("bench", "--only-families", "--families", "none");
     assertEquals(ExitCodes.BAD_INPUT, r.code(), r.err());
     assertTrue(r.err().contains("name a family"), r.err());
   }

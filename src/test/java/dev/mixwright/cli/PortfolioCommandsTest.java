@@ -7,8 +7,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.run.Catalogs;
 import dev.mixwright.runfolder.Json;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
@@ -24,14 +22,6 @@ class PortfolioCommandsTest {
 
   @TempDir Path dir;
 
-  private record Run(int code, String out, String err) {}
-
-  private static Run run(String... args) {
-    StringWriter out = new StringWriter();
-    StringWriter err = new StringWriter();
-    int code = Main.run(args, new PrintWriter(out), new PrintWriter(err));
-    return new Run(code, out.toString(), err.toString());
-  }
 
   private Path solve(String f, String... extra) throws Exception {
     Path cat = dir.resolve("hand-" + f + ".yaml");
@@ -43,7 +33,7 @@ class PortfolioCommandsTest {
     args[2] = "--out";
     args[3] = runDir.toString();
     System.arraycopy(extra, 0, args, 4, extra.length);
-    Run r = run(args);
+    CliRun r = CliRun.of(args);
     assertEquals(0, r.code(), r.err());
     return runDir;
   }
@@ -64,13 +54,13 @@ class PortfolioCommandsTest {
     assertTrue(Files.isRegularFile(runDir.resolve("portfolio.jsonl")));
 
     // the integer stage's progress lines, asked for although stderr is no terminal, speak plain words
-    Run shown = run("solve", dir.resolve("hand-100.yaml").toString(), "--out", dir.resolve("shown").toString(),
+    CliRun shown = CliRun.of("solve", dir.resolve("hand-100.yaml").toString(), "--out", dir.resolve("shown").toString(),
         "--progress");
     assertEquals(0, shown.code(), shown.err());
     assertTrue(shown.err().contains("better range") && shown.err().contains("upper limit"), shown.err());
     CliRun.assertPlain(shown.err());
     CliRun.assertPlain(shown.out());
-    Run log = run("log", runDir.toString(), "--portfolio");
+    CliRun log = CliRun.of("log", runDir.toString(), "--portfolio");
     assertEquals(0, log.code(), log.err());
     assertTrue(log.out().contains("choosing the range"), log.out());
     assertTrue(log.out().contains("better range"), log.out());
@@ -80,12 +70,12 @@ class PortfolioCommandsTest {
   @Test
   void explainSaysWhyAVariantIsInOrOut() throws Exception {
     Path both = solve("100");
-    Run in = run("explain", both.toString(), "--segment", "south", "--variant", "model=b");
+    CliRun in = CliRun.of("explain", both.toString(), "--segment", "south", "--variant", "model=b");
     assertEquals(0, in.code(), in.err());
     assertTrue(in.out().contains("in it: sells south 20"), in.out());
     // F = 800: a alone (1,600 − 800); b earns at most 50·15 = 750 < 800 at any prices that matter
     Path one = solve("800");
-    Run out = run("explain", one.toString(), "--segment", "south", "--variant", "model=b", "--json");
+    CliRun out = CliRun.of("explain", one.toString(), "--segment", "south", "--variant", "model=b", "--json");
     assertEquals(0, out.code(), out.err());
     JsonNode p = Json.pretty().readTree(out.out()).get("portfolio");
     assertFalse(p.get("offered").asBoolean());
@@ -98,10 +88,10 @@ class PortfolioCommandsTest {
     Path runDir = solve("100", "--no-portfolio");
     assertFalse(Json.pretty().readTree(runDir.resolve("result.json").toFile()).has("portfolio"));
     Path cat = dir.resolve("hand-100.yaml");
-    Run bad = run("solve", cat.toString(), "--out", dir.resolve("x").toString(), "--mip-solver", "glpk");
+    CliRun bad = CliRun.of("solve", cat.toString(), "--out", dir.resolve("x").toString(), "--mip-solver", "glpk");
     assertEquals(2, bad.code());
     assertTrue(bad.err().contains("--mip-solver") && bad.err().contains("scip"), bad.err());
-    Run badTime = run("solve", cat.toString(), "--out", dir.resolve("y").toString(), "--portfolio-time-limit", "soon");
+    CliRun badTime = CliRun.of("solve", cat.toString(), "--out", dir.resolve("y").toString(), "--portfolio-time-limit", "soon");
     assertEquals(2, badTime.code());
     assertTrue(badTime.err().contains("--portfolio-time-limit"), badTime.err());
   }
