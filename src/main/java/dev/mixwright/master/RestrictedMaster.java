@@ -227,8 +227,21 @@ public final class RestrictedMaster implements AutoCloseable {
     return n;
   }
 
-  /** Solves (with the inner Dantzig–Wolfe rounds for choosing segments), verifies, and reads values and duals. */
+  /** Solves exactly (with the inner Dantzig–Wolfe rounds for choosing segments), verifies, and reads values and duals. */
   public MasterSolution solve() {
+    return solve(0.0);
+  }
+
+  /**
+   * As {@link #solve()}, but the inner rounds stop once the offer sets not yet added would pay at
+   * most {@code slack} in all, Σ_s (buyers_s·R*_s − σ_s)^+ ≤ slack, after at least one round that
+   * adds every paying set. The duals returned stay feasible for the SBLP over the master's columns:
+   * μ_s := max(σ_s/buyers_s, R*_s) (see the class comment: μ_s ≥ R*_s is what x_s0's dual row
+   * needs); their objective is the solution's {@code dualObjective}, the objective plus that
+   * shortfall, which a bound must then start from (inexact Dantzig–Wolfe master, as in column
+   * generation with early termination of the master; the bound argument is unchanged).
+   */
+  public MasterSolution solve(double slack) {
     long iters = 0;
     for (int round = 0; ; round++) {
       MPSolver.ResultStatus rs = solveGlop();
@@ -237,7 +250,7 @@ public final class RestrictedMaster implements AutoCloseable {
       if (!status.isOptimal()) {
         return MasterSolution.failed(status, iters);
       }
-      if (round >= INNER_LIMIT || !addPayingOfferSets()) {
+      if (round >= INNER_LIMIT || !addPayingOfferSets(round == 0 ? 0.0 : slack)) {
         MasterSolution sol = read(iters);
         if (sol.status() == LpStatus.FAILED && round < INNER_LIMIT) {
           rows.solver.reset();
@@ -328,16 +341,27 @@ public final class RestrictedMaster implements AutoCloseable {
    * round-off tolerance and is not the set just added (GLOP priced that one already); true when
    * one was added.
    */
-  private boolean addPayingOfferSets() {
+  private boolean addPayingOfferSets(double slack) {
     double[] pi = rows.resourceDuals();
     double[] sigma = rows.segmentDuals();
     double tol = 1e-9 * (1 + Math.abs(rows.objective.value()));
+    BestSet[] bests = new BestSet[chooses.length];
+    double shortfall = 0;
+    for (int s = 0; s < chooses.length; s++) {
+      if (chooses[s] && memberCount[s] > 0) {
+        bests[s] = bestSet(s, pi);
+        shortfall += Math.max(0.0, demand[s] * bests[s].value() - sigma[s]);
+      }
+    }
+    if (shortfall <= slack) {
+      return false;
+    }
     boolean added = false;
     for (int s = 0; s < chooses.length; s++) {
-      if (!chooses[s] || memberCount[s] == 0) {
+      if (bests[s] == null) {
         continue;
       }
-      BestSet best = bestSet(s, pi);
+      BestSet best = bests[s];
       if (best.members().length == 0 || demand[s] * best.value() - sigma[s] <= tol
           || Arrays.equals(lastAdded[s], best.members())) {
         continue;
@@ -391,12 +415,16 @@ public final class RestrictedMaster implements AutoCloseable {
     double[] mu = rows.segmentDuals();
     double[] beta = new double[n];
     double[] stayingOut = new double[demand.length];
+    double shortfall = 0;
     for (int s = 0; s < demand.length; s++) {
       stayingOut[s] = Double.NaN;
       if (!chooses[s]) {
         continue;
       }
-      mu[s] /= demand[s];
+      // μ_s ≥ R*_s at the final π, exactly, whether or not the inner rounds ran to the end
+      double bestValue = Logit.bestOfferValue(revenues(s, pi, memberCount[s], revenueBuffer[s]), memberW[s], memberCount[s]);
+      shortfall += Math.max(0.0, demand[s] * bestValue - mu[s]);
+      mu[s] = Math.max(mu[s] / demand[s], bestValue);
       List<MPVariable> l = offerVars.get(s);
       for (int t = 0; t < l.size(); t++) {
         double lambda = Math.max(0.0, l.get(t).solutionValue());
@@ -430,7 +458,7 @@ public final class RestrictedMaster implements AutoCloseable {
     for (int j = 0; j < n; j++) {
       z += marginOf[j] * x[j];
     }
-    return new MasterSolution(LpStatus.OPTIMAL, z, x, rc, atUpper, pi, mu, beta, stayingOut, iters);
+    return new MasterSolution(LpStatus.OPTIMAL, z, x, rc, atUpper, pi, mu, beta, stayingOut, iters, z + shortfall);
   }
 
   /** Checks the returned point against rows and bounds, scaled by the row's size. */
