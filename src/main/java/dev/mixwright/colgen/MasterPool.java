@@ -35,6 +35,9 @@ final class MasterPool {
   private int[] idle = new int[64];
   /** w of a choosing segment's column, NaN for a fixed segment's. */
   private double[] attr = new double[64];
+  /** Per segment, the indices of its columns (the first {@code ofSegmentCount[s]}). */
+  private final int[][] ofSegment;
+  private final int[] ofSegmentCount;
 
   MasterPool(VariantSpace space, RestrictedMaster master, LoopCounters counters) {
     this.space = space;
@@ -44,6 +47,8 @@ final class MasterPool {
       active.add(new HashSet<>());
       index.add(new HashMap<>());
     }
+    ofSegment = new int[space.segmentCount()][16];
+    ofSegmentCount = new int[space.segmentCount()];
   }
 
   int size() {
@@ -91,6 +96,10 @@ final class MasterPool {
     bound[n] = c.upper();
     active.get(c.segment()).add(key);
     index.get(c.segment()).put(key, n);
+    if (ofSegmentCount[s] == ofSegment[s].length) {
+      ofSegment[s] = Arrays.copyOf(ofSegment[s], 2 * ofSegment[s].length);
+    }
+    ofSegment[s][ofSegmentCount[s]++] = n;
   }
 
   /** w_s(v) = exp(u_s(v) − stayOut_s) of a choosing segment s. */
@@ -110,20 +119,29 @@ final class MasterPool {
   /**
    * R* of choosing segment s at resource prices π over its columns here and the candidates given
    * by their r = m − π·a and w ({@link Logit#bestOfferValue}): the revenue per buyer of the best
-   * offer set of all of them. O((columns + candidates)·resources).
+   * offer set of all of them. O((columns of s + candidates)·priced resources).
    */
   double bestOfferValue(int s, double[] pi, double[] candR, double[] candW) {
-    int n = columns.size();
+    int n = ofSegmentCount[s];
     double[] r = Arrays.copyOf(candR, candR.length + n);
     double[] w = Arrays.copyOf(candW, candW.length + n);
     int k = candR.length;
-    for (int j = 0; j < n; j++) {
-      if (segment[j] != s || bound[j] == 0) {
+    int[] priced = new int[pi.length];
+    int np = 0;
+    for (int q = 0; q < pi.length; q++) {
+      if (pi[q] != 0) {
+        priced[np++] = q; // few resources bind; a zero price adds nothing to r
+      }
+    }
+    for (int t = 0; t < n; t++) {
+      int j = ofSegment[s][t];
+      if (bound[j] == 0) {
         continue;
       }
       double v = margin[j];
-      for (int q = 0; q < pi.length; q++) {
-        v -= pi[q] * use[j][q];
+      double[] a = use[j];
+      for (int p = 0; p < np; p++) {
+        v -= pi[priced[p]] * a[priced[p]];
       }
       r[k] = v;
       w[k] = attr[j];

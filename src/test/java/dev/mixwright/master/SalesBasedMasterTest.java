@@ -43,6 +43,11 @@ class SalesBasedMasterTest {
   }
 
   private static MasterSolution solveAll(VariantSpace space, List<EnumeratedLp.Column> columns, double[] margin) {
+    return solveAll(space, columns, margin, 0.0);
+  }
+
+  private static MasterSolution solveAll(VariantSpace space, List<EnumeratedLp.Column> columns, double[] margin,
+      double slack) {
     try (RestrictedMaster master = new RestrictedMaster(capacity(space), demand(space), chooses(space))) {
       for (int j = 0; j < columns.size(); j++) {
         EnumeratedLp.Column c = columns.get(j);
@@ -52,7 +57,61 @@ class SalesBasedMasterTest {
           master.addColumn(c.segment(), margin[j], c.use(), c.upper());
         }
       }
-      return master.solve();
+      return master.solve(slack);
+    }
+  }
+
+  /**
+   * A master solved with slack (its inner rounds cut short) still returns duals feasible for the
+   * whole SBLP (every column here is in it): μ_s + β_j ≥ r_j, μ_s ≥ Σ w β, β ≥ 0; and its objective
+   * and dual objective bracket the optimum of Apache Commons Math's SimplexSolver on the same SBLP.
+   * The slacks run from none to one that stops after the first inner round.
+   */
+  @Test
+  void masterWithSlackKeepsFeasibleDualsAndBracketsTheOptimum() {
+    double[] slacks = {0.0, 1e-3, 1e2, 1e12};
+    for (long seed = 300; seed < 300 + SEEDS; seed++) {
+      long s0 = seed;
+      VariantSpace space = new VariantSpace(RandomChoiceCatalogs.tiny(seed, true));
+      List<EnumeratedLp.Column> cols = EnumeratedLp.columns(space);
+      double[] margin = cols.stream().mapToDouble(EnumeratedLp.Column::margin).toArray();
+      // source: Apache Commons Math SimplexSolver (SalesBasedLp)
+      double ref = SalesBasedLp.solve(space, cols, false).objective();
+      double tol = 1e-6 * Math.max(1, Math.abs(ref));
+      for (double slack : slacks) {
+        MasterSolution sol = solveAll(space, cols, margin, slack);
+        String at = "seed " + s0 + ", slack " + slack;
+        assertTrue(sol.isOptimal(), at);
+        assertTrue(sol.objective() <= ref + tol, () -> at + ": objective " + sol.objective() + " above " + ref);
+        assertTrue(sol.dualObjective() >= ref - tol, () -> at + ": dual objective " + sol.dualObjective() + " below " + ref);
+        assertTrue(sol.dualObjective() >= sol.objective() - tol, at);
+        if (slack == 0.0) {
+          assertEquals(ref, sol.dualObjective(), tol, at);
+        }
+        for (int s = 0; s < space.segmentCount(); s++) {
+          if (!space.chooses(s)) {
+            continue;
+          }
+          double mu = sol.segmentDual()[s];
+          double sum = 0;
+          for (int j = 0; j < cols.size(); j++) {
+            EnumeratedLp.Column c = cols.get(j);
+            if (c.segment() != s) {
+              continue;
+            }
+            double r = margin[j];
+            for (int q = 0; q < c.use().length; q++) {
+              r -= sol.resourceDual()[q] * c.use()[q];
+            }
+            double beta = sol.columnDual()[j];
+            assertTrue(beta >= 0, at);
+            assertTrue(mu + beta >= r - tol, at + ": column " + j + " prices out positive");
+            sum += attraction(space, c) * beta;
+          }
+          double total = sum;
+          assertTrue(mu >= total - 1e-6 * Math.max(1, total), () -> at + ": stay-out dual row, μ " + mu + " < " + total);
+        }
+      }
     }
   }
 
