@@ -47,7 +47,7 @@ final class Summary {
     out.println("  shadow prices       " + (binding.isEmpty() ? "none (no resource limits the plan)" : String.join(", ", binding)));
     MatrixView matrix = MatrixView.of(result, space.catalog());
     VariantCodes codes = VariantCodes.of(result);
-    long lpVariants = result.offers().stream().map(RunResult.Offer::options).distinct().count();
+    long lpVariants = result.offers().stream().map(f -> VariantCodes.key(f.options())).distinct().count();
     out.println("  offers              " + result.offers().size() + " (variant, segment) pairs of " + lpVariants
         + " variants" + (matrix.rows().size() > lpVariants ? "; the table adds the portfolio's other variants ("
             + matrix.rows().size() + " rows)" : "") + ", units by segment:");

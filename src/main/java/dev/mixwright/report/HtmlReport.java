@@ -324,8 +324,8 @@ public final class HtmlReport {
         }
         h.append("</p>\n");
       }
-      Map<Map<String, String>, double[]> lpBy = lp.byVariant();
-      Map<Map<String, String>, double[]> rangeBy = range == null ? Map.of() : range.byVariant();
+      Map<String, double[]> lpBy = lp.byVariant();
+      Map<String, double[]> rangeBy = range == null ? Map.of() : range.byVariant();
       // the figures first, next to the code, so that a wide catalog's choices scroll and the figures do not
       h.append("<div class=\"scroll\"><table class=\"wide\">\n<tr><th>variant</th>");
       if (range != null) {
@@ -341,11 +341,11 @@ public final class HtmlReport {
       for (MatrixView.Row row : matrix.rows()) {
         h.append("<tr><td class=\"code\">").append(row.code()).append("</td>");
         if (range != null) {
-          double[] p = rangeBy.get(row.options());
+          double[] p = rangeBy.get(VariantCodes.key(row.options()));
           num(p == null ? "—" : Figures.units(p[0]));
           num(p == null ? "—" : Figures.money(p[1]));
         }
-        double[] l = lpBy.get(row.options());
+        double[] l = lpBy.get(VariantCodes.key(row.options()));
         num(row.total() == 0 ? "—" : Figures.units(row.total()));
         num(l == null ? "—" : Figures.money(l[1]));
         for (double u : row.units()) {

@@ -114,11 +114,11 @@ public record PlanFigures(List<Line> lines, List<String> segments, double introd
     return s;
   }
 
-  /** Units and margin of each variant (group id to choice id), all segments together, in first-seen order. */
-  public Map<Map<String, String>, double[]> byVariant() {
-    Map<Map<String, String>, double[]> m = new LinkedHashMap<>();
+  /** Units and margin of each variant (by {@link VariantCodes#key}), all segments together, in first-seen order. */
+  public Map<String, double[]> byVariant() {
+    Map<String, double[]> m = new LinkedHashMap<>();
     for (Line l : lines) {
-      double[] a = m.computeIfAbsent(l.options(), k -> new double[2]);
+      double[] a = m.computeIfAbsent(VariantCodes.key(l.options()), k -> new double[2]);
       a[0] += l.units();
       a[1] += l.margin();
     }
