@@ -127,6 +127,7 @@ public final class HtmlReport {
         + "td.n,th.n{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}\n"
         + "tr.sum td{font-weight:600;border-top:2px solid " + INK + "}\n"
         + ".code{font:600 13px ui-monospace,Menlo,Consolas,monospace;color:" + PLAN + ";white-space:nowrap}\n"
+        + ".today{font:400 11px system-ui,sans-serif;color:#6b6458;white-space:nowrap}\n"
         + ".what{color:" + MUTED + "}\n"
         + "code{font:13px ui-monospace,Menlo,Consolas,monospace}\n"
         + ".bars{margin:6px 0 14px;max-width:980px}\n"
@@ -310,6 +311,17 @@ public final class HtmlReport {
 
     // ---- the plan -------------------------------------------------------------------------------
 
+    /** Today's variants by key: "on sale today, kept" or "…, dropped", so that their rows say why they are there. */
+    private Map<String, String> todaysRangeWords() {
+      Map<String, String> words = new java.util.HashMap<>();
+      RunResult.Portfolio p = r.portfolio();
+      if (p != null && p.kept() != null) {
+        p.kept().forEach(v -> words.put(VariantCodes.key(v.options()), "on sale today, kept"));
+        p.dropped().forEach(v -> words.put(VariantCodes.key(v.options()), "on sale today, dropped"));
+      }
+      return words;
+    }
+
     private void plan() {
       h.append("<h2 id=\"range\">The range</h2>\n");
       h.append("<p class=\"note\">Each variant has a short code (V01, V02, … by units in the ideal LP plan) used"
@@ -338,8 +350,11 @@ public final class HtmlReport {
         matrix.groups().forEach(g -> h.append("<th>").append(escape(g.head())).append("</th>"));
       }
       h.append("</tr>\n");
+      Map<String, String> today = todaysRangeWords();
       for (MatrixView.Row row : matrix.rows()) {
-        h.append("<tr><td class=\"code\">").append(row.code()).append("</td>");
+        String was = today.get(VariantCodes.key(row.options()));
+        h.append("<tr><td class=\"code\">").append(row.code())
+            .append(was == null ? "" : "<br><span class=\"today\">" + was + "</span>").append("</td>");
         if (range != null) {
           double[] p = rangeBy.get(VariantCodes.key(row.options()));
           num(p == null ? "—" : Figures.units(p[0]));

@@ -106,6 +106,12 @@ class ChoosingRunCommandsTest {
     assertTrue(html.contains("Who takes buyers from whom"));
     assertTrue(html.contains("Price points chosen"));
     assertFalse(html.contains("<script"));
+    // the range on sale today: each of its rows in the range table says whether it is kept or dropped
+    JsonNode p = result.path("portfolio");
+    String table = html.substring(html.indexOf("id=\"range\""), html.indexOf("</table>", html.indexOf("id=\"range\"")));
+    assertEquals(p.path("kept").size(), table.split("on sale today, kept", -1).length - 1, "kept rows");
+    assertEquals(p.path("dropped").size(), table.split("on sale today, dropped", -1).length - 1, "dropped rows");
+    assertTrue(p.path("dropped").size() > 0, "the starter drops part of today's range");
   }
 
   @Test
