@@ -85,6 +85,11 @@ final class CurrentRange {
     return i >= 0 && pinned[i];
   }
 
+  /** Today's variants, in the catalog's order. */
+  List<int[]> variants() {
+    return java.util.Collections.unmodifiableList(variants);
+  }
+
   /** −Σ disc over the unpinned current variants: the value's constant (0 without a current range). */
   double constant() {
     return constant;

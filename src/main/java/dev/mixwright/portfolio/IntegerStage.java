@@ -561,15 +561,7 @@ public final class IntegerStage {
       VariantSpace unbarred = new VariantSpace(all.withCurrentRange(all.current(), List.of()));
       pool = new Pool(unbarred, terms, new CurrentRange(unbarred));
     }
-    CurrentRange cr = pool.current();
-    List<Integer> members = new ArrayList<>();
-    for (int i = 0; i < cr.size(); i++) {
-      int at = pool.indexOrAdd(cr.variant(i));
-      if (at >= 0) {
-        members.add(at);
-      }
-    }
-    return FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray(), false);
+    return FixedPortfolio.solve(pool, terms, Pool.members(pool.current().variants(), pool::indexOrAdd), false);
   }
 
   static List<OfferedVariant> offered(VariantSpace space, Pool pool, Plan p) {

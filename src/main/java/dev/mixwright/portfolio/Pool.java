@@ -54,6 +54,14 @@ final class Pool {
     return indexOrAdd(v) == before;
   }
 
+  /**
+   * The pool members of a range of variants: each one's index by {@code indexOrAdd} (which adds it
+   * when new), leaving out those no segment takes (index −1).
+   */
+  static int[] members(List<int[]> range, java.util.function.ToIntFunction<int[]> indexOrAdd) {
+    return range.stream().mapToInt(indexOrAdd).filter(at -> at >= 0).toArray();
+  }
+
   /** The index of v, added when new; −1 when no segment takes it. */
   synchronized int indexOrAdd(int[] v) {
     VariantKey k = space.key(v);

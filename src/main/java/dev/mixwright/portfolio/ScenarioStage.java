@@ -386,14 +386,7 @@ public final class ScenarioStage {
     if (cr.isEmpty()) {
       return Double.NaN;
     }
-    List<Integer> members = new ArrayList<>();
-    for (int i = 0; i < cr.size(); i++) {
-      int at = indexOf(cr.variant(i));
-      if (at >= 0) {
-        members.add(at);
-      }
-    }
-    int[] m = members.stream().mapToInt(Integer::intValue).toArray();
+    int[] m = Pool.members(cr.variants(), this::indexOf);
     double[] values = new double[scenarios];
     for (int k = 0; k < scenarios; k++) {
       Plan p = FixedPortfolio.solve(pools.get(k), terms.get(k), m, false);
@@ -656,14 +649,7 @@ public final class ScenarioStage {
   public static Optional<Double> valueOf(VariantSpace space, List<int[]> range) {
     PortfolioTerms t = PortfolioTerms.of(space);
     Pool pool = new Pool(space, t);
-    List<Integer> members = new ArrayList<>();
-    for (int[] v : range) {
-      int i = pool.indexOrAdd(v);
-      if (i >= 0) {
-        members.add(i);
-      }
-    }
-    Plan p = FixedPortfolio.solve(pool, t, members.stream().mapToInt(Integer::intValue).toArray());
+    Plan p = FixedPortfolio.solve(pool, t, Pool.members(range, pool::indexOrAdd));
     return p == null ? Optional.empty() : Optional.of(p.value());
   }
 }
