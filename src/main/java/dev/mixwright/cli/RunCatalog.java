@@ -2,10 +2,8 @@ package dev.mixwright.cli;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
-import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 
 /** The catalog a run solved (its catalog.json), for the labels and figures of the views that read a run. */
@@ -18,12 +16,8 @@ final class RunCatalog {
    * views then name groups and options by their ids.
    */
   static Catalog read(Path run) {
-    RunFolder folder = new RunFolder(run);
-    if (!Files.isRegularFile(folder.catalogCopy())) {
-      return null;
-    }
     try {
-      return CatalogLoader.parse(folder.verifiedCatalogCopy(), folder.catalogCopy().toString(), null);
+      return new RunFolder(run).solvedCatalog().orElse(null);
     } catch (IOException e) {
       throw new UserError(e.getMessage());
     } catch (CatalogException e) {

@@ -2,13 +2,11 @@ package dev.mixwright.export;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
-import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.report.MatrixView;
 import dev.mixwright.report.RunResult;
 import dev.mixwright.report.VariantCodes;
 import dev.mixwright.runfolder.RunFolder;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 
 /**
@@ -21,8 +19,7 @@ public record RunData(RunFolder folder, RunResult result, Catalog catalog, Varia
     RunFolder folder = new RunFolder(runDir);
     RunResult result = RunResult.read(runDir);
     // checked against run.json first: a changed copy would give other labels and figures in silence
-    Catalog catalog = Files.isRegularFile(folder.catalogCopy())
-        ? CatalogLoader.parse(folder.verifiedCatalogCopy(), folder.catalogCopy().toString(), null) : null;
+    Catalog catalog = folder.solvedCatalog().orElse(null);
     return of(folder, result, catalog);
   }
 

@@ -2,7 +2,6 @@ package dev.mixwright.report;
 
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.CatalogException;
-import dev.mixwright.catalog.CatalogLoader;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
 import dev.mixwright.explain.Substitution;
@@ -66,14 +65,12 @@ public final class HtmlReport {
   public static Inputs read(Path runDir) throws IOException {
     RunResult result = RunResult.read(runDir);
     RunFolder folder = new RunFolder(runDir);
-    Catalog catalog = null;
-    if (Files.isRegularFile(folder.catalogCopy())) {
-      try {
-        catalog = CatalogLoader.parse(folder.verifiedCatalogCopy(), folder.catalogCopy().toString(), null);
-      } catch (CatalogException e) {
-        throw new RunFileDamaged(folder.catalogCopy() + " is damaged (" + e.getMessage()
-            + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
-      }
+    Catalog catalog;
+    try {
+      catalog = folder.solvedCatalog().orElse(null);
+    } catch (CatalogException e) {
+      throw new RunFileDamaged(folder.catalogCopy() + " is damaged (" + e.getMessage()
+          + ") — solve again with 'mixwright solve --out " + runDir + " --replace'");
     }
     RunManifest manifest = Files.isRegularFile(folder.manifest()) ? RunManifest.read(folder) : null;
     return new Inputs(result, catalog, manifest);

@@ -210,6 +210,20 @@ public record RunFolder(Path dir) {
     return text;
   }
 
+  /**
+   * The catalog the run solved: catalog.json checked as {@link #verifiedCatalogCopy} and parsed;
+   * empty when the folder has none (ids then stand in for labels). A copy that does not parse is the
+   * caller's to refuse or pass over.
+   */
+  public java.util.Optional<dev.mixwright.catalog.Catalog> solvedCatalog()
+      throws IOException, dev.mixwright.catalog.CatalogException {
+    if (!Files.isRegularFile(catalogCopy())) {
+      return java.util.Optional.empty();
+    }
+    return java.util.Optional.of(
+        dev.mixwright.catalog.CatalogLoader.parse(verifiedCatalogCopy(), catalogCopy().toString(), null));
+  }
+
   /** Whether the folder was written before run files carried checksums (run.json format 1). */
   public boolean legacy() {
     try {
