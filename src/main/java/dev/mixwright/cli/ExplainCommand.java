@@ -356,7 +356,7 @@ final class ExplainCommand extends RunDirCommand {
     out.println(line("  = ", "reduced cost", w, e.reducedCost(), ""));
     if (run.status() != RunStatus.INFEASIBLE) {
       if (qty > 0) {
-        out.println("  in the plan: " + Figures.units(qty) + " units" + (e.reducedCost() <= 1e-7 ? ""
+        out.println("  in the plan: " + Figures.units(qty) + " units" + (e.reducedCost() <= ZERO ? ""
             : chooses ? " (held by its attraction: it pays more than its resources' worth, but sells only as"
                 + " many as the logit lets it)"
             : " (at its share limit: it pays more than its resources' worth)"));

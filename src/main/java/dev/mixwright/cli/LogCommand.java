@@ -4,6 +4,7 @@ import dev.mixwright.report.Figures;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.mixwright.colgen.Durations;
 import dev.mixwright.report.RunResult;
+import dev.mixwright.report.VariantCodes;
 import dev.mixwright.report.VariantNames;
 import dev.mixwright.runfolder.ColumnLogReader;
 import dev.mixwright.runfolder.RunFolder;
@@ -74,7 +75,7 @@ final class LogCommand extends RunDirCommand {
       Map<String, String> options = VariantNames.options(n.path("options"));
       out.println(String.format(Locale.ROOT, "  %-14s  %14s  %s", seg,
           it == 0 ? "start" : Figures.price(n.path("reducedCost").asDouble()),
-          full || names == null ? every(options) : names.shortName(options)));
+          full || names == null ? VariantCodes.key(options) : names.shortName(options)));
     }
     out.println(shown + " columns" + (segment == null ? "" : " in segment " + segment)
         + (entries.droppedTornLines() > 0 ? "; " + entries.droppedTornLines()
@@ -105,11 +106,6 @@ final class LogCommand extends RunDirCommand {
       throw new UserError("--segment " + segment + ": the run has no such segment; its segments are "
           + String.join(", ", ids));
     }
-  }
-
-  /** Every group of a variant as group=option, optional groups at none included. */
-  private static String every(Map<String, String> options) {
-    return String.join(",", options.entrySet().stream().map(e -> e.getKey() + "=" + e.getValue()).toList());
   }
 
   /** The run's variant names, or null before result.json exists (a run still going or cut off). */
