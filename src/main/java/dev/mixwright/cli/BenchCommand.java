@@ -365,16 +365,20 @@ final class BenchCommand extends SubCommand {
   record FullRun(long buildNanos, long solveNanos, double objective, long simplexIterations, long peakHeap) {}
 
   private FullRun fullLp(Instance in) {
-    VariantSpace space = in.space;
+    return fullLp(in.space, in.label, FullLp.Solver.GLOP_DUAL);
+  }
+
+  /** Every column of {@code space} listed and solved by {@code solver}, timed; {@code label} names it in a failure. */
+  static FullRun fullLp(VariantSpace space, String label, FullLp.Solver solver) {
     quiet();
     long t0 = System.nanoTime();
-    try (FullLp lp = new FullLp(capacities(space), demands(space), FullLp.Solver.GLOP_DUAL)) {
+    try (FullLp lp = new FullLp(capacities(space), demands(space), solver)) {
       listColumns(space, lp);
       long t1 = System.nanoTime();
       FullLp.Result r = lp.solve();
       long t2 = System.nanoTime();
       if (!r.status().isOptimal()) {
-        throw new IllegalStateException("the full LP of " + in.label + " ended " + r.status());
+        throw new IllegalStateException("the full LP (" + solver.word() + ") of " + label + " ended " + r.status());
       }
       return new FullRun(t1 - t0, t2 - t1, r.objective(), r.simplexIterations(), peakHeap());
     }

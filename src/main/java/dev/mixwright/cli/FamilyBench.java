@@ -268,16 +268,8 @@ final class FamilyBench {
   }
 
   private static Timed solveFull(Small small, FullLp.Solver solver) {
-    VariantSpace space = small.space;
-    long t0 = System.nanoTime();
-    try (FullLp lp = new FullLp(BenchCommand.capacities(space), BenchCommand.demands(space), solver)) {
-      BenchCommand.listColumns(space, lp);
-      FullLp.Result r = lp.solve();
-      if (!r.status().isOptimal()) {
-        throw new IllegalStateException("the full LP (" + solver.word() + ") of " + small.spec + " ended " + r.status());
-      }
-      return new Timed(System.nanoTime() - t0, r.objective(), "optimal");
-    }
+    BenchCommand.FullRun r = BenchCommand.fullLp(small.space, String.valueOf(small.spec), solver);
+    return new Timed(r.buildNanos() + r.solveNanos(), r.objective(), "optimal");
   }
 
   private static Timed colgen(Small small) {
