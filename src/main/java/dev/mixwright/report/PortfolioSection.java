@@ -76,7 +76,8 @@ public final class PortfolioSection {
     }
     return new RunResult.Portfolio(o.status(), o.reason(), o.result().value(), Json.num(o.result().bound()), Json.num(o.result().gap()),
         variants, o.offer().introductionCosts(), o.offer().toolingCosts(), toolingPaid, tn, Json.num(o.lpBound()), relaxation,
-        new RunResult.Proof(Json.num(o.proof().threshold()), o.proof().added(), o.proof().complete(), o.proof().poolSize()),
+        new RunResult.Proof(Json.num(o.proof().threshold()), o.proof().added(), o.proof().complete(), o.proof().poolSize(),
+            o.tree().nodes() == 0 ? null : new RunResult.Tree(o.tree().nodes(), o.tree().open(), o.tree().workers())),
         new RunResult.Solver(o.engine(), o.solver().solves(), o.solver().lastOptimal()), o.elapsedMs(),
         range(space, o.range(), r -> r.kept()), range(space, o.range(), null), range(space, o.range(), r -> r.added()),
         o.range().hasCurrentRange() ? o.range().discontinueCosts() : null,
@@ -104,7 +105,7 @@ public final class PortfolioSection {
         terms.variantCap() == PortfolioTerms.UNLIMITED ? null : terms.variantCap());
     return new RunResult.Portfolio(o.status(), o.reason(), o.value(), Json.num(o.bound()), Json.num(o.gap()),
         variants, o.introductionCosts(), o.toolingCosts(), null, tn, null, null,
-        new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize()),
+        new RunResult.Proof(Json.num(o.survivorThreshold()), o.survivorsAdded(), o.survivorsComplete(), o.poolSize(), null),
         new RunResult.Solver(engine, o.mipSolves(), o.status().isProven()), o.elapsedMs(),
         range(space, o.change(), r -> r.kept()), range(space, o.change(), null), range(space, o.change(), r -> r.added()),
         o.change().hasCurrentRange() ? o.change().discontinueCosts() : null,

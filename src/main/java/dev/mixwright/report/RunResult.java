@@ -195,7 +195,12 @@ public record RunResult(
 
   public record Prices(Map<String, Double> resources, Map<String, Double> segments) {}
 
-  public record Proof(Double survivorThreshold, int survivorsAdded, boolean survivorsComplete, int poolVariants) {}
+  /** {@code tree} is null when the branch-and-price tree did not run (and in result.json files written before it). */
+  public record Proof(Double survivorThreshold, int survivorsAdded, boolean survivorsComplete, int poolVariants,
+      @JsonInclude(Include.NON_NULL) Tree tree) {}
+
+  /** The branch-and-price tree: nodes solved, nodes left open when it stopped (0 once it closed), workers. */
+  public record Tree(long nodesSolved, int nodesOpen, int workers) {}
 
   public record Solver(String engine, int mipSolves, boolean lastMipOptimal) {}
 
