@@ -464,12 +464,17 @@ final class BranchAndPrice {
             return List.of();
           }
         }
+        // nothing left to branch on: its better portfolios, when few, go to the proof set, whose MIP
+        // sells whole units when the catalog asks (so this is how a whole-units node gets decided)
+        if (retire(node, relaxed.last(), bound, false)) {
+          return List.of();
+        }
         return park(node, bound, terms.wholeUnits()
             ? "whole units: a node's relaxation sells fractions, and its offer in whole units stays below its bound"
             : "a node's relaxation stays above the value of its own offer");
       }
       int[] bar = reducedCostFixing(node, relaxed.last());
-      if (retire(node, relaxed.last(), bound)) {
+      if (retire(node, relaxed.last(), bound, true)) {
         return List.of();
       }
       TreeNode solved = bar.length == 0 ? node.withBound(bound) : node.barring(bar, bound);
@@ -558,9 +563,10 @@ final class BranchAndPrice {
      * bound lies more than two introduction costs above the incumbent: every variant whose reduced
      * costs are all near 0 is worth about −F, so the survivors are then as many as such variants (on
      * the range demo 25,909 at a gap of 1.6·F at the root's prices, 59 at 1·F); the listing gets a
-     * quarter of a second.
+     * quarter of a second. A node with nothing left to branch on ({@code gated} false) is tried
+     * whatever its gap: the listing is its only way to be decided, and it is tried once.
      */
-    private boolean retire(TreeNode node, NodeProbe probe, double bound) {
+    private boolean retire(TreeNode node, NodeProbe probe, double bound, boolean gated) {
       if (probe == null || !probe.bound.isFinite() || !probe.exact) {
         return false;
       }
@@ -573,7 +579,7 @@ final class BranchAndPrice {
       }
       LagrangianPortfolioBound b = probe.bound;
       double f = terms.introductionCost();
-      if (f > 0 && b.valueAtLambda() - z > 2 * f) {
+      if (gated && f > 0 && b.valueAtLambda() - z > 2 * f) {
         return false;
       }
       double theta = z - b.valueAtLambda() + b.lambda();
