@@ -52,7 +52,8 @@ import picocli.CommandLine.Option;
       "Measures column generation against solving the whole LP with every column listed.",
       "Runs on generated catalogs and prints the tables of docs/performance.md (Markdown).",
       "Takes minutes; --quick runs the small sizes only and gives each family's solve 5 s.",
-      "Ends with the generator's families (--families): check, time to round 1, column generation and the count."
+      "Ends with the generator's families (--families): check, time to round 1, column generation and the count.",
+      "With --integer, then the integer stage on the demos, 10^6 and 10^12 variants, each run with -Xmx512m."
     })
 final class BenchCommand extends SubCommand {
   @Option(names = "--full-columns", split = ",", paramLabel = "E",
@@ -76,6 +77,14 @@ final class BenchCommand extends SubCommand {
 
   @Option(names = "--only-families", description = "run only the section on the generator's families")
   boolean onlyFamilies;
+
+  @Option(names = "--integer", description = "end with the integer stage: the demos of ./catalogs, a generated catalog"
+      + " of about 10^6 variants and the families (--families) at about 10^12, each solved with -Xmx512m and the"
+      + " default limits (about a minute and a half each)")
+  boolean integer;
+
+  @Option(names = "--only-integer", description = "run only the section on the integer stage")
+  boolean onlyInteger;
 
   @Option(names = "--seed", paramLabel = "X", defaultValue = "1", description = "seed of the generated catalogs (default ${DEFAULT-VALUE})")
   long seed;
@@ -106,6 +115,10 @@ final class BenchCommand extends SubCommand {
     List<Integer> full = fullColumns != null ? fullColumns : quick ? List.of(4, 5) : List.of(4, 5, 6);
     List<Integer> spaces = spaceSizes != null ? spaceSizes : quick ? List.of(9) : List.of(9, 15, 25);
     List<CatalogGenerator.Family> chosen = families();
+    if (onlyFamilies && onlyInteger) {
+      throw new UserError("--only-families and --only-integer each run one section; give one of them, or --integer"
+          + " with --only-families for both");
+    }
     if (onlyFamilies && chosen.isEmpty()) {
       throw new UserError("--only-families with --families none leaves nothing to measure; name a family");
     }
@@ -116,12 +129,19 @@ final class BenchCommand extends SubCommand {
         + System.getProperty("os.name") + " " + System.getProperty("os.arch") + ".");
     line("Settings of column generation: " + describe(SolveSettings.defaults()) + ", pricer bnb.");
     line("");
-    if (!onlyFamilies) {
+    if (!onlyFamilies && !onlyInteger) {
       classicSections(full, spaces);
     }
-    if (!chosen.isEmpty()) {
+    if (!chosen.isEmpty() && !onlyInteger) {
       new FamilyBench(this::line, this::note, seed, quick ? FamilyBench.Limits.QUICK : FamilyBench.Limits.FULL)
           .run(chosen);
+    }
+    if (integer || onlyInteger) {
+      Path demos = Path.of("catalogs");
+      if (!Files.isDirectory(demos)) {
+        note("integer stage: no ./catalogs here, so the demos are left out (run bench from the project's folder)");
+      }
+      new IntegerBench(this::line, this::note, seed).run(chosen, demos);
     }
     if (outFile != null) {
       AtomicFiles.write(outFile, report.toString());
@@ -636,7 +656,7 @@ final class BenchCommand extends SubCommand {
     return String.format(Locale.ROOT, "%.1e", x);
   }
 
-  private static String sci(BigInteger x) {
+  static String sci(BigInteger x) {
     if (x.bitLength() < 20) {
       return x.toString();
     }

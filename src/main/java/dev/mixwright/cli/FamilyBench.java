@@ -300,7 +300,7 @@ final class FamilyBench {
     return p.exitValue();
   }
 
-  private static long msSince(long t0) {
+  static long msSince(long t0) {
     return (System.nanoTime() - t0) / 1_000_000;
   }
 
@@ -308,7 +308,7 @@ final class FamilyBench {
     return String.format(Locale.ROOT, ms < 10_000 ? "%.2f s" : "%.1f s", ms / 1000.0);
   }
 
-  private static void deleteTree(Path dir) throws IOException {
+  static void deleteTree(Path dir) throws IOException {
     try (Stream<Path> s = Files.walk(dir)) {
       for (Path p : s.sorted(Comparator.reverseOrder()).toList()) {
         Files.deleteIfExists(p);
