@@ -124,7 +124,7 @@ final class BranchAndPrice {
     // pricing can meet the counts; the bounds do not depend on it
     artificialCost = 10 * (Math.abs(rootBound) + Math.abs(start.value()) + terms.introductionCost() + 1);
     Arrays.fill(running, Double.NaN);
-    open.add(TreeNode.root(rootBound));
+    open.add(TreeNode.root(rootBound, pool.pinned()));
     List<Thread> threads = new ArrayList<>();
     for (int w = 1; w < running.length; w++) {
       int id = w;
@@ -306,7 +306,8 @@ final class BranchAndPrice {
       int n = pool.size();
       for (int i = have; i < n; i++) {
         PoolVariant v = pool.get(i);
-        lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), terms.introductionCost(), terms.minLot());
+        // a variant of today's range carries its own fixed cost: none when pinned, −discontinue otherwise
+        lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot());
         pool.choice().attract(lp, i, v);
         if (totalRow >= 0) {
           lp.addToCount(totalRow, i);
@@ -660,12 +661,15 @@ final class BranchAndPrice {
           pool.keysBelow(have), deadlineNanos);
       PricingOutcome out = pricer.price(q);
       ChoicePrices beta = ChoicePrices.of(lp, have);
-      double constant = terms.rowValue(pi, mu) + beta.constant(terms, mu) + cp.constant() - offeredTooling;
+      // with today's range: −Σ discontinue costs once, and each current variant's own fixed cost in its ψ
+      double constant = terms.rowValue(pi, mu) + beta.constant(terms, mu) + cp.constant() - offeredTooling
+          + pool.current().constant();
       double[] psi = new double[have];
       double[] listed = new double[have + out.found().size()];
       int n = 0;
       for (int i = 0; i < have; i++) {
-        psi[i] = beta.psi(space.offsets(), pool.get(i), i, pi, mu, q.charge(), q.penalty(), terms.minLot());
+        psi[i] = beta.psi(space.offsets(), pool.get(i), i, pi, mu, pool.get(i).fixedCost() + cp.charge(), q.penalty(),
+            terms.minLot());
         if (node.isOffered(i)) {
           constant += psi[i];
         } else if (!node.isBarred(i)) {

@@ -249,11 +249,9 @@ public final class IntegerStage {
       survivors(pool, pricer, rx.bound(), search);
       checkpoint(pool, search.incumbent, search.bound);
     }
-    if (!search.survivorsProve && current.isEmpty()) {
+    if (!search.survivorsProve) {
       tree(pool, search);
       checkpoint(pool, search.incumbent, Math.min(search.bound, search.treeBound));
-    } else if (!search.survivorsProve && search.reason.isEmpty()) {
-      search.reason = "the branch-and-price tree does not take a current range yet, and the quick proof did not settle it";
     }
     search.added = pool.size() - relaxed;
     return outcome(pool, lpBound, rx, search);

@@ -32,7 +32,12 @@ record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, i
   }
 
   static TreeNode root(double bound) {
-    return new TreeNode(new int[0], new int[0], List.of(), bound, 0);
+    return root(bound, new int[0]);
+  }
+
+  /** The root with {@code pinned} offered: variants of today's range the planner keeps in every range. */
+  static TreeNode root(double bound, int[] pinned) {
+    return new TreeNode(pinned, new int[0], List.of(), bound, 0);
   }
 
   /**

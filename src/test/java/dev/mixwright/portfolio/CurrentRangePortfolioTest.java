@@ -126,10 +126,25 @@ class CurrentRangePortfolioTest {
 
   @Test
   void enumeratedMipAgreesOnRandomCurrentRanges() {
+    compareOnRandomCurrentRanges(9100, false);
+  }
+
+  /**
+   * The same comparison with the quick proof off, so that the branch-and-price tree decides: its
+   * nodes must charge a kept variant nothing, a dropped one its discontinue cost, and keep a pinned
+   * one offered from the root.
+   */
+  @Test
+  void theTreeAgreesOnRandomCurrentRanges() {
+    compareOnRandomCurrentRanges(9300, true);
+  }
+
+  private void compareOnRandomCurrentRanges(long firstSeed, boolean treeOnly) {
     int compared = 0;
     int proven = 0;
+    int treeRan = 0;
     for (int i = 0; i < 30; i++) {
-      long seed = 9100 + i;
+      long seed = firstSeed + i;
       Random rnd = new Random(seed);
       Catalog base = RandomCatalogs.random(rnd, 2 + rnd.nextInt(3), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
           rnd.nextInt(7), true);
@@ -171,7 +186,12 @@ class CurrentRangePortfolioTest {
         continue;
       }
       compared++;
-      PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
+      PortfolioOutcome o = treeOnly
+          ? new IntegerStage(space, StageRuns.settings()).workers(1 + i % 2).quickProof(false).run(StageRuns.lp(space))
+          : StageRuns.stage(space, StageRuns.settings());
+      if (o.tree().nodes() > 0) {
+        treeRan++;
+      }
       String where = "seed " + seed + " (" + o.status().word() + " " + o.reason() + ")";
       assertTrue(full.value() <= o.result().bound() + tol(full.value()), where + ": bound " + o.result().bound()
           + " below the enumerated optimum " + full.value());
@@ -209,6 +229,11 @@ class CurrentRangePortfolioTest {
     }
     assertTrue(compared >= 20, "the reference should solve most cases, got " + compared);
     assertTrue(proven >= compared / 2, "most small cases should be proven, got " + proven + " of " + compared);
+    if (treeOnly) {
+      System.out.println("current ranges, tree only: " + proven + " of " + compared + " proven, the tree ran in "
+          + treeRan);
+      assertTrue(treeRan >= compared / 2, "the tree should decide most cases, ran in " + treeRan);
+    }
   }
 
   private static boolean holdsAll(VariantSpace space, int[] v, Map<String, String> e) {
