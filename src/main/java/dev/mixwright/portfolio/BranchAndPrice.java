@@ -85,6 +85,8 @@ final class BranchAndPrice {
   /** The incumbent plus tolerance at each retirement: what a portfolio outside the proof set is worth at most. */
   private double retiredFloor = Double.NEGATIVE_INFINITY;
   private int retiredNodes;
+  /** Nodes split on a segment's count ({@link VariantBranching}), for the tree's record. */
+  private final java.util.concurrent.atomic.AtomicLong segmentSplits = new java.util.concurrent.atomic.AtomicLong();
 
   /** Most variants outside a node's master that may survive at it for the node to retire. */
   private static final int RETIRE_LIMIT = 300;
@@ -95,10 +97,10 @@ final class BranchAndPrice {
    * portfolio better than the incumbent in a retired node is made of them, so when the tree closed, a
    * MIP over them solved to optimality decides the whole space. {@code floor}: the most a portfolio
    * outside the proof set can be worth when the tree closed (the incumbent and the nodes pruned or
-   * retired within the tolerance).
+   * retired within the tolerance). {@code segmentSplits}: the nodes split on a segment's count.
    */
   record Result(Plan incumbent, double bound, boolean closed, long nodes, int open, int workers, String reason,
-      int[] proofSet, int retired, double floor) {}
+      int[] proofSet, int retired, double floor, long segmentSplits) {}
 
   /** Runs within {@code phase} (its time limit and the outer signal), with {@code workers} threads. */
   BranchAndPrice(VariantSpace space, PortfolioTerms terms, Pool pool, PortfolioSettings settings, StageClock clock,
@@ -161,7 +163,7 @@ final class BranchAndPrice {
       int[] proof = proofSet.stream().mapToInt(Integer::intValue).sorted().toArray();
       double floor = Math.max(incumbent.value(), Math.max(prunedMax, retiredFloor));
       return new Result(incumbent, bound, closed, nodes, open.size() + stuck.size(), running.length, reason, proof,
-          retiredNodes, floor);
+          retiredNodes, floor, segmentSplits.get());
     }
   }
 
@@ -501,6 +503,9 @@ final class BranchAndPrice {
       if (!d.onCount() && solved.isBarred(d.variant())) {
         // the barred variant's y was fractional: re-solve the node with the bars (same portfolios of value)
         return List.of(solved);
+      }
+      if (d.onCount() && TreeNode.segmentOf(d.choice()) >= 0) {
+        segmentSplits.incrementAndGet();
       }
       return VariantBranching.children(solved, d, bound);
     }

@@ -33,9 +33,14 @@ import java.util.function.BooleanSupplier;
  * skipped only at leaves, so bounds stay bounds on every non-excluded variant below a node.
  *
  * <p>Acceptance charges δ_s (a tree node's segment counts, {@link VariantQuery#acceptCharge}) stay
- * optimistic at inner nodes: a charge (δ_s &gt; 0) is taken only where every completion is accepted by s
- * (no assigned choice rejected, and every remaining choice of every unassigned group accepted), a bonus
- * (δ_s &lt; 0) wherever some completion may still be accepted (ub_s finite); leaves take them exactly.
+ * optimistic at inner nodes: a charge (δ_s &gt; 0) is taken in full only where every completion is
+ * accepted by s (no assigned choice rejected, and every remaining choice of every unassigned group
+ * accepted), a bonus (δ_s &lt; 0) wherever some completion may still be accepted (ub_s finite); leaves
+ * take them exactly. Where s may accept or reject, the charge taken is min(δ_s, u_s·max(0, ub_s)): a
+ * completion that s rejects is worth at most g(ub with ub_s = −∞) ≤ g(ub) − u_s·max(0, ub_s), because
+ * adding x_s = u_s where ub_s &gt; 0 to the optimum of the former is feasible in the latter (the lot is
+ * a covering row); so with R the charged segments that reject a completion, its value is at most g(ub)
+ * − Σ_{s∈R} u_s·max(0, ub_s) − Σ_{s∉R} δ_s ≤ g(ub) − Σ_s min(δ_s, u_s·max(0, ub_s)).
  *
  * <p>Cost per node O(S · Σ_g d_g) for the bounds; worst case exponential in the number of groups
  * (pricing under exclusion rules is NP-hard already for one segment: maximum-weight independent set
@@ -387,15 +392,25 @@ public final class VariantPricer {
   /**
    * The acceptance charges to take from a bound with optimistic reduced costs {@code ub} (scenario 0's
    * slice; acceptance is the same in every scenario): ub_s = −∞ exactly when s rejects every completion.
-   * At a leaf ({@code exact}) a finite d_s means s accepts; inside the tree a charge only where {@link
-   * #sure}, a bonus wherever s may still accept.
+   * At a leaf ({@code exact}) a finite d_s means s accepts; inside the tree a charge in full only where
+   * {@link #sure} (else at most what rejecting s would cost, see the class comment), a bonus wherever s
+   * may still accept.
    */
   private double acceptance(double[] ub, boolean exact) {
     double sum = 0;
     for (int s = 0; s < perScenario; s++) {
       double delta = accCharge[s];
-      if (delta != 0 && ub[s] != Double.NEGATIVE_INFINITY && (exact || delta < 0 || sure[s])) {
+      if (delta == 0 || ub[s] == Double.NEGATIVE_INFINITY) {
+        continue;
+      }
+      if (exact || delta < 0 || sure[s]) {
         sum += delta;
+      } else {
+        double loss = 0;
+        for (int k = 0; k < scenarios; k++) {
+          loss += termsOf.get(k).columnBound()[s] * Math.max(0.0, ub[k * perScenario + s]);
+        }
+        sum += Math.min(delta, loss);
       }
     }
     return sum;

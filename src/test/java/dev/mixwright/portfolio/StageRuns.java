@@ -7,6 +7,7 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.PortfolioSpec;
+import dev.mixwright.catalog.Segment;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveOutcome;
@@ -14,7 +15,9 @@ import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.BranchAndBoundPricer;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import java.util.Random;
 
@@ -38,6 +41,32 @@ final class StageRuns {
   static Catalog withTerms(Catalog c, double introductionCost, int maxVariants, double minLot) {
     return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(),
         c.segments(), Optional.of(new PortfolioSpec(introductionCost, maxVariants, minLot)));
+  }
+
+  /**
+   * A copy of c where most segments accept about half of the choices of one or two random groups, so that
+   * acceptance varies within the subtrees the pricer bounds.
+   */
+  static Catalog withMasks(Catalog c, Random rnd) {
+    List<Segment> segs = new ArrayList<>();
+    for (Segment s : c.segments()) {
+      Map<String, List<String>> accepts = new LinkedHashMap<>();
+      for (int n = 0; n < 2 && rnd.nextDouble() < 0.8; n++) {
+        Group g = c.groups().get(rnd.nextInt(c.groups().size()));
+        List<String> ok = new ArrayList<>();
+        for (int k = 0; k < g.choiceCount(); k++) {
+          if (rnd.nextBoolean()) {
+            ok.add(g.choiceId(k));
+          }
+        }
+        if (!ok.isEmpty()) {
+          accepts.put(g.id(), ok);
+        }
+      }
+      segs.add(new Segment(s.id(), s.label(), s.demand(), s.maxShare(), accepts, s.value(), s.choice()));
+    }
+    return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(), segs,
+        c.portfolio());
   }
 
   /** A copy of c where about a third of the options carry a random tooling cost. */

@@ -5,8 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
-import dev.mixwright.catalog.Group;
-import dev.mixwright.catalog.Segment;
 import dev.mixwright.pricing.PricedVariant;
 import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.space.VariantKey;
@@ -15,9 +13,7 @@ import dev.mixwright.testing.RandomCatalogs;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.HashSet;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 import java.util.Random;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
@@ -59,37 +55,11 @@ class VariantPricerTest {
     return accept;
   }
 
-  /**
-   * A copy of c where most segments accept about half of the choices of one or two random groups, so that
-   * acceptance varies within the subtrees the pricer bounds.
-   */
-  private static Catalog withMasks(Catalog c, Random rnd) {
-    List<Segment> segs = new ArrayList<>();
-    for (Segment s : c.segments()) {
-      Map<String, List<String>> accepts = new LinkedHashMap<>();
-      for (int n = 0; n < 2 && rnd.nextDouble() < 0.8; n++) {
-        Group g = c.groups().get(rnd.nextInt(c.groups().size()));
-        List<String> ok = new ArrayList<>();
-        for (int k = 0; k < g.choiceCount(); k++) {
-          if (rnd.nextBoolean()) {
-            ok.add(g.choiceId(k));
-          }
-        }
-        if (!ok.isEmpty()) {
-          accepts.put(g.id(), ok);
-        }
-      }
-      segs.add(new Segment(s.id(), s.label(), s.demand(), s.maxShare(), accepts, s.value(), s.choice()));
-    }
-    return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(), segs,
-        c.portfolio());
-  }
-
   private static void kBest(int i, Random rnd, boolean withAccept) {
     Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(5), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
         rnd.nextInt(10), true);
     if (withAccept) {
-      c = withMasks(c, rnd);
+      c = StageRuns.withMasks(c, rnd);
     }
     VariantSpace space = new VariantSpace(c);
     PortfolioTerms t = PortfolioTerms.of(space);
