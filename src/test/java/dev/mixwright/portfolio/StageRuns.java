@@ -14,6 +14,7 @@ import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.BranchAndBoundPricer;
 import dev.mixwright.space.VariantSpace;
+import dev.mixwright.testing.EnumeratedMip;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -35,6 +36,25 @@ final class StageRuns {
 
   static PortfolioSettings settings() {
     return PortfolioSettings.defaults().withTimeLimit(30_000);
+  }
+
+  /**
+   * Checks a stage's outcome against the fully enumerated MIP solved by SCIP ({@link EnumeratedMip}, every
+   * buildable variant, written from the catalog figures): feasible, the bound never below the optimum, the
+   * value never above it, equal when proven. Returns whether it was proven.
+   */
+  static boolean againstEnumerated(VariantSpace space, PortfolioOutcome o) {
+    checkFeasible(space, o);
+    EnumeratedMip.Result ref = EnumeratedMip.solve(space, false, 60_000);
+    assertTrue(ref.optimal(), "the reference MIP was not solved to optimality");
+    double tol = 1e-6 * (1 + Math.abs(ref.value()));
+    assertTrue(o.result().bound() >= ref.value() - tol, "bound " + o.result().bound() + " below " + ref.value());
+    assertTrue(o.result().value() <= ref.value() + tol, "value above the optimum");
+    if (o.status().isProven()) {
+      assertEquals(ref.value(), o.result().value(), tol, "proven but not the enumerated optimum");
+      return true;
+    }
+    return false;
   }
 
   /** A copy of c with new portfolio terms. */
