@@ -33,7 +33,9 @@ import java.util.concurrent.atomic.AtomicReference;
  * </pre>
  *
  * valid at any prices π, μ ≥ 0 and any λ ≥ max(0, rest), because the tooling of the options of
- * offered variants is certainly paid. With segments that choose, the master's variants are valued
+ * offered variants is certainly paid. The node's count rows at their duals δ (≥ 0 at an upper side, ≤ 0
+ * at a lower) add Σ_c δ_c·side_c and turn every ψ(v) into ψ(v) − Σ δ_c over the counts v enters (its
+ * choices, the total, the segments that accept it). With segments that choose, the master's variants are valued
  * with their own attraction rows' duals and caps, and the constant gains the stay-out's term
  * ({@link ChoicePrices}), so at a node's optimal duals the bound meets the node's objective. The free variants are the pool's undecided ones and the whole
  * space outside the pool; the pricer lists the latter above the threshold and bounds the rest, so
@@ -83,6 +85,8 @@ final class BranchAndPrice {
   /** The incumbent plus tolerance at each retirement: what a portfolio outside the proof set is worth at most. */
   private double retiredFloor = Double.NEGATIVE_INFINITY;
   private int retiredNodes;
+  /** Nodes split on a segment's count ({@link VariantBranching}), for the tree's record. */
+  private final java.util.concurrent.atomic.AtomicLong segmentSplits = new java.util.concurrent.atomic.AtomicLong();
 
   /** Most variants outside a node's master that may survive at it for the node to retire. */
   private static final int RETIRE_LIMIT = 300;
@@ -93,10 +97,10 @@ final class BranchAndPrice {
    * portfolio better than the incumbent in a retired node is made of them, so when the tree closed, a
    * MIP over them solved to optimality decides the whole space. {@code floor}: the most a portfolio
    * outside the proof set can be worth when the tree closed (the incumbent and the nodes pruned or
-   * retired within the tolerance).
+   * retired within the tolerance). {@code segmentSplits}: the nodes split on a segment's count.
    */
   record Result(Plan incumbent, double bound, boolean closed, long nodes, int open, int workers, String reason,
-      int[] proofSet, int retired, double floor) {}
+      int[] proofSet, int retired, double floor, long segmentSplits) {}
 
   /** Runs within {@code phase} (its time limit and the outer signal), with {@code workers} threads. */
   BranchAndPrice(VariantSpace space, PortfolioTerms terms, Pool pool, PortfolioSettings settings, StageClock clock,
@@ -159,7 +163,7 @@ final class BranchAndPrice {
       int[] proof = proofSet.stream().mapToInt(Integer::intValue).sorted().toArray();
       double floor = Math.max(incumbent.value(), Math.max(prunedMax, retiredFloor));
       return new Result(incumbent, bound, closed, nodes, open.size() + stuck.size(), running.length, reason, proof,
-          retiredNodes, floor);
+          retiredNodes, floor, segmentSplits.get());
     }
   }
 
@@ -272,8 +276,9 @@ final class BranchAndPrice {
     private final VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
     private int have;
     private final Set<Integer> fixed = new HashSet<>();
-    /** Count row per flat choice (−1 until needed) and of the total; rows keep their variants for good. */
+    /** Count row per flat choice and per segment (−1 until needed) and of the total; rows keep their variants for good. */
     private final int[] rowOf = new int[space.totalChoices()];
+    private final int[] segmentRow = new int[space.segmentCount()];
     private int totalRow = -1;
     private final Set<Integer> boundedRows = new HashSet<>();
     /** The node's count ranges, per row: lo, hi (hi = +∞ for none). */
@@ -281,6 +286,7 @@ final class BranchAndPrice {
 
     Worker() {
       Arrays.fill(rowOf, -1);
+      Arrays.fill(segmentRow, -1);
     }
 
     private PortfolioLp choosing(PortfolioLp fresh) {
@@ -294,6 +300,7 @@ final class BranchAndPrice {
       lp = choosing(new PortfolioLp(terms.capacity(), terms.demand(), cap));
       have = 0;
       Arrays.fill(rowOf, -1);
+      Arrays.fill(segmentRow, -1);
       totalRow = -1;
       boundedRows.clear();
       fixed.clear();
@@ -318,12 +325,32 @@ final class BranchAndPrice {
             lp.addToCount(r, i);
           }
         }
+        for (int s : v.segments()) {
+          if (segmentRow[s] >= 0) {
+            lp.addToCount(segmentRow[s], i);
+          }
+        }
       }
       have = n;
     }
 
-    /** The count row of a choice ({@link TreeNode#TOTAL} for all), made on first use over the master's variants. */
+    /**
+     * The count row of a key (a flat choice, {@link TreeNode#TOTAL} for all, or a segment's key), made on
+     * first use over the master's variants.
+     */
     private int row(int choice) {
+      int seg = TreeNode.segmentOf(choice);
+      if (seg >= 0) {
+        if (segmentRow[seg] < 0) {
+          segmentRow[seg] = lp.addCountRow(artificialCost);
+          for (int i = 0; i < have; i++) {
+            if (Arrays.binarySearch(pool.get(i).segments(), seg) >= 0) {
+              lp.addToCount(segmentRow[seg], i);
+            }
+          }
+        }
+        return segmentRow[seg];
+      }
       if (choice == TreeNode.TOTAL) {
         if (totalRow < 0) {
           totalRow = lp.addCountRow(artificialCost);
@@ -453,8 +480,8 @@ final class BranchAndPrice {
       double bound = relaxed.best();
       double[] y = relaxed.sol().y();
       heuristic(node, y);
-      VariantBranching.Decision d = VariantBranching.choose(node, y, i -> pool.get(i).choices(), space.offsets(),
-          space.totalChoices());
+      VariantBranching.Decision d = VariantBranching.choose(node, y, i -> pool.get(i).choices(),
+          i -> pool.get(i).segments(), space.segmentCount(), space.offsets(), space.totalChoices());
       if (d == null) {
         // y is integral and every variant at 1 is offered: the node's best portfolio is its offer
         Plan p = FixedPortfolio.solve(pool, terms, node.offered());
@@ -483,15 +510,21 @@ final class BranchAndPrice {
         // the barred variant's y was fractional: re-solve the node with the bars (same portfolios of value)
         return List.of(solved);
       }
+      if (d.onCount() && TreeNode.segmentOf(d.choice()) >= 0) {
+        segmentSplits.incrementAndGet();
+      }
       return VariantBranching.children(solved, d, bound);
     }
 
     /**
-     * The duals of the node's count rows as prices: per flat choice (a penalty on variants using it)
-     * and of the total (part of the charge), each clamped to the sign its binding side allows.
+     * The duals of the node's count rows as prices: per flat choice (a penalty on variants using it),
+     * per segment (a charge on variants it accepts) and of the total (part of the charge), each clamped
+     * to the sign its binding side allows.
      */
     private CountPrices countPrices() {
       double[] pen = new double[space.totalChoices()];
+      double[] accept = new double[space.segmentCount()];
+      boolean anyAccept = false;
       double charge = 0;
       double constant = 0;
       boolean any = false;
@@ -510,11 +543,14 @@ final class BranchAndPrice {
         constant += dual > 0 ? dual * hi : dual * lo;
         if (e.getKey() == TreeNode.TOTAL) {
           charge += dual;
+        } else if (TreeNode.segmentOf(e.getKey()) >= 0) {
+          accept[TreeNode.segmentOf(e.getKey())] += dual;
+          anyAccept = true;
         } else {
           pen[e.getKey()] += dual;
         }
       }
-      return new CountPrices(any ? pen : null, charge, constant);
+      return new CountPrices(any ? pen : null, anyAccept ? accept : null, charge, constant);
     }
 
     /** A node that cannot be finished: it keeps its bound in the result, and the tree stays open. */
@@ -587,7 +623,7 @@ final class BranchAndPrice {
       long soon = System.nanoTime() + 250_000_000L;
       VariantQuery q = new VariantQuery(b.resourcePrice(), b.segmentPrice(), probe.query.charge(),
           probe.query.penalty(), theta - 1e-7 * (1 + Math.abs(z)), RETIRE_LIMIT + 1, pool.keysBelow(have),
-          deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon));
+          deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon)).withAcceptCharge(probe.query.acceptCharge());
       PricingOutcome out = pricer.price(q);
       if (!out.exact() || out.found().size() > RETIRE_LIMIT) {
         return false;
@@ -658,7 +694,7 @@ final class BranchAndPrice {
     private NodeProbe probe(TreeNode node, double[] pi, double[] mu, CountPrices cp, int k, int freeCap,
         double offeredTooling) {
       VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
-          pool.keysBelow(have), deadlineNanos);
+          pool.keysBelow(have), deadlineNanos).withAcceptCharge(cp.accept());
       PricingOutcome out = pricer.price(q);
       ChoicePrices beta = ChoicePrices.of(lp, have);
       // with today's range: −Σ discontinue costs once, and each current variant's own fixed cost in its ψ
@@ -669,7 +705,7 @@ final class BranchAndPrice {
       int n = 0;
       for (int i = 0; i < have; i++) {
         psi[i] = beta.psi(space.offsets(), pool.get(i), i, pi, mu, pool.get(i).fixedCost() + cp.charge(), q.penalty(),
-            terms.minLot());
+            terms.minLot()) - acceptCharge(pool.get(i), cp.accept());
         if (node.isOffered(i)) {
           constant += psi[i];
         } else if (!node.isBarred(i)) {
@@ -682,6 +718,17 @@ final class BranchAndPrice {
       LagrangianPortfolioBound b = LagrangianPortfolioBound.of(constant, Arrays.copyOf(listed, n), out.restBound(),
           freeCap, pi.clone(), mu.clone());
       return new NodeProbe(b, psi, out.found(), out.exact(), q);
+    }
+
+    /** Σ of the segment charges over the segments that accept v (0 for none). */
+    private double acceptCharge(PoolVariant v, double[] accept) {
+      double c = 0;
+      if (accept != null) {
+        for (int s : v.segments()) {
+          c += accept[s];
+        }
+      }
+      return c;
     }
 
     private double offeredTooling(TreeNode node) {
@@ -708,8 +755,11 @@ final class BranchAndPrice {
     }
   }
 
-  /** Prices of a node's count rows: penalty per flat choice (null for none), added charge, and Σ δ·side. */
-  private record CountPrices(double[] penalty, double charge, double constant) {}
+  /**
+   * Prices of a node's count rows: penalty per flat choice and charge per accepting segment (null for
+   * none), added charge, and Σ δ·side.
+   */
+  private record CountPrices(double[] penalty, double[] accept, double charge, double constant) {}
 
   /** A node bound with the ψ of the master's variants at its prices, and what the pricer found outside. */
   private record NodeProbe(LagrangianPortfolioBound bound, double[] psi, List<PricedVariant> found, boolean exact,

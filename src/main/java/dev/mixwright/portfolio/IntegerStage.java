@@ -358,8 +358,9 @@ public final class IntegerStage {
     if (!r.closed() && s.reason.isEmpty()) {
       s.reason = r.reason();
     }
-    String retired = r.retired() == 0 ? "" : "; " + r.retired() + " nodes retired to a proof set of "
-        + r.proofSet().length + " variants";
+    String retired = (r.retired() == 0 ? "" : "; " + r.retired() + " nodes retired to a proof set of "
+        + r.proofSet().length + " variants") + (r.segmentSplits() == 0 ? "" : "; " + r.segmentSplits()
+        + " nodes split on a segment's count");
     emit(PortfolioEvent.Kind.TREE, r.incumbent().value(), Math.min(s.bound, r.bound()), pool.size(), (int) Math.min(
         Integer.MAX_VALUE, r.nodes()), (r.closed()
         ? r.retired() == 0 ? "branch-and-price closed the tree: no portfolio is better than the incumbent"

@@ -8,9 +8,9 @@ import java.util.function.ToIntFunction;
 /**
  * A node of the branch-and-price tree: the portfolios that offer every pool variant of
  * {@code offered}, none of {@code barred} (pool indices, sorted), and satisfy every count range of
- * {@code counts} (how many offered variants use a choice, or how many are offered at all). Variants
- * outside the pool are free in every node but for the counts, which the pricer sees as penalties per
- * choice. {@code bound}: an upper bound on the value of every portfolio of the node (the parent's until
+ * {@code counts} (how many offered variants use a choice, how many a segment accepts, or how many are
+ * offered at all). Variants outside the pool are free in every node but for the counts, which the
+ * pricer sees as penalties per choice and charges per accepting segment. {@code bound}: an upper bound on the value of every portfolio of the node (the parent's until
  * the node is solved); {@code depth}: the number of decisions.
  */
 record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, int depth) {
@@ -18,10 +18,26 @@ record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, i
   /** Total count: the number of variants offered. */
   static final int TOTAL = -1;
 
+  /** The key of segment s's count (offered variants that s accepts): {@code -2 - s}, below {@link #TOTAL}. */
+  static int segmentKey(int s) {
+    return -2 - s;
+  }
+
+  /** The segment of a count key, or −1 when the key is a flat choice or {@link #TOTAL}. */
+  static int segmentOf(int key) {
+    return key <= -2 ? -2 - key : -1;
+  }
+
   /**
-   * lo ≤ (offered variants using flat choice {@code choice}, or all offered when {@link #TOTAL}) ≤ hi.
+   * lo ≤ (offered variants using flat choice {@code choice} when ≥ 0, all offered when {@link #TOTAL},
+   * those that segment s accepts at {@link #segmentKey}(s)) ≤ hi.
    */
   record Count(int choice, int lo, int hi) {}
+
+  /** Whether segment s accepts a variant (every choice of it in s's accepts lists). */
+  interface Acceptance {
+    boolean accepts(int[] v, int s);
+  }
 
   TreeNode {
     offered = offered.clone();
@@ -46,8 +62,9 @@ record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, i
    * @param portfolio the choices of each offered variant
    * @param poolIndex the pool index of a variant, −1 outside the pool
    * @param offsets flat choice offsets of the groups
+   * @param acceptance which segments accept which variants (for segment counts)
    */
-  boolean holds(List<int[]> portfolio, ToIntFunction<int[]> poolIndex, int[] offsets) {
+  boolean holds(List<int[]> portfolio, ToIntFunction<int[]> poolIndex, int[] offsets, Acceptance acceptance) {
     List<Integer> members = new ArrayList<>();
     for (int[] v : portfolio) {
       members.add(poolIndex.applyAsInt(v));
@@ -65,7 +82,9 @@ record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, i
     for (Count c : counts) {
       int n = 0;
       for (int[] v : portfolio) {
-        n += c.choice() == TOTAL || uses(v, c.choice(), offsets) ? 1 : 0;
+        int s = segmentOf(c.choice());
+        boolean counted = c.choice() == TOTAL || (s >= 0 ? acceptance.accepts(v, s) : uses(v, c.choice(), offsets));
+        n += counted ? 1 : 0;
       }
       if (n < c.lo() || n > c.hi()) {
         return false;
@@ -91,7 +110,7 @@ record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, i
     return Arrays.binarySearch(barred, i) >= 0;
   }
 
-  /** The tightest range on the count of {@code choice}: {lo, hi}, hi = Integer.MAX_VALUE for none. */
+  /** The tightest range on the count of key {@code choice}: {lo, hi}, hi = Integer.MAX_VALUE for none. */
   int[] range(int choice) {
     int lo = 0;
     int hi = Integer.MAX_VALUE;

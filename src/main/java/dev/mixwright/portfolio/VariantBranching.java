@@ -8,6 +8,14 @@ import java.util.List;
  * The branching rule of the branch-and-price tree, in the order tried:
  *
  * <ol>
+ *   <li>On a segment's count: when the relaxation offers a fractional number n of variants that segment
+ *       s accepts (Σ y_v over the variants whose every choice s accepts), the children hold at most ⌊n⌋
+ *       and at least ⌊n⌋ + 1 of them; the most fractional segment first. The relaxation pays the
+ *       introduction cost F·y_v of a variant sold at a fraction y_v = x/u of its cap, so it offers
+ *       fewer variants per segment than any portfolio selling the same (the fixed-charge gap of
+ *       x ≤ u·y); this decision closes that gap segment by segment, which single variants cannot, as
+ *       near-identical variants take each other's place. The row's dual δ_s enters pricing as a
+ *       charge on every variant s accepts ({@link VariantQuery#acceptCharge}).
  *   <li>On a count (Vanderbeck 2000, "On Dantzig-Wolfe decomposition in integer programming and ways
  *       to perform branching in a branch-and-price algorithm", Operations Research 48(1)): when the
  *       relaxation offers a fractional number n of variants in all, or of variants using some option
@@ -24,8 +32,8 @@ import java.util.List;
  *       whole units), that variant.
  * </ol>
  *
- * Every portfolio of a node lies in exactly one child: a count is either ≤ ⌊n⌋ or ≥ ⌊n⌋ + 1, and a
- * variant is either offered or not.
+ * Every portfolio of a node lies in exactly one child: a count is either ≤ ⌊n⌋ or ≥ ⌊n⌋ + 1 (each count
+ * is a function of the offered set alone), and a variant is either offered or not.
  */
 final class VariantBranching {
   private VariantBranching() {}
@@ -33,7 +41,10 @@ final class VariantBranching {
   /** Values within this of a whole number count as integral. */
   static final double INTEGRAL = 1e-6;
 
-  /** A branching decision: a count (choice, or {@link TreeNode#TOTAL}) split at {@code at}, or a variant. */
+  /**
+   * A branching decision: a count (choice, {@link TreeNode#TOTAL} or {@link TreeNode#segmentKey}) split at
+   * {@code floor}, or a variant.
+   */
   record Decision(boolean onCount, int choice, int floor, int variant) {
     static Decision count(int choice, int floor) {
       return new Decision(true, choice, floor, -1);
@@ -53,6 +64,35 @@ final class VariantBranching {
    */
   static Decision choose(TreeNode node, double[] y, java.util.function.IntFunction<int[]> choices, int[] offsets,
       int totalChoices) {
+    return choose(node, y, choices, i -> new int[0], 0, offsets, totalChoices);
+  }
+
+  /**
+   * What to branch on, with segment counts: {@code segmentsOf} gives the segments that accept pool
+   * variant i, among {@code segmentCount}.
+   */
+  static Decision choose(TreeNode node, double[] y, java.util.function.IntFunction<int[]> choices,
+      java.util.function.IntFunction<int[]> segmentsOf, int segmentCount, int[] offsets, int totalChoices) {
+    double[] bySegment = new double[segmentCount];
+    for (int i = 0; i < y.length && segmentCount > 0; i++) {
+      if (y[i] > INTEGRAL) {
+        for (int s : segmentsOf.apply(i)) {
+          bySegment[s] += y[i];
+        }
+      }
+    }
+    int bestS = -1;
+    double bestSFrac = INTEGRAL;
+    for (int s = 0; s < segmentCount; s++) {
+      double fr = fraction(bySegment[s]);
+      if (fr > bestSFrac && splits(node, TreeNode.segmentKey(s), bySegment[s])) {
+        bestSFrac = fr;
+        bestS = s;
+      }
+    }
+    if (bestS >= 0) {
+      return Decision.count(TreeNode.segmentKey(bestS), (int) Math.floor(bySegment[bestS]));
+    }
     double total = 0;
     double[] byChoice = new double[totalChoices];
     for (int i = 0; i < y.length; i++) {

@@ -32,6 +32,16 @@ import java.util.function.BooleanSupplier;
  * cutoff (the threshold, or the k-th best value once k are held) ends the loop. Excluded variants are
  * skipped only at leaves, so bounds stay bounds on every non-excluded variant below a node.
  *
+ * <p>Acceptance charges δ_s (a tree node's segment counts, {@link VariantQuery#acceptCharge}) stay
+ * optimistic at inner nodes: a charge (δ_s &gt; 0) is taken in full only where every completion is
+ * accepted by s (no assigned choice rejected, and every remaining choice of every unassigned group
+ * accepted), a bonus (δ_s &lt; 0) wherever some completion may still be accepted (ub_s finite); leaves
+ * take them exactly. Where s may accept or reject, the charge taken is min(δ_s, u_s·max(0, ub_s)): a
+ * completion that s rejects is worth at most g(ub with ub_s = −∞) ≤ g(ub) − u_s·max(0, ub_s), because
+ * adding x_s = u_s where ub_s &gt; 0 to the optimum of the former is feasible in the latter (the lot is
+ * a covering row); so with R the charged segments that reject a completion, its value is at most g(ub)
+ * − Σ_{s∈R} u_s·max(0, ub_s) − Σ_{s∉R} δ_s ≤ g(ub) − Σ_s min(δ_s, u_s·max(0, ub_s)).
+ *
  * <p>Cost per node O(S · Σ_g d_g) for the bounds; worst case exponential in the number of groups
  * (pricing under exclusion rules is NP-hard already for one segment: maximum-weight independent set
  * reduces to it, Garey &amp; Johnson GT20). With a node limit or deadline the search stops early; the
@@ -69,11 +79,14 @@ public final class VariantPricer {
   private final double[] leafD;
   private final int[] scratch;
   private final int[] v;
+  /** [segment]: every remaining choice of the groups after the current depth is accepted there. */
+  private final boolean[] sure;
 
   private double[][] w;
   private double[] constant;
   private double[] pen;
   private double charge;
+  private double[] accCharge;
   private double threshold;
   private int k;
   private Set<VariantKey> excluded;
@@ -128,6 +141,7 @@ public final class VariantPricer {
     leafD = new double[segments];
     scratch = new int[perScenario];
     v = new int[groups];
+    sure = new boolean[perScenario];
   }
 
   /** Σ_k g_k over the scenarios' slices of the stacked reduced costs d; −∞ when some scenario cannot take the lot. */
@@ -160,6 +174,12 @@ public final class VariantPricer {
     if (q.penalty() != null) {
       for (int g = 0; g < v.length; g++) {
         p += q.penalty()[first.offset(g) + v[g]];
+      }
+    }
+    double[] acc = q.acceptCharge();
+    if (acc != null) {
+      for (int s = 0; s < acc.length; s++) {
+        p += first.isColumn(v, s) ? acc[s] : 0.0;
       }
     }
     return sum - q.charge() - p;
@@ -211,6 +231,10 @@ public final class VariantPricer {
       throw new IllegalArgumentException("penalty has " + q.penalty().length + " entries, the space "
           + space.totalChoices() + " choices");
     }
+    if (q.acceptCharge() != null && q.acceptCharge().length != perScenario) {
+      throw new IllegalArgumentException("acceptCharge has " + q.acceptCharge().length + " entries, the catalog "
+          + perScenario + " segments");
+    }
     w = new double[segments][];
     constant = new double[segments];
     int rc = space.resourceCount();
@@ -223,6 +247,7 @@ public final class VariantPricer {
     }
     pen = q.penalty() == null ? new double[space.totalChoices()] : q.penalty();
     charge = q.charge();
+    accCharge = q.acceptCharge();
     threshold = q.threshold();
     k = q.k();
     excluded = q.excluded();
@@ -249,6 +274,7 @@ public final class VariantPricer {
     PricingOutcome out = PricingOutcome.of(found, k, threshold, complete, openBound, nodes);
     w = null;
     pen = null;
+    accCharge = null;
     excluded = null;
     top = null;
     return out;
@@ -297,6 +323,9 @@ public final class VariantPricer {
       }
       penRest += minPen;
     }
+    if (accCharge != null) {
+      certainAcceptance(d);
+    }
     int n = 0;
     int[] cs = cand[d];
     double[] cb = candBound[d];
@@ -311,7 +340,7 @@ public final class VariantPricer {
             : partial[d][s] + x + rest[s] + constant[s];
       }
       double b = lotValue(ub)
-          - charge - (penPartial[d] + pen[f] + penRest);
+          - charge - (penPartial[d] + pen[f] + penRest) - (accCharge == null ? 0.0 : acceptance(ub, false));
       n = BestFirst.insert(cb, cs, n, b, f);
     }
     for (int i = 0; i < n; i++) {
@@ -346,6 +375,47 @@ public final class VariantPricer {
     return true;
   }
 
+  /** {@link #sure} for the groups after depth d: their remaining choices all accepted by segment s. */
+  private void certainAcceptance(int d) {
+    for (int s = 0; s < perScenario; s++) {
+      boolean all = true;
+      for (int e = d + 1; e < groups && all; e++) {
+        int h = order[e];
+        for (int f = offset[h]; f < offset[h + 1] && all; f++) {
+          all = !usable[f] || rules.blocked(f) || w[s][f] != Double.NEGATIVE_INFINITY;
+        }
+      }
+      sure[s] = all;
+    }
+  }
+
+  /**
+   * The acceptance charges to take from a bound with optimistic reduced costs {@code ub} (scenario 0's
+   * slice; acceptance is the same in every scenario): ub_s = −∞ exactly when s rejects every completion.
+   * At a leaf ({@code exact}) a finite d_s means s accepts; inside the tree a charge in full only where
+   * {@link #sure} (else at most what rejecting s would cost, see the class comment), a bonus wherever s
+   * may still accept.
+   */
+  private double acceptance(double[] ub, boolean exact) {
+    double sum = 0;
+    for (int s = 0; s < perScenario; s++) {
+      double delta = accCharge[s];
+      if (delta == 0 || ub[s] == Double.NEGATIVE_INFINITY) {
+        continue;
+      }
+      if (exact || delta < 0 || sure[s]) {
+        sum += delta;
+      } else {
+        double loss = 0;
+        for (int k = 0; k < scenarios; k++) {
+          loss += termsOf.get(k).columnBound()[s] * Math.max(0.0, ub[k * perScenario + s]);
+        }
+        sum += Math.min(delta, loss);
+      }
+    }
+    return sum;
+  }
+
   private void leaf() {
     assert space.isBuildable(v) : "forward checking let a rule violation through";
     double[] d = leafD;
@@ -365,7 +435,7 @@ public final class VariantPricer {
     for (int g = 0; g < groups; g++) {
       p += pen[offset[g] + v[g]];
     }
-    double val = lotValue(d) - charge - p;
+    double val = lotValue(d) - charge - p - (accCharge == null ? 0.0 : acceptance(d, true));
     if (val > cutoff() && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
       top.add(new PricedVariant(v.clone(), val));
       if (top.size() > k) {

@@ -13,7 +13,9 @@ import java.util.Set;
  *   d_s(v) = margin(v, s) − Σ_r π_r use_r(v) − μ_s       (−∞ where s does not accept v)
  * </pre>
  *
- * and g is {@link LotValue#best}. {@code penalty} may be null (all zero). {@code deadlineNanos}: a
+ * and g is {@link LotValue#best}, less Σ_s {@code acceptCharge[s]} over the segments s that accept v
+ * (the duals of a tree node's segment count rows: a charge when positive, a bonus when negative).
+ * {@code penalty} and {@code acceptCharge} may be null (all zero). {@code deadlineNanos}: a
  * {@code System.nanoTime()} after which the search stops with a valid bound, 0 for none.
  *
  * <p>For a range across scenarios k = 1..n ({@link VariantPricer} built over n scenarios) the prices
@@ -30,12 +32,25 @@ public record VariantQuery(
     int k,
     Set<VariantKey> excluded,
     long deadlineNanos,
-    double[] scenarioWeight) {
+    double[] scenarioWeight,
+    double[] acceptCharge) {
+
+  /** A query without acceptance charges. */
+  public VariantQuery(double[] resourcePrice, double[] segmentPrice, double charge, double[] penalty,
+      double threshold, int k, Set<VariantKey> excluded, long deadlineNanos, double[] scenarioWeight) {
+    this(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos, scenarioWeight, null);
+  }
 
   /** A query of one scenario (weight 1). */
   public VariantQuery(double[] resourcePrice, double[] segmentPrice, double charge, double[] penalty,
       double threshold, int k, Set<VariantKey> excluded, long deadlineNanos) {
-    this(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos, null);
+    this(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos, null, null);
+  }
+
+  /** This query with a charge per segment that accepts the variant ({@code null}: none). */
+  public VariantQuery withAcceptCharge(double[] perSegment) {
+    return new VariantQuery(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos,
+        scenarioWeight, perSegment);
   }
 
   /** The weight of scenario k (1 when none are given). */

@@ -93,6 +93,12 @@ final class BruteVariants {
   /** ψ(v) at prices (π, μ): brute-force lot value − charge − penalties. */
   static double value(VariantSpace space, PortfolioTerms t, int[] v, double[] pi, double[] mu, double charge,
       double[] penalty) {
+    return value(space, t, v, pi, mu, charge, penalty, null);
+  }
+
+  /** The same, less {@code accept[s]} for every segment s that accepts v ({@code accept} null for none). */
+  static double value(VariantSpace space, PortfolioTerms t, int[] v, double[] pi, double[] mu, double charge,
+      double[] penalty, double[] accept) {
     double[] d = new double[space.segmentCount()];
     for (int s = 0; s < d.length; s++) {
       d[s] = space.isColumn(v, s) ? ReducedCosts.of(space, v, s, pi, mu[s]) : Double.NEGATIVE_INFINITY;
@@ -102,6 +108,9 @@ final class BruteVariants {
       for (int g = 0; g < v.length; g++) {
         p += penalty[space.offset(g) + v[g]];
       }
+    }
+    for (int s = 0; accept != null && s < d.length; s++) {
+      p += space.isColumn(v, s) ? accept[s] : 0.0;
     }
     return lotValue(d, t.columnBound(), t.minLot()) - charge - p;
   }

@@ -7,14 +7,18 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.PortfolioSpec;
+import dev.mixwright.catalog.Segment;
 import dev.mixwright.colgen.ColumnGeneration;
 import dev.mixwright.colgen.StopCriterion;
 import dev.mixwright.colgen.SolveOutcome;
 import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.BranchAndBoundPricer;
 import dev.mixwright.space.VariantSpace;
+import dev.mixwright.testing.EnumeratedMip;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
 import java.util.Random;
 
@@ -34,10 +38,55 @@ final class StageRuns {
     return PortfolioSettings.defaults().withTimeLimit(30_000);
   }
 
+  /**
+   * Checks a stage's outcome against the fully enumerated MIP solved by SCIP ({@link EnumeratedMip}, every
+   * buildable variant, written from the catalog figures): feasible, the bound never below the optimum, the
+   * value never above it, equal when proven. Returns whether it was proven.
+   */
+  static boolean againstEnumerated(VariantSpace space, PortfolioOutcome o) {
+    checkFeasible(space, o);
+    EnumeratedMip.Result ref = EnumeratedMip.solve(space, false, 60_000);
+    assertTrue(ref.optimal(), "the reference MIP was not solved to optimality");
+    double tol = 1e-6 * (1 + Math.abs(ref.value()));
+    assertTrue(o.result().bound() >= ref.value() - tol, "bound " + o.result().bound() + " below " + ref.value());
+    assertTrue(o.result().value() <= ref.value() + tol, "value above the optimum");
+    if (o.status().isProven()) {
+      assertEquals(ref.value(), o.result().value(), tol, "proven but not the enumerated optimum");
+      return true;
+    }
+    return false;
+  }
+
   /** A copy of c with new portfolio terms. */
   static Catalog withTerms(Catalog c, double introductionCost, int maxVariants, double minLot) {
     return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(),
         c.segments(), Optional.of(new PortfolioSpec(introductionCost, maxVariants, minLot)));
+  }
+
+  /**
+   * A copy of c where most segments accept about half of the choices of one or two random groups, so that
+   * acceptance varies within the subtrees the pricer bounds.
+   */
+  static Catalog withMasks(Catalog c, Random rnd) {
+    List<Segment> segs = new ArrayList<>();
+    for (Segment s : c.segments()) {
+      Map<String, List<String>> accepts = new LinkedHashMap<>();
+      for (int n = 0; n < 2 && rnd.nextDouble() < 0.8; n++) {
+        Group g = c.groups().get(rnd.nextInt(c.groups().size()));
+        List<String> ok = new ArrayList<>();
+        for (int k = 0; k < g.choiceCount(); k++) {
+          if (rnd.nextBoolean()) {
+            ok.add(g.choiceId(k));
+          }
+        }
+        if (!ok.isEmpty()) {
+          accepts.put(g.id(), ok);
+        }
+      }
+      segs.add(new Segment(s.id(), s.label(), s.demand(), s.maxShare(), accepts, s.value(), s.choice()));
+    }
+    return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(), segs,
+        c.portfolio());
   }
 
   /** A copy of c where about a third of the options carry a random tooling cost. */

@@ -20,6 +20,21 @@ class VariantBranchingTest {
   /** Two groups of 3 and 2 choices: flat choices 0..2 and 3..4, six variants. */
   private static final int[] OFFSETS = {0, 3, 5};
 
+  /** Segment 0 accepts the first two choices of group 0 (a0, a1), segment 1 only b0 of group 1. */
+  private static final TreeNode.Acceptance ACCEPTS = (v, s) -> s == 0 ? v[0] != 2 : v[1] == 0;
+
+  /** The segments that accept pool variant i (of {@link #variants}). */
+  private static int[] segmentsOf(int i) {
+    int[] v = variants().get(i);
+    List<Integer> out = new ArrayList<>();
+    for (int s = 0; s < 2; s++) {
+      if (ACCEPTS.accepts(v, s)) {
+        out.add(s);
+      }
+    }
+    return out.stream().mapToInt(Integer::intValue).toArray();
+  }
+
   private static List<int[]> variants() {
     List<int[]> out = new ArrayList<>();
     for (int a = 0; a < 3; a++) {
@@ -70,10 +85,10 @@ class VariantBranchingTest {
         List<TreeNode> kids = VariantBranching.children(node, d, 0);
         assertEquals(2, kids.size());
         for (List<int[]> p : all) {
-          boolean inNode = node.holds(p, poolIndex, OFFSETS);
+          boolean inNode = node.holds(p, poolIndex, OFFSETS, ACCEPTS);
           int in = 0;
           for (TreeNode k : kids) {
-            in += k.holds(p, poolIndex, OFFSETS) ? 1 : 0;
+            in += k.holds(p, poolIndex, OFFSETS, ACCEPTS) ? 1 : 0;
           }
           assertEquals(inNode ? 1 : 0, in, "seed " + seed + ": a portfolio of the node in " + in + " children");
         }
@@ -84,7 +99,7 @@ class VariantBranchingTest {
 
   private static VariantBranching.Decision randomDecision(TreeNode node, Random rnd) {
     if (rnd.nextBoolean()) {
-      int choice = rnd.nextInt(6) - 1; // −1 is the total
+      int choice = rnd.nextInt(8) - 3; // −1 is the total, −2 and −3 the counts of segments 0 and 1
       return VariantBranching.Decision.count(choice, rnd.nextInt(4));
     }
     List<Integer> free = new ArrayList<>();
@@ -105,6 +120,26 @@ class VariantBranchingTest {
 
   private static int[] choicesOf(int i) {
     return variants().get(i);
+  }
+
+  @Test
+  void aFractionalSegmentCountComesBeforeTheTotal() {
+    // y = (0.5, 0.5, 0.7) on variants (a0,b0), (a0,b1), (a1,b0): segment 0 accepts all three (1.7),
+    // segment 1 the first and the third (1.2) → segment 0 is the most fractional: at most 1 / at least 2
+    VariantBranching.Decision d = VariantBranching.choose(TreeNode.root(0), new double[] {0.5, 0.5, 0.7},
+        VariantBranchingTest::choicesOf, VariantBranchingTest::segmentsOf, 2, OFFSETS, 5);
+    assertNotNull(d);
+    assertTrue(d.onCount());
+    assertEquals(TreeNode.segmentKey(0), d.choice());
+    assertEquals(1, d.floor());
+    // once segment 0's count is decided (its range excludes the split), segment 1 at 1.2 is next
+    TreeNode atMostOne = VariantBranching.children(TreeNode.root(0), d, 0).get(0);
+    TreeNode both = VariantBranching.children(atMostOne, VariantBranching.Decision.count(TreeNode.segmentKey(0), 0),
+        0).get(1);
+    d = VariantBranching.choose(both, new double[] {0.5, 0.5, 0.7}, VariantBranchingTest::choicesOf,
+        VariantBranchingTest::segmentsOf, 2, OFFSETS, 5);
+    assertEquals(TreeNode.segmentKey(1), d.choice());
+    assertEquals(1, d.floor());
   }
 
   @Test

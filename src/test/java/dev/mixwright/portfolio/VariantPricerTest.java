@@ -30,64 +30,95 @@ class VariantPricerTest {
   @Test
   void kBestAboveThresholdOutsideTheExcludedSet() {
     for (int i = 0; i < 250; i++) {
-      Random rnd = new Random(500 + i);
-      Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(5), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
-          rnd.nextInt(10), true);
-      VariantSpace space = new VariantSpace(c);
-      PortfolioTerms t = PortfolioTerms.of(space);
-      double[] pi = new double[space.resourceCount()];
-      for (int r = 0; r < pi.length; r++) {
-        pi[r] = rnd.nextDouble() < 0.4 ? 0 : rnd.nextDouble() * 8;
+      kBest(i, new Random(500 + i), false);
+    }
+  }
+
+  /**
+   * Charges and bonuses per accepting segment (a tree node's segment counts): the pricer takes a
+   * charge only where acceptance is certain and a bonus while a segment may still accept, so its
+   * bounds stay optimistic; the k best and the rest bound must still match brute force.
+   */
+  @Test
+  void acceptanceChargesAndBonusesMatchBruteForce() {
+    for (int i = 0; i < 250; i++) {
+      kBest(i, new Random(7000 + i), true);
+    }
+  }
+
+  private static double[] randomAccept(Random rnd, int segments) {
+    double[] accept = new double[segments];
+    for (int s = 0; s < segments; s++) {
+      double u = rnd.nextDouble();
+      accept[s] = u < 0.3 ? 0 : u < 0.65 ? rnd.nextInt(40_000) : -rnd.nextInt(40_000);
+    }
+    return accept;
+  }
+
+  private static void kBest(int i, Random rnd, boolean withAccept) {
+    Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(5), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
+        rnd.nextInt(10), true);
+    if (withAccept) {
+      c = StageRuns.withMasks(c, rnd);
+    }
+    VariantSpace space = new VariantSpace(c);
+    PortfolioTerms t = PortfolioTerms.of(space);
+    double[] pi = new double[space.resourceCount()];
+    for (int r = 0; r < pi.length; r++) {
+      pi[r] = rnd.nextDouble() < 0.4 ? 0 : rnd.nextDouble() * 8;
+    }
+    double[] mu = new double[space.segmentCount()];
+    for (int s = 0; s < mu.length; s++) {
+      mu[s] = rnd.nextDouble() < 0.5 ? 0 : rnd.nextDouble() * 20;
+    }
+    double charge = rnd.nextInt(300);
+    double[] penalty = null;
+    if (rnd.nextBoolean()) {
+      penalty = new double[space.totalChoices()];
+      for (int f = 0; f < penalty.length; f++) {
+        penalty[f] = rnd.nextDouble() < 0.3 ? rnd.nextInt(200) : 0;
       }
-      double[] mu = new double[space.segmentCount()];
-      for (int s = 0; s < mu.length; s++) {
-        mu[s] = rnd.nextDouble() < 0.5 ? 0 : rnd.nextDouble() * 20;
+    }
+    double[] accept = withAccept ? randomAccept(rnd, space.segmentCount()) : null;
+    List<Scored> all = new ArrayList<>();
+    for (int[] v : BruteVariants.all(space)) {
+      all.add(new Scored(v, BruteVariants.value(space, t, v, pi, mu, charge, penalty, accept)));
+    }
+    all.sort(Comparator.comparingDouble(Scored::value).reversed());
+    Set<VariantKey> excluded = new HashSet<>();
+    for (Scored sc : all) {
+      if (rnd.nextDouble() < 0.2) {
+        excluded.add(space.key(sc.v()));
       }
-      double charge = rnd.nextInt(300);
-      double[] penalty = null;
-      if (rnd.nextBoolean()) {
-        penalty = new double[space.totalChoices()];
-        for (int f = 0; f < penalty.length; f++) {
-          penalty[f] = rnd.nextDouble() < 0.3 ? rnd.nextInt(200) : 0;
-        }
-      }
-      List<Scored> all = new ArrayList<>();
-      for (int[] v : BruteVariants.all(space)) {
-        all.add(new Scored(v, BruteVariants.value(space, t, v, pi, mu, charge, penalty)));
-      }
-      all.sort(Comparator.comparingDouble(Scored::value).reversed());
-      Set<VariantKey> excluded = new HashSet<>();
-      for (Scored sc : all) {
-        if (rnd.nextDouble() < 0.2) {
-          excluded.add(space.key(sc.v()));
-        }
-      }
-      int k = 1 + rnd.nextInt(6);
-      double threshold = rnd.nextBoolean() ? Double.NEGATIVE_INFINITY
-          : all.isEmpty() ? 0 : all.get(rnd.nextInt(all.size())).value() - 1;
-      PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
-          new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0));
-      assertTrue(out.exact());
-      List<Scored> want = all.stream()
-          .filter(sc -> !excluded.contains(space.key(sc.v())) && sc.value() > threshold)
-          .limit(k).toList();
-      String where = "case " + i;
-      assertEquals(want.size(), out.found().size(), where);
-      Set<VariantKey> seen = new HashSet<>();
-      for (int j = 0; j < want.size(); j++) {
-        PricedVariant got = out.found().get(j);
-        assertEquals(want.get(j).value(), got.reducedCost(), tol(got.reducedCost()), where);
-        double direct = BruteVariants.value(space, t, got.choices(), pi, mu, charge, penalty);
-        assertEquals(direct, got.reducedCost(), tol(direct), where);
-        assertTrue(space.isBuildable(got.choices()), where);
-        assertFalse(excluded.contains(space.key(got.choices())), where);
-        assertTrue(seen.add(space.key(got.choices())), where);
-      }
-      for (Scored sc : all) {
-        VariantKey key = space.key(sc.v());
-        if (!excluded.contains(key) && !seen.contains(key)) {
-          assertTrue(sc.value() <= out.restBound() + tol(sc.value()), where + ": rest bound");
-        }
+    }
+    int k = 1 + rnd.nextInt(6);
+    double threshold = rnd.nextBoolean() ? Double.NEGATIVE_INFINITY
+        : all.isEmpty() ? 0 : all.get(rnd.nextInt(all.size())).value() - 1;
+    PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
+        new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept));
+    assertTrue(out.exact());
+    List<Scored> want = all.stream()
+        .filter(sc -> !excluded.contains(space.key(sc.v())) && sc.value() > threshold)
+        .limit(k).toList();
+    String where = "case " + i + (withAccept ? " with acceptance charges" : "");
+    assertEquals(want.size(), out.found().size(), where);
+    Set<VariantKey> seen = new HashSet<>();
+    for (int j = 0; j < want.size(); j++) {
+      PricedVariant got = out.found().get(j);
+      assertEquals(want.get(j).value(), got.reducedCost(), tol(got.reducedCost()), where);
+      double direct = BruteVariants.value(space, t, got.choices(), pi, mu, charge, penalty, accept);
+      assertEquals(direct, got.reducedCost(), tol(direct), where);
+      double own = VariantPricer.value(space, t, got.choices(),
+          new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept));
+      assertEquals(direct, own, tol(direct), where);
+      assertTrue(space.isBuildable(got.choices()), where);
+      assertFalse(excluded.contains(space.key(got.choices())), where);
+      assertTrue(seen.add(space.key(got.choices())), where);
+    }
+    for (Scored sc : all) {
+      VariantKey key = space.key(sc.v());
+      if (!excluded.contains(key) && !seen.contains(key)) {
+        assertTrue(sc.value() <= out.restBound() + tol(sc.value()), where + ": rest bound");
       }
     }
   }
@@ -105,15 +136,16 @@ class VariantPricerTest {
         pi[r] = rnd.nextDouble() * 5;
       }
       double[] mu = new double[space.segmentCount()];
+      double[] accept = i % 2 == 1 ? randomAccept(rnd, space.segmentCount()) : null;
       PricingOutcome out = new VariantPricer(space, t, 1 + rnd.nextInt(12)).price(
-          new VariantQuery(pi, mu, 0, null, Double.NEGATIVE_INFINITY, 3, Set.of(), 0));
+          new VariantQuery(pi, mu, 0, null, Double.NEGATIVE_INFINITY, 3, Set.of(), 0).withAcceptCharge(accept));
       if (!out.exact()) {
         stopped++;
       }
       Set<VariantKey> found = new HashSet<>();
       out.found().forEach(f -> found.add(space.key(f.choices())));
       for (int[] v : BruteVariants.all(space)) {
-        double x = BruteVariants.value(space, t, v, pi, mu, 0, null);
+        double x = BruteVariants.value(space, t, v, pi, mu, 0, null, accept);
         if (!found.contains(space.key(v))) {
           assertTrue(x <= out.restBound() + tol(x), "case " + i);
         }
