@@ -22,6 +22,8 @@ public final class VariantNames {
 
   private final VariantCodes codes;
   private final Catalog catalog;
+  /** Built at the first variant the run does not hold: most uses name only coded variants. */
+  private NearestVariant nearest;
 
   private VariantNames(VariantCodes codes, Catalog catalog) {
     this.codes = codes;
@@ -79,26 +81,23 @@ public final class VariantNames {
 
   /**
    * A short name: the code when the run holds the variant, else {@code V04 but X, Y} with the
-   * nearest coded variant (fewest groups that differ; the lower code on a tie) and the texts of the
-   * choices that differ; the labels of every choice when the run has no coded variant.
+   * nearest coded variant (fewest groups that differ; the lower code on a tie, found by
+   * {@link NearestVariant}) and the texts of the choices that differ; the labels of every choice when
+   * the run has no coded variant.
    */
   public String shortName(Map<String, String> options) {
     String own = codes.code(options);
     if (own != null) {
       return own;
     }
-    int best = -1;
-    List<String> bestDiff = null;
-    for (int i = 0; i < codes.size(); i++) {
-      List<String> diff = differences(options, codes.variants().get(i));
-      if (best < 0 || diff.size() < bestDiff.size()) {
-        best = i;
-        bestDiff = diff;
-      }
+    if (nearest == null) {
+      nearest = new NearestVariant(codes.variants());
     }
+    int best = nearest.nearest(options);
     if (best < 0) {
       return labels(options);
     }
+    List<String> bestDiff = differences(options, codes.variants().get(best));
     List<String> shown = bestDiff.subList(0, Math.min(DIFFERENCES_SHOWN, bestDiff.size()));
     int more = bestDiff.size() - shown.size();
     return codes.codeAt(best) + " but " + String.join(", ", shown) + (more > 0 ? " and " + more + " more" : "");
