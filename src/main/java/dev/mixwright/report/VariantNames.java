@@ -14,7 +14,8 @@ import java.util.Set;
  * holds (the same code the summary, report and export print, since all read it from
  * {@link VariantCodes#of}), and for any other variant its nearest coded variant and the options in
  * which it differs ({@code V04 but 12 kW, Zone controller}), so that a log of many columns reads on
- * a narrow terminal. Labels come from the catalog where it gives them.
+ * a narrow terminal. Labels come from the catalog where it gives them; an option without one is
+ * named in the catalog's id form, group and option ({@code V04 but g03=o8}).
  */
 public final class VariantNames {
   /** Differences named one by one in a short name; more are counted. */
@@ -82,8 +83,8 @@ public final class VariantNames {
   /**
    * A short name: the code when the run holds the variant, else {@code V04 but X, Y} with the
    * nearest coded variant (fewest groups that differ; the lower code on a tie, found by
-   * {@link NearestVariant}) and the texts of the choices that differ; the labels of every choice when
-   * the run has no coded variant.
+   * {@link NearestVariant}) and the choices that differ (label, else {@code group=option}); the
+   * labels of every choice when the run has no coded variant.
    */
   public String shortName(Map<String, String> options) {
     String own = codes.code(options);
@@ -111,8 +112,10 @@ public final class VariantNames {
     for (String g : groups) {
       String mine = options.getOrDefault(g, Group.NONE);
       if (!mine.equals(than.getOrDefault(g, Group.NONE))) {
+        String label = MatrixView.choiceLabel(catalog, g, mine);
+        // an option id alone ("o8") does not say its group when every group numbers its options alike
         out.add(mine.equals(Group.NONE) ? "no " + MatrixView.groupHead(catalog, g)
-            : MatrixView.choiceText(catalog, g, mine));
+            : label != null ? label : VariantCodes.key(Map.of(g, mine)));
       }
     }
     return out;
