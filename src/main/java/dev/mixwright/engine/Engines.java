@@ -27,6 +27,14 @@ public final class Engines {
     return Optional.empty();
   }
 
+  /**
+   * Whether an engine of that name (case does not matter) is on the class path, without making one:
+   * the built-in one is known by name, others by the names their service providers give.
+   */
+  public static boolean exists(String name) {
+    return names().contains(name.toLowerCase(Locale.ROOT));
+  }
+
   /** The names of every engine on the class path, the built-in one first. */
   public static List<String> names() {
     List<String> out = new ArrayList<>(List.of(LOCAL));

@@ -62,7 +62,15 @@ public final class RestrictedMaster implements AutoCloseable {
   private final double[] demand;
   /** Per column its GLOP variable, null for a column of a choosing segment. */
   private final List<MPVariable> vars = new ArrayList<>();
-  private double[][] useOf = new double[64][];
+  /**
+   * Where column j's resource use lies: at {@code slotOf[j] * rows} in {@code memberUse[s]} for a
+   * column of choosing segment s, else in {@code fixedUse}. One flat copy per column, no array of its
+   * own: a choosing run holds hundreds of thousands of columns, and a second copy plus an array header
+   * per column took about 140 MB of a 512 MB heap at 400,000 columns.
+   */
+  private int[] slotOf = new int[64];
+  private double[] fixedUse = new double[0];
+  private int fixedCount;
   private int[] segmentOf = new int[64];
   private double[] marginOf = new double[64];
   private final boolean[] chooses;
@@ -144,7 +152,12 @@ public final class RestrictedMaster implements AutoCloseable {
     }
     int j = vars.size();
     vars.add(rows.addSales("x" + j, upper, segment, margin, use));
-    record(segment, margin, use, Double.NaN);
+    record(segment, margin, fixedCount, Double.NaN);
+    if ((fixedCount + 1) * capacity.length > fixedUse.length) {
+      fixedUse = Arrays.copyOf(fixedUse, grown(fixedCount) * capacity.length);
+    }
+    System.arraycopy(use, 0, fixedUse, fixedCount * capacity.length, capacity.length);
+    fixedCount++;
     return j;
   }
 
@@ -166,11 +179,11 @@ public final class RestrictedMaster implements AutoCloseable {
     }
     int j = vars.size();
     vars.add(null);
-    record(segment, margin, use, attraction);
     int[] m = members.get(segment);
     int i = memberCount[segment];
+    record(segment, margin, i, attraction);
     if (i == m.length) {
-      m = Arrays.copyOf(m, 2 * m.length);
+      m = Arrays.copyOf(m, grown(m.length));
       members.set(segment, m);
       memberMargin[segment] = Arrays.copyOf(memberMargin[segment], m.length);
       memberW[segment] = Arrays.copyOf(memberW[segment], m.length);
@@ -185,19 +198,34 @@ public final class RestrictedMaster implements AutoCloseable {
     return j;
   }
 
-  private void record(int segment, double margin, double[] use, double w) {
+  /** A length that grows by half, not double: at the largest sizes the old and new arrays are alive together. */
+  private static int grown(int length) {
+    return Math.max(64, length + (length >> 1));
+  }
+
+  private void record(int segment, double margin, int slot, double w) {
     int j = vars.size() - 1;
     if (j == marginOf.length) {
-      int cap = 2 * j;
-      useOf = Arrays.copyOf(useOf, cap);
+      int cap = grown(j);
+      slotOf = Arrays.copyOf(slotOf, cap);
       segmentOf = Arrays.copyOf(segmentOf, cap);
       marginOf = Arrays.copyOf(marginOf, cap);
       attractionOf = Arrays.copyOf(attractionOf, cap);
     }
-    useOf[j] = use.clone();
+    slotOf[j] = slot;
     segmentOf[j] = segment;
     marginOf[j] = margin;
     attractionOf[j] = w;
+  }
+
+  /** The array holding column j's use, from {@link #useStart(int)} on for as many entries as rows. */
+  private double[] useStore(int j) {
+    int s = segmentOf[j];
+    return s >= 0 && chooses[s] ? memberUse[s] : fixedUse;
+  }
+
+  private int useStart(int j) {
+    return slotOf[j] * capacity.length;
   }
 
   /** Changes the bounds of a fixed segment's column ({@code 0, 0} retires it without removing it). */
@@ -389,9 +417,10 @@ public final class RestrictedMaster implements AutoCloseable {
     for (int j : set) {
       double share = demand[s] * attractionOf[j] / (1 + sw);
       margin += share * marginOf[j];
-      double[] a = useOf[j];
-      for (int r = 0; r < a.length; r++) {
-        use[r] += share * a[r];
+      double[] a = useStore(j);
+      int at = useStart(j);
+      for (int r = 0; r < use.length; r++) {
+        use[r] += share * a[at + r];
       }
     }
     List<MPVariable> l = offerVars.get(s);
@@ -452,9 +481,10 @@ public final class RestrictedMaster implements AutoCloseable {
       for (int i = 0; i < memberCount[s]; i++) {
         int j = members.get(s)[i];
         double r = marginOf[j];
-        double[] a = useOf[j];
-        for (int k = 0; k < a.length; k++) {
-          r -= pi[k] * a[k];
+        double[] a = memberUse[s];
+        int at = i * capacity.length;
+        for (int k = 0; k < capacity.length; k++) {
+          r -= pi[k] * a[at + k];
         }
         beta[j] = Math.max(0.0, r - mu[s]);
         rc[j] = Math.min(0.0, r - mu[s]);
@@ -484,9 +514,10 @@ public final class RestrictedMaster implements AutoCloseable {
       if (x[j] < lb - tol || x[j] > ub + tol) {
         return false;
       }
-      double[] a = useOf[j];
-      for (int r = 0; r < a.length; r++) {
-        rowUse[r] += a[r] * x[j];
+      double[] a = useStore(j);
+      int at = useStart(j);
+      for (int r = 0; r < rowUse.length; r++) {
+        rowUse[r] += a[at + r] * x[j];
       }
       int s = segmentOf[j];
       if (s >= 0) {

@@ -325,12 +325,18 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
 
   /** The option's label (with its price point, {@code 12 kW @5300}), or the choice id. */
   public static String choiceText(Catalog catalog, String groupId, String choice) {
+    String label = choiceLabel(catalog, groupId, choice);
+    return label == null ? choice : label;
+  }
+
+  /** The option's label with its price point ({@code 12 kW @5300}), or null when the catalog gives it none. */
+  public static String choiceLabel(Catalog catalog, String groupId, String choice) {
     if (catalog == null) {
-      return choice;
+      return null;
     }
     int g = catalog.groupIndex(groupId);
     if (g < 0) {
-      return choice;
+      return null;
     }
     int at = choice.indexOf(Option.PRICE_MARK);
     String optionId = at < 0 ? choice : choice.substring(0, at);
@@ -340,7 +346,7 @@ public record MatrixView(List<Shared> shared, List<GroupColumn> groups, List<Str
         return at < 0 ? o.label() : o.label() + " " + choice.substring(at);
       }
     }
-    return choice;
+    return null;
   }
 
   private static boolean hasText(String s) {

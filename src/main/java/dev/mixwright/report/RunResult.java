@@ -246,6 +246,9 @@ public record RunResult(
       .disable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
       .build();
   private static final ObjectReader READER = MAPPER.readerFor(RunResult.class);
+  /** The mapper's writer that leaves the stream it writes to open (the checksum follows). */
+  private static final com.fasterxml.jackson.databind.ObjectWriter STREAM_WRITER = MAPPER.writer()
+      .without(com.fasterxml.jackson.core.JsonGenerator.Feature.AUTO_CLOSE_TARGET);
 
   public String toJson() {
     try {
@@ -282,8 +285,12 @@ public record RunResult(
     return parse(new RunFolder(runDir).readSealed(ResultWriter.FILE), f.toString());
   }
 
-  /** Writes result.json atomically, its checksum as the last field. */
+  /**
+   * Writes result.json atomically, its checksum as the last field: the bytes of {@link #toJson()}
+   * sealed, streamed to the file rather than built as one string.
+   */
   public void write(Path runDir) throws IOException {
-    AtomicFiles.write(runDir.resolve(ResultWriter.FILE), SealedJson.seal(toJson()));
+    AtomicFiles.write(runDir.resolve(ResultWriter.FILE),
+        out -> SealedJson.write(out, body -> STREAM_WRITER.writeValue(body, this)));
   }
 }

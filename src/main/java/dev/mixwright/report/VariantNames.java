@@ -14,7 +14,8 @@ import java.util.Set;
  * holds (the same code the summary, report and export print, since all read it from
  * {@link VariantCodes#of}), and for any other variant its nearest coded variant and the options in
  * which it differs ({@code V04 but 12 kW, Zone controller}), so that a log of many columns reads on
- * a narrow terminal. Labels come from the catalog where it gives them.
+ * a narrow terminal. Labels come from the catalog where it gives them; an option without one is
+ * named in the catalog's id form, group and option ({@code V04 but g03=o8}).
  */
 public final class VariantNames {
   /** Differences named one by one in a short name; more are counted. */
@@ -22,6 +23,8 @@ public final class VariantNames {
 
   private final VariantCodes codes;
   private final Catalog catalog;
+  /** Built at the first variant the run does not hold: most uses name only coded variants. */
+  private NearestVariant nearest;
 
   private VariantNames(VariantCodes codes, Catalog catalog) {
     this.codes = codes;
@@ -79,26 +82,23 @@ public final class VariantNames {
 
   /**
    * A short name: the code when the run holds the variant, else {@code V04 but X, Y} with the
-   * nearest coded variant (fewest groups that differ; the lower code on a tie) and the texts of the
-   * choices that differ; the labels of every choice when the run has no coded variant.
+   * nearest coded variant (fewest groups that differ; the lower code on a tie, found by
+   * {@link NearestVariant}) and the choices that differ (label, else {@code group=option}); the
+   * labels of every choice when the run has no coded variant.
    */
   public String shortName(Map<String, String> options) {
     String own = codes.code(options);
     if (own != null) {
       return own;
     }
-    int best = -1;
-    List<String> bestDiff = null;
-    for (int i = 0; i < codes.size(); i++) {
-      List<String> diff = differences(options, codes.variants().get(i));
-      if (best < 0 || diff.size() < bestDiff.size()) {
-        best = i;
-        bestDiff = diff;
-      }
+    if (nearest == null) {
+      nearest = new NearestVariant(codes.variants());
     }
+    int best = nearest.nearest(options);
     if (best < 0) {
       return labels(options);
     }
+    List<String> bestDiff = differences(options, codes.variants().get(best));
     List<String> shown = bestDiff.subList(0, Math.min(DIFFERENCES_SHOWN, bestDiff.size()));
     int more = bestDiff.size() - shown.size();
     return codes.codeAt(best) + " but " + String.join(", ", shown) + (more > 0 ? " and " + more + " more" : "");
@@ -112,8 +112,10 @@ public final class VariantNames {
     for (String g : groups) {
       String mine = options.getOrDefault(g, Group.NONE);
       if (!mine.equals(than.getOrDefault(g, Group.NONE))) {
+        String label = MatrixView.choiceLabel(catalog, g, mine);
+        // an option id alone ("o8") does not say its group when every group numbers its options alike
         out.add(mine.equals(Group.NONE) ? "no " + MatrixView.groupHead(catalog, g)
-            : MatrixView.choiceText(catalog, g, mine));
+            : label != null ? label : VariantCodes.key(Map.of(g, mine)));
       }
     }
     return out;

@@ -49,7 +49,7 @@ final class ScenarioSetStep {
       throw new InputError("--scenario-set chooses one range across the scenarios, so the catalog needs a portfolio"
           + " section (introductionCost, maxVariants, minLot); add one");
     }
-    SweepRun.engine(plan.engine()); // an engine not on the class path is refused before anything is solved
+    SweepRun.requireEngine(plan.engine()); // an engine not on the class path is refused before anything is solved
     ScenarioSet set = read(plan.file(), catalog, "--scenario-set");
     List<Catalog> cats = catalogs(set, catalog, plan.file());
     Optional<ScenarioSet> hold = plan.holdOut().map(f -> read(f, catalog, "--hold-out"));

@@ -148,10 +148,21 @@ public final class SweepRun {
 
   /** The engine a person asked for; one that is not on the class path is bad input. */
   static Engine engine(String name) {
-    return Engines.find(name).orElseThrow(() -> new InputError("no engine named '" + name + "' in this program"
+    return Engines.find(name).orElseThrow(() -> unknownEngine(name));
+  }
+
+  /** Refuses, before anything is solved, an engine that is not on the class path; makes none. */
+  static void requireEngine(String name) {
+    if (!Engines.exists(name)) {
+      throw unknownEngine(name);
+    }
+  }
+
+  private static InputError unknownEngine(String name) {
+    return new InputError("no engine named '" + name + "' in this program"
         + " (it has " + String.join(", ", Engines.names()) + ")"
         + (name.equalsIgnoreCase("spark") ? "; the Spark engine runs in the jar of the spark module through"
-            + " spark-submit (README, 'Sweeps on Spark')" : "") + "; leave out --engine to use this machine's threads"));
+            + " spark-submit (README, 'Sweeps on Spark')" : "") + "; leave out --engine to use this machine's threads");
   }
 
   /**

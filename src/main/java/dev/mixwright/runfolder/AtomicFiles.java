@@ -1,7 +1,9 @@
 package dev.mixwright.runfolder;
 
+import java.io.BufferedOutputStream;
 import java.io.IOException;
-import java.nio.ByteBuffer;
+import java.io.OutputStream;
+import java.nio.channels.Channels;
 import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
@@ -32,6 +34,34 @@ public final class AtomicFiles {
    * handed on (exports).
    */
   public static void write(Path target, byte[] bytes, boolean shared) throws IOException {
+    write(target, shared, out -> {
+      out.write(bytes, 0, bytes.length / 2);
+      out.flush();
+      WriteFaults.check(target); // a full disk fails here, half-way
+      out.write(bytes, bytes.length / 2, bytes.length - bytes.length / 2);
+    });
+  }
+
+  /** What a streamed file holds, written to the stream it is given (which it must not close). */
+  @FunctionalInterface
+  public interface Content {
+    void writeTo(OutputStream out) throws IOException;
+  }
+
+  /**
+   * As {@link #write(Path, byte[])}, the content streamed instead of held whole in memory: a result of
+   * hundreds of thousands of offers is over 100 MB of text, more than a 512 MB heap holds beside the
+   * run as a string.
+   */
+  public static void write(Path target, Content content) throws IOException {
+    write(target, false, out -> {
+      content.writeTo(out);
+      out.flush();
+      WriteFaults.check(target); // a full disk fails here, at the end
+    });
+  }
+
+  private static void write(Path target, boolean shared, Content content) throws IOException {
     Path dir = target.toAbsolutePath().getParent();
     Files.createDirectories(dir);
     if (Files.isSymbolicLink(target)) {
@@ -48,15 +78,9 @@ public final class AtomicFiles {
           : Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
       try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING,
           LinkOption.NOFOLLOW_LINKS)) {
-        ByteBuffer buf = ByteBuffer.wrap(bytes, 0, bytes.length / 2);
-        while (buf.hasRemaining()) {
-          ch.write(buf);
-        }
-        WriteFaults.check(target); // a full disk fails here, half-way
-        buf = ByteBuffer.wrap(bytes, bytes.length / 2, bytes.length - bytes.length / 2);
-        while (buf.hasRemaining()) {
-          ch.write(buf);
-        }
+        OutputStream out = new BufferedOutputStream(Channels.newOutputStream(ch), 1 << 16);
+        content.writeTo(out);
+        out.flush();
         ch.force(true);
       }
       try {

@@ -1,6 +1,10 @@
 package dev.mixwright.runfolder;
 
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
+import java.util.zip.CRC32C;
 
 /**
  * The checksum of the JSON files of a run folder ({@code run.json}, {@code state.json}, {@code
@@ -25,6 +29,94 @@ public final class SealedJson {
     }
     String body = t.substring(0, t.length() - 1).stripTrailing();
     return body + MARK + Checksums.crc(body) + END;
+  }
+
+  /**
+   * Streams what {@code json} writes (one pretty-printed object) to {@code out} with its checksum as
+   * its last field: the same bytes as {@link #seal} of the whole text, without holding the text.
+   * The object's closing brace and the blanks around it are held back until the end, so that the
+   * checksum covers exactly the body that {@link #seal} keeps.
+   */
+  public static void write(OutputStream out, AtomicFiles.Content json) throws IOException {
+    Body body = new Body(out);
+    json.writeTo(body);
+    body.seal();
+  }
+
+  /** The body of a sealed object on its way out: checksummed as it goes, its tail of blanks and braces held back. */
+  private static final class Body extends OutputStream {
+    private final OutputStream out;
+    private final CRC32C crc = new CRC32C();
+    private final ByteArrayOutputStream held = new ByteArrayOutputStream();
+
+    Body(OutputStream out) {
+      this.out = out;
+    }
+
+    @Override
+    public void write(int b) throws IOException {
+      if (isTail((byte) b)) {
+        held.write(b);
+        return;
+      }
+      if (held.size() > 0) {
+        pass(held.toByteArray(), held.size());
+        held.reset();
+      }
+      out.write(b);
+      crc.update(b);
+    }
+
+    @Override
+    public void write(byte[] b, int off, int len) throws IOException {
+      // the tail is short (blanks and the closing braces of nested objects): bytes before the last
+      // plain byte go through in one piece
+      int last = off + len - 1;
+      while (last >= off && isTail(b[last])) {
+        last--;
+      }
+      if (last < off) {
+        held.write(b, off, len);
+        return;
+      }
+      if (held.size() > 0) {
+        pass(held.toByteArray(), held.size());
+        held.reset();
+      }
+      out.write(b, off, last + 1 - off);
+      crc.update(b, off, last + 1 - off);
+      held.write(b, last + 1, off + len - last - 1);
+    }
+
+    private static boolean isTail(byte b) {
+      return b == '}' || b == ' ' || b == '\n' || b == '\r' || b == '\t';
+    }
+
+    private void pass(byte[] b, int len) throws IOException {
+      out.write(b, 0, len);
+      crc.update(b, 0, len);
+    }
+
+    @Override
+    public void flush() throws IOException {
+      out.flush(); // the held tail stays held: it may be the object's end
+    }
+
+    @Override
+    public void close() {
+      // the caller's stream stays open for the checksum
+    }
+
+    /** Writes the tail without the object's closing brace and the blanks around it, then the checksum field. */
+    void seal() throws IOException {
+      String tail = held.toString(StandardCharsets.UTF_8).stripTrailing();
+      if (!tail.endsWith("}")) {
+        throw new IllegalArgumentException("not one JSON object");
+      }
+      byte[] keep = tail.substring(0, tail.length() - 1).stripTrailing().getBytes(StandardCharsets.UTF_8);
+      pass(keep, keep.length);
+      out.write((MARK + String.format("%08x", crc.getValue()) + END).getBytes(StandardCharsets.UTF_8));
+    }
   }
 
   /** Whether the text carries a checksum field at its end (whole or not). */

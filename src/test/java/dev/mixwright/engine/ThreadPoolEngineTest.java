@@ -1,6 +1,7 @@
 package dev.mixwright.engine;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -85,5 +86,7 @@ class ThreadPoolEngineTest {
     // This module's class path has no other engine; the spark module's tests find its engine.
     assertTrue(Engines.find("spark").isEmpty());
     assertEquals(List.of(Engines.LOCAL), Engines.names());
+    assertTrue(Engines.exists("Local"));
+    assertFalse(Engines.exists("spark"));
   }
 }

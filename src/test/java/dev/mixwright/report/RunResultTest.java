@@ -92,4 +92,14 @@ class RunResultTest {
       assertTrue(!json.contains(absent), absent + " in " + json);
     }
   }
+
+  /** The file write() streams is the text toJson() gives, sealed: the form every reader of a run folder checks. */
+  @Test
+  void theStreamedFileIsTheSealedText(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir) throws Exception {
+    RunResult r = RunResult.parse(STOPPED, "result.json");
+    r.write(dir);
+    String file = java.nio.file.Files.readString(dir.resolve(ResultWriter.FILE));
+    assertEquals(dev.mixwright.runfolder.SealedJson.seal(r.toJson()), file);
+    assertEquals(STOPPED, RunResult.read(dir).toJson());
+  }
 }
