@@ -6,7 +6,9 @@ public enum LpStatus {
   INFEASIBLE,
   UNBOUNDED,
   /** The solver gave up or returned something that failed verification. */
-  FAILED;
+  FAILED,
+  /** The time it was given ran out before it finished. */
+  STOPPED;
 
   public boolean isOptimal() {
     return this == OPTIMAL;

@@ -28,6 +28,7 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   private static final double FEASIBILITY_TOLERANCE = Rows.FEASIBILITY_TOLERANCE;
 
   private final Rows rows;
+  private long deadlineNanos;
   private final double[] capacity;
   private final double[] demand;
   private final int limit;
@@ -203,9 +204,28 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
     return blocks.size();
   }
 
+  /**
+   * Solves end by this {@link System#nanoTime()} deadline (0: none): GLOP gets the time left, and a
+   * solve cut off there ends {@link LpStatus#STOPPED}. A master of thousands of variants with
+   * segments that choose took 45 s for one solve, past a stage's whole time limit.
+   */
+  public void stopAt(long deadlineNanos) {
+    this.deadlineNanos = deadlineNanos;
+  }
+
   /** Solves and verifies the point against every row; duals only when optimal. */
   public PortfolioLpSolution solve() {
+    if (deadlineNanos != 0) {
+      long ms = (deadlineNanos - System.nanoTime()) / 1_000_000;
+      if (ms <= 0) {
+        return PortfolioLpSolution.failed(LpStatus.STOPPED);
+      }
+      rows.solver.setTimeLimit(ms);
+    }
     LpStatus status = Rows.lpStatus(rows.solver.solve());
+    if (!status.isOptimal() && deadlineNanos != 0 && System.nanoTime() >= deadlineNanos) {
+      return PortfolioLpSolution.failed(LpStatus.STOPPED);
+    }
     if (!status.isOptimal()) {
       return PortfolioLpSolution.failed(status);
     }

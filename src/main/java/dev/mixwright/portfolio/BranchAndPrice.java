@@ -291,6 +291,8 @@ final class BranchAndPrice {
 
     private PortfolioLp choosing(PortfolioLp fresh) {
       pool.choice().enter(fresh);
+      // a node's solve must not outlast the stage: GLOP gets the time left, and a node cut off is parked
+      fresh.stopAt(deadlineNanos);
       return fresh;
     }
 

@@ -60,4 +60,28 @@ class PortfolioLpContractTest extends EnumeratedLpContract {
       check(f, solve(f, true));
     });
   }
+
+  /**
+   * A deadline already past ends a solve at once as STOPPED, without an answer; a deadline far ahead
+   * changes nothing.
+   */
+  @Test
+  void aSolveEndsByItsDeadline() {
+    Cases.each(10, (seed, rnd) -> {
+      Fixture f = fixture(seed);
+      List<Block> blocks = blocks(f.columns());
+      try (PortfolioLp lp = new PortfolioLp(f.capacity(), f.demand(), Integer.MAX_VALUE)) {
+        for (Block b : blocks) {
+          lp.addVariant(b.segments(), b.margin(), b.use(), b.upper(), 0.0, 0.0);
+        }
+        lp.stopAt(System.nanoTime() - 1);
+        assertEquals(LpStatus.STOPPED, lp.solve().status());
+        lp.stopAt(System.nanoTime() + 600_000_000_000L);
+        PortfolioLpSolution sol = lp.solve();
+        assertEquals(LpStatus.OPTIMAL, sol.status());
+        check(f, solve(f, false));
+        assertEquals(solve(f, false).objective(), sol.objective(), REL * Math.max(1, Math.abs(sol.objective())));
+      }
+    });
+  }
 }
