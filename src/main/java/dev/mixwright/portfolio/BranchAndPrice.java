@@ -88,6 +88,8 @@ final class BranchAndPrice {
   /** The incumbent plus tolerance at each retirement: what a portfolio outside the proof set is worth at most. */
   private double retiredFloor = Double.NEGATIVE_INFINITY;
   private int retiredNodes;
+  /** The portfolios the nodes' rounding has valued (sorted pool indices), each once. */
+  private final Set<List<Integer>> rounded = new HashSet<>();
 
   /** Most variants outside a node's master that may survive at it for the node to retire. */
   private static final int RETIRE_LIMIT = 300;
@@ -708,8 +710,14 @@ final class BranchAndPrice {
       if (members.size() > terms.maxVariants()) {
         return;
       }
-      offer(FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray()),
-          "rounding at a node of the branch-and-price tree");
+      int[] set = members.stream().mapToInt(Integer::intValue).sorted().toArray();
+      synchronized (lock) {
+        // children of one parent often round to the same portfolio; its fixed-portfolio LP gives the same plan
+        if (!rounded.add(Arrays.stream(set).boxed().toList())) {
+          return;
+        }
+      }
+      offer(FixedPortfolio.solve(pool, terms, set), "rounding at a node of the branch-and-price tree");
     }
 
     /**
