@@ -10,8 +10,6 @@ import dev.mixwright.colgen.Column;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.Cases;
 import dev.mixwright.testing.EnumeratedMip;
-import dev.mixwright.testing.RandomCatalogs;
-import dev.mixwright.testing.RandomChoiceCatalogs;
 import java.util.concurrent.atomic.AtomicInteger;
 import org.junit.jupiter.api.Test;
 
@@ -31,11 +29,7 @@ class LeanNodeMastersTest {
     AtomicInteger byTree = new AtomicInteger();
     int runs = 20;
     Cases.each(runs, (seed, rnd) -> {
-      Catalog c = rnd.nextBoolean()
-          ? RandomCatalogs.random(rnd, 2 + rnd.nextInt(3), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3), rnd.nextInt(7),
-              true)
-          : StageRuns.withTerms(RandomChoiceCatalogs.tiny(seed, true), 100 + rnd.nextInt(1500), 1 + rnd.nextInt(3),
-              rnd.nextBoolean() ? 0 : 5 + rnd.nextInt(40));
+      Catalog c = StageRuns.fixedOrChoosing(seed, rnd);
       if (rnd.nextInt(3) == 0) {
         c = StageRuns.withTooling(c, rnd);
       }
@@ -76,11 +70,7 @@ class LeanNodeMastersTest {
     AtomicInteger closed = new AtomicInteger();
     int runs = 20;
     Cases.each(runs, (seed, rnd) -> {
-      Catalog c = rnd.nextBoolean()
-          ? RandomCatalogs.random(rnd, 2 + rnd.nextInt(3), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3), rnd.nextInt(7),
-              true)
-          : StageRuns.withTerms(RandomChoiceCatalogs.tiny(seed, true), 100 + rnd.nextInt(1500), 1 + rnd.nextInt(3),
-              rnd.nextBoolean() ? 0 : 5 + rnd.nextInt(40));
+      Catalog c = StageRuns.fixedOrChoosing(seed, rnd);
       VariantSpace space = new VariantSpace(c);
       PortfolioTerms terms = PortfolioTerms.of(space);
       SolveOutcome lp = StageRuns.lp(space);
