@@ -56,6 +56,10 @@ import java.util.concurrent.atomic.AtomicReference;
  */
 final class BranchAndPrice {
   private static final int BOUND_DEPTH = 64;
+  /** Rounds of a node priced on the pool alone before the exact pricer runs. */
+  private static final int CHEAP_ROUNDS = 5;
+  /** Most pool variants outside the master that enter it per round. */
+  private static final int POOL_PER_ROUND = 30;
 
   private final VariantSpace space;
   private final PortfolioTerms terms;
@@ -66,6 +70,7 @@ final class BranchAndPrice {
   private final long deadlineNanos;
   private final PortfolioListener listener;
   private final int cap;
+  private final NodeMasters masters;
 
   private final Object lock = new Object();
   private final PriorityQueue<TreeNode> open =
@@ -87,6 +92,8 @@ final class BranchAndPrice {
   private int retiredNodes;
   /** Nodes split on a segment's count ({@link VariantBranching}), for the tree's record. */
   private final java.util.concurrent.atomic.AtomicLong segmentSplits = new java.util.concurrent.atomic.AtomicLong();
+  /** The portfolios the nodes' rounding has valued (sorted pool indices), each once. */
+  private final Set<List<Integer>> rounded = new HashSet<>();
 
   /** Most variants outside a node's master that may survive at it for the node to retire. */
   private static final int RETIRE_LIMIT = 300;
@@ -102,9 +109,32 @@ final class BranchAndPrice {
   record Result(Plan incumbent, double bound, boolean closed, long nodes, int open, int workers, String reason,
       int[] proofSet, int retired, double floor, long segmentSplits) {}
 
+  /**
+   * What a worker's master keeps between nodes. {@code keepNodes}: how many of the worker's nodes a
+   * free variant may go unsold and stay; {@code deadSlack}: how many more dead blocks (barred at the
+   * node, or idle) than live ones the master carries before it is rebuilt; {@code seedWithPool}: the
+   * first master holds every free pool variant (otherwise only the offered ones). Any policy gives
+   * the same bounds: whatever the master leaves out is priced from the pool.
+   */
+  record NodeMasters(int keepNodes, int deadSlack, boolean seedWithPool) {
+    /**
+     * Measured on the range demo (CPU time per node, docs/portfolio.md): keeping the blocks that sold
+     * at the worker's last 10 nodes gave the fewest rounds per node for the size of the master.
+     */
+    static final NodeMasters DEFAULT = new NodeMasters(10, 100, true);
+    /** Every node rebuilds its master from its offered variants: what the tests use to exercise pool pricing. */
+    static final NodeMasters LEAN = new NodeMasters(0, 0, false);
+  }
+
   /** Runs within {@code phase} (its time limit and the outer signal), with {@code workers} threads. */
   BranchAndPrice(VariantSpace space, PortfolioTerms terms, Pool pool, PortfolioSettings settings, StageClock clock,
       StageClock.Phase phase, PortfolioListener listener, int workers) {
+    this(space, terms, pool, settings, clock, phase, listener, workers, NodeMasters.DEFAULT);
+  }
+
+  BranchAndPrice(VariantSpace space, PortfolioTerms terms, Pool pool, PortfolioSettings settings, StageClock clock,
+      StageClock.Phase phase, PortfolioListener listener, int workers, NodeMasters masters) {
+    this.masters = masters;
     this.space = space;
     this.terms = terms;
     this.pool = pool;
@@ -270,11 +300,33 @@ final class BranchAndPrice {
     }
   }
 
-  /** One worker's master and pricer; a node at a time. */
+  /**
+   * One worker's master and pricer; a node at a time.
+   *
+   * <p>The master is restricted: it holds the node's offered variants and the free pool variants that
+   * sold (y &gt; 0) at one of the worker's last few nodes ({@link NodeMasters}), not the whole pool. The
+   * node bound still covers the whole space, because every pool variant the master does not hold is
+   * priced directly from its stored figures (its own caps, β = 0: {@link ChoicePrices}, the same
+   * valuation the pricer gives a variant outside the master), and the pricer excludes exactly the pool
+   * variants priced so ({@code pool.keysBelow(n)}), so every variant is listed once. A pool variant
+   * outside the master whose ψ pays under the node's duals enters it, as a priced one does (column
+   * generation with the pool as its first, cheap, pricing source). The master is kept from node to node
+   * (GLOP warm-starts from the last basis) and rebuilt when the variants it holds for nothing (barred at
+   * the node, or idle) outnumber the live ones: MPSolver copies the whole model into GLOP at every
+   * solve, so dead blocks cost time at every solve even at y = 0.
+   */
   private final class Worker implements AutoCloseable {
     private PortfolioLp lp = choosing(new PortfolioLp(terms.capacity(), terms.demand(), cap));
     private final VariantPricer pricer = new VariantPricer(space, terms, Long.MAX_VALUE).stopWhen(clock.signalFlag());
-    private int have;
+    /** Pool index of each block of the master, in the order added. */
+    private int[] poolOf = new int[64];
+    /** The last node (of this worker's count) at which each block sold or was offered. */
+    private long[] usedAt = new long[64];
+    private int blocks;
+    /** Block of each pool variant, −1 outside the master; grown with the pool. */
+    private int[] blockOf = new int[0];
+    private long stamp;
+    /** Blocks whose y bounds the last node set. */
     private final Set<Integer> fixed = new HashSet<>();
     /** Count row per flat choice and per segment (−1 until needed) and of the total; rows keep their variants for good. */
     private final int[] rowOf = new int[space.totalChoices()];
@@ -296,44 +348,107 @@ final class BranchAndPrice {
       return fresh;
     }
 
-    /** A fresh master with the pool's variants and the node's decisions. */
-    private void rebuild(TreeNode node) {
+    private int blockOf(int i) {
+      return i < blockOf.length ? blockOf[i] : -1;
+    }
+
+    /** A fresh master holding the given pool variants, with the node's decisions. */
+    private void rebuild(TreeNode node, int[] keep) {
       lp.close();
       lp = choosing(new PortfolioLp(terms.capacity(), terms.demand(), cap));
-      have = 0;
+      Arrays.fill(blockOf, -1);
+      blocks = 0;
       Arrays.fill(rowOf, -1);
       Arrays.fill(segmentRow, -1);
       totalRow = -1;
       boundedRows.clear();
       fixed.clear();
-      sync();
+      for (int i : keep) {
+        enter(i);
+      }
       fix(node);
     }
 
-    /** Adds the pool variants this master does not hold yet. */
-    private void sync() {
-      int n = pool.size();
-      for (int i = have; i < n; i++) {
-        PoolVariant v = pool.get(i);
-        // a variant of today's range carries its own fixed cost: none when pinned, −discontinue otherwise
-        lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot());
-        pool.choice().attract(lp, i, v);
-        if (totalRow >= 0) {
-          lp.addToCount(totalRow, i);
-        }
-        for (int g = 0; g < v.choices().length; g++) {
-          int r = rowOf[space.offset(g) + v.choices()[g]];
-          if (r >= 0) {
-            lp.addToCount(r, i);
-          }
-        }
-        for (int s : v.segments()) {
-          if (segmentRow[s] >= 0) {
-            lp.addToCount(segmentRow[s], i);
-          }
+    /** The pool variants of the master's blocks, in block order. */
+    private int[] held() {
+      return Arrays.copyOf(poolOf, blocks);
+    }
+
+    /** Adds pool variant i as a new block (in every count row it belongs to); returns the block. */
+    private int enter(int i) {
+      int b = blockOf(i);
+      if (b >= 0) {
+        return b;
+      }
+      PoolVariant v = pool.get(i);
+      // a variant of today's range carries its own fixed cost: none when pinned, −discontinue otherwise
+      b = lp.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot());
+      pool.choice().attract(lp, b, v);
+      if (totalRow >= 0) {
+        lp.addToCount(totalRow, b);
+      }
+      for (int g = 0; g < v.choices().length; g++) {
+        int r = rowOf[space.offset(g) + v.choices()[g]];
+        if (r >= 0) {
+          lp.addToCount(r, b);
         }
       }
-      have = n;
+      for (int s : v.segments()) {
+        if (segmentRow[s] >= 0) {
+          lp.addToCount(segmentRow[s], b);
+        }
+      }
+      if (b == poolOf.length) {
+        poolOf = Arrays.copyOf(poolOf, 2 * b);
+        usedAt = Arrays.copyOf(usedAt, 2 * b);
+      }
+      poolOf[b] = i;
+      usedAt[b] = stamp;
+      if (i >= blockOf.length) {
+        int old = blockOf.length;
+        blockOf = Arrays.copyOf(blockOf, Math.max(i + 1, 2 * old + 64));
+        Arrays.fill(blockOf, old, blockOf.length, -1);
+      }
+      blockOf[i] = b;
+      blocks = b + 1;
+      return b;
+    }
+
+    /**
+     * Before a node: a first master holds every free pool variant; later ones keep the blocks that
+     * sold lately, and are rebuilt when the dead ones (barred here, or idle) outnumber the live ones
+     * by more than the policy's slack ({@link NodeMasters}).
+     */
+    private void prepare(TreeNode node) {
+      stamp++;
+      if (blocks == 0 && masters.seedWithPool()) {
+        int n = pool.size();
+        List<Integer> all = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+          if (!node.isBarred(i)) {
+            all.add(i);
+          }
+        }
+        rebuild(node, all.stream().mapToInt(Integer::intValue).toArray());
+        return;
+      }
+      List<Integer> live = new ArrayList<>();
+      for (int b = 0; b < blocks; b++) {
+        int i = poolOf[b];
+        if (node.isOffered(i) || !node.isBarred(i) && usedAt[b] >= stamp - masters.keepNodes()) {
+          live.add(i);
+        }
+      }
+      if (blocks - live.size() > live.size() + masters.deadSlack()) {
+        for (int i : node.offered()) {
+          if (blockOf(i) < 0) {
+            live.add(i);
+          }
+        }
+        rebuild(node, live.stream().mapToInt(Integer::intValue).toArray());
+      } else {
+        fix(node);
+      }
     }
 
     /**
@@ -345,9 +460,9 @@ final class BranchAndPrice {
       if (seg >= 0) {
         if (segmentRow[seg] < 0) {
           segmentRow[seg] = lp.addCountRow(artificialCost);
-          for (int i = 0; i < have; i++) {
-            if (Arrays.binarySearch(pool.get(i).segments(), seg) >= 0) {
-              lp.addToCount(segmentRow[seg], i);
+          for (int b = 0; b < blocks; b++) {
+            if (Arrays.binarySearch(pool.get(poolOf[b]).segments(), seg) >= 0) {
+              lp.addToCount(segmentRow[seg], b);
             }
           }
         }
@@ -356,17 +471,17 @@ final class BranchAndPrice {
       if (choice == TreeNode.TOTAL) {
         if (totalRow < 0) {
           totalRow = lp.addCountRow(artificialCost);
-          for (int i = 0; i < have; i++) {
-            lp.addToCount(totalRow, i);
+          for (int b = 0; b < blocks; b++) {
+            lp.addToCount(totalRow, b);
           }
         }
         return totalRow;
       }
       if (rowOf[choice] < 0) {
         rowOf[choice] = lp.addCountRow(artificialCost);
-        for (int i = 0; i < have; i++) {
-          if (TreeNode.uses(pool.get(i).choices(), choice, space.offsets())) {
-            lp.addToCount(rowOf[choice], i);
+        for (int b = 0; b < blocks; b++) {
+          if (TreeNode.uses(pool.get(poolOf[b]).choices(), choice, space.offsets())) {
+            lp.addToCount(rowOf[choice], b);
           }
         }
       }
@@ -374,17 +489,21 @@ final class BranchAndPrice {
     }
 
     private void fix(TreeNode node) {
-      for (int i : fixed) {
-        lp.fixIntroduction(i, 0, 1);
+      for (int b : fixed) {
+        lp.fixIntroduction(b, 0, 1);
       }
       fixed.clear();
       for (int i : node.offered()) {
-        lp.fixIntroduction(i, 1, 1);
-        fixed.add(i);
+        int b = enter(i);
+        lp.fixIntroduction(b, 1, 1);
+        fixed.add(b);
       }
       for (int i : node.barred()) {
-        lp.fixIntroduction(i, 0, 0);
-        fixed.add(i);
+        int b = blockOf(i);
+        if (b >= 0) {
+          lp.fixIntroduction(b, 0, 0);
+          fixed.add(b);
+        }
       }
       for (int r : boundedRows) {
         lp.setCountBounds(r, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY);
@@ -409,8 +528,7 @@ final class BranchAndPrice {
       if (freeCap < 0 || total[0] > limit) {
         return List.of();
       }
-      sync();
-      fix(node);
+      prepare(node);
       NodeLp relaxed = relax(node, freeCap);
       return relaxed.ended() != null ? relaxed.ended() : branch(node, relaxed);
     }
@@ -425,12 +543,13 @@ final class BranchAndPrice {
       double offeredTooling = offeredTooling(node);
       NodeProbe last = null;
       int round = 0;
+      int cheapRounds = 0;
       while (true) {
         round++;
         PortfolioLpSolution sol = lp.solve();
         if (sol.status() == LpStatus.FAILED) {
           // GLOP gave up from its warm start (seen once in a deep node): the same master built afresh
-          rebuild(node);
+          rebuild(node, held());
           sol = lp.solve();
         }
         if (sol.status() == LpStatus.INFEASIBLE) {
@@ -439,8 +558,24 @@ final class BranchAndPrice {
         if (!sol.isOptimal()) {
           return NodeLp.ending(park(node, best, "the relaxation of a node ended " + sol.status() + " in GLOP"));
         }
-        NodeProbe probe = probe(node, sol.resourceDual(), sol.segmentDual(), countPrices(), k, freeCap,
-            offeredTooling);
+        for (int b = 0; b < blocks; b++) {
+          if (sol.y()[b] > 0) {
+            usedAt[b] = stamp;
+          }
+        }
+        double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(sol.objective()));
+        CountPrices cp = countPrices();
+        PoolValues values = poolValues(node, sol.resourceDual(), sol.segmentDual(), cp, offeredTooling);
+        if (cheapRounds < CHEAP_ROUNDS && enterPaying(node, values.psi(), entry) > 0) {
+          // the pool outside the master still pays: re-solve before the exact pricer proves the rest
+          cheapRounds++;
+          Optional<String> why = stop.check(clock.now(round));
+          if (why.isPresent()) {
+            return NodeLp.ending(park(node, best, why.get()));
+          }
+          continue;
+        }
+        NodeProbe probe = probe(values, sol.resourceDual(), sol.segmentDual(), cp, k, freeCap);
         if (probe.bound.value() < best) {
           best = probe.bound.value();
           last = probe;
@@ -453,34 +588,68 @@ final class BranchAndPrice {
             return NodeLp.ending(List.of());
           }
         }
-        double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(sol.objective()));
-        int before = have;
-        int added = 0;
+        int added = enterPaying(node, probe.psi, entry);
+        int found = 0;
         for (PricedVariant f : probe.found) {
-          if (f.reducedCost() > entry && added < settings.perRound()) {
-            pool.indexOrAdd(f.choices());
-            added++;
+          if (f.reducedCost() > entry && found < settings.perRound()) {
+            int at = pool.indexOrAdd(f.choices());
+            found++;
+            if (at >= 0 && blockOf(at) < 0) {
+              enter(at);
+              added++;
+            }
           }
         }
         if (added == 0 && probe.exact) {
-          return new NodeLp(sol, best, last, null);
+          return new NodeLp(sol, poolY(sol), best, last, null);
         }
         Optional<String> why = stop.check(clock.now(round));
         if (why.isPresent()) {
           return NodeLp.ending(park(node, best, why.get()));
         }
-        sync();
-        if (have == before && !probe.exact) {
+        if (added == 0) {
           // the pricer was cut short and found nothing new: keep the node with its valid bound
           return NodeLp.ending(park(node, best, "pricing at a node did not finish"));
         }
       }
     }
 
+    /**
+     * Enters the free pool variants outside the master whose ψ pays under the node's duals (above
+     * {@code entry}, the variant limit's dual), the best {@link #POOL_PER_ROUND} first; returns how many.
+     */
+    private int enterPaying(TreeNode node, double[] psi, double entry) {
+      List<Integer> paying = new ArrayList<>();
+      for (int i = 0; i < psi.length; i++) {
+        if (psi[i] > entry && blockOf(i) < 0 && !node.isBarred(i)) {
+          paying.add(i);
+        }
+      }
+      paying.sort(Comparator.comparingDouble((Integer i) -> psi[i]).reversed());
+      int n = Math.min(paying.size(), POOL_PER_ROUND);
+      for (int j = 0; j < n; j++) {
+        enter(paying.get(j));
+      }
+      return n;
+    }
+
+    /** The solution's y per pool index (0 outside the master). */
+    private double[] poolY(PortfolioLpSolution sol) {
+      int n = 0;
+      for (int b = 0; b < blocks; b++) {
+        n = Math.max(n, poolOf[b] + 1);
+      }
+      double[] y = new double[n];
+      for (int b = 0; b < blocks; b++) {
+        y[poolOf[b]] = sol.y()[b];
+      }
+      return y;
+    }
+
     /** After a node's relaxation is proven: an incumbent from it, then its children or its closing. */
     private List<TreeNode> branch(TreeNode node, NodeLp relaxed) {
       double bound = relaxed.best();
-      double[] y = relaxed.sol().y();
+      double[] y = relaxed.y();
       heuristic(node, y);
       VariantBranching.Decision d = VariantBranching.choose(node, y, i -> pool.get(i).choices(),
           i -> pool.get(i).segments(), space.segmentCount(), space.offsets(), space.totalChoices());
@@ -585,8 +754,14 @@ final class BranchAndPrice {
       if (members.size() > terms.maxVariants()) {
         return;
       }
-      offer(FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray()),
-          "rounding at a node of the branch-and-price tree");
+      int[] set = members.stream().mapToInt(Integer::intValue).sorted().toArray();
+      synchronized (lock) {
+        // children of one parent often round to the same portfolio; its fixed-portfolio LP gives the same plan
+        if (!rounded.add(Arrays.stream(set).boxed().toList())) {
+          return;
+        }
+      }
+      offer(FixedPortfolio.solve(pool, terms, set), "rounding at a node of the branch-and-price tree");
     }
 
     /**
@@ -624,7 +799,7 @@ final class BranchAndPrice {
       double theta = z - b.valueAtLambda() + b.lambda();
       long soon = System.nanoTime() + 250_000_000L;
       VariantQuery q = new VariantQuery(b.resourcePrice(), b.segmentPrice(), probe.query.charge(),
-          probe.query.penalty(), theta - 1e-7 * (1 + Math.abs(z)), RETIRE_LIMIT + 1, pool.keysBelow(have),
+          probe.query.penalty(), theta - 1e-7 * (1 + Math.abs(z)), RETIRE_LIMIT + 1, pool.keysBelow(probe.psi.length),
           deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon)).withAcceptCharge(probe.query.acceptCharge());
       PricingOutcome out = pricer.price(q);
       if (!out.exact() || out.found().size() > RETIRE_LIMIT) {
@@ -692,33 +867,55 @@ final class BranchAndPrice {
       return out;
     }
 
-    /** The Lagrangian bound of the node at prices (π, μ): one pricing call outside the master's variants. */
-    private NodeProbe probe(TreeNode node, double[] pi, double[] mu, CountPrices cp, int k, int freeCap,
-        double offeredTooling) {
-      VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
-          pool.keysBelow(have), deadlineNanos).withAcceptCharge(cp.accept());
-      PricingOutcome out = pricer.price(q);
-      ChoicePrices beta = ChoicePrices.of(lp, have);
-      // with today's range: −Σ discontinue costs once, and each current variant's own fixed cost in its ψ
+    /**
+     * The first n pool variants valued at prices (π, μ) and the count rows' prices: ψ of each (with
+     * its attraction rows' β when the master holds it, β = 0 otherwise; −∞ when barred), and the
+     * constant of the node bound with the offered ones' ψ in it. With today's range, each current
+     * variant carries its own fixed cost in its ψ and −Σ discontinue costs enters the constant once.
+     */
+    private PoolValues poolValues(TreeNode node, double[] pi, double[] mu, CountPrices cp, double offeredTooling) {
+      int n = pool.size();
+      ChoicePrices beta = ChoicePrices.of(lp, blocks);
       double constant = terms.rowValue(pi, mu) + beta.constant(terms, mu) + cp.constant() - offeredTooling
           + pool.current().constant();
-      double[] psi = new double[have];
-      double[] listed = new double[have + out.found().size()];
-      int n = 0;
-      for (int i = 0; i < have; i++) {
-        psi[i] = beta.psi(space.offsets(), pool.get(i), i, pi, mu, pool.get(i).fixedCost() + cp.charge(), q.penalty(),
-            terms.minLot()) - acceptCharge(pool.get(i), cp.accept());
+      double[] psi = new double[n];
+      for (int i = 0; i < n; i++) {
+        if (node.isBarred(i)) {
+          psi[i] = Double.NEGATIVE_INFINITY;
+          continue;
+        }
+        PoolVariant v = pool.get(i);
+        psi[i] = beta.psi(space.offsets(), v, blockOf(i), pi, mu, v.fixedCost() + cp.charge(), cp.penalty(),
+            terms.minLot()) - acceptCharge(v, cp.accept());
         if (node.isOffered(i)) {
           constant += psi[i];
-        } else if (!node.isBarred(i)) {
-          listed[n++] = psi[i];
+        }
+      }
+      return new PoolValues(psi, constant, node);
+    }
+
+    /**
+     * The Lagrangian bound of the node: the pool's values, and one pricing call for the rest of the
+     * space, which excludes exactly the pool variants valued.
+     */
+    private NodeProbe probe(PoolValues values, double[] pi, double[] mu, CountPrices cp, int k, int freeCap) {
+      double[] psi = values.psi();
+      int n = psi.length;
+      VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
+          pool.keysBelow(n), deadlineNanos).withAcceptCharge(cp.accept());
+      PricingOutcome out = pricer.price(q);
+      double[] listed = new double[n + out.found().size()];
+      int m = 0;
+      for (int i = 0; i < n; i++) {
+        if (psi[i] > Double.NEGATIVE_INFINITY && !values.offered(i)) {
+          listed[m++] = psi[i];
         }
       }
       for (PricedVariant f : out.found()) {
-        listed[n++] = f.reducedCost();
+        listed[m++] = f.reducedCost();
       }
-      LagrangianPortfolioBound b = LagrangianPortfolioBound.of(constant, Arrays.copyOf(listed, n), out.restBound(),
-          freeCap, pi.clone(), mu.clone());
+      LagrangianPortfolioBound b = LagrangianPortfolioBound.of(values.constant(), Arrays.copyOf(listed, m),
+          out.restBound(), freeCap, pi.clone(), mu.clone());
       return new NodeProbe(b, psi, out.found(), out.exact(), q);
     }
 
@@ -763,6 +960,13 @@ final class BranchAndPrice {
    */
   private record CountPrices(double[] penalty, double[] accept, double charge, double constant) {}
 
+  /** ψ of the first n pool variants at a node's prices (−∞ when barred), and the bound's constant with the offered ones in it. */
+  private record PoolValues(double[] psi, double constant, TreeNode node) {
+    boolean offered(int i) {
+      return node.isOffered(i);
+    }
+  }
+
   /** A node bound with the ψ of the master's variants at its prices, and what the pricer found outside. */
   private record NodeProbe(LagrangianPortfolioBound bound, double[] psi, List<PricedVariant> found, boolean exact,
       VariantQuery query) {}
@@ -771,9 +975,9 @@ final class BranchAndPrice {
    * A node's relaxation: its last solution, the best bound of its rounds and the probe that gave it;
    * or, when the node ended before its relaxation was proven, the children it ends with.
    */
-  private record NodeLp(PortfolioLpSolution sol, double best, NodeProbe last, List<TreeNode> ended) {
+  private record NodeLp(PortfolioLpSolution sol, double[] y, double best, NodeProbe last, List<TreeNode> ended) {
     static NodeLp ending(List<TreeNode> children) {
-      return new NodeLp(null, Double.NaN, null, children);
+      return new NodeLp(null, null, Double.NaN, null, children);
     }
   }
 }

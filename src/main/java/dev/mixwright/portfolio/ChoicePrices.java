@@ -53,7 +53,8 @@ record ChoicePrices(double[][] beta, double[] stayOut) {
   }
 
   /**
-   * ψ_β of pool variant {@code i} (its own caps, its β when the master holds it), less {@code
+   * ψ_β of pool variant {@code v} held by block {@code i} of the master (−1 when the master does not
+   * hold it: β = 0), with its own caps, less {@code
    * charge} and the penalties of its choices ({@code penalty} null for none); −∞ when its lot cannot
    * be sold.
    */
@@ -65,7 +66,7 @@ record ChoicePrices(double[][] beta, double[] stayOut) {
     for (int r = 0; r < pi.length; r++) {
       piA += pi[r] * v.use()[r];
     }
-    double[] b = i < beta.length ? beta[i] : null;
+    double[] b = i >= 0 && i < beta.length ? beta[i] : null;
     for (int k = 0; k < n; k++) {
       d[k] = v.margin()[k] - piA - mu[v.segments()[k]] - (b == null ? 0.0 : b[k]);
     }

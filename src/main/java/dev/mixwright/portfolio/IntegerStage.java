@@ -60,6 +60,7 @@ public final class IntegerStage {
   private StopCriterion stop = StopCriterion.never();
   private int workers = BranchAndPrice.defaultWorkers();
   private boolean quickProof = true;
+  private BranchAndPrice.NodeMasters nodeMasters = BranchAndPrice.NodeMasters.DEFAULT;
   private Checkpoint warm;
   private Consumer<Checkpoint> checkpoints = c -> {};
 
@@ -91,6 +92,12 @@ public final class IntegerStage {
   /** Whether the quick proof over the pool may settle the stage before the tree; for tests of the tree. */
   IntegerStage quickProof(boolean on) {
     this.quickProof = on;
+    return this;
+  }
+
+  /** What the tree's workers keep in their masters between nodes; for tests of the restricted masters. */
+  IntegerStage nodeMasters(BranchAndPrice.NodeMasters m) {
+    this.nodeMasters = m;
     return this;
   }
 
@@ -349,7 +356,8 @@ public final class IntegerStage {
       return;
     }
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
-    BranchAndPrice bp = new BranchAndPrice(space, terms, pool, settings, clock, clock.phase(1.0), fan, workers);
+    BranchAndPrice bp = new BranchAndPrice(space, terms, pool, settings, clock, clock.phase(1.0), fan, workers,
+        nodeMasters);
     BranchAndPrice.Result r = bp.run(s.incumbent, s.bound);
     s.incumbent = r.incumbent();
     s.treeBound = r.bound();

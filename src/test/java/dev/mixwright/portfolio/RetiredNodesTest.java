@@ -25,11 +25,7 @@ class RetiredNodesTest {
     AtomicInteger proven = new AtomicInteger();
     int runs = 24;
     Cases.each(runs, (seed, rnd) -> {
-      Catalog c = rnd.nextBoolean()
-          ? RandomCatalogs.random(rnd, 2 + rnd.nextInt(3), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3), rnd.nextInt(7),
-              true)
-          : StageRuns.withTerms(RandomChoiceCatalogs.tiny(seed, true), 100 + rnd.nextInt(1500), 1 + rnd.nextInt(3),
-              rnd.nextBoolean() ? 0 : 5 + rnd.nextInt(40));
+      Catalog c = StageRuns.fixedOrChoosing(seed, rnd);
       VariantSpace space = new VariantSpace(c);
       boolean[] retired = new boolean[1];
       PortfolioOutcome o = new IntegerStage(space, PortfolioSettings.defaults().withTimeLimit(20_000))

@@ -15,6 +15,8 @@ import dev.mixwright.colgen.SolveSettings;
 import dev.mixwright.pricing.BranchAndBoundPricer;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.EnumeratedMip;
+import dev.mixwright.testing.RandomCatalogs;
+import dev.mixwright.testing.RandomChoiceCatalogs;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -55,6 +57,18 @@ final class StageRuns {
       return true;
     }
     return false;
+  }
+
+  /**
+   * A small random catalog for the tree's tests, with a portfolio section: half of the draws with
+   * fixed demand, half with segments that choose (random introduction cost, limit and lot).
+   */
+  static Catalog fixedOrChoosing(long seed, Random rnd) {
+    return rnd.nextBoolean()
+        ? RandomCatalogs.random(rnd, 2 + rnd.nextInt(3), 4, 1 + rnd.nextInt(3),
+            1 + rnd.nextInt(3), rnd.nextInt(7), true)
+        : withTerms(RandomChoiceCatalogs.tiny(seed, true), 100 + rnd.nextInt(1500),
+            1 + rnd.nextInt(3), rnd.nextBoolean() ? 0 : 5 + rnd.nextInt(40));
   }
 
   /** A copy of c with new portfolio terms. */
