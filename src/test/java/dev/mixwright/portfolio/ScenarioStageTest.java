@@ -41,7 +41,7 @@ class ScenarioStageTest {
   }
 
   /** A scenario moving every capacity and demand by up to ±40 % and the first option's cost of each group. */
-  private static Scenario draw(Catalog c, Random rnd, String id) {
+  static Scenario draw(Catalog c, Random rnd, String id) {
     List<Change> ch = new ArrayList<>();
     for (var r : c.resources()) {
       ch.add(new Change(new Target(Field.CAPACITY, r.id(), null), Amount.percent(rnd.nextInt(81) - 40), id));
@@ -55,7 +55,7 @@ class ScenarioStageTest {
     return new Scenario(id, ch);
   }
 
-  private static List<VariantSpace> spaces(Catalog c, Random rnd, int n) throws Exception {
+  static List<VariantSpace> spaces(Catalog c, Random rnd, int n) throws Exception {
     List<VariantSpace> out = new ArrayList<>();
     for (int k = 0; k < n; k++) {
       out.add(new VariantSpace((k == 0 ? Scenario.none() : draw(c, rnd, "s" + k)).applyTo(c)));

@@ -24,7 +24,7 @@ import java.util.Set;
  * an odometer over all choices, its reduced cost computed from the catalog figures with
  * {@link ReducedCosts#of} (brute force, independent of every pricer and of the weight vector).
  */
-final class PricingCases {
+public final class PricingCases {
   private PricingCases() {}
 
   /** A column and its reduced cost computed directly. */
@@ -72,7 +72,7 @@ final class PricingCases {
    * The catalog plus rules over three groups (a forbid of three, or a when of two groups with a
    * require on a third), which compile to nogoods wider than a pair.
    */
-  static Catalog withWideRules(Catalog c, Random rnd, int count) {
+  public static Catalog withWideRules(Catalog c, Random rnd, int count) {
     List<Group> gs = c.groups();
     if (gs.size() < 3) {
       return c;
@@ -102,7 +102,7 @@ final class PricingCases {
    * holds one or two listed choices, each of two other groups must hold one of about half its
    * choices. They compile to nogoods of three and four groups.
    */
-  static Catalog withMultiRules(Catalog c, Random rnd, int count) {
+  public static Catalog withMultiRules(Catalog c, Random rnd, int count) {
     List<Group> gs = c.groups();
     if (gs.size() < 4) {
       return c;
