@@ -19,8 +19,7 @@ import java.util.function.BooleanSupplier;
  * Exact k-best pricing of whole variants for the portfolio relaxation: maximise ψ(v) of
  * {@link VariantQuery} over every buildable variant, all segments at once.
  *
- * <p>Depth-first branch-and-bound over the groups in an order chosen per query ({@link
- * SearchOrder#byRegret} over the root's child bounds, see {@link #rootScores}), with the rules
+ * <p>Depth-first branch-and-bound over the groups in the order of {@link SearchOrder}, with the rules
  * propagated by {@link ForwardChecker} as in {@link dev.mixwright.pricing.ForwardCheckingPricer}: once
  * all groups of a nogood but its last are assigned to member choices, the last group's member choices
  * leave its domain.
@@ -56,14 +55,9 @@ public final class VariantPricer {
   private final int scenarios;
   private final int segments;
   private final int[] offset;
-  private final int[] staticOrder; // ties and groups without rules follow it
-  private final int[] nextOrder;
-  private int[] order;
-  private ForwardChecker rules; // built again only when a query's order differs from the last one
+  private final int[] order;
+  private final ForwardChecker rules;
   private final boolean[] usable;
-  private final double[][] groupBest; // [group][segment]: best usable weight, for the order's scores
-  private final double[] groupMinPen;
-  private final double[] rootScore; // by flat choice: the root bound with its group assigned to it
 
   private final double[][] partial; // [depth][segment]: Σ of the assigned weights (finite ones)
   private final boolean[][] dead; // [depth][segment]: an assigned choice is not accepted there
@@ -121,14 +115,9 @@ public final class VariantPricer {
     for (int g = 0; g < groups; g++) {
       widest = Math.max(widest, space.choiceCount(g));
     }
-    staticOrder = SearchOrder.of(space);
-    nextOrder = new int[groups];
-    order = staticOrder.clone();
+    order = SearchOrder.of(space);
     rules = new ForwardChecker(space, order, ForwardChecker.NO_WATCH);
     usable = new boolean[space.totalChoices()];
-    groupBest = new double[groups][segments];
-    groupMinPen = new double[groups];
-    rootScore = new double[space.totalChoices()];
     partial = new double[groups + 1][segments];
     dead = new boolean[groups + 1][segments];
     penPartial = new double[groups + 1];
@@ -249,11 +238,6 @@ public final class VariantPricer {
       }
       usable[f] = any && space.allowed(f);
     }
-    SearchOrder.byRegret(space, rootScores(), staticOrder, nextOrder);
-    if (!Arrays.equals(nextOrder, order)) {
-      order = nextOrder.clone();
-      rules = new ForwardChecker(space, order, ForwardChecker.NO_WATCH);
-    }
     if (rules.start(usable)) {
       Arrays.fill(partial[0], 0.0);
       Arrays.fill(dead[0], false);
@@ -268,71 +252,6 @@ public final class VariantPricer {
     excluded = null;
     top = null;
     return out;
-  }
-
-  /** The group order of the last query's search (a copy; before any, the static order), for tests. */
-  int[] groupOrder() {
-    return order.clone();
-  }
-
-  /**
-   * Per usable choice f of group g, the bound of the root's child that assigns g first to f (the
-   * search's own node bound, rules left out): g(ub) − charge − penalties, ub_s = w_s(f) + Σ_{h ≠ g}
-   * best usable weight of h in s + constant_s. {@link SearchOrder#byRegret} over these scores puts the
-   * groups whose best choice leads the second by most at the top of the search and the near-ties at
-   * the bottom, as the LP stage's pricer does with its single weight per choice; here one score per
-   * choice folds the segments, the lot and the penalties into what the search itself would compare.
-   * Only the order depends on it, never what is found. −∞ for a choice the query may not use.
-   * O(G · S · (G + d) + Σ_g d_g · S log S).
-   */
-  private double[] rootScores() {
-    double penAll = 0;
-    for (int g = 0; g < groups; g++) {
-      double minPen = Double.POSITIVE_INFINITY;
-      for (int s = 0; s < segments; s++) {
-        double best = Double.NEGATIVE_INFINITY;
-        for (int f = offset[g]; f < offset[g + 1]; f++) {
-          if (usable[f] && w[s][f] > best) {
-            best = w[s][f];
-          }
-        }
-        groupBest[g][s] = best;
-      }
-      for (int f = offset[g]; f < offset[g + 1]; f++) {
-        if (usable[f] && pen[f] < minPen) {
-          minPen = pen[f];
-        }
-      }
-      if (minPen == Double.POSITIVE_INFINITY) {
-        // a group with nothing usable: no variant at all, any order will do
-        Arrays.fill(rootScore, Double.NEGATIVE_INFINITY);
-        return rootScore;
-      }
-      groupMinPen[g] = minPen;
-      penAll += minPen;
-    }
-    for (int g = 0; g < groups; g++) {
-      for (int s = 0; s < segments; s++) {
-        double others = constant[s];
-        for (int h = 0; h < groups && others != Double.NEGATIVE_INFINITY; h++) {
-          others = h == g ? others : others + groupBest[h][s];
-        }
-        rest[s] = others;
-      }
-      double penOthers = penAll - groupMinPen[g];
-      for (int f = offset[g]; f < offset[g + 1]; f++) {
-        if (!usable[f]) {
-          rootScore[f] = Double.NEGATIVE_INFINITY;
-          continue;
-        }
-        for (int s = 0; s < segments; s++) {
-          ub[s] = w[s][f] == Double.NEGATIVE_INFINITY || rest[s] == Double.NEGATIVE_INFINITY
-              ? Double.NEGATIVE_INFINITY : w[s][f] + rest[s];
-        }
-        rootScore[f] = lotValue(ub) - charge - pen[f] - penOthers;
-      }
-    }
-    return rootScore;
   }
 
   /** Lower value first; equal values: the lexicographically larger choices first (so they leave first). */

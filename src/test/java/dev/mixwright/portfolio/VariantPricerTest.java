@@ -8,12 +8,10 @@ import dev.mixwright.catalog.Catalog;
 import dev.mixwright.pricing.PricedVariant;
 import dev.mixwright.pricing.PricingOutcome;
 import dev.mixwright.pricing.PricingCases;
-import dev.mixwright.space.SearchOrder;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.RandomCatalogs;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.Comparator;
 import java.util.HashSet;
 import java.util.List;
@@ -42,15 +40,12 @@ class VariantPricerTest {
   }
 
   /**
-   * The group order changes per query (regret over the root's child bounds), and with it the rule
-   * propagation is rebuilt: on catalogs with rules over three and four groups (the generator's wide
-   * and multi kinds), one pricer answers several queries in a row, each checked against brute force.
-   * The check that some orders differ from the static one keeps this test able to fail when the
-   * order never moves.
+   * Rules over three and four groups (the generator's wide and multi kinds) compile to nogoods that
+   * forward checking fires only once all but one of their groups are assigned; one pricer answers
+   * several queries in a row (its search state is reused), each checked against brute force.
    */
   @Test
-  void aPerQueryOrderStaysExactUnderRulesOverSeveralGroups() {
-    int moved = 0;
+  void rulesOverSeveralGroupsAndRepeatedQueriesMatchBruteForce() {
     for (int i = 0; i < 150; i++) {
       Random rnd = new Random(7100 + i);
       Catalog c = RandomCatalogs.random(rnd, 4 + rnd.nextInt(4), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
@@ -59,15 +54,10 @@ class VariantPricerTest {
           : PricingCases.withMultiRules(c, rnd, 1 + rnd.nextInt(4));
       VariantSpace space = new VariantSpace(c);
       VariantPricer pricer = new VariantPricer(space, PortfolioTerms.of(space), Long.MAX_VALUE);
-      int[] fixed = SearchOrder.of(space);
       for (int q = 0; q < 4; q++) {
         checkOneQuery(pricer, space, rnd, "case " + i + " query " + q);
-        if (!Arrays.equals(fixed, pricer.groupOrder())) {
-          moved++;
-        }
       }
     }
-    assertTrue(moved > 100, "the order should follow the queries' prices, moved " + moved + " times");
   }
 
   /**
