@@ -257,7 +257,7 @@ public final class IntegerStage {
       checkpoint(pool, search.incumbent, search.bound);
     }
     if (!search.survivorsProve) {
-      tree(pool, search);
+      tree(pool, search, rx.bound());
       checkpoint(pool, search.incumbent, Math.min(search.bound, search.treeBound));
     }
     search.added = pool.size() - relaxed;
@@ -334,22 +334,33 @@ public final class IntegerStage {
     for (int i : pool.pinned()) {
       keep.add(i);
     }
-    // as the survivors' threshold: a little below the incumbent, so whatever is left out is worth at most it
-    double z = s.incumbent.value() - 1e-7 * (1 + Math.abs(s.incumbent.value()));
-    VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), 0.0, null, Double.NEGATIVE_INFINITY, 1,
-        null, 0);
     for (int i = 0; i < firstSurvivor; i++) {
-      PoolVariant v = pool.get(i);
-      double psi = VariantPricer.value(space, terms, v.choices(), at) - v.fixedCost();
-      if (b.withVariant(psi) - terms.toolingOf(space, v.choices()) > z) {
+      if (mayImprove(pool.get(i), b, s.incumbent)) {
         keep.add(i);
       }
     }
     return keep.stream().mapToInt(Integer::intValue).toArray();
   }
 
-  /** The branch-and-price tree over the rest of the time, from the incumbent so far. */
-  private void tree(Pool pool, Search s) {
+  /**
+   * The survivor test of a pool variant at the bound's prices: B(λ̂) − (λ̂ − ψ(w))⁺ − tooling(w) above
+   * the incumbent (less a little, so whatever fails is worth at most it). ψ is taken with β = 0 and
+   * the per-segment caps, at least the ψ the bound used ({@link ChoicePrices}), so a variant that fails
+   * cannot be part of a portfolio better than the incumbent anywhere in the space.
+   */
+  private boolean mayImprove(PoolVariant v, LagrangianPortfolioBound b, Plan incumbent) {
+    double z = incumbent.value() - 1e-7 * (1 + Math.abs(incumbent.value()));
+    VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), 0.0, null, Double.NEGATIVE_INFINITY, 1,
+        null, 0);
+    double psi = VariantPricer.value(space, terms, v.choices(), at) - v.fixedCost();
+    return b.withVariant(psi) - terms.toolingOf(space, v.choices()) > z;
+  }
+
+  /**
+   * The branch-and-price tree over the rest of the time, from the incumbent so far; {@code root} is
+   * the relaxation's bound, whose survivor test thins the proof set of retired nodes.
+   */
+  private void tree(Pool pool, Search s, LagrangianPortfolioBound root) {
     Optional<String> signalled = clock.signalled();
     if (signalled.isPresent()) {
       s.reason = signalled.get();
@@ -375,7 +386,7 @@ public final class IntegerStage {
             : "branch-and-price left only retired nodes"
         : r.reason()) + retired);
     if (r.closed() && r.retired() > 0) {
-      proofOverRetired(pool, r, s);
+      proofOverRetired(pool, r, s, root);
     }
   }
 
@@ -383,12 +394,17 @@ public final class IntegerStage {
    * The tree closed with retired nodes ({@link BranchAndPrice}): every portfolio better than the
    * incumbent lies in one of them and is made of the proof set's variants, so a MIP over the proof set
    * (and the incumbent's variants) decides the whole space; stopped early, its bound over that set
-   * still bounds every better portfolio.
+   * still bounds every better portfolio. The proof set is the union of every retired node's survivors
+   * at the node's own prices; a variant that also fails the root's survivor test against the final
+   * incumbent ({@link #mayImprove}) is in no better portfolio anywhere, so it is left out, and the
+   * MIP is smaller (both tests are valid, so their intersection is).
    */
-  private void proofOverRetired(Pool pool, BranchAndPrice.Result r, Search s) {
+  private void proofOverRetired(Pool pool, BranchAndPrice.Result r, Search s, LagrangianPortfolioBound root) {
     java.util.TreeSet<Integer> over = new java.util.TreeSet<>();
     for (int i : r.proofSet()) {
-      over.add(i);
+      if (!root.isFinite() || mayImprove(pool.get(i), root, s.incumbent)) {
+        over.add(i);
+      }
     }
     for (int i : s.incumbent.members()) {
       over.add(i);
