@@ -12,6 +12,17 @@ record CliRun(int code, String out, String err) {
     return new CliRun(code, out.toString(), err.toString());
   }
 
+  /** {@code solve CATALOG --out OUT} with the extra options after them. */
+  static CliRun solve(java.nio.file.Path catalog, java.nio.file.Path out, String... extra) {
+    String[] args = new String[4 + extra.length];
+    args[0] = "solve";
+    args[1] = catalog.toString();
+    args[2] = "--out";
+    args[3] = out.toString();
+    System.arraycopy(extra, 0, args, 4, extra.length);
+    return of(args);
+  }
+
   /** Words of the solver a planner should not meet (issue 10), sought as words in every line of {@code text}. */
   static void assertPlain(String text) {
     for (String line : text.split("\n")) {

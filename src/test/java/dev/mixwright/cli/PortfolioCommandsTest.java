@@ -27,13 +27,7 @@ class PortfolioCommandsTest {
     Path cat = dir.resolve("hand-" + f + ".yaml");
     Files.writeString(cat, CATALOG.formatted(f));
     Path runDir = dir.resolve("run-" + f);
-    String[] args = new String[4 + extra.length];
-    args[0] = "solve";
-    args[1] = cat.toString();
-    args[2] = "--out";
-    args[3] = runDir.toString();
-    System.arraycopy(extra, 0, args, 4, extra.length);
-    CliRun r = CliRun.of(args);
+    CliRun r = CliRun.solve(cat, runDir, extra);
     assertEquals(0, r.code(), r.err());
     return runDir;
   }

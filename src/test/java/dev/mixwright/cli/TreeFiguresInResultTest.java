@@ -49,13 +49,7 @@ class TreeFiguresInResultTest {
 
   private JsonNode solve(Path catalog, String name, String... extra) throws Exception {
     Path out = dir.resolve(name);
-    String[] args = new String[4 + extra.length];
-    args[0] = "solve";
-    args[1] = catalog.toString();
-    args[2] = "--out";
-    args[3] = out.toString();
-    System.arraycopy(extra, 0, args, 4, extra.length);
-    CliRun run = CliRun.of(args);
+    CliRun run = CliRun.solve(catalog, out, extra);
     assertEquals(0, run.code(), run.toString());
     return new ObjectMapper().readTree(Files.readString(out.resolve("result.json")));
   }
