@@ -18,9 +18,9 @@ import dev.mixwright.master.PortfolioLp;
  * relaxed attraction row is ≤ 0 (β ≥ 0), and the stay-out x_s0 ∈ [0, buyers_s] is left with the
  * coefficient Σ_v w_sv β_sv − μ_s. The per-variant cap may be any valid cap: for a master variant its
  * own cap_vs = min(maxShare·D_s, buyers_s·w/(1+w)) ({@link ChoiceRows#cap}, valid whatever else is
- * offered); for a variant outside the master β_sv = 0 and the pricer's looser per-segment bound
- * (buyers_s) is an upper bound on its ψ_β, since {@link LotValue} is nondecreasing in every reduced
- * cost and in every cap. At the master's optimal duals this is LP duality on the master's own rows,
+ * offered); for a variant outside the master β_sv = 0 and the pricer takes the same cap (inside its
+ * search the cap of an optimistic utility, an upper bound on ψ_β since {@link LotValue} is
+ * nondecreasing in every reduced cost and in every cap). At the master's optimal duals this is LP duality on the master's own rows,
  * so over the pool the bound meets the master's objective; with β = 0 (the old bound) a variant of
  * a choosing segment was valued as if it could take all the segment's buyers. Cost: O(pool · S · R)
  * per bound.

@@ -11,8 +11,9 @@ import dev.mixwright.space.VariantSpace;
  * choosing segment s a stay-out x_s0 with Σ_v x_sv + x_s0 = buyers_s, and per offered (v, s)
  * x_sv − w_s(v)·x_s0 ≤ 0. A variant not offered sells nothing through its link x_sv ≤ U_sv·y_v,
  * U_sv = buyers_s·w/(1+w) ({@link #cap}); so the variants that share a segment's buyers are exactly
- * the portfolio's. Fixed segments are left as they are. The pricer over the whole space keeps the
- * looser cap buyers_s (see docs/portfolio.md for why its bound still holds).
+ * the portfolio's. Fixed segments are left as they are. The pricer over the whole space values every
+ * variant with the same cap ({@link #capOf}), and inside its search with the cap of an optimistic
+ * utility ({@link #capAt}; see docs/portfolio.md, "The attraction rows in the bound").
  */
 final class ChoiceRows {
   private final VariantSpace space;
@@ -42,6 +43,22 @@ final class ChoiceRows {
    */
   static double cap(double buyers, double w) {
     return w >= 1e300 ? buyers : buyers * w / (1 + w);
+  }
+
+  /**
+   * U_s(v) of variant v in a choosing segment s: {@link #cap} at its own attraction. The one place
+   * pool variants and the pricer get a variant's logit cap from, so that both agree to the last bit.
+   */
+  static double capOf(VariantSpace space, int[] v, int s) {
+    return capAt(space, s, space.utility(v, s));
+  }
+
+  /**
+   * {@link #cap} of a choosing segment s at utility u: increasing in u (w = exp(u − stayOut) is, and
+   * w/(1+w) is increasing in w), so the cap at an upper bound on a variant's utility bounds its cap.
+   */
+  static double capAt(VariantSpace space, int s, double utility) {
+    return cap(space.buyers(s), Logit.attraction(utility, space.stayOut(s)));
   }
 
   /** The buyers rows; before any variant enters. */

@@ -11,8 +11,9 @@ package dev.mixwright.portfolio;
  * a continuous knapsack with a covering row, solved greedily: every segment of positive d_s at its
  * bound, then, if that sells less than L, the least bad of the others until L is reached (an
  * exchange argument shows the greedy order is optimal). O(S log S) with S segments, here an insertion
- * sort because S is small. g is nondecreasing in every d_s (the feasible set does not depend on d),
- * which is what makes optimistic per-segment bounds give an optimistic g.
+ * sort because S is small. g is nondecreasing in every d_s (the feasible set does not depend on d)
+ * and in every u_s (a larger bound only widens the feasible set), which is what makes optimistic
+ * per-segment reduced costs and caps give an optimistic g.
  */
 public final class LotValue {
   private LotValue() {}

@@ -35,7 +35,7 @@ public record PoolVariant(
       m[k] = space.margin(v2, segs[k]);
       u[k] = terms.columnBound()[segs[k]];
       if (space.chooses(segs[k])) {
-        u[k] = Math.min(u[k], ChoiceRows.cap(space.buyers(segs[k]), new ChoiceRows(space).attraction(v2, segs[k])));
+        u[k] = Math.min(u[k], ChoiceRows.capOf(space, v2, segs[k]));
       }
     }
     int[] tools = new int[v2.length];

@@ -42,6 +42,19 @@ import java.util.function.BooleanSupplier;
  * a covering row); so with R the charged segments that reject a completion, its value is at most g(ub)
  * − Σ_{s∈R} u_s·max(0, ub_s) − Σ_{s∉R} δ_s ≤ g(ub) − Σ_s min(δ_s, u_s·max(0, ub_s)).
  *
+ * <p>Segments that choose (multinomial logit) cap a variant's sales by its own logit cap: x_sv ≤ U_sv =
+ * buyers_s·w/(1+w), w = exp(u_s(v) − stayOut_s), in every portfolio (docs/portfolio.md, "Segments
+ * that choose"). A leaf and {@link #value} use cap_s = min(column bound, U_sv) with the variant's own
+ * utility ({@link ChoiceRows#capOf}, the computation the pool variants use). Inside the tree the cap
+ * comes from an optimistic utility: (assigned part of u_s) + Σ over unassigned groups of the best
+ * utility among their remaining choices that s may use (a completion using another choice has d_s =
+ * −∞ and no sales in s). The cap is increasing in the utility ({@link ChoiceRows#capAt}) and g is
+ * nondecreasing in every cap as well as in every reduced cost (a larger cap only widens the feasible
+ * set), so g(ub_d, ub_cap) ≥ g(d(v), cap(v)) for every completion v: the node bound stays a bound.
+ * The acceptance charge's loss term takes the same optimistic caps, the ones g was evaluated with.
+ * Across scenarios each (scenario, segment) pair takes its own scenario's utilities and buyers, as
+ * the scenario masters' pool variants do.
+ *
  * <p>Cost per node O(S · Σ_g d_g) for the bounds; worst case exponential in the number of groups
  * (pricing under exclusion rules is NP-hard already for one segment: maximum-weight independent set
  * reduces to it, Garey &amp; Johnson GT20). With a node limit or deadline the search stops early; the
@@ -77,10 +90,18 @@ public final class VariantPricer {
   private final double[] rest;
   private final double[] ub;
   private final double[] leafD;
+  private final double[] leafU; // [pair]: utilities the caps are taken at (a leaf's, or a node's optimistic ones)
   private final int[] scratch;
   private final int[] v;
   /** [segment]: every remaining choice of the groups after the current depth is accepted there. */
   private final boolean[] sure;
+  /** [pair][flat]: utility share of each choice for a choosing pair, null for a fixed one. */
+  private final double[][] util;
+  private final double[] baseCap; // [pair]: the terms' column bound
+  private final double[][] utilPartial; // [depth][pair]: Σ of the assigned utility shares
+  private final double[] restUtil; // [pair]: Σ over later groups of their best usable utility share
+  private final double[][] caps; // [scenario][segment]: the caps g is evaluated with
+  private final boolean anyChoice;
 
   private double[][] w;
   private double[] constant;
@@ -139,19 +160,66 @@ public final class VariantPricer {
     rest = new double[segments];
     ub = new double[segments];
     leafD = new double[segments];
+    leafU = new double[segments];
     scratch = new int[perScenario];
     v = new int[groups];
     sure = new boolean[perScenario];
+    util = new double[segments][];
+    baseCap = new double[segments];
+    boolean choosing = false;
+    for (int k = 0; k < scenarios; k++) {
+      for (int s = 0; s < perScenario; s++) {
+        baseCap[k * perScenario + s] = termsOf.get(k).columnBound()[s];
+        if (spaces.get(k).chooses(s)) {
+          util[k * perScenario + s] = spaces.get(k).choiceUtilities(s);
+          choosing = true;
+        }
+      }
+    }
+    anyChoice = choosing;
+    utilPartial = new double[groups + 1][segments];
+    restUtil = new double[segments];
+    caps = new double[scenarios][perScenario];
+    for (int k = 0; k < scenarios; k++) {
+      System.arraycopy(baseCap, k * perScenario, caps[k], 0, perScenario);
+    }
   }
 
-  /** Σ_k g_k over the scenarios' slices of the stacked reduced costs d; −∞ when some scenario cannot take the lot. */
+  /**
+   * Σ_k g_k over the scenarios' slices of the stacked reduced costs d with the caps in {@link #caps};
+   * −∞ when some scenario cannot take the lot.
+   */
   private double lotValue(double[] d) {
     double sum = 0;
     for (int k = 0; k < scenarios; k++) {
-      PortfolioTerms t = termsOf.get(k);
-      sum += LotValue.best(d, k * perScenario, perScenario, t.columnBound(), t.minLot(), scratch);
+      sum += LotValue.best(d, k * perScenario, perScenario, caps[k], termsOf.get(k).minLot(), scratch);
     }
     return sum;
+  }
+
+  /** Sets {@link #caps} of the choosing pairs alive in {@code d} from the utilities {@code u} (per pair). */
+  private void logitCaps(double[] d, double[] u) {
+    for (int p = 0; p < segments; p++) {
+      if (util[p] != null && d[p] != Double.NEGATIVE_INFINITY) {
+        int k = p / perScenario;
+        int s = p - k * perScenario;
+        caps[k][s] = Math.min(baseCap[p], ChoiceRows.capAt(spaces.get(k), s, u[p]));
+      }
+    }
+  }
+
+  /**
+   * Per segment the bound g is taken with for whole variant v: the terms' column bound, and for a
+   * choosing segment that accepts v at most its logit cap.
+   */
+  static double[] caps(VariantSpace space, PortfolioTerms terms, int[] v) {
+    double[] u = terms.columnBound().clone();
+    for (int s = 0; s < u.length; s++) {
+      if (space.chooses(s) && space.isColumn(v, s)) {
+        u[s] = Math.min(u[s], ChoiceRows.capOf(space, v, s));
+      }
+    }
+    return u;
   }
 
   /** ψ(v) over scenarios at the query's stacked prices, computed directly (see {@link VariantQuery}). */
@@ -168,7 +236,7 @@ public final class VariantPricer {
       for (int s = 0; s < sc; s++) {
         d[s] += (q.weight(k) - 1) * (d[s] == Double.NEGATIVE_INFINITY ? 0 : sp.margin(v, s));
       }
-      sum += LotValue.best(d, terms.get(k).columnBound(), terms.get(k).minLot());
+      sum += LotValue.best(d, caps(sp, terms.get(k), v), terms.get(k).minLot());
     }
     double p = 0;
     if (q.penalty() != null) {
@@ -304,17 +372,24 @@ public final class VariantPricer {
     int g = order[d];
     double penRest = 0;
     Arrays.fill(rest, 0.0);
+    Arrays.fill(restUtil, 0.0);
     for (int e = d + 1; e < groups; e++) {
       int h = order[e];
       double minPen = Double.POSITIVE_INFINITY;
       for (int s = 0; s < segments; s++) {
         double best = Double.NEGATIVE_INFINITY;
+        double bestUtil = Double.NEGATIVE_INFINITY;
+        double[] us = util[s];
         for (int f = offset[h]; f < offset[h + 1]; f++) {
-          if (usable[f] && !rules.blocked(f) && w[s][f] > best) {
-            best = w[s][f];
+          if (usable[f] && !rules.blocked(f) && w[s][f] != Double.NEGATIVE_INFINITY) {
+            best = Math.max(best, w[s][f]);
+            if (us != null) {
+              bestUtil = Math.max(bestUtil, us[f]);
+            }
           }
         }
         rest[s] += best;
+        restUtil[s] += bestUtil;
       }
       for (int f = offset[h]; f < offset[h + 1]; f++) {
         if (usable[f] && !rules.blocked(f) && pen[f] < minPen) {
@@ -338,6 +413,12 @@ public final class VariantPricer {
         ub[s] = dead[d][s] || x == Double.NEGATIVE_INFINITY || rest[s] == Double.NEGATIVE_INFINITY
             ? Double.NEGATIVE_INFINITY
             : partial[d][s] + x + rest[s] + constant[s];
+        if (util[s] != null) {
+          leafU[s] = utilPartial[d][s] + util[s][f] + restUtil[s];
+        }
+      }
+      if (anyChoice) {
+        logitCaps(ub, leafU);
       }
       double b = lotValue(ub)
           - charge - (penPartial[d] + pen[f] + penRest) - (accCharge == null ? 0.0 : acceptance(ub, false));
@@ -360,6 +441,9 @@ public final class VariantPricer {
         double x = w[s][f];
         dead[d + 1][s] = dead[d][s] || x == Double.NEGATIVE_INFINITY;
         partial[d + 1][s] = dead[d + 1][s] ? 0.0 : partial[d][s] + x;
+        if (util[s] != null) {
+          utilPartial[d + 1][s] = utilPartial[d][s] + util[s][f];
+        }
       }
       penPartial[d + 1] = penPartial[d] + pen[f];
       int mark = rules.mark();
@@ -394,7 +478,7 @@ public final class VariantPricer {
    * slice; acceptance is the same in every scenario): ub_s = −∞ exactly when s rejects every completion.
    * At a leaf ({@code exact}) a finite d_s means s accepts; inside the tree a charge in full only where
    * {@link #sure} (else at most what rejecting s would cost, see the class comment), a bonus wherever s
-   * may still accept.
+   * may still accept. The loss term uses {@link #caps}, the caps g(ub) was just evaluated with.
    */
   private double acceptance(double[] ub, boolean exact) {
     double sum = 0;
@@ -408,7 +492,7 @@ public final class VariantPricer {
       } else {
         double loss = 0;
         for (int k = 0; k < scenarios; k++) {
-          loss += termsOf.get(k).columnBound()[s] * Math.max(0.0, ub[k * perScenario + s]);
+          loss += caps[k][s] * Math.max(0.0, ub[k * perScenario + s]);
         }
         sum += Math.min(delta, loss);
       }
@@ -430,6 +514,13 @@ public final class VariantPricer {
         x += y;
       }
       d[s] = x;
+      if (util[s] != null && x != Double.NEGATIVE_INFINITY) {
+        int k = s / perScenario;
+        leafU[s] = spaces.get(k).utility(v, s - k * perScenario);
+      }
+    }
+    if (anyChoice) {
+      logitCaps(d, leafU);
     }
     double p = 0;
     for (int g = 0; g < groups; g++) {

@@ -112,6 +112,23 @@ final class BruteVariants {
     for (int s = 0; accept != null && s < d.length; s++) {
       p += space.isColumn(v, s) ? accept[s] : 0.0;
     }
-    return lotValue(d, t.columnBound(), t.minLot()) - charge - p;
+    return lotValue(d, caps(space, t, v), t.minLot()) - charge - p;
+  }
+
+  /**
+   * Per segment the most v can sell there in any portfolio: the column bound, and in a segment that
+   * chooses at most buyers·w/(1+w), w = exp(u_s(v) − stayOut_s) — the logit share of v offered alone
+   * (Train, "Discrete Choice Methods with Simulation", ch. 3: P = w/(1 + w) against the stay-out;
+   * more offered variants only lower it). Written out here, not taken from the pricer's code.
+   */
+  static double[] caps(VariantSpace space, PortfolioTerms t, int[] v) {
+    double[] u = t.columnBound().clone();
+    for (int s = 0; s < u.length; s++) {
+      if (space.chooses(s)) {
+        double w = Math.exp(space.utility(v, s) - space.stayOut(s));
+        u[s] = Math.min(u[s], Double.isInfinite(w) ? space.buyers(s) : space.buyers(s) * w / (1 + w));
+      }
+    }
+    return u;
   }
 }

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.mixwright.catalog.Catalog;
+import dev.mixwright.catalog.Choice;
 import dev.mixwright.catalog.Group;
 import dev.mixwright.catalog.Option;
 import dev.mixwright.catalog.PortfolioSpec;
@@ -98,6 +99,35 @@ final class StageRuns {
         }
       }
       segs.add(new Segment(s.id(), s.label(), s.demand(), s.maxShare(), accepts, s.value(), s.choice()));
+    }
+    return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(), segs,
+        c.portfolio());
+  }
+
+  /**
+   * A copy of c where each segment chooses by multinomial logit with probability {@code share}: its
+   * demand becomes its buyers, with random part-worths, a stay-out utility and a price weight drawn so
+   * that attractions range over about e^-6 to e^4 (invented data).
+   */
+  static Catalog withChoice(Catalog c, Random rnd, double share) {
+    List<Segment> segs = new ArrayList<>();
+    for (Segment s : c.segments()) {
+      if (rnd.nextDouble() >= share) {
+        segs.add(s);
+        continue;
+      }
+      Map<String, Double> utility = new LinkedHashMap<>();
+      for (Group g : c.groups()) {
+        for (int k = 0; k < g.choiceCount(); k++) {
+          if (rnd.nextDouble() < 0.6) {
+            utility.put(g.id() + "." + g.choiceId(k), Math.round((-1.5 + 3.5 * rnd.nextDouble()) * 100) / 100.0);
+          }
+        }
+      }
+      double stayOut = Math.round((-4 + 4 * rnd.nextDouble()) * 100) / 100.0;
+      double priceWeight = -Math.round(2 + 15 * rnd.nextDouble()) / 1000.0;
+      segs.add(Segment.choosing(s.id(), s.label(), s.accepts(), s.value(),
+          new Choice(s.demand(), stayOut, priceWeight, utility)));
     }
     return new Catalog(c.format(), c.name(), c.currency(), c.period(), c.resources(), c.groups(), c.rules(), segs,
         c.portfolio());

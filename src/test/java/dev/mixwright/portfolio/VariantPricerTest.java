@@ -7,6 +7,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.pricing.PricedVariant;
 import dev.mixwright.pricing.PricingOutcome;
+import dev.mixwright.scenario.Scenario;
+import dev.mixwright.scenario.Scenario.Amount;
+import dev.mixwright.scenario.Scenario.Change;
+import dev.mixwright.scenario.Scenario.Field;
+import dev.mixwright.scenario.Scenario.Target;
 import dev.mixwright.space.VariantKey;
 import dev.mixwright.space.VariantSpace;
 import dev.mixwright.testing.RandomCatalogs;
@@ -46,6 +51,108 @@ class VariantPricerTest {
     }
   }
 
+  /**
+   * Segments that choose: ψ of every variant takes its logit cap buyers·w/(1+w) ({@link
+   * BruteVariants#caps}), and the search's node bounds the cap of an optimistic utility; the k best
+   * and the rest bound must match brute force, with and without acceptance charges.
+   */
+  @Test
+  void logitCapsMatchBruteForce() {
+    for (int i = 0; i < 300; i++) {
+      kBest(i, new Random(31_000 + i), i % 2 == 1, true);
+    }
+  }
+
+  /**
+   * Across scenarios with choosing segments: each (scenario, segment) pair takes its scenario's
+   * buyers and utilities (prices and demands move per scenario), ψ sums the scenarios' lot values;
+   * the k best and the rest bound against brute force.
+   */
+  @Test
+  void logitCapsAcrossScenariosMatchBruteForce() throws Exception {
+    for (int i = 0; i < 120; i++) {
+      Random rnd = new Random(47_000 + i);
+      Catalog c = StageRuns.withChoice(RandomCatalogs.random(rnd, 2 + rnd.nextInt(4), 4, 1 + rnd.nextInt(2),
+          1 + rnd.nextInt(3), rnd.nextInt(8), true), rnd, 0.8);
+      int n = 2 + rnd.nextInt(2);
+      List<VariantSpace> spaces = new ArrayList<>();
+      List<PortfolioTerms> terms = new ArrayList<>();
+      for (int k = 0; k < n; k++) {
+        List<Change> ch = new ArrayList<>();
+        for (var seg : c.segments()) {
+          ch.add(new Change(new Target(Field.DEMAND, seg.id(), null), Amount.percent(rnd.nextInt(81) - 40), "k" + k));
+        }
+        for (var g : c.groups()) {
+          ch.add(new Change(new Target(Field.PRICE, g.id(), g.options().get(0).id()),
+              Amount.set(rnd.nextInt(150)), "k" + k));
+        }
+        VariantSpace sp = new VariantSpace((k == 0 ? Scenario.none() : new Scenario("k" + k, ch)).applyTo(c));
+        spaces.add(sp);
+        terms.add(PortfolioTerms.of(sp));
+      }
+      VariantSpace space = spaces.get(0);
+      int rc = space.resourceCount();
+      int sc = space.segmentCount();
+      double[] pi = new double[n * rc];
+      for (int r = 0; r < pi.length; r++) {
+        pi[r] = rnd.nextDouble() < 0.4 ? 0 : rnd.nextDouble() * 8;
+      }
+      double[] mu = new double[n * sc];
+      for (int s = 0; s < mu.length; s++) {
+        mu[s] = rnd.nextDouble() < 0.5 ? 0 : rnd.nextDouble() * 20;
+      }
+      double[] omega = new double[n];
+      for (int k = 0; k < n; k++) {
+        omega[k] = (1 + rnd.nextInt(4)) / 4.0;
+      }
+      double charge = rnd.nextInt(300);
+      List<Scored> all = new ArrayList<>();
+      for (int[] v : BruteVariants.all(space)) {
+        double sum = -charge;
+        for (int k = 0; k < n; k++) {
+          VariantSpace sp = spaces.get(k);
+          double[] d = new double[sc];
+          for (int s = 0; s < sc; s++) {
+            d[s] = sp.isColumn(v, s)
+                ? omega[k] * sp.margin(v, s) - dot(pi, k * rc, sp.use(v)) - mu[k * sc + s]
+                : Double.NEGATIVE_INFINITY;
+          }
+          sum += BruteVariants.lotValue(d, BruteVariants.caps(sp, terms.get(k), v), terms.get(k).minLot());
+        }
+        all.add(new Scored(v, sum));
+      }
+      all.sort(Comparator.comparingDouble(Scored::value).reversed());
+      int k = 1 + rnd.nextInt(5);
+      VariantQuery q = new VariantQuery(pi, mu, charge, null, Double.NEGATIVE_INFINITY, k, Set.of(), 0, omega);
+      PricingOutcome out = new VariantPricer(spaces, terms, Long.MAX_VALUE).price(q);
+      String where = "scenario case " + i;
+      assertTrue(out.exact(), where);
+      List<Scored> want = all.stream().filter(x -> x.value() > Double.NEGATIVE_INFINITY).limit(k).toList();
+      assertEquals(want.size(), out.found().size(), where);
+      Set<VariantKey> seen = new HashSet<>();
+      for (int j = 0; j < want.size(); j++) {
+        PricedVariant got = out.found().get(j);
+        assertEquals(want.get(j).value(), got.reducedCost(), tol(got.reducedCost()), where);
+        assertEquals(got.reducedCost(), VariantPricer.value(spaces, terms, got.choices(), q), tol(got.reducedCost()),
+            where);
+        seen.add(space.key(got.choices()));
+      }
+      for (Scored x : all) {
+        if (!seen.contains(space.key(x.v()))) {
+          assertTrue(x.value() <= out.restBound() + tol(x.value()), where + ": rest bound");
+        }
+      }
+    }
+  }
+
+  private static double dot(double[] pi, int from, double[] use) {
+    double x = 0;
+    for (int r = 0; r < use.length; r++) {
+      x += pi[from + r] * use[r];
+    }
+    return x;
+  }
+
   private static double[] randomAccept(Random rnd, int segments) {
     double[] accept = new double[segments];
     for (int s = 0; s < segments; s++) {
@@ -56,10 +163,17 @@ class VariantPricerTest {
   }
 
   private static void kBest(int i, Random rnd, boolean withAccept) {
+    kBest(i, rnd, withAccept, false);
+  }
+
+  private static void kBest(int i, Random rnd, boolean withAccept, boolean withChoice) {
     Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(5), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
         rnd.nextInt(10), true);
     if (withAccept) {
       c = StageRuns.withMasks(c, rnd);
+    }
+    if (withChoice) {
+      c = StageRuns.withChoice(c, rnd, 0.7);
     }
     VariantSpace space = new VariantSpace(c);
     PortfolioTerms t = PortfolioTerms.of(space);
@@ -100,7 +214,7 @@ class VariantPricerTest {
     List<Scored> want = all.stream()
         .filter(sc -> !excluded.contains(space.key(sc.v())) && sc.value() > threshold)
         .limit(k).toList();
-    String where = "case " + i + (withAccept ? " with acceptance charges" : "");
+    String where = "case " + i + (withAccept ? " with acceptance charges" : "") + (withChoice ? " choosing" : "");
     assertEquals(want.size(), out.found().size(), where);
     Set<VariantKey> seen = new HashSet<>();
     for (int j = 0; j < want.size(); j++) {
@@ -129,6 +243,9 @@ class VariantPricerTest {
     for (int i = 0; i < 120; i++) {
       Random rnd = new Random(900 + i);
       Catalog c = RandomCatalogs.random(rnd, 4 + rnd.nextInt(3), 4, 2, 2, rnd.nextInt(8), true);
+      if (i % 3 == 2) {
+        c = StageRuns.withChoice(c, rnd, 0.7);
+      }
       VariantSpace space = new VariantSpace(c);
       PortfolioTerms t = PortfolioTerms.of(space);
       double[] pi = new double[space.resourceCount()];
