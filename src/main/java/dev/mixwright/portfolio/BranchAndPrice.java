@@ -601,7 +601,7 @@ final class BranchAndPrice {
           }
         }
         if (added == 0 && probe.exact) {
-          return new NodeLp(sol, poolY(sol), best, last, null);
+          return new NodeLp(poolY(sol), best, last, null);
         }
         Optional<String> why = stop.check(clock.now(round));
         if (why.isPresent()) {
@@ -972,12 +972,12 @@ final class BranchAndPrice {
       VariantQuery query) {}
 
   /**
-   * A node's relaxation: its last solution, the best bound of its rounds and the probe that gave it;
-   * or, when the node ended before its relaxation was proven, the children it ends with.
+   * A node's relaxation: its last solution's y per pool index, the best bound of its rounds and the
+   * probe that gave it; or, when the node ended before its relaxation was proven, the children it ends with.
    */
-  private record NodeLp(PortfolioLpSolution sol, double[] y, double best, NodeProbe last, List<TreeNode> ended) {
+  private record NodeLp(double[] y, double best, NodeProbe last, List<TreeNode> ended) {
     static NodeLp ending(List<TreeNode> children) {
-      return new NodeLp(null, null, Double.NaN, null, children);
+      return new NodeLp(null, Double.NaN, null, children);
     }
   }
 }
