@@ -36,6 +36,11 @@ public final class Checksums {
   public static String crc(String text) {
     CRC32C c = new CRC32C();
     c.update(text.getBytes(StandardCharsets.UTF_8));
+    return hex(c);
+  }
+
+  /** A CRC-32C's value as written in a run folder: 8 lower-case hex digits. */
+  static String hex(CRC32C c) {
     return String.format("%08x", c.getValue());
   }
 

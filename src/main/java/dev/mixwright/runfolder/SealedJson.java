@@ -115,7 +115,7 @@ public final class SealedJson {
       }
       byte[] keep = tail.substring(0, tail.length() - 1).stripTrailing().getBytes(StandardCharsets.UTF_8);
       pass(keep, keep.length);
-      out.write((MARK + String.format("%08x", crc.getValue()) + END).getBytes(StandardCharsets.UTF_8));
+      out.write((MARK + Checksums.hex(crc) + END).getBytes(StandardCharsets.UTF_8));
     }
   }
 
