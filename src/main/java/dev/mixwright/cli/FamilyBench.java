@@ -287,17 +287,27 @@ final class FamilyBench {
    * discarded; the exit code, or -1 when it had to be killed at {@code limitMs}.
    */
   private int child(List<String> args, long limitMs) throws IOException, InterruptedException {
-    String java = ProcessHandle.current().info().command()
-        .orElse(Path.of(System.getProperty("java.home"), "bin", "java").toString());
-    List<String> cmd = new ArrayList<>(List.of(java, "-cp", System.getProperty("java.class.path"), Main.class.getName()));
-    cmd.addAll(args);
-    Process p = new ProcessBuilder(cmd).redirectOutput(ProcessBuilder.Redirect.DISCARD)
-        .redirectError(ProcessBuilder.Redirect.DISCARD).start();
+    Process p = startChild(List.of(), args);
     if (!p.waitFor(limitMs, TimeUnit.MILLISECONDS)) {
       p.destroyForcibly().waitFor();
       return -1;
     }
     return p.exitValue();
+  }
+
+  /**
+   * Starts mixwright in a JVM of its own, the same java and class path as this one, with {@code
+   * jvmOptions} before the class path; its output discarded.
+   */
+  static Process startChild(List<String> jvmOptions, List<String> args) throws IOException {
+    String java = ProcessHandle.current().info().command()
+        .orElse(Path.of(System.getProperty("java.home"), "bin", "java").toString());
+    List<String> cmd = new ArrayList<>(List.of(java));
+    cmd.addAll(jvmOptions);
+    cmd.addAll(List.of("-cp", System.getProperty("java.class.path"), Main.class.getName()));
+    cmd.addAll(args);
+    return new ProcessBuilder(cmd).redirectOutput(ProcessBuilder.Redirect.DISCARD)
+        .redirectError(ProcessBuilder.Redirect.DISCARD).start();
   }
 
   static long msSince(long t0) {

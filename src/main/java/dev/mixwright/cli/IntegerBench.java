@@ -107,13 +107,9 @@ final class IntegerBench {
 
   private Measured measure(Case c) throws IOException, InterruptedException {
     Path runDir = work.resolve(c.file.getFileName() + "-run");
-    String java = ProcessHandle.current().info().command()
-        .orElse(Path.of(System.getProperty("java.home"), "bin", "java").toString());
-    List<String> cmd = new ArrayList<>(List.of(java, HEAP, "-cp", System.getProperty("java.class.path"),
-        Main.class.getName(), "solve", c.file.toString(), "--out", runDir.toString(), "--replace", "--no-progress"));
     long t0 = System.nanoTime();
-    Process p = new ProcessBuilder(cmd).redirectOutput(ProcessBuilder.Redirect.DISCARD)
-        .redirectError(ProcessBuilder.Redirect.DISCARD).start();
+    Process p = FamilyBench.startChild(List.of(HEAP),
+        List.of("solve", c.file.toString(), "--out", runDir.toString(), "--replace", "--no-progress"));
     Long peak = null;
     long deadline = t0 + CHILD_LIMIT_MS * 1_000_000L;
     while (!p.waitFor(200, TimeUnit.MILLISECONDS)) {
