@@ -44,6 +44,11 @@ final class StageClock {
   }
 
   /** Milliseconds left of the limit (at least 1), 0 when there is none. */
+  /** The stage's time limit. */
+  long limitMs() {
+    return limitMs;
+  }
+
   long msLeft() {
     return limitMs == 0 ? 0 : Math.max(1, limitMs - elapsedMs());
   }
