@@ -49,7 +49,8 @@ public final class PortfolioExplainer {
       }
     }
     double[] d = VariantPricer.reducedCosts(space, v, f.resourcePrice(), f.segmentPrice());
-    double g = LotValue.best(d, terms.columnBound(), terms.minLot());
+    // the caps the stage's own pricer and bounds take: for a choosing segment the logit cap of v
+    double g = LotValue.best(d, VariantPricer.caps(space, terms, v), terms.minLot());
     double psi = g - fixedCost(v);
     double tooling = terms.toolingOf(space, v);
     double with = Double.isFinite(f.boundAtLambda())

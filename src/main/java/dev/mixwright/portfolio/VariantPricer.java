@@ -212,7 +212,7 @@ public final class VariantPricer {
    * Per segment the bound g is taken with for whole variant v: the terms' column bound, and for a
    * choosing segment that accepts v at most its logit cap.
    */
-  static double[] caps(VariantSpace space, PortfolioTerms terms, int[] v) {
+  public static double[] caps(VariantSpace space, PortfolioTerms terms, int[] v) {
     double[] u = terms.columnBound().clone();
     for (int s = 0; s < u.length; s++) {
       if (space.chooses(s) && space.isColumn(v, s)) {
