@@ -59,6 +59,15 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   }
 
   /**
+   * Rows for the blocks and counts added from now on come from batches made ahead, so that GLOP can
+   * warm-start a re-solve after variants entered ({@link Rows#reserveRows}); for masters that grow by
+   * column generation. The model then holds up to as many empty free rows as used ones.
+   */
+  public void reserveRows() {
+    rows.reserveRows();
+  }
+
+  /**
    * Makes segment s choose: its row becomes Σ_v x_vs + x_s0 = buyers (the demand given at
    * construction), for the sales-based rows of {@link #addAttraction}. Call before adding blocks.
    */
@@ -173,8 +182,7 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
    * when the lower side needs variants that pricing has yet to bring in.
    */
   public int addCountRow(double artificialCost) {
-    MPConstraint c = rows.solver.makeConstraint(Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY,
-        "count" + counts.size());
+    MPConstraint c = rows.row(Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY, "count" + counts.size());
     MPVariable a = rows.solver.makeNumVar(0.0, Double.POSITIVE_INFINITY, "a" + counts.size());
     rows.objective.setCoefficient(a, -artificialCost);
     c.setCoefficient(a, 1.0);

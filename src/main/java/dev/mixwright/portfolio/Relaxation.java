@@ -93,6 +93,7 @@ final class Relaxation {
       for (PoolVariant v : pool.all()) {
         add(lp, pool, v);
       }
+      lp.reserveRows(); // the variants column generation adds keep GLOP's warm start
       PortfolioLpSolution sol = null;
       boolean converged = false;
       int round = 0;
