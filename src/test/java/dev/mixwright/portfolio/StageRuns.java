@@ -29,6 +29,39 @@ import java.util.Random;
 final class StageRuns {
   private StageRuns() {}
 
+  /** Builds the tree under test over the pool of the LP stage's columns. */
+  interface TreeMaker {
+    BranchAndPrice make(PortfolioTerms terms, Pool pool, StageClock clock);
+  }
+
+  /** A tree run of {@link #treeFromNothing} and the enumerated optimum it was checked against (tolerance {@code tol}). */
+  record TreeRun(BranchAndPrice.Result result, double optimum, double tol) {}
+
+  /**
+   * The tree alone over the pool of the LP stage's columns, started from the empty portfolio (so it
+   * must find the optimum itself), against the enumerated MIP: its bound never below the optimum,
+   * its value never above it. Null when the LP stage leaves it nothing to do.
+   */
+  static TreeRun treeFromNothing(VariantSpace space, TreeMaker make) {
+    PortfolioTerms terms = PortfolioTerms.of(space);
+    SolveOutcome lp = lp(space);
+    if (lp.status().isInfeasible() || terms.variantCap() == 0 || !Double.isFinite(lp.result().bound())) {
+      return null;
+    }
+    Pool pool = new Pool(space, terms);
+    for (dev.mixwright.colgen.Column col : lp.master().columns()) {
+      pool.add(col.choices());
+    }
+    StageClock clock = new StageClock(20_000, StopCriterion.never());
+    BranchAndPrice.Result r = make.make(terms, pool, clock).run(Plan.empty(), lp.result().bound());
+    EnumeratedMip.Result ref = EnumeratedMip.solve(space, false, 60_000);
+    assertTrue(ref.optimal(), "the reference MIP was not solved to optimality");
+    double tol = 1e-6 * (1 + Math.abs(ref.value()));
+    assertTrue(r.bound() >= ref.value() - tol, "tree bound " + r.bound() + " below the optimum " + ref.value());
+    assertTrue(r.incumbent().value() <= ref.value() + tol, "value above the optimum");
+    return new TreeRun(r, ref.value(), tol);
+  }
+
   static SolveOutcome lp(VariantSpace space) {
     return new ColumnGeneration(space, new BranchAndBoundPricer(space, Long.MAX_VALUE, BranchAndBoundPricer.DEFAULT_TABLE_LIMIT), null, SolveSettings.defaults(), StopCriterion.never(), System.nanoTime()).run();
   }
