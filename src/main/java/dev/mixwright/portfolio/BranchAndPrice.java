@@ -89,7 +89,7 @@ final class BranchAndPrice {
   private double retiredMax = Double.NEGATIVE_INFINITY;
   /** The incumbent plus tolerance at each retirement: what a portfolio outside the proof set is worth at most. */
   private double retiredFloor = Double.NEGATIVE_INFINITY;
-  /** The retired nodes, kept so that those retired with decisions left can go back to the open list ({@link #reopen}). */
+  /** The retired nodes, kept so that those with decisions left can go back to the open list ({@link #reopen}). */
   private final List<Retired> retired = new ArrayList<>();
   /** Set once retired nodes went back to the open list: from then on only nodes with nothing to branch on retire. */
   private boolean retireClosed;
@@ -847,9 +847,9 @@ final class BranchAndPrice {
      * costs are all near 0 is worth about −F, so the survivors are then as many as such variants (on
      * the range demo 25,909 at a gap of 1.6·F at the root's prices, 59 at 1·F); the listing gets a
      * quarter of a second. A node with decisions left ({@code gated}) retires only with at most
-     * {@link #RETIRE_LIMIT} members in all ({@link Retirement}), and not once retired nodes went back to the open list
-     * ({@link #reopen}). A node with nothing left to branch on ({@code gated} false) is tried whatever
-     * its gap: the listing is its only way to be decided, and it is tried once.
+     * {@link #RETIRE_LIMIT} members in all ({@link Retirement}), and not once retired nodes went back
+     * to the open list ({@link #reopen}). A node with nothing left to branch on ({@code gated} false)
+     * is tried whatever its gap: the listing is its only way to be decided, and it is tried once.
      */
     private boolean retire(TreeNode node, NodeProbe probe, boolean gated) {
       if (probe == null || !probe.bound.isFinite() || !probe.exact) {

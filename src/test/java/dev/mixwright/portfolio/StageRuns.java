@@ -34,7 +34,7 @@ final class StageRuns {
     BranchAndPrice make(PortfolioTerms terms, Pool pool, StageClock clock);
   }
 
-  /** A tree run of {@link #treeFromNothing} and the enumerated optimum it was checked against (tolerance {@code tol}). */
+  /** A run of {@link #treeFromNothing} and the enumerated optimum it was checked against, within {@code tol}. */
   record TreeRun(BranchAndPrice.Result result, double optimum, double tol) {}
 
   /**
