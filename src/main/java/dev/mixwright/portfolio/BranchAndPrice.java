@@ -84,12 +84,10 @@ final class BranchAndPrice {
   private String stuckReason = "";
   private double artificialCost = 1;
   private final AtomicReference<RuntimeException> failure = new AtomicReference<>();
-  /** Pool variants of every retired node that could be part of a better portfolio there, and those nodes' largest bound. */
-  private final Set<Integer> proofSet = new HashSet<>();
-  private double retiredMax = Double.NEGATIVE_INFINITY;
-  /** The incumbent plus tolerance at each retirement: what a portfolio outside the proof set is worth at most. */
-  private double retiredFloor = Double.NEGATIVE_INFINITY;
-  /** The retired nodes, kept so that those with decisions left can go back to the open list ({@link #reopen}). */
+  /**
+   * The retired nodes, kept so that those with decisions left can go back to the open list ({@link
+   * #reopen}); the proof set, their largest bound and their floor are read from them.
+   */
   private final List<Retired> retired = new ArrayList<>();
   /** Set once retired nodes went back to the open list: from then on only nodes with nothing to branch on retire. */
   private boolean retireClosed;
@@ -212,7 +210,7 @@ final class BranchAndPrice {
       throw failure.get();
     }
     synchronized (lock) {
-      double bound = Math.max(Math.max(incumbent.value(), prunedMax), retiredMax);
+      double bound = Math.max(Math.max(incumbent.value(), prunedMax), retiredMax());
       for (TreeNode n : open) {
         bound = Math.max(bound, n.bound());
       }
@@ -223,8 +221,12 @@ final class BranchAndPrice {
       String reason = closed ? "" : !stopReason.isEmpty()
           ? stopReason + " with " + (open.size() + stuck.size()) + " nodes of the branch-and-price tree open"
           : stuckReason;
-      int[] proof = proofSet.stream().mapToInt(Integer::intValue).sorted().toArray();
-      double floor = Math.max(incumbent.value(), Math.max(prunedMax, retiredFloor));
+      int[] proof = proofSet().stream().mapToInt(Integer::intValue).sorted().toArray();
+      // what a portfolio outside the proof set is worth at most: pruned, or below a retirement's floor
+      double floor = Math.max(incumbent.value(), prunedMax);
+      for (Retired r : retired) {
+        floor = Math.max(floor, r.floor());
+      }
       return new Result(incumbent, bound, closed, nodes, open.size() + stuck.size(), running.length, reason, proof,
           retired.size(), floor, segmentSplits.get(), reopened);
     }
@@ -254,7 +256,7 @@ final class BranchAndPrice {
               lock.notifyAll();
               return;
             }
-            if (!retireClosed && !open.isEmpty() && open.peek().bound() < retiredMax) {
+            if (!retireClosed && !open.isEmpty() && open.peek().bound() < retiredMax()) {
               reopen();
             }
             node = open.poll();
@@ -301,29 +303,38 @@ final class BranchAndPrice {
    * the incumbent against 3,707 for the best open node after 60 s). Every retired node that has
    * decisions left goes back to the open list with its bound, to be branched like any other, and from
    * then on only nodes with nothing left to branch on retire. The proof set, its floor and the
-   * retired bound are those of the nodes that stay retired. Called under the lock.
+   * retired bound are then those of the nodes that stay retired. Called under the lock.
    */
   private void reopen() {
-    List<Retired> kept = new ArrayList<>();
     for (Retired r : retired) {
       if (r.gated()) {
         open.add(r.node());
         reopened++;
-      } else {
-        kept.add(r);
       }
     }
-    retired.clear();
-    proofSet.clear();
-    retiredMax = Double.NEGATIVE_INFINITY;
-    retiredFloor = Double.NEGATIVE_INFINITY;
-    for (Retired r : kept) {
-      retired.add(r);
-      proofSet.addAll(r.members());
-      retiredMax = Math.max(retiredMax, r.node().bound());
-      retiredFloor = Math.max(retiredFloor, r.floor());
-    }
+    retired.removeIf(Retired::gated);
     retireClosed = true;
+  }
+
+  /** The retired nodes' largest bound (−∞ for none). Called under the lock. */
+  private double retiredMax() {
+    double m = Double.NEGATIVE_INFINITY;
+    for (Retired r : retired) {
+      m = Math.max(m, r.node().bound());
+    }
+    return m;
+  }
+
+  /**
+   * The proof set: the pool variants of every retired node that could be part of a better portfolio
+   * there. Called under the lock.
+   */
+  private Set<Integer> proofSet() {
+    Set<Integer> out = new HashSet<>();
+    for (Retired r : retired) {
+      out.addAll(r.members());
+    }
+    return out;
   }
 
   private boolean anyRunning() {
@@ -337,7 +348,7 @@ final class BranchAndPrice {
 
   /** The bound of every node in the tree now, for progress: open, running and pruned within the gap. */
   private double globalBound() {
-    double b = Math.max(Math.max(incumbent.value(), prunedMax), retiredMax);
+    double b = Math.max(Math.max(incumbent.value(), prunedMax), retiredMax());
     for (TreeNode n : open) {
       b = Math.max(b, n.bound());
     }
@@ -858,13 +869,24 @@ final class BranchAndPrice {
       double z;
       synchronized (lock) {
         z = incumbent.value() + tolerance(incumbent.value());
-        if (proofSet.size() >= settings.survivorLimit() || gated && retireClosed) {
+        if (proofSet().size() >= settings.survivorLimit() || gated && retireClosed) {
           return false;
         }
       }
       LagrangianPortfolioBound b = probe.bound;
       double f = terms.introductionCost();
       if (gated && f > 0 && b.valueAtLambda() - z > retirement.gate() * f) {
+        return false;
+      }
+      List<Integer> members = new ArrayList<>();
+      for (int i : node.offered()) {
+        members.add(i);
+      }
+      members.addAll(freeByTest(node, probe, z, true));
+      if (gated && members.size() > retirement.members()) {
+        // its pool variants that pass are many already: a MIP over them would not decide the node soon
+        // (the dense family's root, 1,578 of them, where the quick proof's MIP over the same set had not
+        // finished in 24 s), so it is branched without the listing
         return false;
       }
       double theta = z - b.valueAtLambda() + b.lambda();
@@ -876,11 +898,6 @@ final class BranchAndPrice {
       if (!out.exact() || out.found().size() > RETIRE_LIMIT) {
         return false;
       }
-      List<Integer> members = new ArrayList<>();
-      for (int i : node.offered()) {
-        members.add(i);
-      }
-      members.addAll(freeByTest(node, probe, z, true));
       for (PricedVariant w : out.found()) {
         int at = pool.indexOrAdd(w.choices());
         if (at >= 0) {
@@ -888,13 +905,10 @@ final class BranchAndPrice {
         }
       }
       if (gated && members.size() > retirement.members()) {
-        // its pool variants that pass are many: a MIP over them would not decide the node soon (the
-        // dense family's root, 1,578 of them, where the quick proof's MIP over the same set had not
-        // finished in 24 s), so it is branched
-        return false;
+        return false; // too many with the listed ones
       }
       synchronized (lock) {
-        Set<Integer> grown = new HashSet<>(proofSet);
+        Set<Integer> grown = proofSet();
         grown.addAll(members);
         if (grown.size() > settings.survivorLimit()) {
           return false;
@@ -902,9 +916,6 @@ final class BranchAndPrice {
         if (gated && retireClosed) {
           return false; // retired nodes went back to the open list while this one was listed
         }
-        proofSet.addAll(members);
-        retiredMax = Math.max(retiredMax, node.bound());
-        retiredFloor = Math.max(retiredFloor, z);
         retired.add(new Retired(node, z, List.copyOf(members), gated));
       }
       return true;
