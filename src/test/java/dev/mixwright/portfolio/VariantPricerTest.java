@@ -237,6 +237,109 @@ class VariantPricerTest {
     }
   }
 
+  /**
+   * A tree worker keeps one pricer for all its nodes, and each node's count rows bring other penalties
+   * and charges, at times of the size of the master's artificial cost (about 10^9 on the families at
+   * 10^12 variants). The pricer orders the groups per query, deciding groups first, and rebuilds its
+   * forward checker when the order changes; here one pricer answers a sequence of such queries (and a
+   * query without any, back to the static order), each against brute force, and the order of each query
+   * must put the groups that decide something first, by decreasing size.
+   */
+  @Test
+  void oneSearchOrderPerQueryUnderLargeCountDuals() {
+    int reordered = 0;
+    for (int i = 0; i < 60; i++) {
+      Random rnd = new Random(83_000 + i);
+      Catalog c = StageRuns.withMasks(RandomCatalogs.random(rnd, 3 + rnd.nextInt(3), 4, 1 + rnd.nextInt(3),
+          1 + rnd.nextInt(3), rnd.nextInt(10), true), rnd);
+      VariantSpace space = new VariantSpace(c);
+      PortfolioTerms t = PortfolioTerms.of(space);
+      VariantPricer pricer = new VariantPricer(space, t, Long.MAX_VALUE);
+      int[] before = pricer.groupOrder();
+      for (int q = 0; q < 5; q++) {
+        double[] pi = new double[space.resourceCount()];
+        for (int r = 0; r < pi.length; r++) {
+          pi[r] = rnd.nextDouble() < 0.4 ? 0 : rnd.nextDouble() * 8;
+        }
+        double[] mu = new double[space.segmentCount()];
+        double big = 2.4e9;
+        double[] penalty = null;
+        double[] accept = null;
+        if (q < 4) {
+          penalty = new double[space.totalChoices()];
+          for (int f = 0; f < penalty.length; f++) {
+            double u = rnd.nextDouble();
+            penalty[f] = u < 0.15 ? -big : u < 0.25 ? rnd.nextInt(20_000) - 10_000 : 0;
+          }
+          accept = new double[space.segmentCount()];
+          for (int s = 0; s < accept.length; s++) {
+            double u = rnd.nextDouble();
+            accept[s] = u < 0.4 ? 0 : u < 0.7 ? big * (1 + rnd.nextInt(5)) : -big;
+          }
+        }
+        double charge = q < 4 && rnd.nextBoolean() ? big : rnd.nextInt(300);
+        List<Scored> all = new ArrayList<>();
+        for (int[] v : BruteVariants.all(space)) {
+          all.add(new Scored(v, BruteVariants.value(space, t, v, pi, mu, charge, penalty, accept)));
+        }
+        all.sort(Comparator.comparingDouble(Scored::value).reversed());
+        int k = 1 + rnd.nextInt(4);
+        PricingOutcome out = pricer.price(
+            new VariantQuery(pi, mu, charge, penalty, 0.0, k, Set.of(), 0).withAcceptCharge(accept));
+        String where = "case " + i + " query " + q;
+        assertTrue(out.exact(), where);
+        List<Scored> want = all.stream().filter(x -> x.value() > 0.0).limit(k).toList();
+        assertEquals(want.size(), out.found().size(), where);
+        Set<VariantKey> seen = new HashSet<>();
+        for (int j = 0; j < want.size(); j++) {
+          PricedVariant got = out.found().get(j);
+          assertEquals(want.get(j).value(), got.reducedCost(), tol(got.reducedCost()), where);
+          seen.add(space.key(got.choices()));
+        }
+        for (Scored x : all) {
+          if (!seen.contains(space.key(x.v()))) {
+            assertTrue(x.value() <= out.restBound() + tol(x.value()), where + ": rest bound");
+          }
+        }
+        int[] order = pricer.groupOrder();
+        double[] size = decided(space, penalty, accept);
+        for (int d = 1; d < order.length; d++) {
+          assertTrue(size[order[d - 1]] >= size[order[d]], where + ": deciding groups first, largest first");
+        }
+        if (penalty == null) {
+          assertTrue(java.util.Arrays.equals(before, order), where + ": no charges, the static order");
+        } else if (!java.util.Arrays.equals(before, order)) {
+          reordered++;
+        }
+      }
+    }
+    assertTrue(reordered > 60, "most queries with charges should change the order: " + reordered);
+  }
+
+  /** Per group: the spread of its penalties plus |accept_s| of every charged segment rejecting some of its choices. */
+  private static double[] decided(VariantSpace space, double[] penalty, double[] accept) {
+    double[] size = new double[space.groupCount()];
+    for (int g = 0; g < size.length && penalty != null; g++) {
+      double lo = Double.POSITIVE_INFINITY;
+      double hi = Double.NEGATIVE_INFINITY;
+      for (int f = space.offset(g); f < space.offset(g + 1); f++) {
+        lo = Math.min(lo, penalty[f]);
+        hi = Math.max(hi, penalty[f]);
+      }
+      size[g] = hi - lo;
+      for (int s = 0; s < space.segmentCount(); s++) {
+        boolean rejects = false;
+        for (int c = 0; c < space.choiceCount(g); c++) {
+          rejects |= !space.allowedIn(s, space.offset(g) + c);
+        }
+        if (accept[s] != 0 && rejects) {
+          size[g] += Math.abs(accept[s]);
+        }
+      }
+    }
+    return size;
+  }
+
   @Test
   void anEarlyStopKeepsAValidRestBound() {
     int stopped = 0;
