@@ -44,41 +44,49 @@ final class LogCommand extends RunDirCommand {
     if (!Files.isRegularFile(file)) {
       throw new UserError("no column log at " + file + " — give a folder written by 'mixwright solve --out'");
     }
-    ColumnLogReader.Entries entries;
+    // two passes, one line in memory at a time (an overnight run's log can be far larger than the heap):
+    // the first checks the whole file, so damage is refused before anything is printed, and notes the
+    // segments the log names; the second prints
+    java.util.Set<String> logged = new java.util.LinkedHashSet<>();
+    ColumnLogReader.Summary summary;
     try {
-      entries = ColumnLogReader.read(file);
+      summary = ColumnLogReader.scan(file, n -> logged.add(n.path("segment").asText()));
     } catch (IOException e) {
       throw new UserError(e.getMessage());
     }
     if (segment != null) {
-      refuseUnknownSegment(entries);
+      refuseUnknownSegment(logged);
     }
     VariantNames names = names();
     out.println(String.format(Locale.ROOT, "  %-14s  %14s  %s", "segment", "reduced cost", "variant"));
-    int shown = 0;
-    int round = -1;
-    for (JsonNode n : entries.lines()) {
-      String seg = n.path("segment").asText();
-      if (segment != null && !segment.equals(seg)) {
-        continue;
-      }
-      shown++;
-      int it = n.path("iteration").asInt();
-      if (it != round || shown == 1) {
-        // objective and bound belong to the round, not to each column: said once per round
-        round = it;
-        JsonNode b = n.path("boundAfter");
-        out.println(String.format(Locale.ROOT, "round %d at %s%s: objective after %s, bound after %s", it,
-            Durations.format(n.path("elapsedMs").asLong()), it == 0 ? ", the starting columns" : "",
-            Figures.money(n.path("objectiveAfter").asDouble()), b.isNumber() ? Figures.money(b.asDouble()) : "—"));
-      }
-      Map<String, String> options = VariantNames.options(n.path("options"));
-      out.println(String.format(Locale.ROOT, "  %-14s  %14s  %s", seg,
-          it == 0 ? "start" : Figures.price(n.path("reducedCost").asDouble()),
-          full || names == null ? VariantCodes.key(options) : names.shortName(options)));
+    long[] shownAndRound = {0, -1};
+    try {
+      ColumnLogReader.scan(file, n -> {
+        String seg = n.path("segment").asText();
+        if (segment != null && !segment.equals(seg)) {
+          return;
+        }
+        shownAndRound[0]++;
+        int it = n.path("iteration").asInt();
+        if (it != shownAndRound[1] || shownAndRound[0] == 1) {
+          // objective and bound belong to the round, not to each column: said once per round
+          shownAndRound[1] = it;
+          JsonNode b = n.path("boundAfter");
+          out.println(String.format(Locale.ROOT, "round %d at %s%s: objective after %s, bound after %s", it,
+              Durations.format(n.path("elapsedMs").asLong()), it == 0 ? ", the starting columns" : "",
+              Figures.money(n.path("objectiveAfter").asDouble()), b.isNumber() ? Figures.money(b.asDouble()) : "—"));
+        }
+        Map<String, String> options = VariantNames.options(n.path("options"));
+        out.println(String.format(Locale.ROOT, "  %-14s  %14s  %s", seg,
+            it == 0 ? "start" : Figures.price(n.path("reducedCost").asDouble()),
+            full || names == null ? VariantCodes.key(options) : names.shortName(options)));
+      });
+    } catch (IOException e) {
+      throw new UserError(e.getMessage()); // the file changed between the passes
     }
+    long shown = shownAndRound[0];
     out.println(shown + " columns" + (segment == null ? "" : " in segment " + segment)
-        + (entries.droppedTornLines() > 0 ? "; " + entries.droppedTornLines()
+        + (summary.droppedTornLines() > 0 ? "; " + summary.droppedTornLines()
             + " torn last line dropped (the run was cut off while writing it)" : ""));
     if (names != null && !full && shown > 0) {
       out.println("variants by their codes in the run's summary and report; \"V04 but X\": a variant outside the");
@@ -95,12 +103,12 @@ final class LogCommand extends RunDirCommand {
    * A --segment the run does not have is a typo, not an empty answer: refused with the run's segment
    * ids (from result.json, or the segments the log names when the run has not finished).
    */
-  private void refuseUnknownSegment(ColumnLogReader.Entries entries) {
+  private void refuseUnknownSegment(java.util.Set<String> logged) {
     java.util.Set<String> ids = new java.util.LinkedHashSet<>();
     try {
       RunResult.read(runDir).segments().forEach(s -> ids.add(s.id()));
     } catch (IOException e) {
-      entries.lines().forEach(n -> ids.add(n.path("segment").asText()));
+      ids.addAll(logged);
     }
     if (!ids.contains(segment)) {
       throw new UserError("--segment " + segment + ": the run has no such segment; its segments are "

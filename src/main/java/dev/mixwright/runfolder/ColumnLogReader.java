@@ -3,6 +3,7 @@ package dev.mixwright.runfolder;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.io.IOException;
+import java.io.InputStream;
 import java.nio.ByteBuffer;
 import java.nio.charset.CharacterCodingException;
 import java.nio.charset.CodingErrorAction;
@@ -10,7 +11,9 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
+import java.util.function.Consumer;
 
 /**
  * Reads {@code columns.jsonl}. A line is whole when it ends in a newline, is UTF-8, parses as a JSON
@@ -33,58 +36,87 @@ public final class ColumnLogReader {
     }
   }
 
+  /** What a {@link #scan} found besides the lines: as in {@link Entries}, and how many whole lines. */
+  public record Summary(long wholeLines, int droppedTornLines, long validBytes) {}
+
+  /** Every whole line in memory at once; for callers that need them all (a pool rebuilt, an export). */
   public static Entries read(Path file) throws IOException {
-    byte[] bytes = Files.readAllBytes(file);
     List<JsonNode> lines = new ArrayList<>();
+    Summary s = scan(file, lines::add);
+    return new Entries(lines, s.droppedTornLines(), s.validBytes());
+  }
+
+  /**
+   * Hands each whole line to {@code each} in order, holding one line at a time: an overnight run's log
+   * is read in memory of the size of its longest line. Damage is found where it is: a damaged line with
+   * whole lines after it throws once the next whole line is read, after the lines before it were handed
+   * on (validate first with a no-op consumer where that matters).
+   */
+  public static Summary scan(Path file, Consumer<JsonNode> each) throws IOException {
+    long whole = 0;
     int dropped = 0;
     long validBytes = 0;
     int badLine = -1; // 1-based number of a damaged whole line, while no whole line followed it
     long badStart = -1;
     int lineNo = 0;
-    int start = 0;
-    while (start < bytes.length) {
-      int end = start;
-      while (end < bytes.length && bytes[end] != '\n') {
-        end++;
+    long start = 0; // file offset of the line being read
+    byte[] line = new byte[4096];
+    int len = 0;
+    byte[] chunk = new byte[1 << 16];
+    try (InputStream in = Files.newInputStream(file)) {
+      int n;
+      while ((n = in.read(chunk)) > 0) {
+        for (int i = 0; i < n; i++) {
+          byte b = chunk[i];
+          if (b != '\n') {
+            if (len == line.length) {
+              line = Arrays.copyOf(line, 2 * line.length);
+            }
+            line[len++] = b;
+            continue;
+          }
+          lineNo++;
+          long end = start + len; // offset of the newline
+          JsonNode node = parse(line, 0, len);
+          boolean blank = node == null && isBlank(line, 0, len);
+          if (node != null || blank) {
+            if (badLine >= 0) {
+              throw new IOException(file.getFileName() + " line " + badLine
+                  + " is damaged (not a whole JSON line with a matching checksum) and whole lines follow it,"
+                  + " so it is not the mark of a crash; the file was changed by something else — move the"
+                  + " line out of the file and try again");
+            }
+            if (node != null) {
+              whole++;
+              each.accept(node);
+            }
+            validBytes = end + 1;
+          } else if (badLine < 0) {
+            badLine = lineNo;
+            badStart = start;
+            validBytes = start;
+            dropped++;
+          } else {
+            throw new IOException(file.getFileName() + " lines " + badLine + " and " + lineNo
+                + " are damaged; a crash damages at most the last line, so the file was changed by"
+                + " something else — move the damaged lines out of the file and try again");
+          }
+          start = end + 1;
+          len = 0;
+        }
       }
-      lineNo++;
-      if (end == bytes.length) {
-        // No newline after it: the process died while writing it.
-        if (badLine < 0) {
-          validBytes = start;
-        }
-        dropped++;
-        break;
-      }
-      JsonNode node = parse(bytes, start, end);
-      boolean blank = node == null && isBlank(bytes, start, end);
-      if (node != null || blank) {
-        if (badLine >= 0) {
-          throw new IOException(file.getFileName() + " line " + badLine
-              + " is damaged (not a whole JSON line with a matching checksum) and whole lines follow it,"
-              + " so it is not the mark of a crash; the file was changed by something else — move the"
-              + " line out of the file and try again");
-        }
-        if (node != null) {
-          lines.add(node);
-        }
-        validBytes = end + 1L;
-      } else if (badLine < 0) {
-        badLine = lineNo;
-        badStart = start;
+    }
+    if (len > 0) {
+      // No newline after it: the process died while writing it.
+      if (badLine < 0) {
         validBytes = start;
-        dropped++;
-      } else {
-        throw new IOException(file.getFileName() + " lines " + badLine + " and " + lineNo
-            + " are damaged; a crash damages at most the last line, so the file was changed by"
-            + " something else — move the damaged lines out of the file and try again");
       }
-      start = end + 1;
+      dropped++;
     }
     if (badLine >= 0) {
       validBytes = badStart;
     }
-    return new Entries(lines, dropped, validBytes);
+    return new Summary(whole, dropped, validBytes);
   }
 
   /** The line's JSON object when it is whole, else null. */

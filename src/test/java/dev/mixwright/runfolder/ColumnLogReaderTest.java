@@ -142,6 +142,31 @@ class ColumnLogReaderTest {
     }
   }
 
+  /**
+   * {@link ColumnLogReader#scan} holds one line at a time (what `log` uses on an overnight run's log):
+   * the same lines in the same order as {@link ColumnLogReader#read}, lines longer than its buffers
+   * (4 KiB for a line, 64 KiB read at once) whole, and the same torn-line count and valid length.
+   */
+  @Test
+  void aScanHandsOnTheSameLinesOneAtATime() throws IOException {
+    StringBuilder text = new StringBuilder(new String(whole, StandardCharsets.UTF_8));
+    String longNote = "x".repeat(150_000); // spans three reads of the file
+    text.append("{\"iteration\":9,\"segment\":\"retrofit\",\"note\":\"").append(longNote).append("\"}\n");
+    text.append("{\"iteration\":9,\"seg"); // a torn last line
+    Files.writeString(log(), text);
+    ColumnLogReader.Entries all = ColumnLogReader.read(log());
+    List<JsonNode> seen = new java.util.ArrayList<>();
+    ColumnLogReader.Summary s = ColumnLogReader.scan(log(), seen::add);
+    assertEquals(lines + 1, seen.size());
+    assertEquals(all.lines(), seen);
+    assertEquals(longNote, seen.get(lines).path("note").asText());
+    assertEquals(lines + 1, s.wholeLines());
+    assertEquals(1, s.droppedTornLines());
+    assertEquals(all.validBytes(), s.validBytes());
+    assertEquals(text.toString().getBytes(StandardCharsets.UTF_8).length - "{\"iteration\":9,\"seg".length(),
+        s.validBytes());
+  }
+
   @Test
   void aLineWithoutChecksumFromAnOlderLogIsStillRead() throws IOException {
     Files.writeString(log(), "{\"iteration\":0,\"segment\":\"retrofit\",\"options\":{}}\n");
