@@ -410,23 +410,7 @@ public final class VariantPricer {
       }
       decides[g] = size;
     }
-    int n = 0;
-    for (int g : staticOrder) {
-      if (decides[g] > 0) {
-        // stable insertion by decreasing size: equal sizes keep the static order
-        int p = n++;
-        while (p > 0 && decides[nextOrder[p - 1]] < decides[g]) {
-          nextOrder[p] = nextOrder[p - 1];
-          p--;
-        }
-        nextOrder[p] = g;
-      }
-    }
-    for (int g : staticOrder) {
-      if (decides[g] == 0) {
-        nextOrder[n++] = g;
-      }
-    }
+    SearchOrder.firstBy(staticOrder, g -> decides[g] > 0, decides, nextOrder);
     if (!Arrays.equals(nextOrder, order)) {
       order = nextOrder.clone();
       rules = new ForwardChecker(space, order, ForwardChecker.NO_WATCH);

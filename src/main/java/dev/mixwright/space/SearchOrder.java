@@ -98,21 +98,32 @@ public final class SearchOrder {
       }
       regret[g] = second == Double.NEGATIVE_INFINITY ? Double.POSITIVE_INFINITY : best - second;
     }
+    return firstBy(base, g -> space.nogoodsOf(g).length > 0, regret, into);
+  }
+
+  /**
+   * The groups of {@code base} that {@code first} holds for, by decreasing {@code key} (stable: equal
+   * keys keep the order of {@code base}), then the others in the order of {@code base}. O(G²) at worst
+   * (an insertion sort: G is tens to hundreds).
+   *
+   * @param into receives the order (length G); returned
+   */
+  public static int[] firstBy(int[] base, java.util.function.IntPredicate first, double[] key, int[] into) {
     int n = 0;
     for (int g : base) {
-      if (space.nogoodsOf(g).length == 0) {
+      if (!first.test(g)) {
         continue;
       }
-      // stable insertion: a later group of equal regret stays behind the earlier ones
+      // stable insertion: a later group of equal key stays behind the earlier ones
       int p = n++;
-      while (p > 0 && regret[into[p - 1]] < regret[g]) {
+      while (p > 0 && key[into[p - 1]] < key[g]) {
         into[p] = into[p - 1];
         p--;
       }
       into[p] = g;
     }
     for (int g : base) {
-      if (space.nogoodsOf(g).length == 0) {
+      if (!first.test(g)) {
         into[n++] = g;
       }
     }
