@@ -51,7 +51,8 @@ import java.util.function.BooleanSupplier;
  * made one pricing call take 22 s (161 million search nodes) to find nothing, and bonuses of 3.5·10^9
  * on three segments, two of which accept disjoint capacities, one of 14.5 s; with both terms no call
  * without bonuses took more than 0.3 s in the runs measured, and those with bonuses 1–5 s
- * (docs/portfolio.md, "A search order per pricing query").
+ * (docs/portfolio.md, "A search order per pricing query"). Choice penalties are followed the same
+ * way ({@link #penaltyAhead}): the completion's choices must all be accepted by one segment.
  *
  * <p>Segments that choose (multinomial logit) cap a variant's sales by its own logit cap: x_sv ≤ U_sv =
  * buyers_s·w/(1+w), w = exp(u_s(v) − stayOut_s), in every portfolio (docs/portfolio.md, "Segments
@@ -104,6 +105,9 @@ public final class VariantPricer {
   private final int[] bonusMask; // [flat]: bit j when bonus segment j accepts the choice
   private final double[] bonusSum = new double[1 << BONUS_SEGMENTS]; // [T]: Σ |δ_s| over the subset
   private final long[] together; // [depth]: bit T when the unassigned groups can all be accepted by T
+  /** The query has penalties: {@link #penaltyAhead} follows them per segment. */
+  private boolean penalized;
+  private final double[] penRestIn; // [segment]: Σ over the unassigned groups of the least penalty s accepts
   private final boolean[] usable;
 
   private final double[][] partial; // [depth][segment]: Σ of the assigned weights (finite ones)
@@ -178,6 +182,7 @@ public final class VariantPricer {
     nextOrder = new int[groups];
     decides = new double[groups];
     bonusSeg = new int[perScenario];
+    penRestIn = new double[perScenario];
     bonusMask = new int[space.totalChoices()];
     together = new long[groups + 1];
     rules = new ForwardChecker(space, order, ForwardChecker.NO_WATCH);
@@ -344,6 +349,10 @@ public final class VariantPricer {
       }
     }
     pen = q.penalty() == null ? new double[space.totalChoices()] : q.penalty();
+    penalized = false;
+    for (double x : pen) {
+      penalized |= x != 0;
+    }
     charge = q.charge();
     accCharge = q.acceptCharge();
     threshold = q.threshold();
@@ -455,6 +464,9 @@ public final class VariantPricer {
     }
     int g = order[d];
     double penRest = 0;
+    if (penalized) {
+      Arrays.fill(penRestIn, 0.0);
+    }
     Arrays.fill(rest, 0.0);
     Arrays.fill(restUtil, 0.0);
     for (int e = d + 1; e < groups; e++) {
@@ -481,6 +493,17 @@ public final class VariantPricer {
         }
       }
       penRest += minPen;
+      if (penalized) {
+        for (int s = 0; s < perScenario; s++) {
+          double least = Double.POSITIVE_INFINITY;
+          for (int f = offset[h]; f < offset[h + 1]; f++) {
+            if (usable[f] && !rules.blocked(f) && w[s][f] != Double.NEGATIVE_INFINITY && pen[f] < least) {
+              least = pen[f];
+            }
+          }
+          penRestIn[s] += least;
+        }
+      }
     }
     if (accCharge != null) {
       certainAcceptance(d);
@@ -508,7 +531,8 @@ public final class VariantPricer {
         logitCaps(ub, leafU);
       }
       double b = lotValue(ub)
-          - charge - (penPartial[d] + pen[f] + penRest) - (accCharge == null ? 0.0 : acceptance(ub, false, d));
+          - charge - (penPartial[d] + pen[f] + penaltyAhead(ub, penRest))
+          - (accCharge == null ? 0.0 : acceptance(ub, false, d));
       n = BestFirst.insert(cb, cs, n, b, f);
     }
     for (int i = 0; i < n; i++) {
@@ -544,6 +568,27 @@ public final class VariantPricer {
       rules.undo(mark);
     }
     return true;
+  }
+
+  /**
+   * The least penalty the unassigned groups can add: a completion sells only to segments that accept
+   * every choice of it, and to at least one (g is −∞ otherwise), so its penalty there is at least the
+   * least, over the segments that may still accept it, of the sum per group of the smallest penalty
+   * among the choices that segment accepts ({@link #penRestIn}); never less than the smallest
+   * penalties over all choices ({@code any}). Under a tree node's count duals, bonuses of the size of
+   * the master's artificial cost on choices that no one segment accepts together otherwise all count.
+   */
+  private double penaltyAhead(double[] ub, double any) {
+    if (!penalized) {
+      return any;
+    }
+    double least = Double.POSITIVE_INFINITY;
+    for (int s = 0; s < perScenario; s++) {
+      if (ub[s] != Double.NEGATIVE_INFINITY) {
+        least = Math.min(least, penRestIn[s]);
+      }
+    }
+    return least == Double.POSITIVE_INFINITY ? any : Math.max(any, least);
   }
 
   /** {@link #sure} for the groups after depth d: their remaining choices all accepted by segment s. */
