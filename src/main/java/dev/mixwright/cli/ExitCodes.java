@@ -40,6 +40,20 @@ public final class ExitCodes {
         .map(line -> Where.printable(line, MAX_LINE)).collect(java.util.stream.Collectors.joining("\n"));
   }
 
+  /**
+   * The JVM ran out of heap: said with the limit it had and how to give it more. Run folders hold
+   * only whole files (each written to a temporary file and moved into place; the column log line by
+   * line, a torn last line dropped on reading), so what was written before stays readable.
+   */
+  static int outOfMemory(PrintWriter err, OutOfMemoryError e) {
+    long mib = Runtime.getRuntime().maxMemory() / (1024 * 1024);
+    err.println("mixwright: ran out of memory (" + shown(e.getMessage()) + ") with a heap limit of " + mib
+        + " MiB; give Java more, e.g. java -Xmx4g -jar mixwright.jar ... (up to what the machine has"
+        + " to spare), or solve a smaller catalog");
+    err.flush();
+    return FAULT;
+  }
+
   /** picocli's refusal of a command line, its message shown as {@link #shown} allows, then the usage. */
   static int invalid(CommandLine.ParameterException e, String[] args) {
     CommandLine cl = e.getCommandLine();

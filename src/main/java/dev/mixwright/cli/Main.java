@@ -68,11 +68,24 @@ public final class Main implements Runnable {
     }
     cl.setOut(out);
     cl.setErr(err);
-    cl.setExecutionExceptionHandler(ExitCodes::handle);
-    cl.setParameterExceptionHandler(ExitCodes::invalid);
-    int code = cl.execute(args);
+    int code = execute(cl, args);
     out.flush();
     err.flush();
     return code;
+  }
+
+  /**
+   * Runs a command line with the project's handlers. Picocli hands exceptions to {@link ExitCodes#handle}
+   * but lets errors through; running out of heap is the one a user can act on, so it is said in words
+   * (with the heap limit and how to raise it) instead of a stack trace.
+   */
+  static int execute(CommandLine cl, String[] args) {
+    cl.setExecutionExceptionHandler(ExitCodes::handle);
+    cl.setParameterExceptionHandler(ExitCodes::invalid);
+    try {
+      return cl.execute(args);
+    } catch (OutOfMemoryError e) {
+      return ExitCodes.outOfMemory(cl.getErr(), e);
+    }
   }
 }

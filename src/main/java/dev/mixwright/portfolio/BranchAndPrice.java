@@ -83,7 +83,8 @@ final class BranchAndPrice {
   private String stopReason = "";
   private String stuckReason = "";
   private double artificialCost = 1;
-  private final AtomicReference<RuntimeException> failure = new AtomicReference<>();
+  /** What ended a worker: an exception, or an error such as running out of heap, rethrown by {@link #run}. */
+  private final AtomicReference<Throwable> failure = new AtomicReference<>();
   /**
    * The retired nodes, kept so that those with decisions left can go back to the open list ({@link
    * #reopen}); the proof set, their largest bound and their floor are read from them.
@@ -206,8 +207,12 @@ final class BranchAndPrice {
         Thread.currentThread().interrupt();
       }
     }
-    if (failure.get() != null) {
-      throw failure.get();
+    Throwable failed = failure.get();
+    if (failed instanceof RuntimeException re) {
+      throw re;
+    }
+    if (failed instanceof Error er) {
+      throw er;
     }
     synchronized (lock) {
       double bound = Math.max(Math.max(incumbent.value(), prunedMax), retiredMax());
@@ -288,7 +293,7 @@ final class BranchAndPrice {
           lock.notifyAll();
         }
       }
-    } catch (RuntimeException e) {
+    } catch (RuntimeException | Error e) {
       failure.compareAndSet(null, e);
       synchronized (lock) {
         lock.notifyAll();

@@ -1,0 +1,63 @@
+package dev.mixwright.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.util.concurrent.Callable;
+import org.junit.jupiter.api.Test;
+import picocli.CommandLine;
+
+/**
+ * Picocli hands a command's exceptions to the project's handler but lets errors through, so running out
+ * of heap used to end in a JVM stack trace (`log` on a 209 MB column log did, before it streamed). A
+ * command that runs out of heap now ends with one line that names the heap limit and how to raise it,
+ * exit code {@link ExitCodes#FAULT}, and no stack trace.
+ */
+class OutOfMemoryTest {
+  @CommandLine.Command(name = "greedy")
+  static final class Greedy implements Callable<Integer> {
+    @Override
+    public Integer call() {
+      throw new OutOfMemoryError("Java heap space");
+    }
+  }
+
+  @CommandLine.Command(name = "broken")
+  static final class Broken implements Callable<Integer> {
+    @Override
+    public Integer call() {
+      throw new IllegalStateException("broken");
+    }
+  }
+
+  @Test
+  void runningOutOfHeapIsSaidInWordsWithTheLimit() {
+    StringWriter err = new StringWriter();
+    CommandLine cl = new CommandLine(new Greedy());
+    cl.setOut(new PrintWriter(new StringWriter(), true));
+    cl.setErr(new PrintWriter(err, true));
+    int code = Main.execute(cl, new String[0]);
+    String said = err.toString();
+    assertEquals(ExitCodes.FAULT, code);
+    assertTrue(said.startsWith("mixwright: ran out of memory (Java heap space) with a heap limit of "), said);
+    assertTrue(said.contains(Runtime.getRuntime().maxMemory() / (1024 * 1024) + " MiB"), said);
+    assertTrue(said.contains("-Xmx"), said);
+    assertFalse(said.contains("\tat "), "no stack trace: " + said);
+    assertEquals(1, said.strip().lines().count(), said);
+  }
+
+  /** Other failures keep their own handling: a plain exception is an internal fault, in words. */
+  @Test
+  void otherFailuresStillGoToTheHandler() {
+    StringWriter err = new StringWriter();
+    CommandLine cl = new CommandLine(new Broken());
+    cl.setOut(new PrintWriter(new StringWriter(), true));
+    cl.setErr(new PrintWriter(err, true));
+    assertEquals(ExitCodes.FAULT, Main.execute(cl, new String[0]));
+    assertTrue(err.toString().startsWith("mixwright: internal fault: java.lang.IllegalStateException: broken"),
+        err.toString());
+  }
+}
