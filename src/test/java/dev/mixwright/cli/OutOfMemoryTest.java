@@ -36,10 +36,7 @@ class OutOfMemoryTest {
   @Test
   void runningOutOfHeapIsSaidInWordsWithTheLimit() {
     StringWriter err = new StringWriter();
-    CommandLine cl = new CommandLine(new Greedy());
-    cl.setOut(new PrintWriter(new StringWriter(), true));
-    cl.setErr(new PrintWriter(err, true));
-    int code = Main.execute(cl, new String[0]);
+    int code = execute(new Greedy(), err);
     String said = err.toString();
     assertEquals(ExitCodes.FAULT, code);
     assertTrue(said.startsWith("mixwright: ran out of memory (Java heap space) with a heap limit of "), said);
@@ -53,11 +50,16 @@ class OutOfMemoryTest {
   @Test
   void otherFailuresStillGoToTheHandler() {
     StringWriter err = new StringWriter();
-    CommandLine cl = new CommandLine(new Broken());
-    cl.setOut(new PrintWriter(new StringWriter(), true));
-    cl.setErr(new PrintWriter(err, true));
-    assertEquals(ExitCodes.FAULT, Main.execute(cl, new String[0]));
+    assertEquals(ExitCodes.FAULT, execute(new Broken(), err));
     assertTrue(err.toString().startsWith("mixwright: internal fault: java.lang.IllegalStateException: broken"),
         err.toString());
+  }
+
+  /** The command run as {@link Main} runs one, its error stream into {@code err}; the exit code. */
+  private static int execute(Callable<Integer> command, StringWriter err) {
+    CommandLine cl = new CommandLine(command);
+    cl.setOut(new PrintWriter(new StringWriter(), true));
+    cl.setErr(new PrintWriter(err, true));
+    return Main.execute(cl, new String[0]);
   }
 }
