@@ -427,6 +427,7 @@ final class BranchAndPrice {
 
     private PortfolioLp choosing(PortfolioLp fresh) {
       fresh.reserveRows(); // blocks enter node after node: keep GLOP's warm start
+      fresh.presolve(); // bounds change from node to node, many blocks sit fixed: presolve removes them
       pool.choice().enter(fresh);
       // a node's solve must not outlast the stage: GLOP gets the time left, and a node cut off is parked
       fresh.stopAt(deadlineNanos);
