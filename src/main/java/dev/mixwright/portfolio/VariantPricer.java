@@ -475,10 +475,12 @@ public final class VariantPricer {
       for (int s = 0; s < segments; s++) {
         double best = Double.NEGATIVE_INFINITY;
         double bestUtil = Double.NEGATIVE_INFINITY;
+        double least = Double.POSITIVE_INFINITY; // the least penalty among the choices s accepts
         double[] us = util[s];
         for (int f = offset[h]; f < offset[h + 1]; f++) {
           if (usable[f] && !rules.blocked(f) && w[s][f] != Double.NEGATIVE_INFINITY) {
             best = Math.max(best, w[s][f]);
+            least = Math.min(least, pen[f]);
             if (us != null) {
               bestUtil = Math.max(bestUtil, us[f]);
             }
@@ -486,6 +488,9 @@ public final class VariantPricer {
         }
         rest[s] += best;
         restUtil[s] += bestUtil;
+        if (penalized && s < perScenario) {
+          penRestIn[s] += least;
+        }
       }
       for (int f = offset[h]; f < offset[h + 1]; f++) {
         if (usable[f] && !rules.blocked(f) && pen[f] < minPen) {
@@ -493,17 +498,6 @@ public final class VariantPricer {
         }
       }
       penRest += minPen;
-      if (penalized) {
-        for (int s = 0; s < perScenario; s++) {
-          double least = Double.POSITIVE_INFINITY;
-          for (int f = offset[h]; f < offset[h + 1]; f++) {
-            if (usable[f] && !rules.blocked(f) && w[s][f] != Double.NEGATIVE_INFINITY && pen[f] < least) {
-              least = pen[f];
-            }
-          }
-          penRestIn[s] += least;
-        }
-      }
     }
     if (accCharge != null) {
       certainAcceptance(d);
