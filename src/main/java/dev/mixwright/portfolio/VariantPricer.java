@@ -104,7 +104,6 @@ public final class VariantPricer {
   private int bonusCount;
   private final int[] bonusMask; // [flat]: bit j when bonus segment j accepts the choice
   private final double[] bonusSum = new double[1 << BONUS_SEGMENTS]; // [T]: Σ |δ_s| over the subset
-  private final long[] together; // [depth]: bit T when the unassigned groups can all be accepted by T
   /** The query has penalties: {@link #penaltyAhead} follows them per segment. */
   private boolean penalized;
   private final double[] penRestIn; // [segment]: Σ over the unassigned groups of the least penalty s accepts
@@ -184,7 +183,6 @@ public final class VariantPricer {
     bonusSeg = new int[perScenario];
     penRestIn = new double[perScenario];
     bonusMask = new int[space.totalChoices()];
-    together = new long[groups + 1];
     rules = new ForwardChecker(space, order, ForwardChecker.NO_WATCH);
     usable = new boolean[space.totalChoices()];
     partial = new double[groups + 1][segments];
@@ -502,9 +500,8 @@ public final class VariantPricer {
     if (accCharge != null) {
       certainAcceptance(d);
     }
-    if (bonusCount > 0) {
-      together[d] = jointAcceptance(d);
-    }
+    // bit T: the unassigned groups can all be accepted by the bonus segments T (all bits without bonuses)
+    long together = bonusCount > 0 ? jointAcceptance(d) : -1L;
     int n = 0;
     int[] cs = cand[d];
     double[] cb = candBound[d];
@@ -526,7 +523,7 @@ public final class VariantPricer {
       }
       double b = lotValue(ub)
           - charge - (penPartial[d] + pen[f] + penaltyAhead(ub, penRest))
-          - (accCharge == null ? 0.0 : acceptance(ub, false, d));
+          - (accCharge == null ? 0.0 : acceptance(ub, false, together));
       n = BestFirst.insert(cb, cs, n, b, f);
     }
     for (int i = 0; i < n; i++) {
@@ -605,8 +602,9 @@ public final class VariantPricer {
    * At a leaf ({@code exact}) a finite d_s means s accepts; inside the tree a charge in full only where
    * {@link #sure} (else at most what rejecting s would cost, see the class comment), a bonus wherever s
    * may still accept. The loss term uses {@link #caps}, the caps g(ub) was just evaluated with.
+   * {@code together}: {@link #jointAcceptance} of the node (unused at a leaf).
    */
-  private double acceptance(double[] ub, boolean exact, int d) {
+  private double acceptance(double[] ub, boolean exact, long together) {
     double sum = 0;
     double least = Double.POSITIVE_INFINITY;
     boolean joint = !exact && bonusCount > 0;
@@ -641,9 +639,8 @@ public final class VariantPricer {
       }
       // the best bonus a completion can collect: a set of segments that can all accept it
       double best = 0;
-      long can = together[d];
       for (int t = alive; t > 0; t = (t - 1) & alive) {
-        if ((can >>> t & 1L) != 0 && bonusSum[t] > best) {
+        if ((together >>> t & 1L) != 0 && bonusSum[t] > best) {
           best = bonusSum[t];
         }
       }
@@ -753,7 +750,7 @@ public final class VariantPricer {
     for (int g = 0; g < groups; g++) {
       p += pen[offset[g] + v[g]];
     }
-    double val = lotValue(d) - charge - p - (accCharge == null ? 0.0 : acceptance(d, true, groups));
+    double val = lotValue(d) - charge - p - (accCharge == null ? 0.0 : acceptance(d, true, -1L));
     if (val > cutoff() && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
       top.add(new PricedVariant(v.clone(), val));
       if (top.size() > k) {
