@@ -54,6 +54,17 @@ public final class ExitCodes {
     return FAULT;
   }
 
+  /** The out-of-memory error among an exception's causes, or null. */
+  private static OutOfMemoryError outOfMemoryIn(Throwable e) {
+    java.util.Set<Throwable> seen = java.util.Collections.newSetFromMap(new java.util.IdentityHashMap<>());
+    for (Throwable t = e; t != null && seen.add(t); t = t.getCause()) {
+      if (t instanceof OutOfMemoryError oom) {
+        return oom;
+      }
+    }
+    return null;
+  }
+
   /** picocli's refusal of a command line, its message shown as {@link #shown} allows, then the usage. */
   static int invalid(CommandLine.ParameterException e, String[] args) {
     CommandLine cl = e.getCommandLine();
@@ -68,6 +79,11 @@ public final class ExitCodes {
 
   static int handle(Exception e, CommandLine cl, ParseResult parsed) {
     PrintWriter err = cl.getErr();
+    OutOfMemoryError oom = outOfMemoryIn(e);
+    if (oom != null) {
+      // a worker thread ran out of heap and its pool handed the error on, wrapped (scenario sets, counts)
+      return outOfMemory(err, oom);
+    }
     if (e instanceof CatalogException ce) {
       err.println("mixwright: the catalog has " + ce.problems().size()
           + (ce.problems().size() == 1 ? " problem:" : " problems:"));

@@ -25,6 +25,24 @@ class OutOfMemoryTest {
     }
   }
 
+  /** A pool thread ran out of heap, and the pool handed the error on as a cause (as ThreadPoolEngine does). */
+  @CommandLine.Command(name = "pooled")
+  static final class Pooled implements Callable<Integer> {
+    @Override
+    public Integer call() throws Exception {
+      java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newSingleThreadExecutor();
+      try {
+        return pool.submit((Callable<Integer>) () -> {
+          throw new OutOfMemoryError("Java heap space");
+        }).get();
+      } catch (java.util.concurrent.ExecutionException e) {
+        throw new IllegalStateException("point 3 failed: " + e.getCause(), e);
+      } finally {
+        pool.shutdownNow();
+      }
+    }
+  }
+
   @CommandLine.Command(name = "broken")
   static final class Broken implements Callable<Integer> {
     @Override
@@ -43,6 +61,18 @@ class OutOfMemoryTest {
     assertTrue(said.contains(Runtime.getRuntime().maxMemory() / (1024 * 1024) + " MiB"), said);
     assertTrue(said.contains("-Xmx"), said);
     assertFalse(said.contains("\tat "), "no stack trace: " + said);
+    assertEquals(1, said.strip().lines().count(), said);
+  }
+
+  /** The same from a worker thread, whose pool wraps the error in exceptions: said the same way. */
+  @Test
+  void runningOutOfHeapInAWorkerThreadIsSaidTheSameWay() {
+    StringWriter err = new StringWriter();
+    int code = execute(new Pooled(), err);
+    String said = err.toString();
+    assertEquals(ExitCodes.FAULT, code);
+    assertTrue(said.startsWith("mixwright: ran out of memory (Java heap space) with a heap limit of "), said);
+    assertFalse(said.contains("internal fault"), said);
     assertEquals(1, said.strip().lines().count(), said);
   }
 
