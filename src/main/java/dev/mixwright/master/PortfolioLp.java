@@ -41,6 +41,12 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   /** Per block, the index into {@link #attractionRows} of each entry's row (−1 for none); grown lazily. */
   private final List<int[]> attractionOf = new ArrayList<>();
 
+  /** The segment cuts ({@link #addSegmentCut}), in the order added. */
+  private final List<SegmentCut> cuts = new ArrayList<>();
+
+  /** Σ_{i in blocks} (x_{i,s} − r·y_i) ≤ rhs over segment s; entry[j] is block j's entry for s. */
+  private record SegmentCut(int segment, int[] blocks, int[] entry, double r, double rhs, MPConstraint row) {}
+
   /** The worst scenario's rows ({@link #worstCase}), null while the objective is the margin itself. */
   private MPConstraint[] worstRows;
 
@@ -219,6 +225,76 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
     return counts.get(r).dualValue();
   }
 
+  /**
+   * Adds the row Σ_{i ∈ blocks} (x_{i,s} − r·y_i) ≤ rhs over segment s (each listed block must sell in
+   * s); returns its index. The caller proves it valid for every integer portfolio (a segment cut of
+   * {@code portfolio.SegmentCuts}); the master only holds it, verifies it and reports its dual.
+   */
+  public int addSegmentCut(int segment, int[] blockList, double r, double rhs) {
+    int[] entry = new int[blockList.length];
+    MPConstraint c = rows.row(Double.NEGATIVE_INFINITY, rhs, "cut" + cuts.size());
+    for (int j = 0; j < blockList.length; j++) {
+      Block b = blocks.get(blockList[j]);
+      entry[j] = -1;
+      for (int k = 0; k < b.segments().length; k++) {
+        if (b.segments()[k] == segment) {
+          entry[j] = k;
+        }
+      }
+      if (entry[j] < 0) {
+        throw new IllegalArgumentException("block " + blockList[j] + " does not sell in segment " + segment);
+      }
+      c.setCoefficient(b.x()[entry[j]], 1.0);
+      c.setCoefficient(b.y(), -r);
+    }
+    cuts.add(new SegmentCut(segment, blockList.clone(), entry, r, rhs, c));
+    return cuts.size() - 1;
+  }
+
+  public int segmentCutCount() {
+    return cuts.size();
+  }
+
+  /**
+   * After an optimal solve: per block, per entry, Σ γ_c over the segment cuts holding it (γ_c ≥ 0);
+   * null for a block in no cut with a positive dual.
+   */
+  public double[][] segmentCutDuals() {
+    double[][] g = new double[blocks.size()][];
+    for (SegmentCut c : cuts) {
+      double gamma = Rows.nonNegativeDual(c.row());
+      for (int j = 0; j < c.blocks().length && gamma > 0; j++) {
+        int i = c.blocks()[j];
+        if (g[i] == null) {
+          g[i] = new double[blocks.get(i).segments().length];
+        }
+        g[i][c.entry()[j]] += gamma;
+      }
+    }
+    return g;
+  }
+
+  /** After an optimal solve: per block, Σ r_c·γ_c over the segment cuts holding it. */
+  public double[] segmentCutBonus() {
+    double[] bonus = new double[blocks.size()];
+    for (SegmentCut c : cuts) {
+      double gamma = Rows.nonNegativeDual(c.row());
+      for (int j = 0; j < c.blocks().length && gamma > 0; j++) {
+        bonus[c.blocks()[j]] += c.r() * gamma;
+      }
+    }
+    return bonus;
+  }
+
+  /** After an optimal solve: Σ γ_c·rhs_c over the segment cuts. */
+  public double segmentCutConstant() {
+    double sum = 0;
+    for (SegmentCut c : cuts) {
+      sum += Rows.nonNegativeDual(c.row()) * c.rhs();
+    }
+    return sum;
+  }
+
   public int variantCount() {
     return blocks.size();
   }
@@ -314,6 +390,15 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
       int s = blocks.get(i).segments()[(int) a[1]];
       double room = a[2] * stay[s].solutionValue();
       if (x[i][(int) a[1]] > room + FEASIBILITY_TOLERANCE * Math.max(1.0, room)) {
+        return false;
+      }
+    }
+    for (SegmentCut c : cuts) {
+      double lhs = 0;
+      for (int j = 0; j < c.blocks().length; j++) {
+        lhs += x[c.blocks()[j]][c.entry()[j]] - c.r() * y[c.blocks()[j]];
+      }
+      if (lhs > c.rhs() + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(c.rhs()))) {
         return false;
       }
     }

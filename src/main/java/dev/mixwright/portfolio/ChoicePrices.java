@@ -25,25 +25,55 @@ import dev.mixwright.master.PortfolioLp;
  * a choosing segment was valued as if it could take all the segment's buyers. Cost: O(pool · S · R)
  * per bound.
  */
-record ChoicePrices(double[][] beta, double[] stayOut) {
+record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cutConstant) {
+
+  /** Attraction rows only, no segment cuts. */
+  ChoicePrices(double[][] beta, double[] stayOut) {
+    this(beta, stayOut, new double[0], 0.0);
+  }
 
   /** No attraction rows priced: β = 0 (the bound of docs/portfolio.md, step 1). */
   static ChoicePrices none(int segments) {
     return new ChoicePrices(new double[0][], new double[segments]);
   }
 
-  /** β of the first {@code blocks} blocks of an optimally solved master (block i = pool variant i). */
+  /**
+   * β of the first {@code blocks} blocks of an optimally solved master (block i = pool variant i),
+   * with the master's segment cuts ({@link SegmentCuts}) relaxed the same way at their duals γ_c ≥ 0:
+   * a cut Σ_{v ∈ C} (x_vs − r·y_v) ≤ rhs adds γ_c·(rhs − lhs) ≥ 0 to the right-hand side, which is γ_c
+   * on each of its columns (added to β), r·γ_c to the value of each of its variants when offered
+   * ({@link #bonus}) and γ_c·rhs to the constant. A variant in no cut (every variant outside the master)
+   * is valued as before.
+   */
   static ChoicePrices of(PortfolioLp lp, int blocks) {
     double[][] beta = new double[blocks][];
+    double[][] gamma = lp.segmentCutCount() == 0 ? new double[0][] : lp.segmentCutDuals();
     for (int i = 0; i < blocks; i++) {
       beta[i] = lp.attractionDuals(i);
+      if (i < gamma.length && gamma[i] != null) {
+        for (int k = 0; k < beta[i].length; k++) {
+          beta[i][k] += gamma[i][k];
+        }
+      }
     }
-    return new ChoicePrices(beta, lp.stayOutDuals());
+    if (lp.segmentCutCount() == 0) {
+      return new ChoicePrices(beta, lp.stayOutDuals());
+    }
+    return new ChoicePrices(beta, lp.stayOutDuals(), java.util.Arrays.copyOf(lp.segmentCutBonus(), blocks),
+        lp.segmentCutConstant());
   }
 
-  /** Σ over choosing segments of D_s·(Σ_v w_sv β_sv − μ_s)⁺: the stay-out's share of the constant. */
+  /** r·γ summed over the segment cuts that hold block i (0 for none). */
+  double bonusOf(int i) {
+    return i >= 0 && i < bonus.length ? bonus[i] : 0.0;
+  }
+
+  /**
+   * Σ over choosing segments of D_s·(Σ_v w_sv β_sv − μ_s)⁺ (the stay-out's share of the constant), plus
+   * Σ γ_c·rhs_c of the segment cuts.
+   */
   double constant(PortfolioTerms terms, double[] mu) {
-    double c = 0;
+    double c = cutConstant;
     for (int s = 0; s < stayOut.length; s++) {
       if (stayOut[s] > mu[s]) {
         c += terms.demand()[s] * (stayOut[s] - mu[s]);
@@ -76,6 +106,6 @@ record ChoicePrices(double[][] beta, double[] stayOut) {
         p += penalty[offsets[g] + v.choices()[g]];
       }
     }
-    return LotValue.best(d, v.upper(), minLot) - charge - p;
+    return LotValue.best(d, v.upper(), minLot) - charge - p + bonusOf(i);
   }
 }

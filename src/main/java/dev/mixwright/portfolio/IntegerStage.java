@@ -345,7 +345,7 @@ public final class IntegerStage {
       keep.add(i);
     }
     for (int i = 0; i < firstSurvivor; i++) {
-      if (mayImprove(pool.get(i), b, s.incumbent)) {
+      if (mayImprove(pool.get(i), i, b, s.incumbent)) {
         keep.add(i);
       }
     }
@@ -358,11 +358,12 @@ public final class IntegerStage {
    * the per-segment caps, at least the ψ the bound used ({@link ChoicePrices}), so a variant that fails
    * cannot be part of a portfolio better than the incumbent anywhere in the space.
    */
-  private boolean mayImprove(PoolVariant v, LagrangianPortfolioBound b, Plan incumbent) {
+  private boolean mayImprove(PoolVariant v, int i, LagrangianPortfolioBound b, Plan incumbent) {
     double z = incumbent.value() - 1e-7 * (1 + Math.abs(incumbent.value()));
     VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), 0.0, null, Double.NEGATIVE_INFINITY, 1,
         null, 0);
-    double psi = VariantPricer.value(space, terms, v.choices(), at) - v.fixedCost();
+    // the segment cuts' r·γ is the one term that raises a pool variant's value in the bound
+    double psi = VariantPricer.value(space, terms, v.choices(), at) - v.fixedCost() + b.poolBonusOf(i);
     return b.withVariant(psi) - terms.toolingOf(space, v.choices()) > z;
   }
 
@@ -414,7 +415,7 @@ public final class IntegerStage {
   private void proofOverRetired(Pool pool, BranchAndPrice.Result r, Search s, LagrangianPortfolioBound root) {
     java.util.TreeSet<Integer> over = new java.util.TreeSet<>();
     for (int i : r.proofSet()) {
-      if (!root.isFinite() || mayImprove(pool.get(i), root, s.incumbent)) {
+      if (!root.isFinite() || mayImprove(pool.get(i), i, root, s.incumbent)) {
         over.add(i);
       }
     }

@@ -22,7 +22,28 @@ import java.util.Arrays;
  * excluded set is largest. Cost: one sort of the listed values.
  */
 public record LagrangianPortfolioBound(
-    double value, double lambda, double valueAtLambda, double[] resourcePrice, double[] segmentPrice) {
+    double value, double lambda, double valueAtLambda, double[] resourcePrice, double[] segmentPrice,
+    double[] poolBonus) {
+
+  public LagrangianPortfolioBound(double value, double lambda, double valueAtLambda, double[] resourcePrice,
+      double[] segmentPrice) {
+    this(value, lambda, valueAtLambda, resourcePrice, segmentPrice, new double[0]);
+  }
+
+  /**
+   * The same bound, noting for pool variant i what its segment cuts' duals add to its value when
+   * offered (r·γ summed over its cuts, {@link ChoicePrices#bonus}): ψ at the bound's prices with no cut
+   * duals and β = 0, plus this, is at least the ψ the bound used ({@link LotValue} is nondecreasing in
+   * every reduced cost, and the cut and attraction duals only lower them).
+   */
+  LagrangianPortfolioBound withPoolBonus(double[] bonus) {
+    return new LagrangianPortfolioBound(value, lambda, valueAtLambda, resourcePrice, segmentPrice, bonus.clone());
+  }
+
+  /** r·γ over the segment cuts holding pool variant i at this bound's prices (0 for none). */
+  public double poolBonusOf(int i) {
+    return i >= 0 && i < poolBonus.length ? poolBonus[i] : 0.0;
+  }
 
   /**
    * @param constant π·b + μ·D

@@ -79,8 +79,8 @@ final class Relaxation {
       listed[pool.size() + i] = out.found().get(i).reducedCost();
     }
     double constant = terms.rowValue(pi, mu) + beta.constant(terms, mu) + pool.current().constant();
-    return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone()),
-        out.found(), out.exact());
+    return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone())
+        .withPoolBonus(beta.bonus()), out.found(), out.exact());
   }
 
   RelaxationResult run(Pool pool, double[] lpPi, double[] lpMu) {
@@ -97,6 +97,7 @@ final class Relaxation {
       PortfolioLpSolution sol = null;
       boolean converged = false;
       int round = 0;
+      int cuts = 0;
       while (true) {
         round++;
         sol = lp.solve();
@@ -126,12 +127,18 @@ final class Relaxation {
         double shown = converged ? Math.min(z, best.value()) : best.value();
         boolean closed = new ValueBound(z, shown, terms.gapFloor()).within(settings.gap());
         listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z, shown, pool.size(),
-            entering.size(), "round " + round));
-        if (entering.isEmpty() && exact) {
+            entering.size(), "round " + round + (cuts == 0 ? "" : ", " + cuts + " segment cuts")));
+        if (stop.fired(clock.now(round))) {
           break;
         }
-        if (closed || stop.fired(clock.now(round))) {
-          break;
+        if (entering.isEmpty() && exact || closed) {
+          // priced to the end (or to the gap): cut off this point if a segment's demand row allows it,
+          // then price again
+          if (SegmentCuts.separate(lp, sol, pool, terms) == 0) {
+            break;
+          }
+          cuts = lp.segmentCutCount();
+          continue;
         }
         for (PricedVariant f : entering) {
           if (pool.add(f.choices())) {
@@ -141,7 +148,7 @@ final class Relaxation {
       }
       double[] y = sol.y().clone();
       return new RelaxationResult(sol.objective() + pool.current().constant(), best, converged, round, y, lpPriceBound,
-          clock.elapsedMs() - t0);
+          clock.elapsedMs() - t0, cuts);
     }
   }
 

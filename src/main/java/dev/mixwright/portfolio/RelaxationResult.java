@@ -6,7 +6,9 @@ package dev.mixwright.portfolio;
  * portfolio over the whole space), with its prices. {@code converged}: exact pricing found no variant
  * that would improve the relaxed master, so {@code objective} is the relaxation's optimum over the
  * whole space. {@code y}: the relaxed introductions per pool variant (pool order) at the end.
- * {@code lpPriceBound}: the bound at the LP stage's shadow prices, for comparison.
+ * {@code lpPriceBound}: the bound at the LP stage's shadow prices, for comparison. {@code segmentCuts}:
+ * the cuts on segments' demand rows the master holds ({@link SegmentCuts}); with any, {@code objective}
+ * is the optimum of the relaxation with them, which is tighter than the plain relaxation.
  *
  * <p>{@code converged} is set only when no variant outside the pool has ψ above the variant limit's
  * price λ at the master's duals (the pricer's ψ is an upper bound on what the variant's block can
@@ -23,7 +25,8 @@ public record RelaxationResult(
     int rounds,
     double[] y,
     double lpPriceBound,
-    long elapsedMs) {
+    long elapsedMs,
+    int segmentCuts) {
 
   /** The least bound on the integer portfolio over the whole space this relaxation proves. */
   public double provenBound() {

@@ -62,7 +62,9 @@ class IntegerStageTest {
 
   @Test
   void theRelaxationBoundIsNeverBelowTheIntegerOptimum() {
-    // property over a seeded series: bound ≥ relaxed optimum over all variants ≥ integer optimum
+    // property over a seeded series: bound ≥ relaxed optimum over all variants ≥ integer optimum; with
+    // segment cuts, LP relaxation ≥ relaxation with the cuts ≥ integer optimum
+    int withCuts = 0;
     for (int i = 0; i < CASES; i++) {
       VariantSpace space = new VariantSpace(randomCatalog(100 + i));
       PortfolioOutcome o = StageRuns.stage(space, StageRuns.settings());
@@ -74,8 +76,18 @@ class IntegerStageTest {
           + " below the integer optimum " + mip.bound());
       PortfolioTerms t = PortfolioTerms.of(space);
       boolean noTooling = !t.hasTooling();
-      if (noTooling && t.variantCap() == t.maxVariants() && o.relaxation() != null) {
-        // without tooling and without a cap tightened by the lots, the relaxed master over the whole
+      if (o.relaxation() != null && o.relaxation().segmentCuts() > 0) {
+        withCuts++;
+        if (o.relaxation().converged()) {
+          // the cuts only tighten: the relaxation with them lies between the integer optimum and (with
+          // the same model: no tooling, no cap from the lots) the enumerated LP relaxation
+          assertTrue(mip.bound() <= o.relaxation().objective() + tol(mip.bound()), where + ": cuts cut off the optimum");
+          if (noTooling && t.variantCap() == t.maxVariants()) {
+            assertTrue(o.relaxation().objective() <= lp.value() + tol(lp.value()), where + ": cuts loosened it");
+          }
+        }
+      } else if (noTooling && t.variantCap() == t.maxVariants() && o.relaxation() != null) {
+        // without tooling, cuts and a cap tightened by the lots, the relaxed master over the whole
         // space is exactly the enumerated LP relaxation
         assertTrue(lp.value() <= relaxBound + tol(lp.value()), where + ": below the full relaxation");
         if (o.relaxation().converged()) {
@@ -83,6 +95,7 @@ class IntegerStageTest {
         }
       }
     }
+    assertTrue(withCuts >= CASES / 10, "segment cuts should be separated in some of the cases: " + withCuts);
   }
 
   @Test
