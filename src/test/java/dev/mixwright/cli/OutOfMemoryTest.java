@@ -53,25 +53,25 @@ class OutOfMemoryTest {
 
   @Test
   void runningOutOfHeapIsSaidInWordsWithTheLimit() {
+    assertSaidOutOfMemory(new Greedy());
+  }
+
+  /** The same from a worker thread, whose pool wraps the error in exceptions: said the same way. */
+  @Test
+  void runningOutOfHeapInAWorkerThreadIsSaidTheSameWay() {
+    assertSaidOutOfMemory(new Pooled());
+  }
+
+  /** The command ends with exit code FAULT and one line on the heap limit: no stack trace, no internal fault. */
+  private static void assertSaidOutOfMemory(Callable<Integer> command) {
     StringWriter err = new StringWriter();
-    int code = execute(new Greedy(), err);
+    int code = execute(command, err);
     String said = err.toString();
     assertEquals(ExitCodes.FAULT, code);
     assertTrue(said.startsWith("mixwright: ran out of memory (Java heap space) with a heap limit of "), said);
     assertTrue(said.contains(Runtime.getRuntime().maxMemory() / (1024 * 1024) + " MiB"), said);
     assertTrue(said.contains("-Xmx"), said);
     assertFalse(said.contains("\tat "), "no stack trace: " + said);
-    assertEquals(1, said.strip().lines().count(), said);
-  }
-
-  /** The same from a worker thread, whose pool wraps the error in exceptions: said the same way. */
-  @Test
-  void runningOutOfHeapInAWorkerThreadIsSaidTheSameWay() {
-    StringWriter err = new StringWriter();
-    int code = execute(new Pooled(), err);
-    String said = err.toString();
-    assertEquals(ExitCodes.FAULT, code);
-    assertTrue(said.startsWith("mixwright: ran out of memory (Java heap space) with a heap limit of "), said);
     assertFalse(said.contains("internal fault"), said);
     assertEquals(1, said.strip().lines().count(), said);
   }
