@@ -88,6 +88,7 @@ final class Relaxation {
     int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
     LagrangianPortfolioBound best = bound(pool, lpPi, lpMu, ChoicePrices.none(terms.segmentCount()), k).bound();
     double lpPriceBound = best.value();
+    LagrangianPortfolioBound plain = best;
     try (PortfolioLp lp = new PortfolioLp(terms.capacity(), terms.demand(), cap)) {
       pool.choice().enter(lp);
       for (PoolVariant v : pool.all()) {
@@ -109,6 +110,9 @@ final class Relaxation {
         Probe probe = bound(pool, sol.resourceDual(), sol.segmentDual(), ChoicePrices.of(lp, pool.size()), k);
         if (probe.bound().value() < best.value()) {
           best = probe.bound();
+        }
+        if (cuts == 0 && probe.bound().value() < plain.value()) {
+          plain = probe.bound();
         }
         double z = sol.objective() + pool.current().constant();
         double entry = sol.limitDual() + 1e-9 * (1 + Math.abs(z));
@@ -148,7 +152,7 @@ final class Relaxation {
       }
       double[] y = sol.y().clone();
       return new RelaxationResult(sol.objective() + pool.current().constant(), best, converged, round, y, lpPriceBound,
-          clock.elapsedMs() - t0, cuts);
+          clock.elapsedMs() - t0, cuts, plain);
     }
   }
 

@@ -8,7 +8,11 @@ package dev.mixwright.portfolio;
  * whole space. {@code y}: the relaxed introductions per pool variant (pool order) at the end.
  * {@code lpPriceBound}: the bound at the LP stage's shadow prices, for comparison. {@code segmentCuts}:
  * the cuts on segments' demand rows the master holds ({@link SegmentCuts}); with any, {@code objective}
- * is the optimum of the relaxation with them, which is tighter than the plain relaxation.
+ * is the optimum of the relaxation with them, which is tighter than the plain relaxation. {@code
+ * plainBound}: the best bound before the first cut (the same as {@code bound} without cuts); at its prices
+ * every variant's value is the ψ of docs/portfolio.md, with no cut dual, so a variant's test against it
+ * (the run's explanations) needs nothing but the variant ({@link #bound}'s prices also hold the r·γ of
+ * the cuts' variants, which only the stage knows).
  *
  * <p>{@code converged} is set only when no variant outside the pool has ψ above the variant limit's
  * price λ at the master's duals (the pricer's ψ is an upper bound on what the variant's block can
@@ -26,7 +30,8 @@ public record RelaxationResult(
     double[] y,
     double lpPriceBound,
     long elapsedMs,
-    int segmentCuts) {
+    int segmentCuts,
+    LagrangianPortfolioBound plainBound) {
 
   /** The least bound on the integer portfolio over the whole space this relaxation proves. */
   public double provenBound() {

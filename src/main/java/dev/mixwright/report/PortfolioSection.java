@@ -61,7 +61,9 @@ public final class PortfolioSection {
     RunResult.Relaxation relaxation = null;
     RelaxationResult rx = o.relaxation();
     if (rx != null) {
-      LagrangianPortfolioBound b = rx.bound();
+      // the prices a variant can be tested against from the result alone: those of the bound before the
+      // segment cuts, whose duals would add r·γ to the cuts' own variants (RelaxationResult)
+      LagrangianPortfolioBound b = rx.plainBound();
       Map<String, Double> pr = new LinkedHashMap<>();
       for (int i = 0; i < b.resourcePrice().length; i++) {
         pr.put(cat.resources().get(i).id(), b.resourcePrice()[i]);

@@ -5,6 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import dev.mixwright.catalog.Catalog;
 import dev.mixwright.catalog.Resource;
 import dev.mixwright.catalog.Segment;
+import dev.mixwright.explain.PortfolioExplainer;
+import dev.mixwright.explain.PortfolioVerdict;
 import dev.mixwright.space.VariantSpace;
 import java.util.ArrayList;
 import java.util.List;
@@ -18,7 +20,8 @@ import org.junit.jupiter.api.Test;
  * enumerated MIP (SCIP over every buildable variant, {@link EnumeratedMip}), its Lagrangian bound with
  * the cuts' duals too, and the whole stage must still reach that optimum when it says proven. Checked
  * by mutation: with the right-hand side lowered by a tenth of r, or with the r·γ of the cuts left out
- * of the bound's value of their variants, this test fails.
+ * of the bound's value of their variants, this test fails. It also checks what {@code explain} reads
+ * from a run: at the prices kept in the result every variant of the optimum is valued at or above it.
  */
 class SegmentCutsTest {
   private static final int CASES = 80;
@@ -68,6 +71,16 @@ class SegmentCutsTest {
       EnumeratedMip.Result mip = EnumeratedMip.solve(space, false, 60_000);
       assertTrue(mip.bound() <= rx.bound().value() + tol(mip.bound()),
           where + ": the bound with the cuts' duals " + rx.bound().value() + " is below the optimum " + mip.bound());
+      // explain tests a variant against the prices the result keeps, those of the bound before the cuts
+      // (PortfolioSection): a variant of the optimum must never be valued below the optimum there
+      LagrangianPortfolioBound kept = rx.plainBound();
+      PortfolioExplainer.Facts facts = new PortfolioExplainer.Facts(false, o.result().value(), List.of(), List.of(),
+          kept.resourcePrice(), kept.segmentPrice(), kept.lambda(), kept.valueAtLambda());
+      for (int[] v : mip.offered()) {
+        PortfolioVerdict verdict = new PortfolioExplainer(space).explain(v, facts);
+        assertTrue(verdict.boundWith() >= mip.value() - tol(mip.value()), where + ": explain values "
+            + java.util.Arrays.toString(v) + " of the optimum at " + verdict.boundWith() + ", below " + mip.value());
+      }
       if (rx.converged()) {
         assertTrue(mip.bound() <= rx.objective() + tol(mip.bound()),
             where + ": the relaxation with cuts " + rx.objective() + " is below the optimum " + mip.bound());
