@@ -30,7 +30,9 @@ import java.util.List;
  * so the best bound over all prices equals the relaxed master's optimum over the whole space
  * (Geoffrion 1974, "Lagrangean relaxation for integer programming", Mathematical Programming Study
  * 2); at convergence the two meet. Each round costs one warm-started GLOP re-solve and one pricing
- * call; rounds are few because the LP stage's columns seed the pool.
+ * call; rounds are few because the LP stage's columns seed the pool. Once pricing finds nothing, the
+ * master is cut on segments' demand rows ({@link SegmentCuts}) and priced again, within the same round
+ * limit; the cuts' duals enter the bound ({@link ChoicePrices#of}).
  */
 final class Relaxation {
   private final VariantSpace space;
