@@ -256,43 +256,33 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   }
 
   /**
-   * After an optimal solve: per block, per entry, Σ γ_c over the segment cuts holding it (γ_c ≥ 0);
-   * null for a block in no cut with a positive dual.
+   * The segment cuts at their duals γ_c ≥ 0 after an optimal solve, read in one pass: {@code perEntry}
+   * per block and entry Σ γ_c over the cuts holding it (null for a block in no cut with a positive dual),
+   * {@code bonus} per block Σ r_c·γ_c, {@code constant} Σ γ_c·rhs_c.
    */
-  public double[][] segmentCutDuals() {
+  public record SegmentCutPrices(double[][] perEntry, double[] bonus, double constant) {}
+
+  /** {@link SegmentCutPrices} of the master's segment cuts. */
+  public SegmentCutPrices segmentCutPrices() {
     double[][] g = new double[blocks.size()][];
+    double[] bonus = new double[blocks.size()];
+    double constant = 0;
     for (SegmentCut c : cuts) {
       double gamma = Rows.nonNegativeDual(c.row());
-      for (int j = 0; j < c.blocks().length && gamma > 0; j++) {
+      if (gamma <= 0) {
+        continue;
+      }
+      constant += gamma * c.rhs();
+      for (int j = 0; j < c.blocks().length; j++) {
         int i = c.blocks()[j];
         if (g[i] == null) {
           g[i] = new double[blocks.get(i).segments().length];
         }
         g[i][c.entry()[j]] += gamma;
+        bonus[i] += c.r() * gamma;
       }
     }
-    return g;
-  }
-
-  /** After an optimal solve: per block, Σ r_c·γ_c over the segment cuts holding it. */
-  public double[] segmentCutBonus() {
-    double[] bonus = new double[blocks.size()];
-    for (SegmentCut c : cuts) {
-      double gamma = Rows.nonNegativeDual(c.row());
-      for (int j = 0; j < c.blocks().length && gamma > 0; j++) {
-        bonus[c.blocks()[j]] += c.r() * gamma;
-      }
-    }
-    return bonus;
-  }
-
-  /** After an optimal solve: Σ γ_c·rhs_c over the segment cuts. */
-  public double segmentCutConstant() {
-    double sum = 0;
-    for (SegmentCut c : cuts) {
-      sum += Rows.nonNegativeDual(c.row()) * c.rhs();
-    }
-    return sum;
+    return new SegmentCutPrices(g, bonus, constant);
   }
 
   public int variantCount() {

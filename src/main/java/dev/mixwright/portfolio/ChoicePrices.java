@@ -47,20 +47,21 @@ record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cu
    */
   static ChoicePrices of(PortfolioLp lp, int blocks) {
     double[][] beta = new double[blocks][];
-    double[][] gamma = lp.segmentCutCount() == 0 ? new double[0][] : lp.segmentCutDuals();
     for (int i = 0; i < blocks; i++) {
       beta[i] = lp.attractionDuals(i);
-      if (i < gamma.length && gamma[i] != null) {
-        for (int k = 0; k < beta[i].length; k++) {
-          beta[i][k] += gamma[i][k];
-        }
-      }
     }
     if (lp.segmentCutCount() == 0) {
       return new ChoicePrices(beta, lp.stayOutDuals());
     }
-    return new ChoicePrices(beta, lp.stayOutDuals(), java.util.Arrays.copyOf(lp.segmentCutBonus(), blocks),
-        lp.segmentCutConstant());
+    PortfolioLp.SegmentCutPrices cut = lp.segmentCutPrices();
+    for (int i = 0; i < blocks; i++) {
+      if (i < cut.perEntry().length && cut.perEntry()[i] != null) {
+        for (int k = 0; k < beta[i].length; k++) {
+          beta[i][k] += cut.perEntry()[i][k];
+        }
+      }
+    }
+    return new ChoicePrices(beta, lp.stayOutDuals(), java.util.Arrays.copyOf(cut.bonus(), blocks), cut.constant());
   }
 
   /** r·γ summed over the segment cuts that hold block i (0 for none). */

@@ -100,7 +100,6 @@ final class Relaxation {
       PortfolioLpSolution sol = null;
       boolean converged = false;
       int round = 0;
-      int cuts = 0;
       while (true) {
         round++;
         sol = lp.solve();
@@ -113,6 +112,7 @@ final class Relaxation {
         if (probe.bound().value() < best.value()) {
           best = probe.bound();
         }
+        int cuts = lp.segmentCutCount();
         if (cuts == 0 && probe.bound().value() < plain.value()) {
           plain = probe.bound();
         }
@@ -143,7 +143,6 @@ final class Relaxation {
           if (SegmentCuts.separate(lp, sol, pool, terms) == 0) {
             break;
           }
-          cuts = lp.segmentCutCount();
           continue;
         }
         for (PricedVariant f : entering) {
@@ -154,7 +153,7 @@ final class Relaxation {
       }
       double[] y = sol.y().clone();
       return new RelaxationResult(sol.objective() + pool.current().constant(), best, converged, round, y, lpPriceBound,
-          clock.elapsedMs() - t0, cuts, plain);
+          clock.elapsedMs() - t0, lp.segmentCutCount(), plain);
     }
   }
 
