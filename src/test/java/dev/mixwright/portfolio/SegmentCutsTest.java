@@ -8,9 +8,9 @@ import dev.mixwright.catalog.Segment;
 import dev.mixwright.explain.PortfolioExplainer;
 import dev.mixwright.explain.PortfolioVerdict;
 import dev.mixwright.space.VariantSpace;
+import dev.mixwright.testing.EnumeratedMip;
 import java.util.ArrayList;
 import java.util.List;
-import dev.mixwright.testing.EnumeratedMip;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 
