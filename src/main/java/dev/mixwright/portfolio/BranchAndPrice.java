@@ -71,6 +71,8 @@ final class BranchAndPrice {
   private final PortfolioListener listener;
   private final int cap;
   private final NodeMasters masters;
+  /** The segments whose counts per choice the tree splits on: those that choose (null: none). */
+  private final boolean[] pairSegments;
 
   private final Object lock = new Object();
   private final PriorityQueue<TreeNode> open =
@@ -95,6 +97,8 @@ final class BranchAndPrice {
   private int reopened;
   /** Nodes split on a segment's count ({@link VariantBranching}), for the tree's record. */
   private final java.util.concurrent.atomic.AtomicLong segmentSplits = new java.util.concurrent.atomic.AtomicLong();
+  /** Nodes split on the count of one choice among the variants a segment that chooses accepts. */
+  private final java.util.concurrent.atomic.AtomicLong pairSplits = new java.util.concurrent.atomic.AtomicLong();
   /** The portfolios the nodes' rounding has valued (sorted pool indices), each once. */
   private final Set<List<Integer>> rounded = new HashSet<>();
 
@@ -134,12 +138,13 @@ final class BranchAndPrice {
    * portfolio better than the incumbent in a retired node is made of them, so when the tree closed, a
    * MIP over them solved to optimality decides the whole space. {@code floor}: the most a portfolio
    * outside the proof set can be worth when the tree closed (the incumbent and the nodes pruned or
-   * retired within the tolerance). {@code segmentSplits}: the nodes split on a segment's count. {@code
+   * retired within the tolerance). {@code segmentSplits}: the nodes split on a segment's count, {@code
+   * pairSplits} on the count of one choice among the variants a segment that chooses accepts. {@code
    * retired}: the nodes retired when the tree ended; {@code reopened}: those that went back to the open
    * list because they held the tree's bound ({@link #reopen}).
    */
   record Result(Plan incumbent, double bound, boolean closed, long nodes, int open, int workers, String reason,
-      int[] proofSet, int retired, double floor, long segmentSplits, int reopened) {}
+      int[] proofSet, int retired, double floor, long segmentSplits, long pairSplits, int reopened) {}
 
   /**
    * What a worker's master keeps between nodes. {@code keepNodes}: how many of the worker's nodes a
@@ -177,6 +182,13 @@ final class BranchAndPrice {
     this.listener = listener;
     this.cap = terms.variantCap();
     this.running = new double[Math.max(1, workers)];
+    boolean[] choosing = new boolean[space.segmentCount()];
+    boolean any = false;
+    for (int s = 0; s < choosing.length; s++) {
+      choosing[s] = space.chooses(s);
+      any |= choosing[s];
+    }
+    this.pairSegments = any ? choosing : null;
   }
 
   /** The workers the machine supports: one per core, at most two. */
@@ -233,7 +245,7 @@ final class BranchAndPrice {
         floor = Math.max(floor, r.floor());
       }
       return new Result(incumbent, bound, closed, nodes, open.size() + stuck.size(), running.length, reason, proof,
-          retired.size(), floor, segmentSplits.get(), reopened);
+          retired.size(), floor, segmentSplits.get(), pairSplits.get(), reopened);
     }
   }
 
@@ -416,6 +428,8 @@ final class BranchAndPrice {
     private final int[] rowOf = new int[space.totalChoices()];
     private final int[] segmentRow = new int[space.segmentCount()];
     private int totalRow = -1;
+    /** Count row per pair key ({@link TreeNode#pairKey}), made on first use. */
+    private final java.util.Map<Integer, Integer> pairRow = new java.util.HashMap<>();
     private final Set<Integer> boundedRows = new HashSet<>();
     /** The node's count ranges, per row: lo, hi (hi = +∞ for none). */
     private final java.util.Map<Integer, double[]> ranges = new java.util.HashMap<>();
@@ -446,6 +460,7 @@ final class BranchAndPrice {
       blocks = 0;
       Arrays.fill(rowOf, -1);
       Arrays.fill(segmentRow, -1);
+      pairRow.clear();
       totalRow = -1;
       boundedRows.clear();
       fixed.clear();
@@ -482,6 +497,11 @@ final class BranchAndPrice {
       for (int s : v.segments()) {
         if (segmentRow[s] >= 0) {
           lp.addToCount(segmentRow[s], b);
+        }
+      }
+      for (java.util.Map.Entry<Integer, Integer> e : pairRow.entrySet()) {
+        if (inPair(v, e.getKey())) {
+          lp.addToCount(e.getValue(), b);
         }
       }
       if (b == poolOf.length) {
@@ -542,6 +562,20 @@ final class BranchAndPrice {
      * first use over the master's variants.
      */
     private int row(int choice) {
+      int ps = TreeNode.pairSegment(choice);
+      if (ps >= 0) {
+        Integer r = pairRow.get(choice);
+        if (r == null) {
+          r = lp.addCountRow(artificialCost);
+          for (int b = 0; b < blocks; b++) {
+            if (inPair(pool.get(poolOf[b]), choice)) {
+              lp.addToCount(r, b);
+            }
+          }
+          pairRow.put(choice, r);
+        }
+        return r;
+      }
       int seg = TreeNode.segmentOf(choice);
       if (seg >= 0) {
         if (segmentRow[seg] < 0) {
@@ -572,6 +606,12 @@ final class BranchAndPrice {
         }
       }
       return rowOf[choice];
+    }
+
+    /** True when pool variant v counts in the pair row of {@code key}: its segment accepts v, and v uses its choice. */
+    private boolean inPair(PoolVariant v, int key) {
+      return Arrays.binarySearch(v.segments(), TreeNode.pairSegment(key)) >= 0
+          && TreeNode.uses(v.choices(), TreeNode.pairChoice(key), space.offsets());
     }
 
     private void fix(TreeNode node) {
@@ -738,7 +778,7 @@ final class BranchAndPrice {
       double[] y = relaxed.y();
       heuristic(node, y);
       VariantBranching.Decision d = VariantBranching.choose(node, y, i -> pool.get(i).choices(),
-          i -> pool.get(i).segments(), space.segmentCount(), space.offsets(), space.totalChoices());
+          i -> pool.get(i).segments(), space.segmentCount(), pairSegments, space.offsets(), space.totalChoices());
       if (d == null) {
         // y is integral and every variant at 1 is offered: the node's best portfolio is its offer
         Plan p = FixedPortfolio.solve(pool, terms, node.offered());
@@ -770,6 +810,9 @@ final class BranchAndPrice {
       if (d.onCount() && TreeNode.segmentOf(d.choice()) >= 0) {
         segmentSplits.incrementAndGet();
       }
+      if (d.onCount() && TreeNode.pairSegment(d.choice()) >= 0) {
+        pairSplits.incrementAndGet();
+      }
       return VariantBranching.children(solved, d, bound);
     }
 
@@ -782,6 +825,8 @@ final class BranchAndPrice {
       double[] pen = new double[space.totalChoices()];
       double[] accept = new double[space.segmentCount()];
       boolean anyAccept = false;
+      double[][] pair = new double[space.segmentCount()][space.totalChoices()];
+      boolean anyPair = false;
       double charge = 0;
       double constant = 0;
       boolean any = false;
@@ -800,6 +845,9 @@ final class BranchAndPrice {
         constant += dual > 0 ? dual * hi : dual * lo;
         if (e.getKey() == TreeNode.TOTAL) {
           charge += dual;
+        } else if (TreeNode.pairSegment(e.getKey()) >= 0) {
+          pair[TreeNode.pairSegment(e.getKey())][TreeNode.pairChoice(e.getKey())] += dual;
+          anyPair = true;
         } else if (TreeNode.segmentOf(e.getKey()) >= 0) {
           accept[TreeNode.segmentOf(e.getKey())] += dual;
           anyAccept = true;
@@ -807,7 +855,7 @@ final class BranchAndPrice {
           pen[e.getKey()] += dual;
         }
       }
-      return new CountPrices(any ? pen : null, anyAccept ? accept : null, charge, constant);
+      return new CountPrices(any ? pen : null, anyAccept ? accept : null, charge, constant, anyPair ? pair : null);
     }
 
     /** A node that cannot be finished: it keeps its bound in the result, and the tree stays open. */
@@ -899,7 +947,8 @@ final class BranchAndPrice {
       long soon = System.nanoTime() + 250_000_000L;
       VariantQuery q = new VariantQuery(b.resourcePrice(), b.segmentPrice(), probe.query.charge(),
           probe.query.penalty(), theta - 1e-7 * (1 + Math.abs(z)), RETIRE_LIMIT + 1, pool.keysBelow(probe.psi.length),
-          deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon)).withAcceptCharge(probe.query.acceptCharge());
+          deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon)).withAcceptCharge(probe.query.acceptCharge())
+          .withPairCharge(probe.query.pairCharge());
       PricingOutcome out = pricer.price(q);
       if (!out.exact() || out.found().size() > RETIRE_LIMIT) {
         return false;
@@ -983,7 +1032,7 @@ final class BranchAndPrice {
         }
         PoolVariant v = pool.get(i);
         psi[i] = beta.psi(space.offsets(), v, blockOf(i), pi, mu, v.fixedCost() + cp.charge(), cp.penalty(),
-            terms.minLot()) - acceptCharge(v, cp.accept());
+            terms.minLot()) - acceptCharge(v, cp.accept()) - pairCharge(v, cp.pair());
         if (node.isOffered(i)) {
           constant += psi[i];
         }
@@ -999,7 +1048,7 @@ final class BranchAndPrice {
       double[] psi = values.psi();
       int n = psi.length;
       VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
-          pool.keysBelow(n), deadlineNanos).withAcceptCharge(cp.accept());
+          pool.keysBelow(n), deadlineNanos).withAcceptCharge(cp.accept()).withPairCharge(cp.pair());
       PricingOutcome out = pricer.price(q);
       double[] listed = new double[n + out.found().size()];
       int m = 0;
@@ -1014,6 +1063,18 @@ final class BranchAndPrice {
       LagrangianPortfolioBound b = LagrangianPortfolioBound.of(values.constant(), Arrays.copyOf(listed, m),
           out.restBound(), freeCap, pi.clone(), mu.clone());
       return new NodeProbe(b, psi, out.found(), out.exact(), q);
+    }
+
+    /** Σ of the pair charges over the segments that accept v and the choices of v (0 for none). */
+    private double pairCharge(PoolVariant v, double[][] pair) {
+      double c = 0;
+      for (int k = 0; pair != null && k < v.segments().length; k++) {
+        double[] row = pair[v.segments()[k]];
+        for (int g = 0; g < v.choices().length; g++) {
+          c += row[space.offset(g) + v.choices()[g]];
+        }
+      }
+      return c;
     }
 
     /** Σ of the segment charges over the segments that accept v (0 for none). */
@@ -1055,7 +1116,7 @@ final class BranchAndPrice {
    * Prices of a node's count rows: penalty per flat choice and charge per accepting segment (null for
    * none), added charge, and Σ δ·side.
    */
-  private record CountPrices(double[] penalty, double[] accept, double charge, double constant) {}
+  private record CountPrices(double[] penalty, double[] accept, double charge, double constant, double[][] pair) {}
 
   /** ψ of the first n pool variants at a node's prices (−∞ when barred), and the bound's constant with the offered ones in it. */
   private record PoolValues(double[] psi, double constant, TreeNode node) {

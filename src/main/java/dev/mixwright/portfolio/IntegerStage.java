@@ -392,7 +392,9 @@ public final class IntegerStage {
         + r.proofSet().length + " variants") + (r.reopened() == 0 ? "" : "; " + r.reopened()
         + " retired nodes went back to the open list, as they held the tree's bound")
         + (r.segmentSplits() == 0 ? "" : "; " + r.segmentSplits()
-        + " nodes split on a segment's count");
+        + " nodes split on a segment's count")
+        + (r.pairSplits() == 0 ? "" : "; " + r.pairSplits()
+        + " on how many of a choosing segment's variants use one option");
     emit(PortfolioEvent.Kind.TREE, r.incumbent().value(), Math.min(s.bound, r.bound()), pool.size(), (int) Math.min(
         Integer.MAX_VALUE, r.nodes()), (r.closed()
         ? r.retired() == 0 ? "branch-and-price closed the tree: no portfolio is better than the incumbent"

@@ -8,8 +8,8 @@ import java.util.function.ToIntFunction;
 /**
  * A node of the branch-and-price tree: the portfolios that offer every pool variant of
  * {@code offered}, none of {@code barred} (pool indices, sorted), and satisfy every count range of
- * {@code counts} (how many offered variants use a choice, how many a segment accepts, or how many are
- * offered at all). Variants outside the pool are free in every node but for the counts, which the
+ * {@code counts} (how many offered variants use a choice, how many a segment accepts, how many a
+ * segment accepts among those using a choice, or how many are offered at all). Variants outside the pool are free in every node but for the counts, which the
  * pricer sees as penalties per choice and charges per accepting segment. {@code bound}: an upper bound on the value of every portfolio of the node (the parent's until
  * the node is solved); {@code depth}: the number of decisions.
  */
@@ -23,14 +23,44 @@ record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, i
     return -2 - s;
   }
 
-  /** The segment of a count key, or −1 when the key is a flat choice or {@link #TOTAL}. */
+  /** The segment of a count key, or −1 when the key is a flat choice, {@link #TOTAL} or a pair's. */
   static int segmentOf(int key) {
-    return key <= -2 ? -2 - key : -1;
+    return key <= -2 && key > PAIR_BASE ? -2 - key : -1;
+  }
+
+  /** Pair keys lie at and below this: {@code PAIR_BASE − (f · 2^16 + s)}. */
+  private static final int PAIR_BASE = -(1 << 30);
+
+  /** True when (segment s, flat choice f) can have a pair key: s below 2^16, f below 2^14. */
+  static boolean pairable(int s, int flat) {
+    return s >= 0 && s < (1 << 16) && flat >= 0 && flat < (1 << 14);
+  }
+
+  /**
+   * The key of the count of offered variants that segment s accepts and that use flat choice f (see
+   * {@link #pairable}).
+   */
+  static int pairKey(int s, int flat) {
+    if (!pairable(s, flat)) {
+      throw new IllegalArgumentException("no pair key for segment " + s + " and choice " + flat);
+    }
+    return PAIR_BASE - ((flat << 16) | s);
+  }
+
+  /** The segment of a pair key, −1 for any other key. */
+  static int pairSegment(int key) {
+    return key <= PAIR_BASE ? (PAIR_BASE - key) & 0xFFFF : -1;
+  }
+
+  /** The flat choice of a pair key. */
+  static int pairChoice(int key) {
+    return (PAIR_BASE - key) >>> 16;
   }
 
   /**
    * lo ≤ (offered variants using flat choice {@code choice} when ≥ 0, all offered when {@link #TOTAL},
-   * those that segment s accepts at {@link #segmentKey}(s)) ≤ hi.
+   * those that segment s accepts at {@link #segmentKey}(s), those that s accepts and that use flat
+   * choice f at {@link #pairKey}(s, f)) ≤ hi.
    */
   record Count(int choice, int lo, int hi) {}
 
@@ -83,7 +113,9 @@ record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, i
       int n = 0;
       for (int[] v : portfolio) {
         int s = segmentOf(c.choice());
-        boolean counted = c.choice() == TOTAL || (s >= 0 ? acceptance.accepts(v, s) : uses(v, c.choice(), offsets));
+        int ps = pairSegment(c.choice());
+        boolean counted = ps >= 0 ? acceptance.accepts(v, ps) && uses(v, pairChoice(c.choice()), offsets)
+            : c.choice() == TOTAL || (s >= 0 ? acceptance.accepts(v, s) : uses(v, c.choice(), offsets));
         n += counted ? 1 : 0;
       }
       if (n < c.lo() || n > c.hi()) {

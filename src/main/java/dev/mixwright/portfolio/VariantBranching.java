@@ -73,6 +73,16 @@ final class VariantBranching {
    */
   static Decision choose(TreeNode node, double[] y, java.util.function.IntFunction<int[]> choices,
       java.util.function.IntFunction<int[]> segmentsOf, int segmentCount, int[] offsets, int totalChoices) {
+    return choose(node, y, choices, segmentsOf, segmentCount, null, offsets, totalChoices);
+  }
+
+  /**
+   * What to branch on, with segment counts and, for the segments marked in {@code pairSegments} (null:
+   * none), counts of the variants a segment accepts that use one choice.
+   */
+  static Decision choose(TreeNode node, double[] y, java.util.function.IntFunction<int[]> choices,
+      java.util.function.IntFunction<int[]> segmentsOf, int segmentCount, boolean[] pairSegments, int[] offsets,
+      int totalChoices) {
     double[] bySegment = new double[segmentCount];
     for (int i = 0; i < y.length && segmentCount > 0; i++) {
       if (y[i] > INTEGRAL) {
@@ -92,6 +102,10 @@ final class VariantBranching {
     }
     if (bestS >= 0) {
       return Decision.count(TreeNode.segmentKey(bestS), (int) Math.floor(bySegment[bestS]));
+    }
+    Decision pair = pairCount(node, y, choices, segmentsOf, bySegment, pairSegments, offsets, totalChoices);
+    if (pair != null) {
+      return pair;
     }
     double total = 0;
     double[] byChoice = new double[totalChoices];
@@ -122,6 +136,53 @@ final class VariantBranching {
     }
     int v = chooseVariant(node, y);
     return v < 0 ? null : Decision.variant(v);
+  }
+
+  /**
+   * The most fractional count of variants that a marked segment s accepts and that use a choice f, among
+   * those that differ from s's own count (a choice every fractional variant of s uses adds nothing), or
+   * null.
+   */
+  private static Decision pairCount(TreeNode node, double[] y, java.util.function.IntFunction<int[]> choices,
+      java.util.function.IntFunction<int[]> segmentsOf, double[] bySegment, boolean[] pairSegments, int[] offsets,
+      int totalChoices) {
+    if (pairSegments == null) {
+      return null;
+    }
+    double[][] n = new double[bySegment.length][];
+    for (int i = 0; i < y.length; i++) {
+      if (y[i] <= INTEGRAL) {
+        continue;
+      }
+      int[] v = null;
+      for (int s : segmentsOf.apply(i)) {
+        if (!pairSegments[s]) {
+          continue;
+        }
+        if (n[s] == null) {
+          n[s] = new double[totalChoices];
+        }
+        v = v == null ? choices.apply(i) : v;
+        for (int g = 0; g < v.length; g++) {
+          n[s][offsets[g] + v[g]] += y[i];
+        }
+      }
+    }
+    int bestKey = 0;
+    double bestN = 0;
+    double bestFrac = INTEGRAL;
+    for (int s = 0; s < n.length; s++) {
+      for (int f = 0; n[s] != null && f < totalChoices; f++) {
+        double fr = fraction(n[s][f]);
+        if (fr > bestFrac && Math.abs(n[s][f] - bySegment[s]) > INTEGRAL && TreeNode.pairable(s, f)
+            && splits(node, TreeNode.pairKey(s, f), n[s][f])) {
+          bestFrac = fr;
+          bestKey = TreeNode.pairKey(s, f);
+          bestN = n[s][f];
+        }
+      }
+    }
+    return bestFrac > INTEGRAL ? Decision.count(bestKey, (int) Math.floor(bestN)) : null;
   }
 
   /**

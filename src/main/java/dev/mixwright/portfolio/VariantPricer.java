@@ -135,6 +135,13 @@ public final class VariantPricer {
   private double[] pen;
   private double charge;
   private double[] accCharge;
+  /** The query's nonzero pair charges ({@link VariantQuery#pairCharge}): segment, flat choice, its group, δ. */
+  private int[] pairS = new int[0];
+  private int[] pairF = new int[0];
+  private int[] pairG = new int[0];
+  private double[] pairD = new double[0];
+  /** [group]: its depth in the current order. */
+  private final int[] posOf;
   private double threshold;
   private int k;
   private Set<VariantKey> excluded;
@@ -192,6 +199,7 @@ public final class VariantPricer {
     candBound = new double[groups][widest];
     rest = new double[segments];
     ub = new double[segments];
+    posOf = new int[groups];
     leafD = new double[segments];
     leafU = new double[segments];
     scratch = new int[perScenario];
@@ -283,6 +291,14 @@ public final class VariantPricer {
         p += first.isColumn(v, s) ? acc[s] : 0.0;
       }
     }
+    double[][] pair = q.pairCharge();
+    for (int s = 0; pair != null && s < pair.length; s++) {
+      if (first.isColumn(v, s)) {
+        for (int g = 0; g < v.length; g++) {
+          p += pair[s][first.offset(g) + v[g]];
+        }
+      }
+    }
     return sum - q.charge() - p;
   }
 
@@ -336,6 +352,7 @@ public final class VariantPricer {
       throw new IllegalArgumentException("acceptCharge has " + q.acceptCharge().length + " entries, the catalog "
           + perScenario + " segments");
     }
+    pairCharges(q.pairCharge());
     w = new double[segments][];
     constant = new double[segments];
     int rc = space.resourceCount();
@@ -362,6 +379,9 @@ public final class VariantPricer {
     openBound = Double.NEGATIVE_INFINITY;
     boolean complete = true;
     orderGroups();
+    for (int e = 0; e < groups; e++) {
+      posOf[order[e]] = e;
+    }
     bonusSets();
     for (int f = 0; f < usable.length; f++) {
       boolean any = false;
@@ -413,6 +433,11 @@ public final class VariantPricer {
       for (int s = 0; accCharge != null && s < perScenario; s++) {
         if (accCharge[s] != 0 && rejectsSome(s, g)) {
           size += Math.abs(accCharge[s]);
+        }
+      }
+      for (int j = 0; j < pairS.length; j++) {
+        if (pairG[j] == g) {
+          size += Math.abs(pairD[j]);
         }
       }
       decides[g] = size;
@@ -497,7 +522,7 @@ public final class VariantPricer {
       }
       penRest += minPen;
     }
-    if (accCharge != null) {
+    if (accCharge != null || pairS.length > 0) {
       certainAcceptance(d);
     }
     // bit T: the unassigned groups can all be accepted by the bonus segments T (all bits without bonuses)
@@ -523,7 +548,8 @@ public final class VariantPricer {
       }
       double b = lotValue(ub)
           - charge - (penPartial[d] + pen[f] + penaltyAhead(ub, penRest))
-          - (accCharge == null ? 0.0 : acceptance(ub, false, together));
+          - (accCharge == null ? 0.0 : acceptance(ub, false, together))
+          - (pairS.length == 0 ? 0.0 : pairCharges(d, g, f, ub));
       n = BestFirst.insert(cb, cs, n, b, f);
     }
     for (int i = 0; i < n; i++) {
@@ -580,6 +606,76 @@ public final class VariantPricer {
       }
     }
     return least == Double.POSITIVE_INFINITY ? any : Math.max(any, least);
+  }
+
+  /** Keeps the nonzero entries of a query's pair charges ({@code null}: none). */
+  private void pairCharges(double[][] pc) {
+    int n = 0;
+    if (pc != null) {
+      if (pc.length != perScenario) {
+        throw new IllegalArgumentException("pairCharge has " + pc.length + " rows, the catalog " + perScenario
+            + " segments");
+      }
+      for (double[] row : pc) {
+        if (row.length != space.totalChoices()) {
+          throw new IllegalArgumentException("a pairCharge row has " + row.length + " entries, the space "
+              + space.totalChoices() + " choices");
+        }
+        for (double x : row) {
+          n += x != 0 ? 1 : 0;
+        }
+      }
+    }
+    pairS = new int[n];
+    pairF = new int[n];
+    pairG = new int[n];
+    pairD = new double[n];
+    n = 0;
+    for (int s = 0; pc != null && s < pc.length; s++) {
+      for (int f = 0; f < pc[s].length; f++) {
+        if (pc[s][f] != 0) {
+          pairS[n] = s;
+          pairF[n] = f;
+          pairG[n] = space.groupOf(f);
+          pairD[n++] = pc[s][f];
+        }
+      }
+    }
+  }
+
+  /**
+   * The pair charges a bound takes for candidate f of group g at depth d, with optimistic reduced costs
+   * {@code ub} (scenario 0's slice; acceptance is the same in every scenario). A completion pays pair
+   * (s, f') exactly when s accepts it and it uses f'. A charge (δ &gt; 0) is taken only where both are
+   * certain: f' is assigned (here or above) and s accepts every remaining choice ({@link #sure}, with
+   * ub_s finite for what is assigned); a bonus (δ &lt; 0) wherever both are still possible: ub_s finite
+   * and f' assigned, or its group later in the order with f' usable. So the bound is at least the value
+   * of every completion.
+   */
+  private double pairCharges(int d, int g, int f, double[] ub) {
+    double c = 0;
+    for (int j = 0; j < pairS.length; j++) {
+      if (ub[pairS[j]] == Double.NEGATIVE_INFINITY) {
+        continue;
+      }
+      int h = pairG[j];
+      boolean assigned;
+      boolean possible;
+      if (h == g) {
+        assigned = pairF[j] == f;
+        possible = assigned;
+      } else if (posOf[h] < d) {
+        assigned = offset[h] + v[h] == pairF[j];
+        possible = assigned;
+      } else {
+        assigned = false;
+        possible = usable[pairF[j]];
+      }
+      if (pairD[j] < 0 ? possible : assigned && sure[pairS[j]]) {
+        c += pairD[j];
+      }
+    }
+    return c;
   }
 
   /** {@link #sure} for the groups after depth d: their remaining choices all accepted by segment s. */
@@ -751,6 +847,11 @@ public final class VariantPricer {
       p += pen[offset[g] + v[g]];
     }
     double val = lotValue(d) - charge - p - (accCharge == null ? 0.0 : acceptance(d, true, -1L));
+    for (int j = 0; j < pairS.length; j++) {
+      if (d[pairS[j]] != Double.NEGATIVE_INFINITY && offset[pairG[j]] + v[pairG[j]] == pairF[j]) {
+        val -= pairD[j];
+      }
+    }
     if (val > cutoff() && (excluded.isEmpty() || !excluded.contains(space.key(v)))) {
       top.add(new PricedVariant(v.clone(), val));
       if (top.size() > k) {

@@ -14,8 +14,10 @@ import java.util.Set;
  * </pre>
  *
  * and g is {@link LotValue#best}, less Σ_s {@code acceptCharge[s]} over the segments s that accept v
- * (the duals of a tree node's segment count rows: a charge when positive, a bonus when negative).
- * {@code penalty} and {@code acceptCharge} may be null (all zero). {@code deadlineNanos}: a
+ * (the duals of a tree node's segment count rows: a charge when positive, a bonus when negative), and
+ * less Σ_{s accepts v} Σ_g {@code pairCharge[s][choice of v in g]} (the duals of a node's count rows
+ * on the variants that a segment accepts and that use a choice). {@code penalty}, {@code acceptCharge}
+ * and {@code pairCharge} may be null (all zero). {@code deadlineNanos}: a
  * {@code System.nanoTime()} after which the search stops with a valid bound, 0 for none.
  *
  * <p>For a range across scenarios k = 1..n ({@link VariantPricer} built over n scenarios) the prices
@@ -33,7 +35,16 @@ public record VariantQuery(
     Set<VariantKey> excluded,
     long deadlineNanos,
     double[] scenarioWeight,
-    double[] acceptCharge) {
+    double[] acceptCharge,
+    double[][] pairCharge) {
+
+  /** A query without charges on (segment, choice) pairs. */
+  public VariantQuery(double[] resourcePrice, double[] segmentPrice, double charge, double[] penalty,
+      double threshold, int k, Set<VariantKey> excluded, long deadlineNanos, double[] scenarioWeight,
+      double[] acceptCharge) {
+    this(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos, scenarioWeight,
+        acceptCharge, null);
+  }
 
   /** A query without acceptance charges. */
   public VariantQuery(double[] resourcePrice, double[] segmentPrice, double charge, double[] penalty,
@@ -50,7 +61,16 @@ public record VariantQuery(
   /** This query with a charge per segment that accepts the variant ({@code null}: none). */
   public VariantQuery withAcceptCharge(double[] perSegment) {
     return new VariantQuery(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos,
-        scenarioWeight, perSegment);
+        scenarioWeight, perSegment, pairCharge);
+  }
+
+  /**
+   * This query with a charge per (segment s, flat choice f) on every variant that s accepts and that
+   * uses f ({@code null}: none): [segment][flat].
+   */
+  public VariantQuery withPairCharge(double[][] perPair) {
+    return new VariantQuery(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos,
+        scenarioWeight, acceptCharge, perPair);
   }
 
   /** The weight of scenario k (1 when none are given). */

@@ -98,6 +98,10 @@ class VariantBranchingTest {
   }
 
   private static VariantBranching.Decision randomDecision(TreeNode node, Random rnd) {
+    if (rnd.nextInt(3) == 0) {
+      // a segment's count of one choice: segment 0 or 1 and one of the five flat choices
+      return VariantBranching.Decision.count(TreeNode.pairKey(rnd.nextInt(2), rnd.nextInt(5)), rnd.nextInt(3));
+    }
     if (rnd.nextBoolean()) {
       int choice = rnd.nextInt(8) - 3; // −1 is the total, −2 and −3 the counts of segments 0 and 1
       return VariantBranching.Decision.count(choice, rnd.nextInt(4));
@@ -140,6 +144,44 @@ class VariantBranchingTest {
         VariantBranchingTest::segmentsOf, 2, OFFSETS, 5);
     assertEquals(TreeNode.segmentKey(1), d.choice());
     assertEquals(1, d.floor());
+  }
+
+  @Test
+  void pairKeysRoundTripAndStayApartFromTheOtherKeys() {
+    for (int s : new int[] {0, 1, 7, 65_535}) {
+      for (int f : new int[] {0, 3, 999, 16_383}) {
+        int key = TreeNode.pairKey(s, f);
+        assertEquals(s, TreeNode.pairSegment(key));
+        assertEquals(f, TreeNode.pairChoice(key));
+        assertEquals(-1, TreeNode.segmentOf(key));
+        assertTrue(key < TreeNode.segmentKey(1_000_000));
+      }
+    }
+    assertEquals(-1, TreeNode.pairSegment(TreeNode.segmentKey(3)));
+    assertEquals(-1, TreeNode.pairSegment(TreeNode.TOTAL));
+    assertEquals(-1, TreeNode.pairSegment(4));
+  }
+
+  @Test
+  void withSegmentCountsWholeAChoosingSegmentsCountOfOneChoiceIsNext() {
+    // y = (0.5, 0.5, 1) on (a0,b0), (a0,b1), (a1,b0): segment 0 accepts all three (2), segment 1 the first
+    // and the third (1.5, a segment count, first); once it is decided, segment 0's counts per choice:
+    // a0 1, a1 1, b0 1.5, b1 0.5 → b0 (flat 3) among the variants segment 0 accepts
+    double[] y = {0.5, 0.5, 1};
+    boolean[] pairs = {true, false};
+    VariantBranching.Decision d = VariantBranching.choose(TreeNode.root(0), y, VariantBranchingTest::choicesOf,
+        VariantBranchingTest::segmentsOf, 2, pairs, OFFSETS, 5);
+    assertEquals(TreeNode.segmentKey(1), d.choice());
+    TreeNode decided = VariantBranching.children(TreeNode.root(0), d, 0).get(0);
+    d = VariantBranching.choose(decided, y, VariantBranchingTest::choicesOf, VariantBranchingTest::segmentsOf, 2,
+        pairs, OFFSETS, 5);
+    assertTrue(d.onCount());
+    assertEquals(TreeNode.pairKey(0, 3), d.choice());
+    assertEquals(1, d.floor());
+    // without pair counts for segment 0 the rule goes on to the choice counts of the whole portfolio
+    d = VariantBranching.choose(decided, y, VariantBranchingTest::choicesOf, VariantBranchingTest::segmentsOf, 2,
+        new boolean[] {false, false}, OFFSETS, 5);
+    assertEquals(3, d.choice());
   }
 
   @Test

@@ -64,6 +64,21 @@ class VariantPricerTest {
   }
 
   /**
+   * Charges and bonuses per (segment, choice) pair (a tree node's count of the variants a segment accepts
+   * that use one option): a charge is taken inside the search only where the choice is assigned and
+   * acceptance certain, a bonus while both are possible; the k best, their values (also through {@link
+   * VariantPricer#value}) and the rest bound against brute force, with segment charges and logit caps in
+   * half the cases. Taking a charge before acceptance is certain, or dropping a bonus of a choice not yet
+   * assigned, makes it fail.
+   */
+  @Test
+  void pairChargesAndBonusesMatchBruteForce() {
+    for (int i = 0; i < 300; i++) {
+      kBest(i, new Random(57_000 + i), i % 2 == 0, i % 4 < 2, true);
+    }
+  }
+
+  /**
    * Across scenarios with choosing segments: each (scenario, segment) pair takes its scenario's
    * buyers and utilities (prices and demands move per scenario), ψ sums the scenarios' lot values;
    * the k best and the rest bound against brute force.
@@ -167,6 +182,34 @@ class VariantPricerTest {
   }
 
   private static void kBest(int i, Random rnd, boolean withAccept, boolean withChoice) {
+    kBest(i, rnd, withAccept, withChoice, false);
+  }
+
+  /** Σ over the segments that accept v of the pair charges of v's choices. */
+  private static double pairValue(VariantSpace space, int[] v, double[][] pair) {
+    double p = 0;
+    for (int s = 0; pair != null && s < pair.length; s++) {
+      if (space.isColumn(v, s)) {
+        for (int g = 0; g < v.length; g++) {
+          p += pair[s][space.offset(g) + v[g]];
+        }
+      }
+    }
+    return p;
+  }
+
+  private static double[][] randomPairs(Random rnd, VariantSpace space) {
+    double[][] pair = new double[space.segmentCount()][space.totalChoices()];
+    for (double[] row : pair) {
+      for (int f = 0; f < row.length; f++) {
+        double u = rnd.nextDouble();
+        row[f] = u < 0.8 ? 0 : u < 0.9 ? rnd.nextInt(40_000) : -rnd.nextInt(40_000);
+      }
+    }
+    return pair;
+  }
+
+  private static void kBest(int i, Random rnd, boolean withAccept, boolean withChoice, boolean withPairs) {
     Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(5), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
         rnd.nextInt(10), true);
     if (withAccept) {
@@ -194,9 +237,11 @@ class VariantPricerTest {
       }
     }
     double[] accept = withAccept ? randomAccept(rnd, space.segmentCount()) : null;
+    double[][] pair = withPairs ? randomPairs(rnd, space) : null;
     List<Scored> all = new ArrayList<>();
     for (int[] v : BruteVariants.all(space)) {
-      all.add(new Scored(v, BruteVariants.value(space, t, v, pi, mu, charge, penalty, accept)));
+      all.add(new Scored(v, BruteVariants.value(space, t, v, pi, mu, charge, penalty, accept)
+          - pairValue(space, v, pair)));
     }
     all.sort(Comparator.comparingDouble(Scored::value).reversed());
     Set<VariantKey> excluded = new HashSet<>();
@@ -209,21 +254,25 @@ class VariantPricerTest {
     double threshold = rnd.nextBoolean() ? Double.NEGATIVE_INFINITY
         : all.isEmpty() ? 0 : all.get(rnd.nextInt(all.size())).value() - 1;
     PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
-        new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept));
+        new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept)
+            .withPairCharge(pair));
     assertTrue(out.exact());
     List<Scored> want = all.stream()
         .filter(sc -> !excluded.contains(space.key(sc.v())) && sc.value() > threshold)
         .limit(k).toList();
-    String where = "case " + i + (withAccept ? " with acceptance charges" : "") + (withChoice ? " choosing" : "");
+    String where = "case " + i + (withAccept ? " with acceptance charges" : "") + (withChoice ? " choosing" : "")
+        + (withPairs ? " with pair charges" : "");
     assertEquals(want.size(), out.found().size(), where);
     Set<VariantKey> seen = new HashSet<>();
     for (int j = 0; j < want.size(); j++) {
       PricedVariant got = out.found().get(j);
       assertEquals(want.get(j).value(), got.reducedCost(), tol(got.reducedCost()), where);
-      double direct = BruteVariants.value(space, t, got.choices(), pi, mu, charge, penalty, accept);
+      double direct = BruteVariants.value(space, t, got.choices(), pi, mu, charge, penalty, accept)
+          - pairValue(space, got.choices(), pair);
       assertEquals(direct, got.reducedCost(), tol(direct), where);
       double own = VariantPricer.value(space, t, got.choices(),
-          new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept));
+          new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept)
+              .withPairCharge(pair));
       assertEquals(direct, own, tol(direct), where);
       assertTrue(space.isBuildable(got.choices()), where);
       assertFalse(excluded.contains(space.key(got.choices())), where);
