@@ -10,7 +10,8 @@ import java.util.function.ToIntFunction;
  * {@code offered}, none of {@code barred} (pool indices, sorted), and satisfy every count range of
  * {@code counts} (how many offered variants use a choice, how many a segment accepts, how many a
  * segment accepts among those using a choice, or how many are offered at all). Variants outside the pool are free in every node but for the counts, which the
- * pricer sees as penalties per choice and charges per accepting segment. {@code bound}: an upper bound on the value of every portfolio of the node (the parent's until
+ * pricer sees as penalties per choice, charges per accepting segment and charges per (accepting segment,
+ * choice). {@code bound}: an upper bound on the value of every portfolio of the node (the parent's until
  * the node is solved); {@code depth}: the number of decisions.
  */
 record TreeNode(int[] offered, int[] barred, List<Count> counts, double bound, int depth) {

@@ -16,6 +16,15 @@ import java.util.List;
  *       x ≤ u·y); this decision closes that gap segment by segment, which single variants cannot, as
  *       near-identical variants take each other's place. The row's dual δ_s enters pricing as a
  *       charge on every variant s accepts ({@link VariantQuery#acceptCharge}).
+ *   <li>On a choosing segment's count of one option: once every segment's count is whole, for a segment
+ *       that chooses (multinomial logit), the count of the variants s accepts that use flat choice f,
+ *       split as above; the most fractional pair first, skipping those equal to s's own count. At a
+ *       whole count the relaxation of such a segment still mixes single offers (1.0 split as 0.30, 0.38
+ *       and 0.32 over three near-identical variants that differ in a refrigerant or a heater), which the
+ *       count of one option splits apart where a single variant would let its neighbour take its place.
+ *       The row's dual δ_sf enters pricing as a charge on every variant s accepts that uses f ({@link
+ *       VariantQuery#pairCharge}). Only choosing segments: on the generator's families (fixed segments)
+ *       it cost more nodes than it saved (docs/portfolio.md, "A choosing segment's count of one option").
  *   <li>On a count (Vanderbeck 2000, "On Dantzig-Wolfe decomposition in integer programming and ways
  *       to perform branching in a branch-and-price algorithm", Operations Research 48(1)): when the
  *       relaxation offers a fractional number n of variants in all, or of variants using some option

@@ -54,6 +54,13 @@ import java.util.function.BooleanSupplier;
  * (docs/portfolio.md, "A search order per pricing query"). Choice penalties are followed the same
  * way ({@link #penaltyAhead}): the completion's choices must all be accepted by one segment.
  *
+ * <p>Pair charges δ_sf (a tree node's count of the variants s accepts that use choice f, {@link
+ * VariantQuery#pairCharge}) are simpler and looser: inside the search a charge (δ_sf &gt; 0) is taken
+ * only where f is assigned and acceptance by s certain, a bonus (δ_sf &lt; 0) wherever s may still
+ * accept and f is assigned or its group still open with f usable ({@link #pairCharges}); leaves take
+ * them exactly. Every completion pays at least the charges taken and collects at most the bonuses
+ * taken, so the bound stays a bound. Their groups count in the search order like the penalties.
+ *
  * <p>Segments that choose (multinomial logit) cap a variant's sales by its own logit cap: x_sv ≤ U_sv =
  * buyers_s·w/(1+w), w = exp(u_s(v) − stayOut_s), in every portfolio (docs/portfolio.md, "Segments
  * that choose"). A leaf and {@link #value} use cap_s = min(column bound, U_sv) with the variant's own
