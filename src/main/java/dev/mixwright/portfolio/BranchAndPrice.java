@@ -558,8 +558,8 @@ final class BranchAndPrice {
     }
 
     /**
-     * The count row of a key (a flat choice, {@link TreeNode#TOTAL} for all, or a segment's key), made on
-     * first use over the master's variants.
+     * The count row of a key (a flat choice, {@link TreeNode#TOTAL} for all, a segment's key or a pair's),
+     * made on first use over the master's variants.
      */
     private int row(int choice) {
       int ps = TreeNode.pairSegment(choice);
@@ -818,8 +818,9 @@ final class BranchAndPrice {
 
     /**
      * The duals of the node's count rows as prices: per flat choice (a penalty on variants using it),
-     * per segment (a charge on variants it accepts) and of the total (part of the charge), each clamped
-     * to the sign its binding side allows.
+     * per segment (a charge on variants it accepts), per (segment, choice) (a charge on the variants the
+     * segment accepts that use the choice) and of the total (part of the charge), each clamped to the sign
+     * its binding side allows.
      */
     private CountPrices countPrices() {
       double[] pen = new double[space.totalChoices()];
