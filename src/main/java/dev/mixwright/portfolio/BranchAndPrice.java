@@ -126,6 +126,30 @@ final class BranchAndPrice {
 
   private Retirement retirement = Retirement.DEFAULT;
 
+  /**
+   * A MIP over pool variants {@code over} with {@code on} offered (pool indices), within {@code timeMs}:
+   * its best portfolio (null for none) and an upper bound on every portfolio made of {@code over} that
+   * offers {@code on}; null when it found nothing.
+   */
+  interface MemberMip {
+    Result solve(int[] over, int[] on, long timeMs);
+
+    record Result(Plan plan, double bound, boolean optimal) {}
+  }
+
+  /** Most time one retired node's MIP gets. */
+  private static final long MEMBER_MIP_MS = 2_000;
+
+  private MemberMip memberMip;
+  /** Retired nodes whose own MIP closed them. */
+  private int closedByMip;
+
+  /** The MIP that decides retired nodes as they retire (none: they wait for the proof set's MIP). */
+  BranchAndPrice memberMip(MemberMip m) {
+    this.memberMip = m;
+    return this;
+  }
+
   /** The retirement rule; for tests. */
   BranchAndPrice retirement(Retirement r) {
     this.retirement = r;
@@ -141,10 +165,12 @@ final class BranchAndPrice {
    * retired within the tolerance). {@code segmentSplits}: the nodes split on a segment's count, {@code
    * pairSplits} on the count of one choice among the variants a segment that chooses accepts. {@code
    * retired}: the nodes retired when the tree ended; {@code reopened}: those that went back to the open
-   * list because they held the tree's bound ({@link #reopen}).
+   * list because they held the tree's bound ({@link #reopen}); {@code closedByMip}: the nodes that their
+   * own MIP closed as they retired ({@link MemberMip}).
    */
   record Result(Plan incumbent, double bound, boolean closed, long nodes, int open, int workers, String reason,
-      int[] proofSet, int retired, double floor, long segmentSplits, long pairSplits, int reopened) {}
+      int[] proofSet, int retired, double floor, long segmentSplits, long pairSplits, int reopened,
+      int closedByMip) {}
 
   /**
    * What a worker's master keeps between nodes. {@code keepNodes}: how many of the worker's nodes a
@@ -245,7 +271,7 @@ final class BranchAndPrice {
         floor = Math.max(floor, r.floor());
       }
       return new Result(incumbent, bound, closed, nodes, open.size() + stuck.size(), running.length, reason, proof,
-          retired.size(), floor, segmentSplits.get(), pairSplits.get(), reopened);
+          retired.size(), floor, segmentSplits.get(), pairSplits.get(), reopened, closedByMip);
     }
   }
 
@@ -962,6 +988,29 @@ final class BranchAndPrice {
       }
       if (gated && members.size() > retirement.members()) {
         return false; // too many with the listed ones
+      }
+      if (memberMip != null) {
+        // every portfolio of the node worth more than z is made of the members and offers the node's
+        // offered variants (counts left out: a larger set), so the MIP's bound bounds the node's better
+        // portfolios; at or below z the node holds none
+        long ms = Math.min(MEMBER_MIP_MS, Math.max(1, (deadlineNanos - System.nanoTime()) / 4_000_000L));
+        MemberMip.Result r = deadlineNanos == 0 || ms > 1
+            ? memberMip.solve(members.stream().mapToInt(Integer::intValue).distinct().toArray(), node.offered(),
+                deadlineNanos == 0 ? MEMBER_MIP_MS : ms)
+            : null;
+        if (r != null) {
+          if (r.plan() != null) {
+            offer(r.plan(), "MIP over a retired node's members");
+          }
+          if (r.bound() <= z) {
+            synchronized (lock) {
+              prunedMax = Math.max(prunedMax, r.bound());
+              closedByMip++;
+            }
+            return true;
+          }
+          node = node.withBound(Math.min(node.bound(), r.bound()));
+        }
       }
       synchronized (lock) {
         Set<Integer> grown = proofSet();

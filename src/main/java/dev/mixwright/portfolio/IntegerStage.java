@@ -57,10 +57,11 @@ public final class IntegerStage {
   private final PortfolioSettings settings;
   private final List<PortfolioListener> listeners = new ArrayList<>();
   private StageClock clock;
-  private int mipSolves;
+  private final java.util.concurrent.atomic.AtomicInteger mipSolves = new java.util.concurrent.atomic.AtomicInteger();
   private StopCriterion stop = StopCriterion.never();
   private int workers = BranchAndPrice.defaultWorkers();
   private boolean quickProof = true;
+  private boolean nodeMips = true;
   private BranchAndPrice.NodeMasters nodeMasters = BranchAndPrice.NodeMasters.DEFAULT;
   private BranchAndPrice.Retirement retirement = BranchAndPrice.Retirement.DEFAULT;
   private Checkpoint warm;
@@ -94,6 +95,15 @@ public final class IntegerStage {
   /** Whether the quick proof over the pool may settle the stage before the tree; for tests of the tree. */
   IntegerStage quickProof(boolean on) {
     this.quickProof = on;
+    return this;
+  }
+
+  /**
+   * Whether a node of the tree that retires is decided at once by a MIP over its members ({@link
+   * BranchAndPrice.MemberMip}); off, retired nodes wait for the proof set's MIP. For tests.
+   */
+  IntegerStage nodeMips(boolean on) {
+    this.nodeMips = on;
     return this;
   }
 
@@ -229,7 +239,7 @@ public final class IntegerStage {
 
   public PortfolioOutcome run(SolveOutcome lp) {
     clock = new StageClock(settings.timeLimitMs(), stop);
-    mipSolves = 0;
+    mipSolves.set(0);
     CurrentRange current = new CurrentRange(space);
     Pool pool = new Pool(space, terms, current);
     // current variants are always in the pool, so the pricer (which skips the pool and charges F)
@@ -380,6 +390,10 @@ public final class IntegerStage {
     PortfolioListener fan = e -> listeners.forEach(l -> l.event(e));
     BranchAndPrice bp = new BranchAndPrice(space, terms, pool, settings, clock, clock.phase(1.0), fan, workers,
         nodeMasters).retirement(retirement);
+    if (nodeMips && settings.engine().provesContinuous()) {
+      // a retired node's members, its offered ones fixed: SCIP's own cuts on the shared resources
+      bp.memberMip(PoolMip.forNodes(pool, terms, settings, clock.signalFlag(), () -> mipSolves.incrementAndGet()));
+    }
     BranchAndPrice.Result r = bp.run(s.incumbent, s.bound);
     s.incumbent = r.incumbent();
     s.treeBound = r.bound();
@@ -394,7 +408,8 @@ public final class IntegerStage {
         + (r.segmentSplits() == 0 ? "" : "; " + r.segmentSplits()
         + " nodes split on a segment's count")
         + (r.pairSplits() == 0 ? "" : "; " + r.pairSplits()
-        + " on how many of a choosing segment's variants use one option");
+        + " on how many of a choosing segment's variants use one option")
+        + (r.closedByMip() == 0 ? "" : "; " + r.closedByMip() + " nodes closed by a MIP over their members");
     emit(PortfolioEvent.Kind.TREE, r.incumbent().value(), Math.min(s.bound, r.bound()), pool.size(), (int) Math.min(
         Integer.MAX_VALUE, r.nodes()), (r.closed()
         ? r.retired() == 0 ? "branch-and-price closed the tree: no portfolio is better than the incumbent"
@@ -512,7 +527,7 @@ public final class IntegerStage {
         result,
         new PortfolioOutcome.Offer(offered(space, pool, inc), inc.introduction() + inc.tooling(), inc.tooling()),
         lpBound, rx, new PortfolioOutcome.SurvivorProof(s.theta, s.added, s.complete, pool.size()),
-        new PortfolioOutcome.MipRuns(settings.engine(), mipSolves, s.mipOptimal),
+        new PortfolioOutcome.MipRuns(settings.engine(), mipSolves.get(), s.mipOptimal),
         s.tree, clock.elapsedMs(),
         RangeChange.of(space, pool, inc, pool.current().isEmpty() ? null : todaysRange(pool)));
     emit(PortfolioEvent.Kind.END, o.result().value(), o.result().bound(), pool.size(), o.offer().variants().size(), o.status().word()
@@ -540,58 +555,25 @@ public final class IntegerStage {
 
   /** The MIP over the pool variants {@code over} (pool indices, ascending; they must hold the hint's members). */
   private MipRun mip(Pool pool, int[] over, Plan hint, long timeMs) {
-    mipSolves++;
-    try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
-        terms.choiceCost(), terms.wholeUnits())) {
-      pool.choice().enter(m);
-      Map<Integer, Integer> at = new HashMap<>();
-      for (int j = 0; j < over.length; j++) {
-        PoolVariant v = pool.get(over[j]);
-        int i = m.addVariant(v.segments(), v.margin(), v.use(), v.upper(), v.fixedCost(), terms.minLot(),
-            v.tools());
-        pool.choice().attract(m, i, v);
-        if (v.pinned()) {
-          m.fixIntroduction(i, 1, 1);
-        }
-        at.put(over[j], j);
-      }
-      double[] y = new double[over.length];
-      double[][] x = new double[over.length][];
-      for (int j = 0; j < over.length; j++) {
-        x[j] = new double[pool.get(over[j]).segments().length];
-      }
-      for (int j = 0; j < hint.members().length; j++) {
-        Integer i = at.get(hint.members()[j]);
-        if (i != null) {
-          y[i] = 1;
-          x[i] = hint.sales().get(j);
-        }
-      }
-      m.hint(y, x);
-      MipSolution sol = m.solve(timeMs, settings.gap(), clock.signalFlag());
-      Plan plan = null;
-      if (sol.status().hasSolution()) {
-        List<Integer> members = new ArrayList<>();
-        for (int i = 0; i < sol.y().length; i++) {
-          if (sol.y()[i] > 0.5) {
-            members.add(over[i]);
-          }
-        }
-        plan = FixedPortfolio.solve(pool, terms, members.stream().mapToInt(Integer::intValue).toArray());
-      }
-      MipStatus status = sol.status();
-      if (status.hasSolution() && plan == null) {
-        // the MIP's choice failed the exact LP of its portfolio (round-off at a minimum lot): use nothing of it
-        status = MipStatus.FAILED;
-      }
-      // the MIP's objective leaves out the discontinue costs of the current range (a constant)
-      double mb = status.hasSolution() ? sol.bound() + pool.current().constant() : Double.POSITIVE_INFINITY;
-      emit(PortfolioEvent.Kind.MIP, plan == null ? Double.NaN : plan.value(), mb, pool.size(), sol.y().length,
-          settings.engine().word() + " " + sol.status().name().toLowerCase(Locale.ROOT) + " in " + sol.wallMs() + " ms, "
-              + sol.nodes() + " nodes (bound over the pool only)");
-      return new MipRun(status, plan, mb);
-    }
+    return mip(pool, over, new int[0], hint, timeMs, true);
   }
+
+  /**
+   * The MIP over pool variants {@code over} with {@code on} (pool indices among them) offered, and the
+   * pinned ones; {@code hint} may be null; {@code record}: emit its event.
+   */
+  private MipRun mip(Pool pool, int[] over, int[] on, Plan hint, long timeMs, boolean record) {
+    mipSolves.incrementAndGet();
+    PoolMip.Run run = PoolMip.solve(pool, terms, settings, clock.signalFlag(), over, on, hint, timeMs);
+    if (record) {
+      MipSolution sol = run.solution();
+      emit(PortfolioEvent.Kind.MIP, run.plan() == null ? Double.NaN : run.plan().value(), run.bound(), pool.size(),
+          sol.y().length, settings.engine().word() + " " + sol.status().name().toLowerCase(Locale.ROOT) + " in "
+              + sol.wallMs() + " ms, " + sol.nodes() + " nodes (bound over the pool only)");
+    }
+    return new MipRun(run.status(), run.plan(), run.bound());
+  }
+
 
   /** Today's range as a fixed portfolio: every current variant some segment takes, nothing else; null when it does not fit. */
   private Plan todaysRange(Pool stagePool) {
