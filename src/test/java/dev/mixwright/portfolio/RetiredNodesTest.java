@@ -23,10 +23,7 @@ class RetiredNodesTest {
 
   @Test
   void retiredNodesKeepTheProofExact() {
-    int[] r = retiring(false, "retired");
-    System.out.println("retired nodes in " + r[0] + " of 24 runs, " + r[1] + " proven");
-    assertTrue(r[0] >= 24 / 4, "retirement should settle a share of the trees: " + r[0]);
-    assertTrue(r[1] >= 24 * 3 / 4, "most small cases should be proven: " + r[1]);
+    retiring(false, "retired");
   }
 
   /**
@@ -37,10 +34,7 @@ class RetiredNodesTest {
    */
   @Test
   void nodesClosedByTheirOwnMipKeepTheProofExact() {
-    int[] r = retiring(true, "closed by a MIP");
-    System.out.println("nodes closed by their MIP in " + r[0] + " of 24 runs, " + r[1] + " proven");
-    assertTrue(r[0] >= 24 / 4, "node MIPs should close nodes in a share of the trees: " + r[0]);
-    assertTrue(r[1] >= 24 * 3 / 4, "most small cases should be proven: " + r[1]);
+    retiring(true, "closed by a MIP");
   }
 
   /**
@@ -54,14 +48,7 @@ class RetiredNodesTest {
     AtomicInteger closing = new AtomicInteger();
     int runs = 30;
     Cases.each(runs, (seed, rnd) -> {
-      var family = rnd.nextBoolean() ? CatalogGenerator.Family.TIGHT : CatalogGenerator.Family.CLASSIC;
-      Catalog c = StageRuns.withTerms(CatalogGenerator.generate(new CatalogGenerator.Spec(5, 3 + rnd.nextInt(2),
-          3, 3, 3, 0.2, seed, family)), 800 + rnd.nextInt(4200), 6, 50);
-      VariantSpace space = new VariantSpace(c);
-      StageRuns.TreeRun run = StageRuns.treeFromNothing(space, (terms, pool, clock) -> new BranchAndPrice(space, terms,
-          pool, StageRuns.settings(), clock, clock.phase(1.0), e -> {}, 1 + rnd.nextInt(2))
-          .retirement(new BranchAndPrice.Retirement(Double.POSITIVE_INFINITY, 6 + rnd.nextInt(8)))
-          .memberMip(PoolMip.forNodes(pool, terms, StageRuns.settings(), clock.signalFlag(), () -> {})));
+      StageRuns.TreeRun run = smallRetiringTree(seed, rnd, 1 + rnd.nextInt(2), true);
       if (run == null) {
         return;
       }
@@ -76,8 +63,29 @@ class RetiredNodesTest {
     assertTrue(closing.get() >= runs / 3, "most trees should close with nodes decided by their MIP: " + closing);
   }
 
-  /** 24 seeded catalogs, fixed and choosing: {runs whose tree record names {@code seen}, runs proven}. */
-  private static int[] retiring(boolean nodeMips, String seen) {
+  /**
+   * The tree alone from the empty portfolio ({@link StageRuns#treeFromNothing}) on a generated tight or
+   * classic catalog of 243–1,024 variants, its nodes retiring whatever their gap with at most 6–13
+   * members, decided by their own MIP when {@code nodeMips}.
+   */
+  private static StageRuns.TreeRun smallRetiringTree(long seed, java.util.Random rnd, int workers, boolean nodeMips) {
+    var family = rnd.nextBoolean() ? CatalogGenerator.Family.TIGHT : CatalogGenerator.Family.CLASSIC;
+    Catalog c = StageRuns.withTerms(CatalogGenerator.generate(new CatalogGenerator.Spec(5, 3 + rnd.nextInt(2),
+        3, 3, 3, 0.2, seed, family)), 800 + rnd.nextInt(4200), 6, 50);
+    VariantSpace space = new VariantSpace(c);
+    return StageRuns.treeFromNothing(space, (terms, pool, clock) -> {
+      BranchAndPrice tree = new BranchAndPrice(space, terms, pool, StageRuns.settings(), clock, clock.phase(1.0),
+          e -> {}, workers).retirement(new BranchAndPrice.Retirement(Double.POSITIVE_INFINITY, 6 + rnd.nextInt(8)));
+      return nodeMips ? tree.memberMip(PoolMip.forNodes(pool, terms, StageRuns.settings(), clock.signalFlag(), () -> {}))
+          : tree;
+    });
+  }
+
+  /**
+   * 24 seeded catalogs, fixed and choosing, against the enumerated MIP: the tree's record must name
+   * {@code seen} in a quarter of them, and three quarters must be proven.
+   */
+  private static void retiring(boolean nodeMips, String seen) {
     AtomicInteger retiring = new AtomicInteger();
     AtomicInteger proven = new AtomicInteger();
     Cases.each(24, (seed, rnd) -> {
@@ -95,7 +103,9 @@ class RetiredNodesTest {
         retiring.incrementAndGet();
       }
     });
-    return new int[] {retiring.get(), proven.get()};
+    System.out.println("'" + seen + "' in " + retiring + " of 24 runs, " + proven + " proven");
+    assertTrue(retiring.get() >= 24 / 4, "'" + seen + "' should settle a share of the trees: " + retiring);
+    assertTrue(proven.get() >= 24 * 3 / 4, "most small cases should be proven: " + proven);
   }
 
   /**
@@ -113,13 +123,7 @@ class RetiredNodesTest {
     AtomicInteger decided = new AtomicInteger();
     int runs = 40;
     Cases.each(runs, (seed, rnd) -> {
-      var family = rnd.nextBoolean() ? CatalogGenerator.Family.TIGHT : CatalogGenerator.Family.CLASSIC;
-      Catalog c = StageRuns.withTerms(CatalogGenerator.generate(new CatalogGenerator.Spec(5, 3 + rnd.nextInt(2),
-          3, 3, 3, 0.2, seed, family)), 800 + rnd.nextInt(4200), 6, 50);
-      VariantSpace space = new VariantSpace(c);
-      StageRuns.TreeRun run = StageRuns.treeFromNothing(space, (terms, pool, clock) -> new BranchAndPrice(space, terms,
-          pool, StageRuns.settings(), clock, clock.phase(1.0), e -> {}, 1)
-          .retirement(new BranchAndPrice.Retirement(Double.POSITIVE_INFINITY, 6 + rnd.nextInt(8))));
+      StageRuns.TreeRun run = smallRetiringTree(seed, rnd, 1, false);
       if (run == null) {
         return;
       }
