@@ -171,6 +171,22 @@ public final class PortfolioMip implements PortfolioShape, AutoCloseable {
   }
 
   /** Bounds on y_i: {@code 1, 1} offers the variant, {@code 0, 0} leaves it out. */
+  /**
+   * Keeps only the portfolios whose objective is at least {@code floor}: a row with the objective's
+   * coefficients. When the caller only needs to know whether anything beats a value, this lets the
+   * solver prune on it from the start; the model is then infeasible when nothing does.
+   */
+  public void objectiveFloor(double floor) {
+    com.google.ortools.linearsolver.MPConstraint row = solver.makeConstraint(floor - objective.offset(),
+        Double.POSITIVE_INFINITY, "objective_floor");
+    for (com.google.ortools.linearsolver.MPVariable v : solver.variables()) {
+      double c = objective.getCoefficient(v);
+      if (c != 0) {
+        row.setCoefficient(v, c);
+      }
+    }
+  }
+
   public void fixIntroduction(int i, double lower, double upper) {
     ys.get(i).setBounds(lower, upper);
   }

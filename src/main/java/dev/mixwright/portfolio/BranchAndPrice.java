@@ -127,12 +127,13 @@ final class BranchAndPrice {
   private Retirement retirement = Retirement.DEFAULT;
 
   /**
-   * A MIP over pool variants {@code over} with {@code on} offered (pool indices), within {@code timeMs}:
-   * its best portfolio (null for none) and an upper bound on every portfolio made of {@code over} that
-   * offers {@code on}; null when it found nothing.
+   * A MIP over pool variants {@code over} with {@code on} offered (pool indices), within {@code timeMs},
+   * over the portfolios worth at least {@code floor} only: its best portfolio (null for none) and an
+   * upper bound on every such portfolio made of {@code over} that offers {@code on} ({@code floor} when
+   * there is none); null when it found nothing and proved nothing.
    */
   interface MemberMip {
-    Result solve(int[] over, int[] on, long timeMs);
+    Result solve(int[] over, int[] on, long timeMs, double floor);
 
     record Result(Plan plan, double bound, boolean optimal) {}
   }
@@ -991,18 +992,24 @@ final class BranchAndPrice {
       }
       if (memberMip != null) {
         // every portfolio of the node worth more than z is made of the members and offers the node's
-        // offered variants (counts left out: a larger set), so the MIP's bound bounds the node's better
-        // portfolios; at or below z the node holds none
+        // offered variants (counts left out: a larger set), so the MIP over them, kept to portfolios worth
+        // at least z, bounds the node's better portfolios; infeasible, the node holds none
         long ms = Math.min(MEMBER_MIP_MS, Math.max(1, (deadlineNanos - System.nanoTime()) / 4_000_000L));
         MemberMip.Result r = deadlineNanos == 0 || ms > 1
             ? memberMip.solve(members.stream().mapToInt(Integer::intValue).distinct().toArray(), node.offered(),
-                deadlineNanos == 0 ? MEMBER_MIP_MS : ms)
+                deadlineNanos == 0 ? MEMBER_MIP_MS : ms, z)
             : null;
         if (r != null) {
           if (r.plan() != null) {
             offer(r.plan(), "MIP over a retired node's members");
           }
-          if (r.bound() <= z) {
+          double now;
+          synchronized (lock) {
+            now = incumbent.value() + tolerance(incumbent.value());
+          }
+          // portfolios of the node worth at most z are worth at most the incumbent; the others at most
+          // the MIP's bound, which its own portfolio may have just made the incumbent
+          if (r.bound() <= Math.max(z, now)) {
             synchronized (lock) {
               prunedMax = Math.max(prunedMax, r.bound());
               closedByMip++;

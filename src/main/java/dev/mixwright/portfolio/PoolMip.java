@@ -31,6 +31,11 @@ final class PoolMip {
    */
   static Run solve(Pool pool, PortfolioTerms terms, PortfolioSettings settings, BooleanSupplier stop, int[] over,
       int[] on, Plan hint, long timeMs) {
+    return solve(pool, terms, settings, stop, over, on, hint, timeMs, Double.NEGATIVE_INFINITY);
+  }
+
+  static Run solve(Pool pool, PortfolioTerms terms, PortfolioSettings settings, BooleanSupplier stop, int[] over,
+      int[] on, Plan hint, long timeMs, double floor) {
     try (PortfolioMip m = new PortfolioMip(settings.engine(), terms.capacity(), terms.demand(), terms.variantCap(),
         terms.choiceCost(), terms.wholeUnits())) {
       pool.choice().enter(m);
@@ -61,6 +66,9 @@ final class PoolMip {
         }
       }
       m.hint(y, x);
+      if (floor > Double.NEGATIVE_INFINITY) {
+        m.objectiveFloor(floor - pool.current().constant());
+      }
       MipSolution sol = m.solve(timeMs, settings.gap(), stop);
       Plan plan = null;
       if (sol.status().hasSolution()) {
@@ -89,9 +97,12 @@ final class PoolMip {
    */
   static BranchAndPrice.MemberMip forNodes(Pool pool, PortfolioTerms terms, PortfolioSettings settings,
       BooleanSupplier stop, Runnable counted) {
-    return (over, on, ms) -> {
+    return (over, on, ms, floor) -> {
       counted.run();
-      Run run = solve(pool, terms, settings, stop, over, on, null, ms);
+      Run run = solve(pool, terms, settings, stop, over, on, null, ms, floor);
+      if (run.status() == MipStatus.INFEASIBLE) {
+        return new BranchAndPrice.MemberMip.Result(null, floor, true);
+      }
       return run.status().hasSolution()
           ? new BranchAndPrice.MemberMip.Result(run.plan(), run.bound(), run.status() == MipStatus.OPTIMAL)
           : null;
