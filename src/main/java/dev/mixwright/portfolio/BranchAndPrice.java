@@ -853,8 +853,7 @@ final class BranchAndPrice {
       double[] pen = new double[space.totalChoices()];
       double[] accept = new double[space.segmentCount()];
       boolean anyAccept = false;
-      double[][] pair = new double[space.segmentCount()][space.totalChoices()];
-      boolean anyPair = false;
+      double[][] pair = null; // made with the first pair row: most nodes have none
       double charge = 0;
       double constant = 0;
       boolean any = false;
@@ -874,8 +873,10 @@ final class BranchAndPrice {
         if (e.getKey() == TreeNode.TOTAL) {
           charge += dual;
         } else if (TreeNode.pairSegment(e.getKey()) >= 0) {
+          if (pair == null) {
+            pair = new double[space.segmentCount()][space.totalChoices()];
+          }
           pair[TreeNode.pairSegment(e.getKey())][TreeNode.pairChoice(e.getKey())] += dual;
-          anyPair = true;
         } else if (TreeNode.segmentOf(e.getKey()) >= 0) {
           accept[TreeNode.segmentOf(e.getKey())] += dual;
           anyAccept = true;
@@ -883,7 +884,7 @@ final class BranchAndPrice {
           pen[e.getKey()] += dual;
         }
       }
-      return new CountPrices(any ? pen : null, anyAccept ? accept : null, charge, constant, anyPair ? pair : null);
+      return new CountPrices(any ? pen : null, anyAccept ? accept : null, charge, constant, pair);
     }
 
     /** A node that cannot be finished: it keeps its bound in the result, and the tree stays open. */
@@ -994,10 +995,10 @@ final class BranchAndPrice {
         // every portfolio of the node worth more than z is made of the members and offers the node's
         // offered variants (counts left out: a larger set), so the MIP over them, kept to portfolios worth
         // at least z, bounds the node's better portfolios; infeasible, the node holds none
-        long ms = Math.min(MEMBER_MIP_MS, Math.max(1, (deadlineNanos - System.nanoTime()) / 4_000_000L));
-        MemberMip.Result r = deadlineNanos == 0 || ms > 1
-            ? memberMip.solve(members.stream().mapToInt(Integer::intValue).distinct().toArray(), node.offered(),
-                deadlineNanos == 0 ? MEMBER_MIP_MS : ms, z)
+        long ms = deadlineNanos == 0 ? MEMBER_MIP_MS
+            : Math.min(MEMBER_MIP_MS, (deadlineNanos - System.nanoTime()) / 4_000_000L);
+        MemberMip.Result r = ms > 1
+            ? memberMip.solve(members.stream().mapToInt(Integer::intValue).distinct().toArray(), node.offered(), ms, z)
             : null;
         if (r != null) {
           if (r.plan() != null) {
@@ -1089,7 +1090,9 @@ final class BranchAndPrice {
         }
         PoolVariant v = pool.get(i);
         psi[i] = beta.psi(space.offsets(), v, blockOf(i), pi, mu, v.fixedCost() + cp.charge(), cp.penalty(),
-            terms.minLot()) - acceptCharge(v, cp.accept()) - pairCharge(v, cp.pair());
+            terms.minLot()) - acceptCharge(v, cp.accept())
+            - VariantQuery.pairChargeOf(cp.pair(), v.choices(), space.offsets(),
+                s -> Arrays.binarySearch(v.segments(), s) >= 0);
         if (node.isOffered(i)) {
           constant += psi[i];
         }
@@ -1120,18 +1123,6 @@ final class BranchAndPrice {
       LagrangianPortfolioBound b = LagrangianPortfolioBound.of(values.constant(), Arrays.copyOf(listed, m),
           out.restBound(), freeCap, pi.clone(), mu.clone());
       return new NodeProbe(b, psi, out.found(), out.exact(), q);
-    }
-
-    /** Σ of the pair charges over the segments that accept v and the choices of v (0 for none). */
-    private double pairCharge(PoolVariant v, double[][] pair) {
-      double c = 0;
-      for (int k = 0; pair != null && k < v.segments().length; k++) {
-        double[] row = pair[v.segments()[k]];
-        for (int g = 0; g < v.choices().length; g++) {
-          c += row[space.offset(g) + v.choices()[g]];
-        }
-      }
-      return c;
     }
 
     /** Σ of the segment charges over the segments that accept v (0 for none). */

@@ -315,7 +315,7 @@ public final class IntegerStage {
     // demo's 1,091 variants in 13–20 s); where they are many (1,618 on the dense family at 10^12), it
     // did not finish in all the time left and the tree never ran, which then got further in 38 s
     // (docs/portfolio.md). Stopped early, its bound still counts, and the tree takes the rest.
-    MipRun again = mip(pool, passing(pool, before, b, s), s.incumbent, Math.max(1, clock.msLeft() / 2));
+    PoolMip.Run again = mip(pool, passing(pool, before, b, s), s.incumbent, Math.max(1, clock.msLeft() / 2));
     if (again.plan() != null && again.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
       s.incumbent = again.plan();
       emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
@@ -439,7 +439,7 @@ public final class IntegerStage {
     for (int i : s.incumbent.members()) {
       over.add(i);
     }
-    MipRun run = mip(pool, over.stream().mapToInt(Integer::intValue).toArray(), s.incumbent, clock.msLeft());
+    PoolMip.Run run = mip(pool, over.stream().mapToInt(Integer::intValue).toArray(), s.incumbent, clock.msLeft());
     if (run.plan() != null && run.plan().value() > s.incumbent.value() + 1e-9 * (1 + Math.abs(s.incumbent.value()))) {
       s.incumbent = run.plan();
       emit(PortfolioEvent.Kind.INCUMBENT, s.incumbent.value(), s.bound, pool.size(), s.incumbent.members().length,
@@ -500,7 +500,7 @@ public final class IntegerStage {
     // at most a fifth of the stage: over the pool it finds the incumbent early and spends the rest on a
     // bound that holds for the pool only (dense family at 10^12: its final incumbent by 10 s, optimal
     // over 266 variants at 22 s), time the tree's bound over the whole space needs more
-    MipRun mip = mip(pool, inc, Math.max(1, Math.min(clock.msLeft() / 2, clock.limitMs() / 5)));
+    PoolMip.Run mip = mip(pool, inc, Math.max(1, Math.min(clock.msLeft() / 2, clock.limitMs() / 5)));
     if (mip.plan() != null && mip.plan().value() > inc.value()) {
       inc = mip.plan();
       emit(PortfolioEvent.Kind.INCUMBENT, inc.value(), s.bound, pool.size(), inc.members().length,
@@ -547,31 +547,22 @@ public final class IntegerStage {
     return "the branch-and-price tree did not close";
   }
 
-  private record MipRun(MipStatus status, Plan plan, double bound) {}
-
-  private MipRun mip(Pool pool, Plan hint, long timeMs) {
+  private PoolMip.Run mip(Pool pool, Plan hint, long timeMs) {
     return mip(pool, java.util.stream.IntStream.range(0, pool.size()).toArray(), hint, timeMs);
   }
 
-  /** The MIP over the pool variants {@code over} (pool indices, ascending; they must hold the hint's members). */
-  private MipRun mip(Pool pool, int[] over, Plan hint, long timeMs) {
-    return mip(pool, over, new int[0], hint, timeMs, true);
-  }
-
   /**
-   * The MIP over pool variants {@code over} with {@code on} (pool indices among them) offered, and the
-   * pinned ones; {@code hint} may be null; {@code record}: emit its event.
+   * The MIP over the pool variants {@code over} (pool indices, ascending; they must hold the hint's members),
+   * {@link PoolMip}, counted and recorded as an event.
    */
-  private MipRun mip(Pool pool, int[] over, int[] on, Plan hint, long timeMs, boolean record) {
+  private PoolMip.Run mip(Pool pool, int[] over, Plan hint, long timeMs) {
     mipSolves.incrementAndGet();
-    PoolMip.Run run = PoolMip.solve(pool, terms, settings, clock.signalFlag(), over, on, hint, timeMs);
-    if (record) {
-      MipSolution sol = run.solution();
-      emit(PortfolioEvent.Kind.MIP, run.plan() == null ? Double.NaN : run.plan().value(), run.bound(), pool.size(),
-          sol.y().length, settings.engine().word() + " " + sol.status().name().toLowerCase(Locale.ROOT) + " in "
-              + sol.wallMs() + " ms, " + sol.nodes() + " nodes (bound over the pool only)");
-    }
-    return new MipRun(run.status(), run.plan(), run.bound());
+    PoolMip.Run run = PoolMip.solve(pool, terms, settings, clock.signalFlag(), over, new int[0], hint, timeMs);
+    MipSolution sol = run.solution();
+    emit(PortfolioEvent.Kind.MIP, run.plan() == null ? Double.NaN : run.plan().value(), run.bound(), pool.size(),
+        sol.y().length, settings.engine().word() + " " + sol.status().name().toLowerCase(Locale.ROOT) + " in "
+            + sol.wallMs() + " ms, " + sol.nodes() + " nodes (bound over the pool only)");
+    return run;
   }
 
 

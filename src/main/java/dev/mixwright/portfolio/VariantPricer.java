@@ -298,14 +298,7 @@ public final class VariantPricer {
         p += first.isColumn(v, s) ? acc[s] : 0.0;
       }
     }
-    double[][] pair = q.pairCharge();
-    for (int s = 0; pair != null && s < pair.length; s++) {
-      if (first.isColumn(v, s)) {
-        for (int g = 0; g < v.length; g++) {
-          p += pair[s][first.offset(g) + v[g]];
-        }
-      }
-    }
+    p += VariantQuery.pairChargeOf(q.pairCharge(), v, first.offsets(), s -> first.isColumn(v, s));
     return sum - q.charge() - p;
   }
 

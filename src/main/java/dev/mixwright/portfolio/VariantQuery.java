@@ -73,6 +73,22 @@ public record VariantQuery(
         scenarioWeight, acceptCharge, perPair);
   }
 
+  /**
+   * Σ over the segments s that {@code accepts} and the groups g of {@code pair[s][choice of v in g]}: what
+   * pair charges take from ψ(v) (0 for {@code pair} null). {@code offsets}: the groups' flat offsets.
+   */
+  static double pairChargeOf(double[][] pair, int[] v, int[] offsets, java.util.function.IntPredicate accepts) {
+    double c = 0;
+    for (int s = 0; pair != null && s < pair.length; s++) {
+      if (accepts.test(s)) {
+        for (int g = 0; g < v.length; g++) {
+          c += pair[s][offsets[g] + v[g]];
+        }
+      }
+    }
+    return c;
+  }
+
   /** The weight of scenario k (1 when none are given). */
   public double weight(int k) {
     return scenarioWeight == null ? 1.0 : scenarioWeight[k];
