@@ -47,6 +47,12 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   /** Σ_{i in blocks} (x_{i,s} − r·y_i) ≤ rhs over segment s; entry[j] is block j's entry for s. */
   private record SegmentCut(int segment, int[] blocks, int[] entry, double r, double rhs, MPConstraint row) {}
 
+  /** The sales envelopes ({@link #addEnvelope}), in the order added. */
+  private final List<Envelope> envelopes = new ArrayList<>();
+
+  /** Σ_v x_vs − slope·Σ_v w_sv·y_v ≤ rhs over every attraction entry of choosing segment s. */
+  private record Envelope(int segment, double slope, double rhs, MPConstraint row) {}
+
   /** The worst scenario's rows ({@link #worstCase}), null while the objective is the margin itself. */
   private MPConstraint[] worstRows;
 
@@ -108,6 +114,79 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
     }
     attractionOf.get(i)[k] = attractionRows.size();
     attractionRows.add(row);
+    for (Envelope e : envelopes) {
+      if (e.segment() == s) {
+        e.row().setCoefficient(b.x()[k], 1.0);
+        e.row().setCoefficient(b.y(), -e.slope() * attraction);
+      }
+    }
+  }
+
+  /**
+   * Adds the row Σ_v x_vs − slope·Σ_v w_sv·y_v ≤ rhs over choosing segment s, holding every block with
+   * an attraction row in s now and every one added later ({@link #addAttraction}); returns its index.
+   * The caller proves it valid for every integer portfolio (a tangent of {@code portfolio.SalesEnvelope});
+   * the master only holds it, verifies it and reports its dual.
+   */
+  public int addEnvelope(int segment, double slope, double rhs) {
+    if (stay[segment] == null) {
+      throw new IllegalArgumentException("segment " + segment + " does not choose");
+    }
+    MPConstraint c = rows.row(Double.NEGATIVE_INFINITY, rhs, "env" + envelopes.size());
+    for (double[] a : attractions) {
+      Block b = blocks.get((int) a[0]);
+      if (b.segments()[(int) a[1]] == segment) {
+        c.setCoefficient(b.x()[(int) a[1]], 1.0);
+        c.setCoefficient(b.y(), -slope * a[2]);
+      }
+    }
+    envelopes.add(new Envelope(segment, slope, rhs, c));
+    return envelopes.size() - 1;
+  }
+
+  public int envelopeCount() {
+    return envelopes.size();
+  }
+
+  /**
+   * Per segment, at a solution of this master: Σ_v x_vs ({@code sold}) and Σ_v w_sv·y_v ({@code
+   * attraction}) over the attraction entries (0 for a segment that does not choose).
+   */
+  public record ChoosingTotals(double[] sold, double[] attraction) {}
+
+  public ChoosingTotals choosingTotals(PortfolioLpSolution sol) {
+    double[] sold = new double[demand.length];
+    double[] w = new double[demand.length];
+    for (double[] a : attractions) {
+      int i = (int) a[0];
+      int k = (int) a[1];
+      int s = blocks.get(i).segments()[k];
+      sold[s] += sol.x()[i][k];
+      w[s] += a[2] * sol.y()[i];
+    }
+    return new ChoosingTotals(sold, w);
+  }
+
+  /**
+   * The envelopes at their duals γ_c ≥ 0 after an optimal solve: per segment Σ γ_c ({@code perUnit},
+   * on each unit sold there), Σ γ_c·slope_c ({@code perAttraction}, on each unit of an offered
+   * variant's attraction there) and Σ γ_c·rhs_c ({@code constant}).
+   */
+  public record EnvelopePrices(double[] perUnit, double[] perAttraction, double constant) {}
+
+  public EnvelopePrices envelopePrices() {
+    double[] unit = new double[demand.length];
+    double[] att = new double[demand.length];
+    double constant = 0;
+    for (Envelope e : envelopes) {
+      double gamma = Rows.nonNegativeDual(e.row());
+      if (gamma > 0) {
+        unit[e.segment()] += gamma;
+        att[e.segment()] += gamma * e.slope();
+        constant += gamma * e.rhs();
+      }
+    }
+    return new EnvelopePrices(unit, att, constant);
   }
 
   /**
@@ -390,6 +469,15 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
       }
       if (lhs > c.rhs() + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(c.rhs()))) {
         return false;
+      }
+    }
+    if (!envelopes.isEmpty()) {
+      ChoosingTotals t = choosingTotals(new PortfolioLpSolution(LpStatus.OPTIMAL, 0, y, x, null, null, 0));
+      for (Envelope e : envelopes) {
+        double lhs = t.sold()[e.segment()] - e.slope() * t.attraction()[e.segment()];
+        if (lhs > e.rhs() + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(e.rhs()))) {
+          return false;
+        }
       }
     }
     if (rows.hasLimit() && ys > limit + FEASIBILITY_TOLERANCE * Math.max(1.0, limit)) {

@@ -68,6 +68,8 @@ public final class PortfolioMip implements PortfolioShape, AutoCloseable {
   private final List<MPVariable> ys = new ArrayList<>();
   private final List<MPVariable[]> xs = new ArrayList<>();
   private final List<int[]> segmentsOf = new ArrayList<>();
+  /** Attraction entries: variant, entry, w (for the sales envelope rows). */
+  private final List<double[]> attractions = new ArrayList<>();
   private final boolean wholeUnits;
   private final double[] demand;
   /** Stay-out x_s0 per choosing segment, null for a fixed one. */
@@ -164,6 +166,26 @@ public final class PortfolioMip implements PortfolioShape, AutoCloseable {
       throw new IllegalArgumentException("segment " + rowsSegment(i, k) + " does not choose");
     }
     rows.addAttractionRow("w" + i + "_" + k, xs.get(i)[k], stay[rowsSegment(i, k)], attraction);
+    attractions.add(new double[] {i, k, attraction});
+  }
+
+  /**
+   * As {@link PortfolioLp#addEnvelope}: Σ_v x_vs − slope·Σ_v w_sv·y_v ≤ rhs over the attraction entries of
+   * choosing segment s added so far (call after the variants).
+   */
+  public void addEnvelope(int segment, double slope, double rhs) {
+    if (stay[segment] == null) {
+      throw new IllegalArgumentException("segment " + segment + " does not choose");
+    }
+    MPConstraint c = solver.makeConstraint(Double.NEGATIVE_INFINITY, rhs, "env" + segment);
+    for (double[] a : attractions) {
+      int i = (int) a[0];
+      int k = (int) a[1];
+      if (rowsSegment(i, k) == segment) {
+        c.setCoefficient(xs.get(i)[k], 1.0);
+        c.setCoefficient(ys.get(i), c.getCoefficient(ys.get(i)) - slope * a[2]);
+      }
+    }
   }
 
   private int rowsSegment(int i, int k) {

@@ -138,6 +138,9 @@ final class BranchAndPrice {
     record Result(Plan plan, double bound, boolean optimal) {}
   }
 
+  /** Most rounds a node's relaxation is cut by sales envelope tangents. */
+  private static final int TANGENT_ROUNDS = 3;
+
   /** Most time one retired node's MIP gets. */
   private static final long MEMBER_MIP_MS = 2_000;
 
@@ -470,6 +473,7 @@ final class BranchAndPrice {
       fresh.reserveRows(); // blocks enter node after node: keep GLOP's warm start
       fresh.presolve(); // bounds change from node to node, many blocks sit fixed: presolve removes them
       pool.choice().enter(fresh);
+      pool.choice().envelope().sync(fresh); // the tangents found so far: every block entering joins those of its segments
       // a node's solve must not outlast the stage: GLOP gets the time left, and a node cut off is parked
       fresh.stopAt(deadlineNanos);
       return fresh;
@@ -697,8 +701,10 @@ final class BranchAndPrice {
       NodeProbe last = null;
       int round = 0;
       int cheapRounds = 0;
+      int tangentRounds = 0;
       while (true) {
         round++;
+        pool.choice().envelope().sync(lp); // tangents other workers found meanwhile
         PortfolioLpSolution sol = lp.solve();
         if (sol.status() == LpStatus.FAILED) {
           // GLOP gave up from its warm start (seen once in a deep node): the same master built afresh
@@ -710,6 +716,11 @@ final class BranchAndPrice {
         }
         if (!sol.isOptimal()) {
           return NodeLp.ending(park(node, best, "the relaxation of a node ended " + sol.status() + " in GLOP"));
+        }
+        if (tangentRounds < TANGENT_ROUNDS && pool.choice().envelope().separate(lp, sol) > 0) {
+          // the node's relaxation sells more in a choosing segment than its offer's attraction allows
+          tangentRounds++;
+          continue;
         }
         for (int b = 0; b < blocks; b++) {
           if (sol.y()[b] > 0) {
@@ -977,7 +988,7 @@ final class BranchAndPrice {
       VariantQuery q = new VariantQuery(b.resourcePrice(), b.segmentPrice(), probe.query.charge(),
           probe.query.penalty(), theta - 1e-7 * (1 + Math.abs(z)), RETIRE_LIMIT + 1, pool.keysBelow(probe.psi.length),
           deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon)).withAcceptCharge(probe.query.acceptCharge())
-          .withPairCharge(probe.query.pairCharge());
+          .withPairCharge(probe.query.pairCharge()).withAttractionBonus(probe.query.attractionBonus());
       PricingOutcome out = pricer.price(q);
       if (!out.exact() || out.found().size() > RETIRE_LIMIT) {
         return false;
@@ -1097,7 +1108,7 @@ final class BranchAndPrice {
           constant += psi[i];
         }
       }
-      return new PoolValues(psi, constant, node);
+      return new PoolValues(psi, constant, node, beta);
     }
 
     /**
@@ -1107,8 +1118,10 @@ final class BranchAndPrice {
     private NodeProbe probe(PoolValues values, double[] pi, double[] mu, CountPrices cp, int k, int freeCap) {
       double[] psi = values.psi();
       int n = psi.length;
-      VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
-          pool.keysBelow(n), deadlineNanos).withAcceptCharge(cp.accept()).withPairCharge(cp.pair());
+      double[] column = values.prices().columnPrice(mu);
+      VariantQuery q = new VariantQuery(pi, column, terms.introductionCost() + cp.charge(), cp.penalty(), 0.0, k,
+          pool.keysBelow(n), deadlineNanos).withAcceptCharge(cp.accept()).withPairCharge(cp.pair())
+          .withAttractionBonus(values.prices().attractionBonus());
       PricingOutcome out = pricer.price(q);
       double[] listed = new double[n + out.found().size()];
       int m = 0;
@@ -1121,7 +1134,7 @@ final class BranchAndPrice {
         listed[m++] = f.reducedCost();
       }
       LagrangianPortfolioBound b = LagrangianPortfolioBound.of(values.constant(), Arrays.copyOf(listed, m),
-          out.restBound(), freeCap, pi.clone(), mu.clone());
+          out.restBound(), freeCap, pi.clone(), column.clone()).withAttractionBonus(q.attractionBonus());
       return new NodeProbe(b, psi, out.found(), out.exact(), q);
     }
 
@@ -1167,7 +1180,7 @@ final class BranchAndPrice {
   private record CountPrices(double[] penalty, double[] accept, double charge, double constant, double[][] pair) {}
 
   /** ψ of the first n pool variants at a node's prices (−∞ when barred), and the bound's constant with the offered ones in it. */
-  private record PoolValues(double[] psi, double constant, TreeNode node) {
+  private record PoolValues(double[] psi, double constant, TreeNode node, ChoicePrices prices) {
     boolean offered(int i) {
       return node.isOffered(i);
     }

@@ -22,14 +22,18 @@ import dev.mixwright.master.PortfolioLp;
  * search the cap of an optimistic utility, an upper bound on ψ_β since {@link LotValue} is
  * nondecreasing in every reduced cost and in every cap). At the master's optimal duals this is LP duality on the master's own rows,
  * so over the pool the bound meets the master's objective; with β = 0 (the old bound) a variant of
- * a choosing segment was valued as if it could take all the segment's buyers. Cost: O(pool · S · R)
+ * a choosing segment was valued as if it could take all the segment's buyers. The sales envelopes of
+ * {@link SalesEnvelope} are relaxed the same way at their duals γ_c ≥ 0: γ_c on every column of their
+ * segment, γ_c·slope_c·w_sv added to the value of every variant v the segment accepts when offered (in
+ * the master or not: an envelope holds them all), and γ_c·rhs_c to the constant. Cost: O(pool · S · R)
  * per bound.
  */
-record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cutConstant) {
+record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cutConstant, double[] envelopeUnit,
+    double[] envelopeAttraction) {
 
-  /** Attraction rows only, no segment cuts. */
+  /** Attraction rows only, no segment cuts, no sales envelopes. */
   ChoicePrices(double[][] beta, double[] stayOut) {
-    this(beta, stayOut, new double[0], 0.0);
+    this(beta, stayOut, new double[0], 0.0, null, null);
   }
 
   /** No attraction rows priced: β = 0 (the bound of docs/portfolio.md, step 1). */
@@ -50,8 +54,17 @@ record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cu
     for (int i = 0; i < blocks; i++) {
       beta[i] = lp.attractionDuals(i);
     }
+    double[] envUnit = null;
+    double[] envAtt = null;
+    double constant = 0;
+    if (lp.envelopeCount() > 0) {
+      PortfolioLp.EnvelopePrices env = lp.envelopePrices();
+      envUnit = env.perUnit();
+      envAtt = env.perAttraction();
+      constant += env.constant();
+    }
     if (lp.segmentCutCount() == 0) {
-      return new ChoicePrices(beta, lp.stayOutDuals());
+      return new ChoicePrices(beta, lp.stayOutDuals(), new double[0], constant, envUnit, envAtt);
     }
     PortfolioLp.SegmentCutPrices cut = lp.segmentCutPrices();
     for (int i = 0; i < blocks; i++) {
@@ -61,7 +74,29 @@ record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cu
         }
       }
     }
-    return new ChoicePrices(beta, lp.stayOutDuals(), java.util.Arrays.copyOf(cut.bonus(), blocks), cut.constant());
+    return new ChoicePrices(beta, lp.stayOutDuals(), java.util.Arrays.copyOf(cut.bonus(), blocks),
+        constant + cut.constant(), envUnit, envAtt);
+  }
+
+  /**
+   * The price per unit sold in each segment that a variant's columns pay: μ_s plus the sales
+   * envelopes' Σ γ_c ({@link SalesEnvelope}); μ itself where there are none. For the pricer's query and
+   * the bound's record; the stay-out's share of the constant keeps μ ({@link #constant}).
+   */
+  double[] columnPrice(double[] mu) {
+    if (envelopeUnit == null) {
+      return mu;
+    }
+    double[] out = mu.clone();
+    for (int s = 0; s < out.length; s++) {
+      out[s] += envelopeUnit[s];
+    }
+    return out;
+  }
+
+  /** Per segment Σ γ_c·slope_c of the sales envelopes (the query's attraction bonus); null for none. */
+  double[] attractionBonus() {
+    return envelopeAttraction;
   }
 
   /** r·γ summed over the segment cuts that hold block i (0 for none). */
@@ -98,8 +133,15 @@ record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cu
       piA += pi[r] * v.use()[r];
     }
     double[] b = i >= 0 && i < beta.length ? beta[i] : null;
+    double envelope = 0;
     for (int k = 0; k < n; k++) {
-      d[k] = v.margin()[k] - piA - mu[v.segments()[k]] - (b == null ? 0.0 : b[k]);
+      int s = v.segments()[k];
+      d[k] = v.margin()[k] - piA - mu[s] - (b == null ? 0.0 : b[k]);
+      if (envelopeUnit != null) {
+        // a sales envelope holds every variant its segment accepts, in the master or not
+        d[k] -= envelopeUnit[s];
+        envelope += envelopeAttraction[s] * v.attraction()[k];
+      }
     }
     double p = 0;
     if (penalty != null) {
@@ -107,6 +149,6 @@ record ChoicePrices(double[][] beta, double[] stayOut, double[] bonus, double cu
         p += penalty[offsets[g] + v.choices()[g]];
       }
     }
-    return LotValue.best(d, v.upper(), minLot) - charge - p + bonusOf(i);
+    return LotValue.best(d, v.upper(), minLot) - charge - p + bonusOf(i) + envelope;
   }
 }

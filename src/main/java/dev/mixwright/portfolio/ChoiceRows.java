@@ -17,9 +17,19 @@ import dev.mixwright.space.VariantSpace;
  */
 final class ChoiceRows {
   private final VariantSpace space;
+  private final SalesEnvelope envelope;
 
   ChoiceRows(VariantSpace space) {
     this.space = space;
+    this.envelope = SalesEnvelope.of(space);
+  }
+
+  /**
+   * The tangents of the choosing segments' sales envelopes found so far for this pool ({@link
+   * SalesEnvelope}): one list for the relaxation, the tree's masters and the MIPs over the pool.
+   */
+  SalesEnvelope envelope() {
+    return envelope;
   }
 
   /** True when some segment chooses. */
@@ -34,7 +44,20 @@ final class ChoiceRows {
 
   /** w_s(v) = exp(u_s(v) − stayOut_s) of a choosing segment s. */
   double attraction(int[] v, int s) {
-    return Logit.attraction(space.utility(v, s), space.stayOut(s));
+    return attractionOf(space, v, s);
+  }
+
+  /**
+   * w_s(v) of variant v in a choosing segment s: the one place pool variants, the masters and the
+   * pricer get a variant's attraction from.
+   */
+  static double attractionOf(VariantSpace space, int[] v, int s) {
+    return attractionAt(space, s, space.utility(v, s));
+  }
+
+  /** w of a choosing segment s at utility u: increasing in u. */
+  static double attractionAt(VariantSpace space, int s, double utility) {
+    return Logit.attraction(utility, space.stayOut(s));
   }
 
   /**

@@ -297,9 +297,8 @@ public final class IntegerStage {
     double[] tooling = terms.hasTooling() ? terms.choiceCost() : null;
     s.theta = s.incumbent.value() - b.valueAtLambda() + b.lambda();
     double slack = 1e-7 * (1 + Math.abs(s.incumbent.value()));
-    PricingOutcome out = pricer.price(new VariantQuery(b.resourcePrice(), b.segmentPrice(),
-        terms.introductionCost(), tooling, s.theta - slack, settings.survivorLimit() + 1, pool.keys(),
-        clock.phase(0.2).deadlineNanos()));
+    PricingOutcome out = pricer.price(b.query(terms.introductionCost(), tooling, s.theta - slack,
+        settings.survivorLimit() + 1, pool.keys(), clock.phase(0.2).deadlineNanos()));
     s.complete = out.exact() && out.found().size() <= settings.survivorLimit();
     emit(PortfolioEvent.Kind.SURVIVORS, s.theta, s.bound, pool.size(), out.found().size(), s.complete
         ? "every variant that could be part of a better portfolio is listed"
@@ -370,8 +369,7 @@ public final class IntegerStage {
    */
   private boolean mayImprove(PoolVariant v, int i, LagrangianPortfolioBound b, Plan incumbent) {
     double z = incumbent.value() - 1e-7 * (1 + Math.abs(incumbent.value()));
-    VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), 0.0, null, Double.NEGATIVE_INFINITY, 1,
-        null, 0);
+    VariantQuery at = b.query(0.0, null, Double.NEGATIVE_INFINITY, 1, null, 0);
     // the segment cuts' r·γ is the one term that raises a pool variant's value in the bound
     double psi = VariantPricer.value(space, terms, v.choices(), at) - v.fixedCost() + b.poolBonusOf(i);
     return b.withVariant(psi) - terms.toolingOf(space, v.choices()) > z;
@@ -481,8 +479,7 @@ public final class IntegerStage {
   private void firstIncumbent(Pool pool, RelaxationResult rx, Search s) {
     LagrangianPortfolioBound b = rx.bound();
     double[] score = new double[pool.size()];
-    VariantQuery at = new VariantQuery(b.resourcePrice(), b.segmentPrice(), terms.introductionCost(), null,
-        Double.NEGATIVE_INFINITY, 1, null, 0);
+    VariantQuery at = b.query(terms.introductionCost(), null, Double.NEGATIVE_INFINITY, 1, null, 0);
     for (int i = 0; i < score.length; i++) {
       score[i] = VariantPricer.value(space, terms, pool.get(i).choices(), at) + terms.introductionCost()
           - pool.get(i).fixedCost();

@@ -23,11 +23,29 @@ import java.util.Arrays;
  */
 public record LagrangianPortfolioBound(
     double value, double lambda, double valueAtLambda, double[] resourcePrice, double[] segmentPrice,
-    double[] poolBonus) {
+    double[] poolBonus, double[] attractionBonus) {
 
   public LagrangianPortfolioBound(double value, double lambda, double valueAtLambda, double[] resourcePrice,
       double[] segmentPrice) {
-    this(value, lambda, valueAtLambda, resourcePrice, segmentPrice, new double[0]);
+    this(value, lambda, valueAtLambda, resourcePrice, segmentPrice, new double[0], null);
+  }
+
+  /**
+   * The same bound, noting the sales envelopes' value per unit of attraction in each choosing segment
+   * ({@link ChoicePrices#attractionBonus}, null for none); {@link #segmentPrice} then holds the
+   * envelopes' price per unit sold ({@link ChoicePrices#columnPrice}), so that a query at this bound's
+   * prices ({@link #query}) values every variant as the bound did.
+   */
+  LagrangianPortfolioBound withAttractionBonus(double[] bonus) {
+    return new LagrangianPortfolioBound(value, lambda, valueAtLambda, resourcePrice, segmentPrice, poolBonus,
+        bonus == null ? null : bonus.clone());
+  }
+
+  /** A pricing query at this bound's prices (its envelopes' attraction bonus included). */
+  VariantQuery query(double charge, double[] penalty, double threshold, int k,
+      java.util.Set<dev.mixwright.space.VariantKey> excluded, long deadlineNanos) {
+    return new VariantQuery(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos)
+        .withAttractionBonus(attractionBonus);
   }
 
   /**
@@ -37,7 +55,8 @@ public record LagrangianPortfolioBound(
    * every reduced cost, and the cut and attraction duals only lower them).
    */
   LagrangianPortfolioBound withPoolBonus(double[] bonus) {
-    return new LagrangianPortfolioBound(value, lambda, valueAtLambda, resourcePrice, segmentPrice, bonus.clone());
+    return new LagrangianPortfolioBound(value, lambda, valueAtLambda, resourcePrice, segmentPrice, bonus.clone(),
+        attractionBonus);
   }
 
   /** r·γ over the segment cuts holding pool variant i at this bound's prices (0 for none). */

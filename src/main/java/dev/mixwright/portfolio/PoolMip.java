@@ -50,6 +50,12 @@ final class PoolMip {
         }
         at.put(over[j], j);
       }
+      if (settings.engine().provesContinuous()) {
+        // the sales envelope tangents found so far: valid for every portfolio, they give SCIP's LP what the
+        // relaxation knows about a choosing segment's offer (CP-SAT, which scales every row to integers,
+        // is left with the model as it was)
+        pool.choice().envelope().enter(m);
+      }
       for (int i : on) {
         m.fixIntroduction(at.get(i), 1, 1);
       }

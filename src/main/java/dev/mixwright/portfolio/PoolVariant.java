@@ -8,11 +8,12 @@ import java.util.Arrays;
  * A variant in the integer stage's pool, with what the masters need: the segments that accept it,
  * its unit margin and column bound in each, its resource use per unit, the flat choices it uses
  * that carry a tooling cost, its fixed cost F_v ({@link CurrentRange}: the introduction cost for a
- * new variant, −discontinue for a current one) and whether it is pinned (y fixed at 1).
+ * new variant, −discontinue for a current one), whether it is pinned (y fixed at 1), and per segment
+ * its logit attraction w_s(v) where s chooses (0 where it does not).
  */
 public record PoolVariant(
     int[] choices, VariantKey key, int[] segments, double[] margin, double[] upper, double[] use, int[] tools,
-    double fixedCost, boolean pinned) {
+    double fixedCost, boolean pinned, double[] attraction) {
 
   /** A new variant: fixed cost F, not pinned. */
   public static PoolVariant of(VariantSpace space, PortfolioTerms terms, int[] v) {
@@ -31,11 +32,13 @@ public record PoolVariant(
     segs = Arrays.copyOf(segs, n);
     double[] m = new double[n];
     double[] u = new double[n];
+    double[] w = new double[n];
     for (int k = 0; k < n; k++) {
       m[k] = space.margin(v2, segs[k]);
       u[k] = terms.columnBound()[segs[k]];
       if (space.chooses(segs[k])) {
         u[k] = Math.min(u[k], ChoiceRows.capOf(space, v2, segs[k]));
+        w[k] = ChoiceRows.attractionOf(space, v2, segs[k]);
       }
     }
     int[] tools = new int[v2.length];
@@ -47,7 +50,7 @@ public record PoolVariant(
       }
     }
     return new PoolVariant(v2, space.key(v2), segs, m, u, space.use(v2), Arrays.copyOf(tools, t),
-        fixedCost, pinned);
+        fixedCost, pinned, w);
   }
 
   /** True when some segment accepts it, so that it can be offered at all. */

@@ -70,7 +70,9 @@ final class Relaxation {
    * the k best outside the pool.
    */
   Probe bound(Pool pool, double[] pi, double[] mu, ChoicePrices beta, int k) {
-    VariantQuery q = new VariantQuery(pi, mu, terms.introductionCost(), null, 0.0, k, pool.keys(), deadlineNanos);
+    double[] column = beta.columnPrice(mu);
+    VariantQuery q = new VariantQuery(pi, column, terms.introductionCost(), null, 0.0, k, pool.keys(), deadlineNanos)
+        .withAttractionBonus(beta.attractionBonus());
     PricingOutcome out = pricer.price(q);
     double[] listed = new double[pool.size() + out.found().size()];
     for (int i = 0; i < pool.size(); i++) {
@@ -81,11 +83,12 @@ final class Relaxation {
       listed[pool.size() + i] = out.found().get(i).reducedCost();
     }
     double constant = terms.rowValue(pi, mu) + beta.constant(terms, mu) + pool.current().constant();
-    return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), mu.clone())
-        .withPoolBonus(beta.bonus()), out.found(), out.exact());
+    return new Probe(LagrangianPortfolioBound.of(constant, listed, out.restBound(), cap, pi.clone(), column.clone())
+        .withPoolBonus(beta.bonus()).withAttractionBonus(beta.attractionBonus()), out.found(), out.exact());
   }
 
   RelaxationResult run(Pool pool, double[] lpPi, double[] lpMu) {
+    SalesEnvelope envelope = pool.choice().envelope(); // the tangents found here serve the tree and the MIPs
     long t0 = clock.elapsedMs();
     int k = Math.max(settings.perRound(), cap == PortfolioTerms.UNLIMITED ? BOUND_DEPTH : Math.min(cap, BOUND_DEPTH));
     LagrangianPortfolioBound best = bound(pool, lpPi, lpMu, ChoicePrices.none(terms.segmentCount()), k).bound();
@@ -96,6 +99,7 @@ final class Relaxation {
       for (PoolVariant v : pool.all()) {
         add(lp, pool, v);
       }
+      envelope.sync(lp);
       lp.reserveRows(); // the variants column generation adds keep GLOP's warm start
       PortfolioLpSolution sol = null;
       boolean converged = false;
@@ -113,7 +117,8 @@ final class Relaxation {
           best = probe.bound();
         }
         int cuts = lp.segmentCutCount();
-        if (cuts == 0 && probe.bound().value() < plain.value()) {
+        int tangents = lp.envelopeCount();
+        if (cuts + tangents == 0 && probe.bound().value() < plain.value()) {
           plain = probe.bound();
         }
         double z = sol.objective() + pool.current().constant();
@@ -133,14 +138,15 @@ final class Relaxation {
         double shown = converged ? Math.min(z, best.value()) : best.value();
         boolean closed = new ValueBound(z, shown, terms.gapFloor()).within(settings.gap());
         listener.event(new PortfolioEvent(PortfolioEvent.Kind.RELAXATION, clock.elapsedMs(), z, shown, pool.size(),
-            entering.size(), "round " + round + (cuts == 0 ? "" : ", " + cuts + " segment cuts")));
+            entering.size(), "round " + round + (cuts == 0 ? "" : ", " + cuts + " segment cuts")
+                + (tangents == 0 ? "" : ", " + tangents + " sales envelope tangents")));
         if (stop.fired(clock.now(round))) {
           break;
         }
         if (entering.isEmpty() && exact || closed) {
-          // priced to the end (or to the gap): cut off this point if a segment's demand row allows it,
-          // then price again
-          if (SegmentCuts.separate(lp, sol, pool, terms) == 0) {
+          // priced to the end (or to the gap): cut off this point if a choosing segment's sales envelope
+          // or a segment's demand row allows it, then price again
+          if (envelope.separate(lp, sol) == 0 && SegmentCuts.separate(lp, sol, pool, terms) == 0) {
             break;
           }
           continue;

@@ -142,6 +142,9 @@ public final class VariantPricer {
   private double[] pen;
   private double charge;
   private double[] accCharge;
+  /** [pair]: the query's value per unit of attraction ({@link VariantQuery#attractionBonus}); null for none. */
+  private double[] attBonus;
+  private final double[] stayOutOf; // [pair]: stay-out utility of a choosing pair
   /** The query's nonzero pair charges ({@link VariantQuery#pairCharge}): segment, flat choice, its group, δ. */
   private int[] pairS = new int[0];
   private int[] pairF = new int[0];
@@ -214,12 +217,14 @@ public final class VariantPricer {
     sure = new boolean[perScenario];
     util = new double[segments][];
     baseCap = new double[segments];
+    stayOutOf = new double[segments];
     boolean choosing = false;
     for (int k = 0; k < scenarios; k++) {
       for (int s = 0; s < perScenario; s++) {
         baseCap[k * perScenario + s] = termsOf.get(k).columnBound()[s];
         if (spaces.get(k).chooses(s)) {
           util[k * perScenario + s] = spaces.get(k).choiceUtilities(s);
+          stayOutOf[k * perScenario + s] = spaces.get(k).stayOut(s);
           choosing = true;
         }
       }
@@ -299,6 +304,15 @@ public final class VariantPricer {
       }
     }
     p += VariantQuery.pairChargeOf(q.pairCharge(), v, first.offsets(), s -> first.isColumn(v, s));
+    double[] bonus = q.attractionBonus();
+    for (int j = 0; bonus != null && j < bonus.length; j++) {
+      int k = j / sc;
+      int s = j - k * sc;
+      VariantSpace sp = spaces.get(k);
+      if (bonus[j] > 0 && sp.chooses(s) && sp.isColumn(v, s)) {
+        sum += bonus[j] * ChoiceRows.attractionOf(sp, v, s);
+      }
+    }
     return sum - q.charge() - p;
   }
 
@@ -370,6 +384,21 @@ public final class VariantPricer {
     }
     charge = q.charge();
     accCharge = q.acceptCharge();
+    attBonus = null;
+    if (q.attractionBonus() != null) {
+      if (q.attractionBonus().length != segments) {
+        throw new IllegalArgumentException("attractionBonus has " + q.attractionBonus().length
+            + " entries, the prices " + segments + " segments");
+      }
+      for (int p = 0; p < segments; p++) {
+        if (q.attractionBonus()[p] < 0 || q.attractionBonus()[p] > 0 && util[p] == null) {
+          throw new IllegalArgumentException("attractionBonus must be >= 0, and 0 where a segment does not choose");
+        }
+        if (q.attractionBonus()[p] > 0) {
+          attBonus = q.attractionBonus();
+        }
+      }
+    }
     threshold = q.threshold();
     k = q.k();
     excluded = q.excluded();
@@ -402,6 +431,7 @@ public final class VariantPricer {
     w = null;
     pen = null;
     accCharge = null;
+    attBonus = null;
     excluded = null;
     top = null;
     return out;
@@ -546,7 +576,7 @@ public final class VariantPricer {
       if (anyChoice) {
         logitCaps(ub, leafU);
       }
-      double b = lotValue(ub)
+      double b = lotValue(ub) + (attBonus == null ? 0.0 : attraction(ub, leafU))
           - charge - (penPartial[d] + pen[f] + penaltyAhead(ub, penRest))
           - (accCharge == null ? 0.0 : acceptance(ub, false, together))
           - (pairS.length == 0 ? 0.0 : pairCharges(d, g, f, ub));
@@ -820,6 +850,22 @@ public final class VariantPricer {
     return out;
   }
 
+  /**
+   * Σ over the choosing pairs p still alive in {@code d} (that may accept, or at a leaf accept) of
+   * {@link #attBonus}[p]·w at utility {@code u}[p]: at a leaf the variant's own attraction, inside the
+   * search the attraction at its optimistic utility, which bounds every completion's (w is increasing
+   * in u, and the bonus is ≥ 0).
+   */
+  private double attraction(double[] d, double[] u) {
+    double sum = 0;
+    for (int p = 0; p < segments; p++) {
+      if (attBonus[p] > 0 && d[p] != Double.NEGATIVE_INFINITY) {
+        sum += attBonus[p] * dev.mixwright.choice.Logit.attraction(u[p], stayOutOf[p]);
+      }
+    }
+    return sum;
+  }
+
   private void leaf() {
     assert space.isBuildable(v) : "forward checking let a rule violation through";
     double[] d = leafD;
@@ -846,7 +892,8 @@ public final class VariantPricer {
     for (int g = 0; g < groups; g++) {
       p += pen[offset[g] + v[g]];
     }
-    double val = lotValue(d) - charge - p - (accCharge == null ? 0.0 : acceptance(d, true, -1L));
+    double val = lotValue(d) + (attBonus == null ? 0.0 : attraction(d, leafU)) - charge - p
+        - (accCharge == null ? 0.0 : acceptance(d, true, -1L));
     for (int j = 0; j < pairS.length; j++) {
       if (d[pairS[j]] != Double.NEGATIVE_INFINITY && offset[pairG[j]] + v[pairG[j]] == pairF[j]) {
         val -= pairD[j];

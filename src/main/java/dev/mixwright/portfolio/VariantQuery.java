@@ -17,7 +17,9 @@ import java.util.Set;
  * (the duals of a tree node's segment count rows: a charge when positive, a bonus when negative), and
  * less Σ_{s accepts v} Σ_g {@code pairCharge[s][choice of v in g]} (the duals of a node's count rows
  * on the variants that a segment accepts and that use a choice). {@code penalty}, {@code acceptCharge}
- * and {@code pairCharge} may be null (all zero). {@code deadlineNanos}: a
+ * and {@code pairCharge} may be null (all zero). Plus Σ_{s accepts v} {@code attractionBonus[s]}·w_s(v)
+ * over the choosing segments, w_s(v) = exp(u_s(v) − stayOut_s) (the duals of the sales envelopes of
+ * {@link SalesEnvelope}; null for none). {@code deadlineNanos}: a
  * {@code System.nanoTime()} after which the search stops with a valid bound, 0 for none.
  *
  * <p>For a range across scenarios k = 1..n ({@link VariantPricer} built over n scenarios) the prices
@@ -36,14 +38,15 @@ public record VariantQuery(
     long deadlineNanos,
     double[] scenarioWeight,
     double[] acceptCharge,
-    double[][] pairCharge) {
+    double[][] pairCharge,
+    double[] attractionBonus) {
 
   /** A query without charges on (segment, choice) pairs. */
   public VariantQuery(double[] resourcePrice, double[] segmentPrice, double charge, double[] penalty,
       double threshold, int k, Set<VariantKey> excluded, long deadlineNanos, double[] scenarioWeight,
       double[] acceptCharge) {
     this(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos, scenarioWeight,
-        acceptCharge, null);
+        acceptCharge, null, null);
   }
 
   /** A query without acceptance charges. */
@@ -61,7 +64,7 @@ public record VariantQuery(
   /** This query with a charge per segment that accepts the variant ({@code null}: none). */
   public VariantQuery withAcceptCharge(double[] perSegment) {
     return new VariantQuery(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos,
-        scenarioWeight, perSegment, pairCharge);
+        scenarioWeight, perSegment, pairCharge, attractionBonus);
   }
 
   /**
@@ -70,7 +73,16 @@ public record VariantQuery(
    */
   public VariantQuery withPairCharge(double[][] perPair) {
     return new VariantQuery(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos,
-        scenarioWeight, acceptCharge, perPair);
+        scenarioWeight, acceptCharge, perPair, attractionBonus);
+  }
+
+  /**
+   * This query with a value per unit of attraction w_s(v) in each choosing segment s that accepts the
+   * variant ({@code null}: none; entries ≥ 0).
+   */
+  public VariantQuery withAttractionBonus(double[] perSegment) {
+    return new VariantQuery(resourcePrice, segmentPrice, charge, penalty, threshold, k, excluded, deadlineNanos,
+        scenarioWeight, acceptCharge, pairCharge, perSegment);
   }
 
   /**

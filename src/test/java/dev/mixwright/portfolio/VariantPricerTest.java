@@ -209,7 +209,38 @@ class VariantPricerTest {
     return pair;
   }
 
+  /**
+   * Choosing segments with a value per unit of a variant's attraction (the duals of the sales envelopes,
+   * {@link SalesEnvelope}): the search adds it at a node's optimistic utility while a segment may still
+   * accept, a leaf at the variant's own; the k best, their values and the rest bound against brute
+   * force (the bonus written out as Σ_s bonus_s·exp(u_s(v) − stayOut_s) over the choosing segments that
+   * accept v), with segment and pair charges in some of the cases. Leaving the bonus out of the search's
+   * bounds makes it fail.
+   */
+  @Test
+  void attractionBonusesMatchBruteForce() {
+    for (int i = 0; i < 300; i++) {
+      kBest(i, new Random(83_000 + i), i % 2 == 0, true, i % 4 == 1, true);
+    }
+  }
+
+  /** Σ over the choosing segments s that accept v of bonus[s]·exp(u_s(v) − stayOut_s). */
+  private static double attractionValue(VariantSpace space, int[] v, double[] bonus) {
+    double b = 0;
+    for (int s = 0; bonus != null && s < bonus.length; s++) {
+      if (space.chooses(s) && space.isColumn(v, s)) {
+        b += bonus[s] * Math.exp(space.utility(v, s) - space.stayOut(s));
+      }
+    }
+    return b;
+  }
+
   private static void kBest(int i, Random rnd, boolean withAccept, boolean withChoice, boolean withPairs) {
+    kBest(i, rnd, withAccept, withChoice, withPairs, false);
+  }
+
+  private static void kBest(int i, Random rnd, boolean withAccept, boolean withChoice, boolean withPairs,
+      boolean withAttraction) {
     Catalog c = RandomCatalogs.random(rnd, 2 + rnd.nextInt(5), 4, 1 + rnd.nextInt(3), 1 + rnd.nextInt(3),
         rnd.nextInt(10), true);
     if (withAccept) {
@@ -238,10 +269,18 @@ class VariantPricerTest {
     }
     double[] accept = withAccept ? randomAccept(rnd, space.segmentCount()) : null;
     double[][] pair = withPairs ? randomPairs(rnd, space) : null;
+    double[] attraction = null;
+    if (withAttraction) {
+      attraction = new double[space.segmentCount()];
+      for (int s = 0; s < attraction.length; s++) {
+        attraction[s] = space.chooses(s) && rnd.nextDouble() < 0.7 ? rnd.nextDouble() * 30 : 0;
+      }
+    }
+    double[] bonus = attraction;
     List<Scored> all = new ArrayList<>();
     for (int[] v : BruteVariants.all(space)) {
       all.add(new Scored(v, BruteVariants.value(space, t, v, pi, mu, charge, penalty, accept)
-          - pairValue(space, v, pair)));
+          - pairValue(space, v, pair) + attractionValue(space, v, bonus)));
     }
     all.sort(Comparator.comparingDouble(Scored::value).reversed());
     Set<VariantKey> excluded = new HashSet<>();
@@ -255,24 +294,24 @@ class VariantPricerTest {
         : all.isEmpty() ? 0 : all.get(rnd.nextInt(all.size())).value() - 1;
     PricingOutcome out = new VariantPricer(space, t, Long.MAX_VALUE).price(
         new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept)
-            .withPairCharge(pair));
+            .withPairCharge(pair).withAttractionBonus(bonus));
     assertTrue(out.exact());
     List<Scored> want = all.stream()
         .filter(sc -> !excluded.contains(space.key(sc.v())) && sc.value() > threshold)
         .limit(k).toList();
     String where = "case " + i + (withAccept ? " with acceptance charges" : "") + (withChoice ? " choosing" : "")
-        + (withPairs ? " with pair charges" : "");
+        + (withPairs ? " with pair charges" : "") + (withAttraction ? " with attraction bonuses" : "");
     assertEquals(want.size(), out.found().size(), where);
     Set<VariantKey> seen = new HashSet<>();
     for (int j = 0; j < want.size(); j++) {
       PricedVariant got = out.found().get(j);
       assertEquals(want.get(j).value(), got.reducedCost(), tol(got.reducedCost()), where);
       double direct = BruteVariants.value(space, t, got.choices(), pi, mu, charge, penalty, accept)
-          - pairValue(space, got.choices(), pair);
+          - pairValue(space, got.choices(), pair) + attractionValue(space, got.choices(), bonus);
       assertEquals(direct, got.reducedCost(), tol(direct), where);
       double own = VariantPricer.value(space, t, got.choices(),
           new VariantQuery(pi, mu, charge, penalty, threshold, k, excluded, 0).withAcceptCharge(accept)
-              .withPairCharge(pair));
+              .withPairCharge(pair).withAttractionBonus(bonus));
       assertEquals(direct, own, tol(direct), where);
       assertTrue(space.isBuildable(got.choices()), where);
       assertFalse(excluded.contains(space.key(got.choices())), where);
