@@ -25,6 +25,12 @@ import java.util.List;
  *       The row's dual δ_sf enters pricing as a charge on every variant s accepts that uses f ({@link
  *       VariantQuery#pairCharge}). Only choosing segments: on the generator's families (fixed segments)
  *       it cost more nodes than it saved (docs/portfolio.md, "A choosing segment's count of one option").
+ *   <li>On a choosing segment's variant: with those counts whole too, the most fractional free variant
+ *       that a choosing segment accepts, as in 5 below. The segment can still mix two offers crossed
+ *       (0.59 of variants with both a heater and a tank and with neither, 0.41 of those with one of
+ *       them each), which no count of one option separates; it accepts few variants, so deciding one
+ *       settles its offer soon (docs/portfolio.md, "A choosing segment's variant before the option
+ *       counts").
  *   <li>On a count (Vanderbeck 2000, "On Dantzig-Wolfe decomposition in integer programming and ways
  *       to perform branching in a branch-and-price algorithm", Operations Research 48(1)): when the
  *       relaxation offers a fractional number n of variants in all, or of variants using some option
@@ -116,6 +122,10 @@ final class VariantBranching {
     if (pair != null) {
       return pair;
     }
+    int crossed = choosingVariant(node, y, segmentsOf, pairSegments);
+    if (crossed >= 0) {
+      return Decision.variant(crossed);
+    }
     double total = 0;
     double[] byChoice = new double[totalChoices];
     for (int i = 0; i < y.length; i++) {
@@ -192,6 +202,39 @@ final class VariantBranching {
       }
     }
     return bestFrac > INTEGRAL ? Decision.count(bestKey, (int) Math.floor(bestN)) : null;
+  }
+
+  /**
+   * With a marked (choosing) segment's counts whole, per choice too, the most fractional free variant
+   * it accepts (ties to the larger y), or −1. Its relaxation can still mix two offers crossed: on the
+   * range demo quieturban at 0.59 of (3 kW heater, 150 l tank) and of (neither), 0.41 of (heater only)
+   * and of (tank only), where every count of one choice is 1; no count on one choice separates the two
+   * offers, and the global choice counts that come next move the segment only by chance. A choosing
+   * segment accepts few variants (40 and 1,152 there), so deciding one of them settles its offer soon.
+   */
+  private static int choosingVariant(TreeNode node, double[] y, java.util.function.IntFunction<int[]> segmentsOf,
+      boolean[] pairSegments) {
+    if (pairSegments == null) {
+      return -1;
+    }
+    int best = -1;
+    double bestScore = -1;
+    for (int i = 0; i < y.length; i++) {
+      double f = Math.min(y[i], 1 - y[i]);
+      if (f <= INTEGRAL || node.isOffered(i) || node.isBarred(i)) {
+        continue;
+      }
+      boolean marked = false;
+      for (int s : segmentsOf.apply(i)) {
+        marked |= pairSegments[s];
+      }
+      double score = f + 1e-3 * y[i];
+      if (marked && score > bestScore) {
+        bestScore = score;
+        best = i;
+      }
+    }
+    return best;
   }
 
   /**

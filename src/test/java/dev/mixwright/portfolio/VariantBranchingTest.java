@@ -185,6 +185,29 @@ class VariantBranchingTest {
   }
 
   @Test
+  void withAChoosingSegmentsCountsWholeItsMostFractionalVariantComesBeforeTheChoiceCounts() {
+    // segment 0 (accepting a0 and a1) offered crossed: (a0,b0) and (a1,b1) at 0.6, (a0,b1) and (a1,b0) at
+    // 0.4; its count is 2 and each of its counts per choice is 1. Segment 1 (b0) counts 1. Variant 5 =
+    // (a2,b1), accepted by neither, at 0.5 makes the total 2.5 and a2 0.5.
+    double[] y = {0.6, 0.4, 0.4, 0.6, 0, 0.5};
+    VariantBranching.Decision d = VariantBranching.choose(TreeNode.root(0), y, VariantBranchingTest::choicesOf,
+        VariantBranchingTest::segmentsOf, 2, new boolean[] {true, false}, OFFSETS, 5);
+    // segment 0 chooses: its most fractional variant (the larger y of the ties) before the total
+    assertTrue(!d.onCount());
+    assertEquals(0, d.variant());
+    // when it does not choose, the total comes first, as before
+    d = VariantBranching.choose(TreeNode.root(0), y, VariantBranchingTest::choicesOf,
+        VariantBranchingTest::segmentsOf, 2, new boolean[] {false, false}, OFFSETS, 5);
+    assertTrue(d.onCount());
+    assertEquals(TreeNode.TOTAL, d.choice());
+    // a decided variant is skipped: the next one of the segment
+    TreeNode barred = VariantBranching.children(TreeNode.root(0), VariantBranching.Decision.variant(0), 0).get(1);
+    d = VariantBranching.choose(barred, y, VariantBranchingTest::choicesOf, VariantBranchingTest::segmentsOf, 2,
+        new boolean[] {true, false}, OFFSETS, 5);
+    assertEquals(3, d.variant());
+  }
+
+  @Test
   void aFractionalTotalIsSplitFirst() {
     // y = (0.5, 0.5, 0.7): 1.7 variants in all → at most 1 / at least 2
     VariantBranching.Decision d = VariantBranching.choose(TreeNode.root(0), new double[] {0.5, 0.5, 0.7},
