@@ -474,8 +474,11 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
     if (!envelopes.isEmpty()) {
       ChoosingTotals t = choosingTotals(new PortfolioLpSolution(LpStatus.OPTIMAL, 0, y, x, null, null, 0));
       for (Envelope e : envelopes) {
-        double lhs = t.sold()[e.segment()] - e.slope() * t.attraction()[e.segment()];
-        if (lhs > e.rhs() + FEASIBILITY_TOLERANCE * Math.max(1.0, Math.abs(e.rhs()))) {
+        double sold = t.sold()[e.segment()];
+        double pull = e.slope() * t.attraction()[e.segment()];
+        // relative to the row's largest term: its two sides can be far larger than their difference
+        double scale = Math.max(Math.max(1.0, Math.abs(e.rhs())), Math.max(sold, pull));
+        if (sold - pull > e.rhs() + FEASIBILITY_TOLERANCE * scale) {
           return false;
         }
       }
