@@ -717,11 +717,6 @@ final class BranchAndPrice {
         if (!sol.isOptimal()) {
           return NodeLp.ending(park(node, best, "the relaxation of a node ended " + sol.status() + " in GLOP"));
         }
-        if (tangentRounds < TANGENT_ROUNDS && pool.choice().envelope().separate(lp, sol) > 0) {
-          // the node's relaxation sells more in a choosing segment than its offer's attraction allows
-          tangentRounds++;
-          continue;
-        }
         for (int b = 0; b < blocks; b++) {
           if (sol.y()[b] > 0) {
             usedAt[b] = stamp;
@@ -765,6 +760,12 @@ final class BranchAndPrice {
           }
         }
         if (added == 0 && probe.exact) {
+          if (tangentRounds < TANGENT_ROUNDS && pool.choice().envelope().separate(lp, sol) > 0) {
+            // priced to the end, and it sells more in a choosing segment than its offer's attraction
+            // allows: cut that off and price again (as the stage's relaxation does), the bound so far kept
+            tangentRounds++;
+            continue;
+          }
           return new NodeLp(poolY(sol), best, last, null);
         }
         Optional<String> why = stop.check(clock.now(round));
