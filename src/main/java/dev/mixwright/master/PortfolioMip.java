@@ -70,6 +70,8 @@ public final class PortfolioMip implements PortfolioShape, AutoCloseable {
   private final List<int[]> segmentsOf = new ArrayList<>();
   /** Attraction entries: variant, entry, w (for the sales envelope rows). */
   private final List<double[]> attractions = new ArrayList<>();
+  /** Sales envelope rows added (for their names). */
+  private int envelopes;
   private final boolean wholeUnits;
   private final double[] demand;
   /** Stay-out x_s0 per choosing segment, null for a fixed one. */
@@ -177,7 +179,7 @@ public final class PortfolioMip implements PortfolioShape, AutoCloseable {
     if (stay[segment] == null) {
       throw new IllegalArgumentException("segment " + segment + " does not choose");
     }
-    MPConstraint c = solver.makeConstraint(Double.NEGATIVE_INFINITY, rhs, "env" + segment);
+    MPConstraint c = solver.makeConstraint(Double.NEGATIVE_INFINITY, rhs, "env" + segment + "_" + envelopes++);
     for (double[] a : attractions) {
       int i = (int) a[0];
       int k = (int) a[1];

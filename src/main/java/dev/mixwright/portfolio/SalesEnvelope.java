@@ -38,7 +38,10 @@ import java.util.List;
  * adds, in the list's order, the ones it does not hold yet ({@link #sync}). Thread-safe.
  */
 final class SalesEnvelope {
-  /** Most tangents per segment: past a few dozen they approximate the curve closer than the prices matter. */
+  /**
+   * Most tangents per segment, a cap on the rows every master holds (the range demo adds 8 at its root;
+   * 100 instead of 40 changed nothing there: docs/portfolio.md, Results).
+   */
   static final int MOST_PER_SEGMENT = 40;
 
   private final double[] buyers;
