@@ -155,14 +155,18 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
   public record ChoosingTotals(double[] sold, double[] attraction) {}
 
   public ChoosingTotals choosingTotals(PortfolioLpSolution sol) {
+    return choosingTotals(sol.y(), sol.x());
+  }
+
+  private ChoosingTotals choosingTotals(double[] y, double[][] x) {
     double[] sold = new double[demand.length];
     double[] w = new double[demand.length];
     for (double[] a : attractions) {
       int i = (int) a[0];
       int k = (int) a[1];
       int s = blocks.get(i).segments()[k];
-      sold[s] += sol.x()[i][k];
-      w[s] += a[2] * sol.y()[i];
+      sold[s] += x[i][k];
+      w[s] += a[2] * y[i];
     }
     return new ChoosingTotals(sold, w);
   }
@@ -472,7 +476,7 @@ public final class PortfolioLp implements PortfolioShape, AutoCloseable {
       }
     }
     if (!envelopes.isEmpty()) {
-      ChoosingTotals t = choosingTotals(new PortfolioLpSolution(LpStatus.OPTIMAL, 0, y, x, null, null, 0));
+      ChoosingTotals t = choosingTotals(y, x);
       for (Envelope e : envelopes) {
         double sold = t.sold()[e.segment()];
         double pull = e.slope() * t.attraction()[e.segment()];

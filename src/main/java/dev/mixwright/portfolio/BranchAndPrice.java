@@ -986,10 +986,9 @@ final class BranchAndPrice {
       }
       double theta = z - b.valueAtLambda() + b.lambda();
       long soon = System.nanoTime() + 250_000_000L;
-      VariantQuery q = new VariantQuery(b.resourcePrice(), b.segmentPrice(), probe.query.charge(),
-          probe.query.penalty(), theta - 1e-7 * (1 + Math.abs(z)), RETIRE_LIMIT + 1, pool.keysBelow(probe.psi.length),
-          deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon)).withAcceptCharge(probe.query.acceptCharge())
-          .withPairCharge(probe.query.pairCharge()).withAttractionBonus(probe.query.attractionBonus());
+      VariantQuery q = b.query(probe.query.charge(), probe.query.penalty(), theta - 1e-7 * (1 + Math.abs(z)),
+          RETIRE_LIMIT + 1, pool.keysBelow(probe.psi.length), deadlineNanos == 0 ? soon : Math.min(deadlineNanos, soon))
+          .withAcceptCharge(probe.query.acceptCharge()).withPairCharge(probe.query.pairCharge());
       PricingOutcome out = pricer.price(q);
       if (!out.exact() || out.found().size() > RETIRE_LIMIT) {
         return false;

@@ -105,7 +105,7 @@ final class ChoiceRows {
   void attract(PortfolioLp lp, int i, PoolVariant v) {
     for (int k = 0; k < v.segments().length; k++) {
       if (space.chooses(v.segments()[k])) {
-        lp.addAttraction(i, k, attraction(v.choices(), v.segments()[k]));
+        lp.addAttraction(i, k, v.attraction()[k]);
       }
     }
   }
@@ -113,7 +113,7 @@ final class ChoiceRows {
   void attract(PortfolioMip mip, int i, PoolVariant v) {
     for (int k = 0; k < v.segments().length; k++) {
       if (space.chooses(v.segments()[k])) {
-        mip.addAttraction(i, k, attraction(v.choices(), v.segments()[k]));
+        mip.addAttraction(i, k, v.attraction()[k]);
       }
     }
   }

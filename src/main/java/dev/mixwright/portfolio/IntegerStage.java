@@ -562,7 +562,6 @@ public final class IntegerStage {
     return run;
   }
 
-
   /** Today's range as a fixed portfolio: every current variant some segment takes, nothing else; null when it does not fit. */
   private Plan todaysRange(Pool stagePool) {
     Pool pool = stagePool;

@@ -144,7 +144,7 @@ public final class VariantPricer {
   private double[] accCharge;
   /** [pair]: the query's value per unit of attraction ({@link VariantQuery#attractionBonus}); null for none. */
   private double[] attBonus;
-  private final double[] stayOutOf; // [pair]: stay-out utility of a choosing pair
+  private final double[] attW; // [pair]: the attraction the caps were last taken at ({@link #logitCaps})
   /** The query's nonzero pair charges ({@link VariantQuery#pairCharge}): segment, flat choice, its group, δ. */
   private int[] pairS = new int[0];
   private int[] pairF = new int[0];
@@ -217,14 +217,13 @@ public final class VariantPricer {
     sure = new boolean[perScenario];
     util = new double[segments][];
     baseCap = new double[segments];
-    stayOutOf = new double[segments];
+    attW = new double[segments];
     boolean choosing = false;
     for (int k = 0; k < scenarios; k++) {
       for (int s = 0; s < perScenario; s++) {
         baseCap[k * perScenario + s] = termsOf.get(k).columnBound()[s];
         if (spaces.get(k).chooses(s)) {
           util[k * perScenario + s] = spaces.get(k).choiceUtilities(s);
-          stayOutOf[k * perScenario + s] = spaces.get(k).stayOut(s);
           choosing = true;
         }
       }
@@ -250,13 +249,17 @@ public final class VariantPricer {
     return sum;
   }
 
-  /** Sets {@link #caps} of the choosing pairs alive in {@code d} from the utilities {@code u} (per pair). */
+  /**
+   * Sets {@link #caps} of the choosing pairs alive in {@code d} from the utilities {@code u} (per pair),
+   * and {@link #attW} to the attractions they were taken at ({@link ChoiceRows#capAt}'s two steps).
+   */
   private void logitCaps(double[] d, double[] u) {
     for (int p = 0; p < segments; p++) {
       if (util[p] != null && d[p] != Double.NEGATIVE_INFINITY) {
         int k = p / perScenario;
         int s = p - k * perScenario;
-        caps[k][s] = Math.min(baseCap[p], ChoiceRows.capAt(spaces.get(k), s, u[p]));
+        attW[p] = ChoiceRows.attractionAt(spaces.get(k), s, u[p]);
+        caps[k][s] = Math.min(baseCap[p], ChoiceRows.cap(spaces.get(k).buyers(s), attW[p]));
       }
     }
   }
@@ -576,7 +579,7 @@ public final class VariantPricer {
       if (anyChoice) {
         logitCaps(ub, leafU);
       }
-      double b = lotValue(ub) + (attBonus == null ? 0.0 : attraction(ub, leafU))
+      double b = lotValue(ub) + (attBonus == null ? 0.0 : attraction(ub))
           - charge - (penPartial[d] + pen[f] + penaltyAhead(ub, penRest))
           - (accCharge == null ? 0.0 : acceptance(ub, false, together))
           - (pairS.length == 0 ? 0.0 : pairCharges(d, g, f, ub));
@@ -852,15 +855,15 @@ public final class VariantPricer {
 
   /**
    * Σ over the choosing pairs p still alive in {@code d} (that may accept, or at a leaf accept) of
-   * {@link #attBonus}[p]·w at utility {@code u}[p]: at a leaf the variant's own attraction, inside the
-   * search the attraction at its optimistic utility, which bounds every completion's (w is increasing
-   * in u, and the bonus is ≥ 0).
+   * {@link #attBonus}[p]·w, w the attraction {@link #logitCaps} just took the caps at (called with the
+   * same {@code d} before this): at a leaf the variant's own, inside the search the one at its optimistic
+   * utility, which bounds every completion's (w is increasing in u, and the bonus is ≥ 0).
    */
-  private double attraction(double[] d, double[] u) {
+  private double attraction(double[] d) {
     double sum = 0;
     for (int p = 0; p < segments; p++) {
       if (attBonus[p] > 0 && d[p] != Double.NEGATIVE_INFINITY) {
-        sum += attBonus[p] * dev.mixwright.choice.Logit.attraction(u[p], stayOutOf[p]);
+        sum += attBonus[p] * attW[p];
       }
     }
     return sum;
@@ -892,7 +895,7 @@ public final class VariantPricer {
     for (int g = 0; g < groups; g++) {
       p += pen[offset[g] + v[g]];
     }
-    double val = lotValue(d) + (attBonus == null ? 0.0 : attraction(d, leafU)) - charge - p
+    double val = lotValue(d) + (attBonus == null ? 0.0 : attraction(d)) - charge - p
         - (accCharge == null ? 0.0 : acceptance(d, true, -1L));
     for (int j = 0; j < pairS.length; j++) {
       if (d[pairS[j]] != Double.NEGATIVE_INFINITY && offset[pairG[j]] + v[pairG[j]] == pairF[j]) {
